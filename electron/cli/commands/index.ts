@@ -1,0 +1,5 @@
+/** Every CLI sub-command. Add a command by adding its module here. */
+import type { CliCommand } from '../io';
+import { describeCommand } from './describe';
+
+export const commands: CliCommand[] = [describeCommand];

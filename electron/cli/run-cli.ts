@@ -1,0 +1,42 @@
+/** The CLI's entry, independent of the process so tests can run it in-process. */
+import { parseArgs } from './args';
+import { commands } from './commands';
+import { CliInputError } from './io';
+import type { CliIO } from './io';
+
+const CAUTION =
+  'Planning and training only: verify against makers\' data, protection studies, local codes and licensed practice.';
+
+function usage(): string {
+  const lines = commands.map((c) => `  ${c.usage.padEnd(52)} ${c.summary}`);
+  return `droopline — paralleling and synchronizing generating sets\n\nusage:\n${lines.join('\n')}\n\nexit codes: 0 result, 2 invalid input, 3 no steady state\n${CAUTION}\n`;
+}
+
+/** Runs one CLI invocation; returns the exit code. */
+export async function runCli(argv: readonly string[], io: CliIO): Promise<number> {
+  const [name, ...rest] = argv;
+  if (!name || name === '--help' || name === '-h' || name === 'help') {
+    io.out(usage());
+    return name ? 0 : 2;
+  }
+  const cmd = commands.find((c) => c.name === name);
+  if (!cmd) {
+    io.err(`droopline: unknown command "${name}"\n\n${usage()}`);
+    return 2;
+  }
+  try {
+    const args = parseArgs(rest, cmd.valueFlags);
+    if (args.flags.has('help')) {
+      io.out(`usage: ${cmd.usage}\n`);
+      return 0;
+    }
+    return await cmd.run(args, io);
+  } catch (e) {
+    if (e instanceof CliInputError) {
+      io.err(`droopline ${cmd.name}: ${e.message}\nusage: ${cmd.usage}\n`);
+      return 2;
+    }
+    io.err(`droopline ${cmd.name}: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    return 1;
+  }
+}

@@ -1,0 +1,6 @@
+/** Public face of the handler layer, shared by IPC, the Web Worker and the CLI. */
+export { dispatch, handlers, toErrorShape } from './dispatch';
+export type { DispatchResult } from './dispatch';
+export type { HandlerContext, Handler, HandlerTable } from './handler';
+export { plantSchema } from './plant-schema';
+export { formatPath, parseOrThrow, ValidationError } from './validate';

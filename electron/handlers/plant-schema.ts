@@ -1,0 +1,144 @@
+/**
+ * The plant-file schema: the definition of a valid plant and the source of every
+ * "field: rule" message. Optional simulator fields get documented defaults.
+ */
+import { z } from 'zod';
+import { PLANT_FORMAT, PLANT_VERSION } from '../../shared-types';
+import type { Plant } from '../../shared-types';
+
+const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0');
+const nonNegative = (unit: string) =>
+  z.number({ error: `must be a number (${unit})` }).gte(0, 'must be 0 or more');
+const finite = (unit: string) => z.number({ error: `must be a number (${unit})` });
+
+const governorSchema = z
+  .object({
+    mode: z.enum(['droop', 'isochronous', 'baseload'], { error: 'must be "droop", "isochronous" or "baseload"' }),
+    droopPct: nonNegative('%').lte(20, 'must be 20 % or less').default(4),
+    noLoadHz: positive('Hz').optional(),
+    setpointHz: positive('Hz').optional(),
+    baseKW: finite('kW').default(0),
+    actuatorLagS: nonNegative('s').default(0.05),
+    engineLagS: nonNegative('s').default(0.3),
+    isoResetS: positive('s').default(2),
+  })
+  .strict();
+
+const regulatorSchema = z
+  .object({
+    mode: z.enum(['reactive-droop', 'cross-current', 'voltage', 'power-factor'], {
+      error: 'must be "reactive-droop", "cross-current", "voltage" or "power-factor"',
+    }),
+    droopPct: nonNegative('%').lte(20, 'must be 20 % or less').default(4),
+    noLoadV: positive('V').optional(),
+    setpointV: positive('V').optional(),
+    pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
+    exciterLagS: nonNegative('s').default(0.1),
+    gainPU: positive('pu').default(50),
+    ceilingPU: positive('pu').default(3),
+    shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
+    residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
+  })
+  .strict();
+
+const machineSchema = z
+  .object({
+    xdPU: positive('pu').default(2.5),
+    xdpPU: positive('pu').default(0.25),
+    xddpPU: positive('pu').default(0.15),
+    tdopS: positive('s').default(2.5),
+    inertiaS: positive('s').default(1),
+    dampingPU: nonNegative('pu').default(2),
+    raPU: nonNegative('pu').default(0.01),
+  })
+  .strict();
+
+const feederSchema = z.object({ rOhm: nonNegative('Ω').default(0), xOhm: nonNegative('Ω').default(0) }).strict();
+
+const setSchema = z
+  .object({
+    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    name: z.string({ error: 'must be text' }).optional(),
+    online: z.boolean({ error: 'must be true or false' }).default(true),
+    ratedKVA: positive('kVA'),
+    ratedKW: positive('kW'),
+    ratedPF: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lt(1, 'must be less than 1').default(0.8),
+    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').multipleOf(2, 'must be even').default(4),
+    minKW: finite('kW').default(0),
+    reversePowerTripPct: nonNegative('%').lte(50, 'must be 50 % or less').default(10),
+    leadingKVARLimitPct: nonNegative('%').lte(100, 'must be 100 % or less').default(30),
+    governor: governorSchema,
+    regulator: regulatorSchema,
+    machine: machineSchema.default({} as never),
+    feeder: feederSchema.default({} as never),
+  })
+  .strict();
+
+const loadSchema = z
+  .object({
+    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    name: z.string({ error: 'must be text' }).optional(),
+    online: z.boolean({ error: 'must be true or false' }).default(true),
+    kW: nonNegative('kW'),
+    kVAR: finite('kVAR'),
+    model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).default('constant-power'),
+    frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
+  })
+  .strict();
+
+/**
+ * Zod schema of a plant file; parsing fills defaults and checks cross-field rules.
+ * Defaults for setpoints: `noLoadHz = f_rated (1 + droop)` and `noLoadV = V_rated (1 + droop)`
+ * (rated output at rated frequency / voltage); `setpointHz`, `setpointV` = rated.
+ */
+export const plantSchema = z
+  .object({
+    format: z.literal(PLANT_FORMAT, { error: `must be "${PLANT_FORMAT}"` }),
+    version: z.literal(PLANT_VERSION, { error: `must be ${PLANT_VERSION} (this version of Droopline reads plant files of version ${PLANT_VERSION})` }),
+    name: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    ratedFrequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'must be 50 or 60 (Hz)' }),
+    ratedVoltageV: positive('V').lte(35000, 'must be 35 000 V or less'),
+    sets: z.array(setSchema, { error: 'must be a list of sets' }).min(1, 'must hold at least one set').max(256, 'must hold 256 sets or fewer'),
+    loads: z.array(loadSchema, { error: 'must be a list of loads' }).default([]),
+  })
+  .strict()
+  .superRefine((p, ctx) => {
+    const seen = new Set<string>();
+    p.sets.forEach((s, i) => {
+      if (seen.has(s.id)) ctx.addIssue({ code: 'custom', path: ['sets', i, 'id'], message: `must be unique ("${s.id}" is used twice)` });
+      seen.add(s.id);
+      if (s.ratedKW > s.ratedKVA) ctx.addIssue({ code: 'custom', path: ['sets', i, 'ratedKW'], message: 'must not exceed ratedKVA' });
+      const g = s.governor;
+      if (g.mode === 'droop' && !(g.droopPct > 0))
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'governor', 'droopPct'], message: 'must be greater than 0 in droop mode' });
+      if (s.minKW > s.ratedKW) ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not exceed ratedKW' });
+      if (s.minKW < (-s.reversePowerTripPct / 100) * s.ratedKW)
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not be below the reverse-power trip setting' });
+      const r = s.regulator;
+      if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });
+    });
+    const loadIds = new Set<string>();
+    p.loads.forEach((l, i) => {
+      if (loadIds.has(l.id)) ctx.addIssue({ code: 'custom', path: ['loads', i, 'id'], message: `must be unique ("${l.id}" is used twice)` });
+      loadIds.add(l.id);
+    });
+  })
+  .transform((p): Plant => ({
+    ...p,
+    sets: p.sets.map((s) => ({
+      ...s,
+      name: s.name ?? s.id,
+      governor: {
+        ...s.governor,
+        noLoadHz: s.governor.noLoadHz ?? p.ratedFrequencyHz * (1 + s.governor.droopPct / 100),
+        setpointHz: s.governor.setpointHz ?? p.ratedFrequencyHz,
+      },
+      regulator: {
+        ...s.regulator,
+        noLoadV: s.regulator.noLoadV ?? p.ratedVoltageV * (1 + s.regulator.droopPct / 100),
+        setpointV: s.regulator.setpointV ?? p.ratedVoltageV,
+      },
+    })),
+    loads: p.loads.map((l) => ({ ...l, name: l.name ?? l.id })),
+  }));

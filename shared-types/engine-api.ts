@@ -1,0 +1,63 @@
+/**
+ * The one contract between the renderer and the engine: method name → request and
+ * response. Channel names are these keys; nothing else names a channel.
+ */
+import type { Plant } from './plant';
+import type { PlantDescription } from './describe';
+import type { LoadSweep, SharingResult, SolveSharingRequest, SweepLoadRequest } from './sharing';
+import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from './sync';
+import type { Scenario, SimulationResult } from './simulation';
+import type { ProgressEvent } from './progress';
+
+/** A method's request and response types. */
+export interface Method<Req, Res> {
+  request: Req;
+  response: Res;
+}
+
+/** Every engine method. Long-running ones report progress and can be cancelled. */
+export interface EngineApi {
+  /** Rated figures of a plant (speeds, currents, totals). */
+  describePlant: Method<{ plant: Plant }, PlantDescription>;
+  /** Validate a plant file and return it with defaults filled in. */
+  validatePlant: Method<{ plant: unknown }, Plant>;
+  /** Steady-state kW/kVAR split, bus frequency and voltage. */
+  solveSharing: Method<SolveSharingRequest, SharingResult>;
+  /** The operating point over a range of load. */
+  sweepLoad: Method<SweepLoadRequest, LoadSweep>;
+  /** Sync-check verdict, advance angle and closing surge for a case. */
+  evaluateSync: Method<SyncCase, SyncResult>;
+  /** Limit presets from published standards and common practice. */
+  listSyncPresets: Method<Record<string, never>, SyncPreset[]>;
+  /** Surge current and torque over angle × slip (long; progress). */
+  closingMap: Method<ClosingMapRequest, ClosingMap>;
+  /** Time-domain simulation of a scenario (long; progress). */
+  simulate: Method<Scenario, SimulationResult>;
+}
+
+/** A method name, which is also its channel name. */
+export type EngineMethod = keyof EngineApi;
+export type EngineRequest<K extends EngineMethod> = EngineApi[K]['request'];
+export type EngineResponse<K extends EngineMethod> = EngineApi[K]['response'];
+
+/** Every method name at run time (a type test checks it lists every key). */
+export const ENGINE_METHODS = [
+  'describePlant',
+  'validatePlant',
+  'solveSharing',
+  'sweepLoad',
+  'evaluateSync',
+  'listSyncPresets',
+  'closingMap',
+  'simulate',
+] as const satisfies readonly EngineMethod[];
+
+/** Events the host pushes to the renderer; keys are channel names. */
+export interface EngineEvents {
+  engineProgress: ProgressEvent;
+}
+
+/** Channel for cancelling a running request (payload: request id). */
+export interface EngineControl {
+  engineCancel: { id: number };
+}

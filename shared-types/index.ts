@@ -1,0 +1,10 @@
+/** Public face of the shared types: the plant model, results and the engine contract. */
+export * from './plant';
+export * from './errors';
+export type * from './describe';
+export type * from './sharing';
+export * from './sync';
+export * from './simulation';
+export type * from './progress';
+export * from './engine-api';
+export type * from './bridge';

@@ -1,0 +1,132 @@
+/**
+ * The plant model: generating sets, their governors and regulators, feeders and loads.
+ * Field names carry their unit. Per-unit machine data is on the set's own base
+ * (`ratedKVA`, `ratedVoltageV` of the plant). See DESIGN.md, "The plant file".
+ */
+
+/** File format tag of a plant file. */
+export const PLANT_FORMAT = 'droopline.plant' as const;
+/** Current plant file version. */
+export const PLANT_VERSION = 1 as const;
+
+/** How a set's governor controls speed. */
+export type GovernorMode = 'droop' | 'isochronous' | 'baseload';
+/** How a set's voltage regulator controls terminal voltage. */
+export type RegulatorMode = 'reactive-droop' | 'cross-current' | 'voltage' | 'power-factor';
+/** How a load responds to voltage. */
+export type LoadModel = 'constant-power' | 'constant-impedance';
+
+/** Governor (speed control) settings of one set. */
+export interface Governor {
+  mode: GovernorMode;
+  /** Speed droop, % of rated frequency from no load to rated kW. Used in `droop` mode. */
+  droopPct: number;
+  /** No-load frequency, Hz (droop mode). */
+  noLoadHz: number;
+  /** Frequency held in isochronous mode, Hz. */
+  setpointHz: number;
+  /** Output held in base-load mode, kW. */
+  baseKW: number;
+  /** Time-domain data (simulator only). Defaults are applied by the schema. */
+  actuatorLagS: number;
+  /** Engine torque lag, s (simulator). */
+  engineLagS: number;
+  /** Isochronous PI reset time, s (simulator). */
+  isoResetS: number;
+}
+
+/** Voltage regulator (excitation control) settings of one set. */
+export interface Regulator {
+  mode: RegulatorMode;
+  /** Reactive droop, % of rated voltage at `Qbase = ratedKVA * sqrt(1 - ratedPF^2)`. */
+  droopPct: number;
+  /** No-load voltage, V line-to-line (reactive-droop mode). */
+  noLoadV: number;
+  /** Voltage held in voltage and cross-current modes, V line-to-line. */
+  setpointV: number;
+  /** Power factor held in power-factor mode (lagging, 0 < pf ≤ 1). */
+  pf: number;
+  /** Exciter time constant, s (simulator). */
+  exciterLagS: number;
+  /** Regulator gain, pu field voltage per pu voltage error (simulator). */
+  gainPU: number;
+  /** Field-voltage ceiling, pu (simulator). */
+  ceilingPU: number;
+  /** Shunt (self) excitation: the ceiling scales with terminal voltage (simulator). */
+  shuntExcited: boolean;
+  /** Residual-magnetism voltage, pu of rated, for shunt build-up (simulator). */
+  residualPU: number;
+}
+
+/** Synchronous machine data, per unit on the set's base (`ratedKVA`, plant `ratedVoltageV`). */
+export interface Machine {
+  /** Synchronous reactance X d, pu. */
+  xdPU: number;
+  /** Transient reactance X'd, pu. */
+  xdpPU: number;
+  /** Subtransient reactance X''d, pu. */
+  xddpPU: number;
+  /** Open-circuit transient time constant T'd0, s. */
+  tdopS: number;
+  /** Inertia constant H of set and engine, s (kW·s per kVA). */
+  inertiaS: number;
+  /** Damping coefficient, pu power per pu speed deviation (simulator). */
+  dampingPU: number;
+  /** Armature resistance, pu (closing surge R/X, simulator). */
+  raPU: number;
+}
+
+/** The cable or bus duct from a set's terminals to the common bus (per phase). */
+export interface Feeder {
+  rOhm: number;
+  xOhm: number;
+}
+
+/** One generating set. */
+export interface GenSet {
+  id: string;
+  name: string;
+  /** Breaker closed and set running on the bus. */
+  online: boolean;
+  ratedKVA: number;
+  ratedKW: number;
+  /** Rated power factor (lagging). */
+  ratedPF: number;
+  poles: number;
+  /** Lowest output the governor may be asked for, kW (≥ negative reverse-power trip). */
+  minKW: number;
+  /** Reverse-power trip setting (device 32), % of `ratedKW`. */
+  reversePowerTripPct: number;
+  /** Under-excitation (leading kVAR) warning limit, % of `ratedKVA`. */
+  leadingKVARLimitPct: number;
+  governor: Governor;
+  regulator: Regulator;
+  machine: Machine;
+  feeder: Feeder;
+}
+
+/** One load on the common bus. */
+export interface Load {
+  id: string;
+  name: string;
+  online: boolean;
+  /** Active power at rated voltage and frequency, kW. */
+  kW: number;
+  /** Reactive power at rated voltage, kVAR (positive = lagging, absorbs VARs). */
+  kVAR: number;
+  model: LoadModel;
+  /** Frequency sensitivity: % change of kW per % change of frequency (0 = none). */
+  frequencySensitivity: number;
+}
+
+/** A whole plant: the sets and loads on one common bus. */
+export interface Plant {
+  format: typeof PLANT_FORMAT;
+  version: typeof PLANT_VERSION;
+  name: string;
+  ratedFrequencyHz: number;
+  /** Line-to-line rated voltage, V. */
+  ratedVoltageV: number;
+  sets: GenSet[];
+  loads: Load[];
+}

@@ -1,0 +1,105 @@
+/** Steady-state sharing: requests and results (`solveSharing`, `sweepLoad`). */
+import type { Plant } from './plant';
+
+/** Per-set conditions, as words (shown with icons and text, never colour alone). */
+export type SetFlag =
+  | 'overload-kW'
+  | 'overload-kVA'
+  | 'reverse-power'
+  | 'at-max-kW'
+  | 'at-min-kW'
+  | 'under-excited'
+  | 'offline';
+
+/** Optional overrides of the plant's loads: one aggregate load replaces them. */
+export interface LoadOverride {
+  kW: number;
+  kVAR: number;
+}
+
+/** Request of `solveSharing`. */
+export interface SolveSharingRequest {
+  plant: Plant;
+  /** Replace the plant's loads by one constant-power load. */
+  load?: LoadOverride;
+}
+
+/** One set at the operating point. Generator convention: Q > 0 lagging. */
+export interface SetResult {
+  id: string;
+  name: string;
+  online: boolean;
+  kW: number;
+  kVAR: number;
+  kVA: number;
+  /** Power factor magnitude (0..1); `pfLagging` tells the sense. */
+  pf: number;
+  pfLagging: boolean;
+  currentA: number;
+  /** Terminal voltage, V line-to-line. */
+  terminalV: number;
+  /** kW as % of ratedKW. */
+  loadingPct: number;
+  /** kVA as % of ratedKVA. */
+  loadingKVAPct: number;
+  /** kW minus the proportional (ratedKW-weighted) share, % of ratedKW. */
+  sharingErrorKWPct: number;
+  /** kVAR minus the proportional (ratedKVA-weighted) share, % of ratedKVA. */
+  sharingErrorKVARPct: number;
+  /** Reactive current minus its proportional share, A (sums to zero). */
+  circulatingA: number;
+  /** Circulating current, % of rated current. */
+  circulatingPct: number;
+  /** Feeder losses, kW. */
+  feederLossKW: number;
+  flags: SetFlag[];
+}
+
+/** Where the plant settles. */
+export interface SharingResult {
+  bus: { frequencyHz: number; voltageV: number };
+  sets: SetResult[];
+  totals: {
+    kW: number;
+    kVAR: number;
+    kVA: number;
+    loadKW: number;
+    loadKVAR: number;
+    feederLossKW: number;
+    feederLossKVAR: number;
+  };
+  /** Plain-language notes (e.g. isochronous set saturated, frequency outside band). */
+  warnings: string[];
+  /** Which method solved it: closed forms or the network Newton–Raphson. */
+  method: 'closed-form' | 'newton-raphson';
+  iterations: number;
+}
+
+/** Request of `sweepLoad`: total load from `fromPct` to `toPct` of online kW rating. */
+export interface SweepLoadRequest {
+  plant: Plant;
+  /** Number of points (≥ 2). */
+  steps: number;
+  fromPct?: number;
+  toPct?: number;
+  /** Load power factor for the swept load (lagging). Defaults to the plant loads' PF. */
+  pf?: number;
+}
+
+/** One point of a load sweep; `error` is set where no steady state exists. */
+export interface SweepPoint {
+  loadPct: number;
+  loadKW: number;
+  loadKVAR: number;
+  frequencyHz: number | null;
+  voltageV: number | null;
+  setKW: (number | null)[];
+  setKVAR: (number | null)[];
+  error?: string;
+}
+
+/** Result of `sweepLoad`. */
+export interface LoadSweep {
+  setIds: string[];
+  points: SweepPoint[];
+}

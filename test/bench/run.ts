@@ -1,0 +1,18 @@
+/**
+ * `npm run bench`: runs every suite and prints a Markdown table with the machine.
+ * Add a suite by writing `test/bench/<name>.bench.ts` exporting `run(): BenchResult[]`
+ * and listing it below.
+ */
+import { cpus, totalmem } from 'node:os';
+import { formatResult } from './harness';
+import type { BenchResult } from './harness';
+import * as describeSuite from './describe.bench';
+
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }];
+
+const cpu = cpus()[0]?.model ?? 'unknown CPU';
+process.stdout.write(`Machine: ${cpu}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`);
+process.stdout.write('| case | median per call | calls |\n| --- | --- | --- |\n');
+for (const s of suites) {
+  for (const r of await s.run()) process.stdout.write(formatResult(r) + '\n');
+}

@@ -1,0 +1,28 @@
+/**
+ * Builds the browser preview once and serves it on 127.0.0.1 for the e2e files
+ * (in-process through Vite's preview API, so no orphan server is left behind).
+ */
+import { existsSync } from 'node:fs';
+import { build, preview } from 'vite';
+import type { TestProject } from 'vitest/node';
+import { CHROMIUM_PATH } from './chromium';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    previewUrl: string;
+  }
+}
+
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  if (!existsSync(CHROMIUM_PATH)) {
+    throw new Error(`Chromium is missing at ${CHROMIUM_PATH}: install it with "sudo apt-get install -y chromium" (the e2e tests need it).`);
+  }
+  await build({ logLevel: 'warn' });
+  const server = await preview({ preview: { host: '127.0.0.1', port: 0, strictPort: false, open: false }, logLevel: 'warn' });
+  const url = server.resolvedUrls?.local[0];
+  if (!url) throw new Error('The preview server did not report its URL.');
+  project.provide('previewUrl', url);
+  return async () => {
+    await new Promise<void>((resolve) => server.httpServer.close(() => resolve()));
+  };
+}

@@ -1,0 +1,17 @@
+// The browser preview: the renderer alone, with the engine in a Web Worker.
+import { defineConfig } from 'vite';
+import vue from '@vitejs/plugin-vue';
+
+export default defineConfig({
+  root: 'renderer',
+  base: './',
+  plugins: [vue()],
+  build: {
+    outDir: '../out/preview',
+    emptyOutDir: true,
+    target: 'es2022',
+    chunkSizeWarningLimit: 1500,
+  },
+  worker: { format: 'es' },
+  preview: { host: '127.0.0.1', port: 4178, strictPort: false },
+});
