@@ -8,3 +8,5 @@ export * from './simulation';
 export type * from './progress';
 export * from './engine-api';
 export type * from './bridge';
+export type * from './trainer';
+export * from './project';

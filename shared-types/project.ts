@@ -1,0 +1,44 @@
+/**
+ * A Droopline project file: the plant plus everything the user set up around it.
+ * Saved as JSON (`format: "droopline.project"`); older versions migrate forward.
+ */
+import type { Plant } from './plant';
+import type { ScenarioEvent } from './simulation';
+import type { DeadPermissives, SyncLimits } from './sync';
+import type { TrainerAttempt } from './trainer';
+
+export const PROJECT_FORMAT = 'droopline.project' as const;
+export const PROJECT_VERSION = 1 as const;
+
+/** A transient scenario kept in a project (the plant comes from the project). */
+export interface ProjectScenario {
+  id: string;
+  name: string;
+  durationS: number;
+  stepMs: number;
+  events: ScenarioEvent[];
+}
+
+/** Sync-check settings kept in a project. */
+export interface ProjectSyncSettings {
+  /** Preset the limits came from, or null for custom limits. */
+  presetId: string | null;
+  limits: SyncLimits;
+  breakerClosingMs: number;
+  dead: DeadPermissives;
+  /** Set being synchronized onto the bus. */
+  incomingSetId: string | null;
+}
+
+/** The whole project file. */
+export interface Project {
+  format: typeof PROJECT_FORMAT;
+  version: typeof PROJECT_VERSION;
+  name: string;
+  plant: Plant;
+  scenarios: ProjectScenario[];
+  sync: ProjectSyncSettings | null;
+  trainerLog: TrainerAttempt[];
+  /** View settings (current view, slider positions, chart choices). */
+  view: Record<string, unknown>;
+}
