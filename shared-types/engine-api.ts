@@ -8,6 +8,7 @@ import type { LoadSweep, SharingResult, SolveSharingRequest, SweepLoadRequest } 
 import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from './sync';
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
+import type { ParsedProject } from './project';
 
 /** A method's request and response types. */
 export interface Method<Req, Res> {
@@ -33,6 +34,8 @@ export interface EngineApi {
   closingMap: Method<ClosingMapRequest, ClosingMap>;
   /** Time-domain simulation of a scenario (long; progress). */
   simulate: Method<Scenario, SimulationResult>;
+  /** Read a project file's text: migrate older files forward, validate, fill defaults. */
+  parseProject: Method<{ text: string }, ParsedProject>;
 }
 
 /** A method name, which is also its channel name. */
@@ -50,6 +53,7 @@ export const ENGINE_METHODS = [
   'listSyncPresets',
   'closingMap',
   'simulate',
+  'parseProject',
 ] as const satisfies readonly EngineMethod[];
 
 /** Events the host pushes to the renderer; keys are channel names. */

@@ -10,3 +10,4 @@ export * from './engine-api';
 export type * from './bridge';
 export type * from './trainer';
 export * from './project';
+export * from './host-api';

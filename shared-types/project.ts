@@ -42,3 +42,12 @@ export interface Project {
   /** View settings (current view, slider positions, chart choices). */
   view: Record<string, unknown>;
 }
+
+/** A project file read by `parseProject`: the project and what reading it changed. */
+export interface ParsedProject {
+  project: Project;
+  /** What the file was before migration (e.g. "a plant file, version 1"), or null for a current project file. */
+  migratedFrom: string | null;
+  /** Sentences for the user about the migration (empty when nothing changed). */
+  notes: string[];
+}

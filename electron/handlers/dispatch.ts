@@ -10,6 +10,7 @@ import { plantHandlers } from './plant-handlers';
 import { sharingHandlers } from './sharing-handlers';
 import { syncHandlers } from './sync-handlers';
 import { simulationHandlers } from './simulation-handlers';
+import { projectHandlers } from './project-handlers';
 import { parseOrThrow, ValidationError } from './validate';
 
 /** Every contract method mapped to its schema and engine call. */
@@ -18,6 +19,7 @@ export const handlers: HandlerTable = {
   ...sharingHandlers,
   ...syncHandlers,
   ...simulationHandlers,
+  ...projectHandlers,
 };
 
 /** The outcome of a call, as it crosses a process or worker boundary. */

@@ -3,4 +3,5 @@ export { dispatch, handlers, toErrorShape } from './dispatch';
 export type { DispatchResult } from './dispatch';
 export type { HandlerContext, Handler, HandlerTable } from './handler';
 export { plantSchema } from './plant-schema';
+export { projectSchema } from './project-schema';
 export { formatPath, parseOrThrow, ValidationError } from './validate';

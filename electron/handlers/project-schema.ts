@@ -1,0 +1,94 @@
+/**
+ * The project-file schema: the plant (checked by `plantSchema`, the plant-file definition)
+ * plus the parts kept around it. Parts owned by other views (scenarios, sync settings,
+ * trainer log, view settings) are checked for shape and keep any field this version does
+ * not know, so a project never loses data on its way through open and save.
+ */
+import { z } from 'zod';
+import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
+import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt } from '../../shared-types';
+import { plantSchema } from './plant-schema';
+
+const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
+const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
+const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
+const text = () => z.string({ error: 'must be text' });
+const flag = () => z.boolean({ error: 'must be true or false' });
+
+/** One event on a scenario's time line: time and kind are checked here, the rest by `simulate`. */
+const scenarioEventSchema = z.looseObject({
+  atS: nonNegative('s'),
+  type: text().min(1, 'must not be empty'),
+});
+
+const scenarioSchema = z.looseObject({
+  id: text().min(1, 'must not be empty'),
+  name: text(),
+  durationS: positive('s'),
+  stepMs: positive('ms'),
+  events: z.array(scenarioEventSchema, { error: 'must be a list of events' }),
+});
+
+const syncSettingsSchema = z.looseObject({
+  presetId: text().nullable(),
+  limits: z.looseObject({
+    slipHz: positive('Hz'),
+    angleDeg: positive('°').lte(180, 'must be 180° or less'),
+    voltagePct: positive('%'),
+    incomingFaster: flag().optional(),
+    incomingHigher: flag().optional(),
+  }),
+  breakerClosingMs: nonNegative('ms'),
+  dead: z.looseObject({ deadBus: flag(), deadLine: flag(), livePct: nonNegative('%'), deadPct: nonNegative('%') }),
+  incomingSetId: text().nullable(),
+});
+
+const trainerAttemptSchema = z.looseObject({
+  at: text(),
+  seed: num('seed'),
+  level: text(),
+  angleAtContactDeg: num('°'),
+  slipAtContactHz: num('Hz'),
+  voltageDifferencePct: num('%'),
+  surgeCurrentPU: num('pu'),
+  torqueStepPU: num('pu'),
+  score: num('points').gte(0, 'must be 0 or more').lte(100, 'must be 100 or less'),
+  verdict: text(),
+});
+
+/**
+ * Zod schema of a current-version project file. `name` defaults to the plant's name;
+ * the parts around the plant default to empty.
+ */
+export const projectSchema = z
+  .object({
+    format: z.literal(PROJECT_FORMAT, { error: `must be "${PROJECT_FORMAT}"` }),
+    version: z.literal(PROJECT_VERSION, { error: `must be ${PROJECT_VERSION}` }),
+    name: text().min(1, 'must not be empty').optional(),
+    plant: plantSchema,
+    scenarios: z.array(scenarioSchema, { error: 'must be a list of scenarios' }).default([]),
+    sync: syncSettingsSchema.nullable().default(null),
+    trainerLog: z.array(trainerAttemptSchema, { error: 'must be a list of attempts' }).default([]),
+    view: z.record(z.string(), z.unknown(), { error: 'must be an object' }).default({}),
+  })
+  .strict()
+  .superRefine((p, ctx) => {
+    const ids = new Set<string>();
+    p.scenarios.forEach((s, i) => {
+      if (ids.has(s.id)) ctx.addIssue({ code: 'custom', path: ['scenarios', i, 'id'], message: `must be unique ("${s.id}" is used twice)` });
+      ids.add(s.id);
+    });
+  })
+  .transform(
+    (p): Project => ({
+      format: p.format,
+      version: p.version,
+      name: p.name ?? p.plant.name,
+      plant: p.plant,
+      // Event fields beyond time and kind are checked by `simulate` when a scenario runs.
+      scenarios: p.scenarios as unknown as ProjectScenario[],
+      sync: p.sync as ProjectSyncSettings | null,
+      trainerLog: p.trainerLog as TrainerAttempt[],
+      view: p.view,
+    }),
+  );

@@ -1,0 +1,79 @@
+/**
+ * Reads a project file's text: checks it is whole, readable JSON, migrates older
+ * Droopline files forward and validates the result. The one way any part of Droopline
+ * (the app through the `parseProject` engine method, the CLI) reads a project.
+ */
+import type { ParsedProject, Project } from '../../shared-types';
+import { z } from 'zod';
+import { projectSchema } from '../handlers/project-schema';
+import { parseOrThrow, ValidationError } from '../handlers/validate';
+import { findJsonSyntaxProblem } from './json-syntax';
+import { migrateToCurrent } from './migrate-project';
+import { ProjectFileError } from './project-file-error';
+
+/** Largest project text accepted, characters (a large project is well under 1 MB). */
+export const MAX_PROJECT_CHARS = 50_000_000;
+
+function jsonOf(text: string): unknown {
+  if (text.trim().length === 0) throw new ProjectFileError('empty', 'The file is empty: it holds no project. The file was not changed.');
+  if (text.includes('\u0000')) {
+    throw new ProjectFileError(
+      'binary',
+      'The file holds binary data (zero bytes), not project text. Files cut off by a power loss during writing often look like this. The file was not changed.',
+    );
+  }
+  if (text.length > MAX_PROJECT_CHARS) {
+    throw new ProjectFileError('corrupted', `The file is too large to be a project (${text.length} characters; the limit is ${MAX_PROJECT_CHARS}).`);
+  }
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    const p = findJsonSyntaxProblem(text);
+    if (p?.truncated) {
+      throw new ProjectFileError(
+        'truncated',
+        `The file stops in the middle of the project (line ${p.line}, column ${p.column}, where ${p.expected} should follow): ` +
+          'it was cut short, perhaps by a crash or a full disk while it was written. The file was not changed.',
+      );
+    }
+    const where = p ? `line ${p.line}, column ${p.column}: expected ${p.expected}, found ${p.found}` : 'an unknown place';
+    throw new ProjectFileError('corrupted', `The file is damaged: it is not valid JSON (${where}). The file was not changed.`);
+  }
+}
+
+// Validated inside a wrapper so field paths read `plant.sets[1].governor.droopPct`
+// (the shared formatter drops a leading `plant`, which is right for plant files only).
+const wrapped = z.object({ project: projectSchema });
+
+function validate(raw: unknown): Project {
+  try {
+    return parseOrThrow(wrapped, { project: raw }).project;
+  } catch (e) {
+    if (!(e instanceof ValidationError)) throw e;
+    const issues = e.issues.map((i) => ({ path: i.path === 'project' ? '(root)' : i.path.replace(/^project\./, ''), message: i.message }));
+    const list = issues.map((i) => `${i.path}: ${i.message}`).join('\n');
+    throw new ProjectFileError('invalid', `The project has ${issues.length === 1 ? 'a problem' : `${issues.length} problems`}; the file was not changed.\n${list}`, issues);
+  }
+}
+
+/**
+ * Parses a project file. Accepts current project files, older project versions, and bare
+ * plant, scenario and sync-check case files (which open as new projects).
+ *
+ * @throws ProjectFileError — empty, binary, truncated or damaged text; JSON that is not a
+ *   Droopline file; a file from a newer Droopline; fields that break the schema (each named
+ *   by path and rule). The message always says the file was not changed.
+ */
+export function parseProject(text: string): ParsedProject {
+  const json = jsonOf(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+  const migrated = migrateToCurrent(json);
+  return { project: validate(migrated.raw), migratedFrom: migrated.migratedFrom, notes: migrated.notes };
+}
+
+/**
+ * The file text of a project: JSON with two-space indent and a final newline. Saving what
+ * `parseProject` returned and reading it again gives an identical project.
+ */
+export function serializeProject(project: Project): string {
+  return `${JSON.stringify(project, null, 2)}\n`;
+}

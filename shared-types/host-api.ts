@@ -1,0 +1,134 @@
+/**
+ * The host contract: what the desktop shell (Electron main) does for the renderer
+ * besides computing — project files, the recovery copy, recent files, the window's
+ * document state — and the commands it pushes back (menu items, close requests).
+ * Channel names are these keys; nothing else names a host channel.
+ *
+ * The browser preview implements the same calls in the page (download/upload or the
+ * File System Access API; recovery and recent copies in `localStorage`).
+ */
+import type { Method } from './engine-api';
+
+/** A file the user opened: where it came from and its raw text (parsed by `parseProject`). */
+export interface OpenedFile {
+  /** Full path in Electron; `null` when the host cannot save back to it (browser upload). */
+  path: string | null;
+  /** File name shown to the user, e.g. `water-works.droopline.json`. */
+  fileName: string;
+  text: string;
+}
+
+/** Where a save went. */
+export interface SavedFile {
+  path: string | null;
+  fileName: string;
+  /** ISO 8601 time the save completed. */
+  savedAt: string;
+  /** The previous contents were kept as this backup file (Electron), or null. */
+  backupFileName: string | null;
+}
+
+/** One entry of the recent-files list (newest first). */
+export interface RecentFile {
+  /** Full path (Electron) or a key of the copy kept by the browser preview. */
+  path: string;
+  fileName: string;
+  /** Project name at the last open or save. */
+  projectName: string;
+  /** ISO 8601 time of the last open or save. */
+  usedAt: string;
+  /** The file was not found when the list was read. */
+  missing: boolean;
+}
+
+/** The copy autosaved while a project had unsaved changes. */
+export interface RecoveryCopy {
+  /** ISO 8601 time of the autosave. */
+  savedAt: string;
+  projectName: string;
+  /** File the project belonged to, or null when it was never saved. */
+  path: string | null;
+  fileName: string | null;
+  /** Project text (the project file format). */
+  text: string;
+}
+
+/** What the window knows about the open document. */
+export interface DocumentState {
+  projectName: string;
+  fileName: string | null;
+  path: string | null;
+  /** There are changes not yet saved to the file. */
+  dirty: boolean;
+}
+
+/** Every host method (request → response). */
+export interface HostApi {
+  /** Show the open dialog; `null` when the user cancels. */
+  fileOpenDialog: Method<Record<string, never>, OpenedFile | null>;
+  /** Open a file by path (recent list, drag-and-drop, command line). */
+  fileOpenPath: Method<{ path: string }, OpenedFile>;
+  /** Save atomically to a path the user already chose; the old file becomes the backup. */
+  fileSave: Method<{ path: string; text: string }, SavedFile>;
+  /** Show the save dialog and save there; `null` when the user cancels. */
+  fileSaveAs: Method<{ suggestedName: string; text: string }, SavedFile | null>;
+  recentList: Method<Record<string, never>, RecentFile[]>;
+  recentClear: Method<Record<string, never>, RecentFile[]>;
+  /** The recovery copy left by a session that ended with unsaved changes, if any. */
+  recoveryRead: Method<Record<string, never>, RecoveryCopy | null>;
+  /** Replace the recovery copy (called a moment after each edit). */
+  recoveryWrite: Method<Omit<RecoveryCopy, 'savedAt'>, { savedAt: string }>;
+  /** Forget the recovery copy (after a save, a restore or "discard"). */
+  recoveryDiscard: Method<Record<string, never>, null>;
+  /** Tell the window the document's name and whether it has unsaved changes. */
+  documentState: Method<DocumentState, null>;
+  /** The renderer finished a "save and close" (or the user chose not to save): close now. */
+  windowClose: Method<Record<string, never>, null>;
+}
+
+export type HostMethod = keyof HostApi;
+export type HostRequest<K extends HostMethod> = HostApi[K]['request'];
+export type HostResponse<K extends HostMethod> = HostApi[K]['response'];
+
+/** Every host method name at run time (a type test checks it lists every key). */
+export const HOST_METHODS = [
+  'fileOpenDialog',
+  'fileOpenPath',
+  'fileSave',
+  'fileSaveAs',
+  'recentList',
+  'recentClear',
+  'recoveryRead',
+  'recoveryWrite',
+  'recoveryDiscard',
+  'documentState',
+  'windowClose',
+] as const satisfies readonly HostMethod[];
+
+/** Why a host call failed. */
+export type HostErrorCode = 'NOT_FOUND' | 'READ_FAILED' | 'WRITE_FAILED' | 'INVALID_INPUT' | 'REFUSED' | 'UNAVAILABLE';
+
+/** A host failure as it crosses the process boundary: a sentence, never a stack trace. */
+export interface HostErrorShape {
+  name: 'HostError';
+  code: HostErrorCode;
+  message: string;
+}
+
+/** A host call's outcome. */
+export type HostOutcome<T> = { ok: true; value: T } | { ok: false; error: HostErrorShape };
+
+/** A command the host pushes to the renderer (application menu, window close). */
+export type HostCommand =
+  | { command: 'new' | 'open' | 'save' | 'save-as' }
+  /** The user asked to close the window with unsaved changes and chose "Save". */
+  | { command: 'save-and-close' }
+  | { command: 'open-recent'; path: string };
+
+/** Events the host pushes to the renderer; keys are channel names. */
+export interface HostEvents {
+  hostCommand: HostCommand;
+}
+
+/** File-name suffix of project files (a JSON document). */
+export const PROJECT_FILE_SUFFIX = '.droopline.json' as const;

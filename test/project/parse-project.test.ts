@@ -1,0 +1,161 @@
+import { describe, it, expect } from 'vitest';
+import { parseProject, serializeProject, ProjectFileError } from '../../electron/project';
+import { dispatch } from '../../electron/handlers';
+import { demoPlantJson, rawPlant, rawSet } from '../helpers/plants';
+import { projectText, rawProject } from '../helpers/projects';
+
+/** The error a parse throws (fails the test when it does not throw). */
+function failure(text: string): ProjectFileError {
+  try {
+    parseProject(text);
+  } catch (e) {
+    if (e instanceof ProjectFileError) return e;
+    throw e;
+  }
+  throw new Error('parseProject accepted the text');
+}
+
+describe('parseProject', () => {
+  it('reads a current project and keeps every part', () => {
+    const { project, migratedFrom, notes } = parseProject(projectText());
+    expect(migratedFrom).toBeNull();
+    expect(notes).toEqual([]);
+    expect(project.name).toBe('Kestrel Ford study');
+    expect(project.plant.sets.map((s) => s.id)).toEqual(['G1', 'G2', 'G3']);
+    expect(project.scenarios[0]!.events[0]).toEqual({ atS: 2, type: 'motor-start', kVA: 400, pf: 0.3, durationS: 3 });
+    expect(project.sync?.incomingSetId).toBe('G2');
+    expect(project.trainerLog[0]!.score).toBe(86);
+    expect(project.view).toEqual({ view: 'sharing' });
+  });
+
+  it('round-trips: save, open and save again give identical text and an identical project', () => {
+    const first = parseProject(projectText()).project;
+    const text = serializeProject(first);
+    const second = parseProject(text).project;
+    expect(second).toEqual(first);
+    expect(serializeProject(second)).toBe(text);
+  });
+
+  it('keeps fields it does not know inside scenarios, events, sync settings and attempts', () => {
+    const raw = rawProject();
+    const scenarios = raw.scenarios as Record<string, unknown>[];
+    scenarios[0] = { ...scenarios[0], outputPoints: 500, events: [{ atS: 1, type: 'load-step', kW: 200, kVAR: 90, note: 'kept' }] };
+    const { project } = parseProject(JSON.stringify({ ...raw, scenarios }));
+    const again = parseProject(serializeProject(project)).project;
+    expect((again.scenarios[0] as unknown as Record<string, unknown>).outputPoints).toBe(500);
+    expect((again.scenarios[0]!.events[0] as unknown as Record<string, unknown>).note).toBe('kept');
+  });
+
+  it('fills the parts a minimal project leaves out', () => {
+    const { project } = parseProject(JSON.stringify({ format: 'droopline.project', version: 1, plant: demoPlantJson() }));
+    expect(project.name).toBe('Kestrel Ford Water Treatment Works (demo)');
+    expect(project.scenarios).toEqual([]);
+    expect(project.sync).toBeNull();
+    expect(project.trainerLog).toEqual([]);
+    expect(project.view).toEqual({});
+  });
+
+  it('ignores a byte-order mark at the start', () => {
+    expect(parseProject(`\uFEFF${projectText()}`).project.name).toBe('Kestrel Ford study');
+  });
+
+  it('migrates a version-1 plant file into a new project around it', () => {
+    const plantText = JSON.stringify(demoPlantJson());
+    const { project, migratedFrom, notes } = parseProject(plantText);
+    expect(migratedFrom).toBe('a plant file, version 1');
+    expect(notes[0]).toContain('plant file is not changed');
+    expect(project.format).toBe('droopline.project');
+    expect(project.version).toBe(1);
+    expect(project.name).toBe('Kestrel Ford Water Treatment Works (demo)');
+    expect(project.plant.sets[0]!.governor.noLoadHz).toBe(51.2);
+    expect(project.scenarios).toEqual([]);
+    expect(project.sync).toBeNull();
+    expect(project.trainerLog).toEqual([]);
+  });
+
+  it('migrates a scenario file into a project with its plant and the scenario', () => {
+    const text = JSON.stringify({
+      format: 'droopline.scenario',
+      version: 1,
+      name: 'Trip G3',
+      plant: demoPlantJson(),
+      durationS: 10,
+      outputPoints: 800,
+      events: [{ atS: 1, type: 'trip', setId: 'G3' }],
+    });
+    const { project, migratedFrom } = parseProject(text);
+    expect(migratedFrom).toBe('a scenario file, version 1');
+    expect(project.scenarios).toEqual([{ id: 'S1', name: 'Trip G3', durationS: 10, stepMs: 1, outputPoints: 800, events: [{ atS: 1, type: 'trip', setId: 'G3' }] }]);
+  });
+
+  it('names each field problem of the plant inside a project by its path and rule', () => {
+    const plant = rawPlant([rawSet('G1'), rawSet('G2', { governor: { mode: 'droop', droopPct: -1, noLoadHz: 52 } })]);
+    const e = failure(projectText({ plant }));
+    expect(e.problem).toBe('invalid');
+    expect(e.issues).toContainEqual({ path: 'plant.sets[1].governor.droopPct', message: 'must be 0 or more' });
+    expect(e.message).toContain('plant.sets[1].governor.droopPct: must be 0 or more');
+    expect(e.message).toContain('the file was not changed');
+  });
+
+  it('names problems in the parts around the plant', () => {
+    const e = failure(projectText({ scenarios: [{ id: 'S1', name: 'x', durationS: 0, stepMs: 1, events: [] }], trainerLog: 'none' }));
+    expect(e.message).toContain('scenarios[0].durationS: must be greater than 0');
+    expect(e.message).toContain('trainerLog: must be a list');
+    const dup = failure(projectText({ scenarios: [{ id: 'A', name: 'a', durationS: 1, stepMs: 1, events: [] }, { id: 'A', name: 'b', durationS: 1, stepMs: 1, events: [] }] }));
+    expect(dup.message).toContain('scenarios[1].id: must be unique ("A" is used twice)');
+    expect(failure(projectText({ colour: 'teal' })).message).toContain('(root): unknown field(s): colour');
+  });
+
+  it('refuses a project from a newer version with a clear message', () => {
+    const e = failure(projectText({ version: 2 }));
+    expect(e.problem).toBe('newer');
+    expect(e.message).toBe(
+      'This project was saved by a newer version of Droopline (file version 2; this version reads up to 1). Open it with a newer Droopline. The file was not changed.',
+    );
+    expect(failure(JSON.stringify({ ...demoPlantJson() as object, version: 3 })).message).toContain('This plant file was saved by a newer version of Droopline (file version 3');
+  });
+
+  it('refuses foreign JSON and other files naming what they are', () => {
+    expect(failure('{"name":"left-pad","version":"1.3.0"}').message).toContain('it has no "format" field');
+    expect(failure('{"format":"chart.layout","version":1}').message).toContain('This is a "chart.layout" file, not a Droopline project');
+    expect(failure('[1, 2, 3]').message).toContain('This file holds JSON (a list) but not a Droopline project');
+    expect(failure('"text"').problem).toBe('not-a-project');
+    expect(failure('{"format":"droopline.sync","version":1,"limits":{}}').message).toContain('sync-check case without a plant');
+    expect(failure(projectText({ version: 1.5 })).message).toContain('version: must be a whole number of 1 or more');
+  });
+
+  it('says a truncated file was cut short, with line and column', () => {
+    const full = projectText();
+    const cut = full.slice(0, Math.floor(full.length * 0.6));
+    const e = failure(cut);
+    expect(e.problem).toBe('truncated');
+    expect(e.message).toMatch(/^The file stops in the middle of the project \(line \d+, column \d+, where .+ should follow\): it was cut short/);
+    expect(e.message).toContain('The file was not changed.');
+    expect(failure('{"format": "droopline.project", "name": "ab').problem).toBe('truncated');
+  });
+
+  it('says where a damaged file breaks', () => {
+    const e = failure('{\n  "format": "droopline.project",\n  "version": 1 x\n}');
+    expect(e.problem).toBe('corrupted');
+    expect(e.message).toBe('The file is damaged: it is not valid JSON (line 3, column 16: expected \',\' or \'}\', found "x"). The file was not changed.');
+  });
+
+  it('recognises empty files and files of zero bytes left by a power loss', () => {
+    expect(failure('').problem).toBe('empty');
+    expect(failure('  \n').message).toBe('The file is empty: it holds no project. The file was not changed.');
+    expect(failure('\u0000'.repeat(4096)).problem).toBe('binary');
+  });
+
+  it('is reachable through the engine method parseProject, errors as plain objects', async () => {
+    const ok = await dispatch('parseProject', { text: projectText() });
+    expect(ok.ok && ok.value.project.name).toBe('Kestrel Ford study');
+    const bad = await dispatch('parseProject', { text: '{"format": "droopline.project"' });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) {
+      expect(bad.error.code).toBe('INVALID_INPUT');
+      expect(bad.error.message).toContain('cut short');
+    }
+    const notText = await dispatch('parseProject', { text: 42 });
+    expect(!notText.ok && notText.error.message).toBe('text: must be text');
+  });
+});
