@@ -27,6 +27,11 @@ export interface Governor {
   setpointHz: number;
   /** Output held in base-load mode, kW. */
   baseKW: number;
+  /**
+   * Isochronous mode: the set shares load with the other isochronous sets through a
+   * load-sharing link (kW in proportion to `ratedKW`). Default true (the schema fills it in).
+   */
+  loadSharingLink?: boolean;
   /** Time-domain data (simulator only). Defaults are applied by the schema. */
   actuatorLagS: number;
   /** Engine torque lag, s (simulator). */

@@ -1,3 +1,4 @@
 /** The engine's public face: pure computations over plain data. */
 export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
+export { solveSharing, sweepLoad } from './sharing';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';

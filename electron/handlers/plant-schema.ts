@@ -18,6 +18,7 @@ const governorSchema = z
     noLoadHz: positive('Hz').optional(),
     setpointHz: positive('Hz').optional(),
     baseKW: finite('kW').default(0),
+    loadSharingLink: z.boolean({ error: 'must be true or false' }).default(true),
     actuatorLagS: nonNegative('s').default(0.05),
     engineLagS: nonNegative('s').default(0.3),
     isoResetS: positive('s').default(2),

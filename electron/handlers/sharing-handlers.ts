@@ -1,21 +1,43 @@
-/** Handlers for steady-state sharing. (Filled in by the sharing engine.) */
+/** Handlers for steady-state sharing: the operating point and the load sweep. */
 import { z } from 'zod';
-import { EngineError } from '../engine';
-import type { SharingResult, LoadSweep } from '../../shared-types';
+import { solveSharing, sweepLoad } from '../engine';
 import { plantSchema } from './plant-schema';
 import type { HandlerGroup } from './handler';
 
-const notYet = (what: string): never => {
-  throw new EngineError('INTERNAL', `${what} is not available in this build yet.`);
-};
+const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
+
+/** The `load` override: one constant-power load replacing the plant's loads. */
+export const loadOverrideSchema = z
+  .object({
+    kW: num('kW').refine((v) => v >= 0, 'must be 0 or more'),
+    kVAR: num('kVAR'),
+  })
+  .strict();
+
+/** Request of `solveSharing`. */
+export const solveSharingSchema = z.object({ plant: plantSchema, load: loadOverrideSchema.optional() }).strict();
+
+/** Request of `sweepLoad`. */
+export const sweepLoadSchema = z
+  .object({
+    plant: plantSchema,
+    steps: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(2000, 'must be 2000 or fewer'),
+    fromPct: num('%').refine((v) => v >= 0, 'must be 0 or more').optional(),
+    toPct: num('%').refine((v) => v <= 500, 'must be 500 % or less').optional(),
+    pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').optional(),
+  })
+  .strict()
+  .superRefine((r, ctx) => {
+    if ((r.fromPct ?? 0) > (r.toPct ?? 110)) ctx.addIssue({ code: 'custom', path: ['toPct'], message: 'must not be below fromPct' });
+  });
 
 export const sharingHandlers: HandlerGroup<'solveSharing' | 'sweepLoad'> = {
   solveSharing: {
-    schema: z.object({ plant: plantSchema, load: z.object({ kW: z.number(), kVAR: z.number() }).optional() }),
-    run: (): SharingResult => notYet('The sharing solver'),
+    schema: solveSharingSchema,
+    run: ({ plant, load }) => solveSharing(plant, load),
   },
   sweepLoad: {
-    schema: z.object({ plant: plantSchema, steps: z.number().int().min(2), fromPct: z.number().optional(), toPct: z.number().optional(), pf: z.number().optional() }),
-    run: (): LoadSweep => notYet('The load sweep'),
+    schema: sweepLoadSchema,
+    run: (req) => sweepLoad(req),
   },
 };

@@ -1,0 +1,230 @@
+/**
+ * The plant reduced to what the steady-state solvers need: per online set, its governor
+ * and regulator law as numbers in typed arrays; the loads as voltage- and
+ * frequency-dependent terms. Built once per solve; the solvers only read it.
+ */
+import type { GenSet, LoadOverride, Plant } from '../../../shared-types';
+import { NoSteadyState } from '../errors';
+
+/** Governor law of an online set, as a small integer code for the hot loops. */
+export const GOV_DROOP = 0;
+export const GOV_ISO = 1;
+export const GOV_BASE = 2;
+
+/** Regulator law of an online set. */
+export const REG_DROOP = 0;
+export const REG_CROSS = 1;
+export const REG_VOLTAGE = 2;
+export const REG_PF = 3;
+
+/** One load term on the common bus (powers at rated voltage and frequency). */
+export interface LoadTerm {
+  kW: number;
+  kVAR: number;
+  /** true: P, Q scale with (V / V_rated)²; false: constant power. */
+  impedance: boolean;
+  /** % change of kW per % change of frequency. */
+  frequencySensitivity: number;
+}
+
+/** The solver's view of a plant. Arrays are indexed by online set. */
+export interface SharingModel {
+  ratedFrequencyHz: number;
+  ratedVoltageV: number;
+  /** The online sets, in plant order. */
+  sets: GenSet[];
+  /** Index of each online set in `plant.sets`. */
+  plantIndex: number[];
+  n: number;
+  gov: Int8Array;
+  reg: Int8Array;
+  /** Droop slope, kW per Hz: ratedKW / (droop · f_rated) (DESIGN.md, "Speed droop"). */
+  slopeKWPerHz: Float64Array;
+  noLoadHz: Float64Array;
+  minKW: Float64Array;
+  maxKW: Float64Array;
+  baseKW: Float64Array;
+  ratedKW: Float64Array;
+  ratedKVA: Float64Array;
+  /** Reactive droop slope, kVAR per V: Qbase / (droop · V_rated) (DESIGN.md, "Reactive droop"). */
+  slopeKVARPerV: Float64Array;
+  noLoadV: Float64Array;
+  /** tan φ of the power-factor setpoint (lagging). */
+  tanPhi: Float64Array;
+  /** Feeder resistance and reactance per phase, Ω. */
+  rOhm: Float64Array;
+  xOhm: Float64Array;
+  /** Isochronous sets that share through a load-sharing link (online indices). */
+  isoGroup: number[];
+  /** Frequency the isochronous group holds, Hz (ratedKW-weighted mean of setpoints). */
+  isoSetpointHz: number;
+  /** Online indices of the set(s) holding voltage: one voltage-mode set, or the cross-current group. */
+  voltageUnit: number[];
+  /** Voltage the voltage unit holds, V (ratedKVA-weighted mean of setpoints). */
+  voltageSetpointV: number;
+  loads: LoadTerm[];
+  /** True when any online set has a non-zero feeder impedance. */
+  hasFeeders: boolean;
+  /** Notes gathered while building (setpoint mismatches inside a group). */
+  notes: string[];
+}
+
+function names(sets: GenSet[], idx: number[]): string {
+  const ids = idx.map((i) => sets[i]!.id);
+  return ids.length <= 1 ? ids.join('') : `${ids.slice(0, -1).join(', ')} and ${ids[ids.length - 1]}`;
+}
+
+/**
+ * Builds the solver model of `plant`; `load` replaces the plant's loads by one
+ * constant-power load. Throws `NoSteadyState` for control structures with no defined
+ * operating point (no set online, no frequency or voltage reference, two units
+ * fighting over frequency or voltage).
+ */
+export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingModel {
+  const plantIndex: number[] = [];
+  plant.sets.forEach((s, i) => {
+    if (s.online) plantIndex.push(i);
+  });
+  const sets = plantIndex.map((i) => plant.sets[i]!);
+  const n = sets.length;
+  if (n === 0) throw new NoSteadyState('No set is online, so nothing supplies the bus: put at least one set online.');
+  const fr = plant.ratedFrequencyHz;
+  const vr = plant.ratedVoltageV;
+  const m: SharingModel = {
+    ratedFrequencyHz: fr,
+    ratedVoltageV: vr,
+    sets,
+    plantIndex,
+    n,
+    gov: new Int8Array(n),
+    reg: new Int8Array(n),
+    slopeKWPerHz: new Float64Array(n),
+    noLoadHz: new Float64Array(n),
+    minKW: new Float64Array(n),
+    maxKW: new Float64Array(n),
+    baseKW: new Float64Array(n),
+    ratedKW: new Float64Array(n),
+    ratedKVA: new Float64Array(n),
+    slopeKVARPerV: new Float64Array(n),
+    noLoadV: new Float64Array(n),
+    tanPhi: new Float64Array(n),
+    rOhm: new Float64Array(n),
+    xOhm: new Float64Array(n),
+    isoGroup: [],
+    isoSetpointHz: fr,
+    voltageUnit: [],
+    voltageSetpointV: vr,
+    loads: [],
+    hasFeeders: false,
+    notes: [],
+  };
+  const isoUnlinked: number[] = [];
+  const voltageSets: number[] = [];
+  const crossSets: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const s = sets[i]!;
+    const g = s.governor;
+    const r = s.regulator;
+    m.ratedKW[i] = s.ratedKW;
+    m.ratedKVA[i] = s.ratedKVA;
+    m.maxKW[i] = s.ratedKW;
+    m.minKW[i] = s.minKW;
+    m.noLoadHz[i] = g.noLoadHz;
+    m.baseKW[i] = Math.min(s.ratedKW, Math.max(s.minKW, g.baseKW));
+    if (g.mode === 'droop') {
+      m.gov[i] = GOV_DROOP;
+      m.slopeKWPerHz[i] = s.ratedKW / ((g.droopPct / 100) * fr);
+    } else if (g.mode === 'isochronous') {
+      m.gov[i] = GOV_ISO;
+      if (g.loadSharingLink === false) isoUnlinked.push(i);
+      else m.isoGroup.push(i);
+    } else m.gov[i] = GOV_BASE;
+    const qBase = s.ratedKVA * Math.sqrt(1 - s.ratedPF * s.ratedPF);
+    m.noLoadV[i] = r.noLoadV;
+    m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    if (r.mode === 'reactive-droop') {
+      m.reg[i] = REG_DROOP;
+      m.slopeKVARPerV[i] = qBase / ((r.droopPct / 100) * vr);
+    } else if (r.mode === 'cross-current') {
+      m.reg[i] = REG_CROSS;
+      crossSets.push(i);
+    } else if (r.mode === 'voltage') {
+      m.reg[i] = REG_VOLTAGE;
+      voltageSets.push(i);
+    } else m.reg[i] = REG_PF;
+    m.rOhm[i] = s.feeder.rOhm;
+    m.xOhm[i] = s.feeder.xOhm;
+    if (s.feeder.rOhm > 0 || s.feeder.xOhm > 0) m.hasFeeders = true;
+  }
+
+  // Frequency reference: isochronous units (a linked group counts as one unit).
+  const isoUnits = isoUnlinked.length + (m.isoGroup.length > 0 ? 1 : 0);
+  if (isoUnits > 1) {
+    const all = [...m.isoGroup, ...isoUnlinked].sort((a, b) => a - b);
+    throw new NoSteadyState(
+      `Sets ${names(sets, all)} are isochronous without a common load-sharing link: each tries to hold frequency alone, so their kW split is undefined. Link them (loadSharingLink) or put all but one in droop.`,
+    );
+  }
+  if (isoUnlinked.length === 1) m.isoGroup.push(isoUnlinked[0]!);
+  if (m.isoGroup.length > 0) {
+    let w = 0;
+    let sum = 0;
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const i of m.isoGroup) {
+      const sp = sets[i]!.governor.setpointHz;
+      w += m.ratedKW[i]!;
+      sum += m.ratedKW[i]! * sp;
+      lo = Math.min(lo, sp);
+      hi = Math.max(hi, sp);
+    }
+    m.isoSetpointHz = sum / w;
+    if (hi - lo > 1e-6)
+      m.notes.push(`The linked isochronous sets have different frequency setpoints (${lo} to ${hi} Hz); the link holds their kW-weighted mean, ${m.isoSetpointHz.toFixed(3)} Hz.`);
+  } else {
+    let anyDroop = false;
+    for (let i = 0; i < n; i++) if (m.gov[i] === GOV_DROOP) anyDroop = true;
+    if (!anyDroop)
+      throw new NoSteadyState('No online set controls frequency (all are in base load): put at least one set in droop or isochronous.');
+  }
+
+  // Voltage reference: one voltage-mode set, or the cross-current group, at most.
+  const voltageUnits = voltageSets.length + (crossSets.length > 0 ? 1 : 0);
+  if (voltageUnits > 1) {
+    const all = [...voltageSets, ...crossSets].sort((a, b) => a - b);
+    throw new NoSteadyState(
+      `Sets ${names(sets, all)} all hold voltage without reactive droop or a shared cross-current loop: their kVAR split is undefined and circulating current would run away. Use reactive droop, or put them all in cross-current.`,
+    );
+  }
+  if (voltageSets.length === 1) {
+    m.voltageUnit = voltageSets;
+    m.voltageSetpointV = sets[voltageSets[0]!]!.regulator.setpointV;
+  } else if (crossSets.length > 0) {
+    m.voltageUnit = crossSets;
+    let w = 0;
+    let sum = 0;
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const i of crossSets) {
+      const sp = sets[i]!.regulator.setpointV;
+      w += m.ratedKVA[i]!;
+      sum += m.ratedKVA[i]! * sp;
+      lo = Math.min(lo, sp);
+      hi = Math.max(hi, sp);
+    }
+    m.voltageSetpointV = sum / w;
+    if (hi - lo > 1e-6)
+      m.notes.push(`The cross-current sets have different voltage setpoints (${lo} to ${hi} V); the loop holds their kVA-weighted mean, ${m.voltageSetpointV.toFixed(1)} V.`);
+  } else {
+    let anyDroop = false;
+    for (let i = 0; i < n; i++) if (m.reg[i] === REG_DROOP) anyDroop = true;
+    if (!anyDroop)
+      throw new NoSteadyState('No online set controls voltage (all are in power-factor control): put at least one set in reactive droop, cross-current or voltage control.');
+  }
+
+  if (load) m.loads.push({ kW: load.kW, kVAR: load.kVAR, impedance: false, frequencySensitivity: 0 });
+  else
+    for (const l of plant.loads)
+      if (l.online) m.loads.push({ kW: l.kW, kVAR: l.kVAR, impedance: l.model === 'constant-impedance', frequencySensitivity: l.frequencySensitivity });
+  return m;
+}

@@ -1,0 +1,139 @@
+/**
+ * Turns a solved operating point into the `SharingResult` the views and the CLI show:
+ * per-set kVA, power factor, current, loading, sharing error against a proportional
+ * split, circulating current, flags; totals and warnings.
+ */
+import type { Plant, SetResult, SharingResult } from '../../../shared-types';
+import { flagWarnings, setFlags } from './flags';
+import type { IsoState } from './active-sharing';
+import type { SharingModel } from './sharing-model';
+
+/** A solved operating point, arrays indexed by online set. Powers at the set's terminals. */
+export interface OperatingPoint {
+  frequencyHz: number;
+  busVoltageV: number;
+  kW: Float64Array;
+  kVAR: Float64Array;
+  terminalV: Float64Array;
+  lossKW: Float64Array;
+  lossKVAR: Float64Array;
+  loadKW: number;
+  loadKVAR: number;
+  isoState: IsoState;
+  method: SharingResult['method'];
+  iterations: number;
+}
+
+const SQRT3 = Math.sqrt(3);
+
+/** Steady-state frequency band beyond which a warning is given, % of rated [practice]. */
+export const FREQUENCY_WARN_PCT = 2.5;
+/** Voltage band beyond which a warning is given, % of rated (ISO 8528-5 class G1 steady-state voltage deviation ±5 %). */
+export const VOLTAGE_WARN_PCT = 5;
+
+function offlineResult(plant: Plant, idx: number): SetResult {
+  const s = plant.sets[idx]!;
+  return {
+    id: s.id,
+    name: s.name,
+    online: false,
+    kW: 0,
+    kVAR: 0,
+    kVA: 0,
+    pf: 1,
+    pfLagging: true,
+    currentA: 0,
+    terminalV: 0,
+    loadingPct: 0,
+    loadingKVAPct: 0,
+    sharingErrorKWPct: 0,
+    sharingErrorKVARPct: 0,
+    circulatingA: 0,
+    circulatingPct: 0,
+    feederLossKW: 0,
+    flags: ['offline'],
+  };
+}
+
+/** Builds the full result of `op` for `plant` (offline sets are listed with zeros and the `offline` flag). */
+export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingPoint): SharingResult {
+  const warnings: string[] = [...m.notes];
+  let totKW = 0;
+  let totKVAR = 0;
+  let ratedKWSum = 0;
+  let ratedKVASum = 0;
+  let iqSum = 0;
+  let lossKW = 0;
+  let lossKVAR = 0;
+  for (let i = 0; i < m.n; i++) {
+    totKW += op.kW[i]!;
+    totKVAR += op.kVAR[i]!;
+    ratedKWSum += m.ratedKW[i]!;
+    ratedKVASum += m.ratedKVA[i]!;
+    lossKW += op.lossKW[i]!;
+    lossKVAR += op.lossKVAR[i]!;
+    const vt = op.terminalV[i]!;
+    if (vt > 0) iqSum += (op.kVAR[i]! * 1000) / (SQRT3 * vt);
+  }
+  const sets: SetResult[] = plant.sets.map((_, idx) => offlineResult(plant, idx));
+  for (let i = 0; i < m.n; i++) {
+    const s = m.sets[i]!;
+    const kW = op.kW[i]!;
+    const kVAR = op.kVAR[i]!;
+    const kVA = Math.hypot(kW, kVAR);
+    const vt = op.terminalV[i]!;
+    const currentA = vt > 0 ? (kVA * 1000) / (SQRT3 * vt) : 0;
+    const iq = vt > 0 ? (kVAR * 1000) / (SQRT3 * vt) : 0;
+    const circulatingA = iq - (iqSum * s.ratedKVA) / ratedKVASum;
+    const ratedA = (s.ratedKVA * 1000) / (SQRT3 * m.ratedVoltageV);
+    const flags = setFlags(s, { kW, kVAR, kVA });
+    warnings.push(...flagWarnings(s, { kW, kVAR, kVA }, flags));
+    sets[m.plantIndex[i]!] = {
+      id: s.id,
+      name: s.name,
+      online: true,
+      kW,
+      kVAR,
+      kVA,
+      pf: kVA > 0 ? Math.abs(kW) / kVA : 1,
+      pfLagging: kVAR >= 0,
+      currentA,
+      terminalV: vt,
+      loadingPct: (100 * kW) / s.ratedKW,
+      loadingKVAPct: (100 * kVA) / s.ratedKVA,
+      sharingErrorKWPct: (100 * (kW - (totKW * s.ratedKW) / ratedKWSum)) / s.ratedKW,
+      sharingErrorKVARPct: (100 * (kVAR - (totKVAR * s.ratedKVA) / ratedKVASum)) / s.ratedKVA,
+      circulatingA,
+      circulatingPct: (100 * circulatingA) / ratedA,
+      feederLossKW: op.lossKW[i]!,
+      flags,
+    };
+  }
+  const isoIds = m.isoGroup.map((i) => m.sets[i]!.id).join(', ');
+  if (op.isoState === 'at-max')
+    warnings.unshift(`The isochronous set(s) ${isoIds} are at full output: frequency is now set by the droop sets (${op.frequencyHz.toFixed(3)} Hz).`);
+  if (op.isoState === 'at-min')
+    warnings.unshift(`The isochronous set(s) ${isoIds} are at minimum output: frequency is now set by the droop sets (${op.frequencyHz.toFixed(3)} Hz).`);
+  const fDevPct = (100 * (op.frequencyHz - m.ratedFrequencyHz)) / m.ratedFrequencyHz;
+  if (Math.abs(fDevPct) > FREQUENCY_WARN_PCT)
+    warnings.push(`Bus frequency ${op.frequencyHz.toFixed(2)} Hz is ${fDevPct.toFixed(1)} % from rated (more than ±${FREQUENCY_WARN_PCT} %).`);
+  const vDevPct = (100 * (op.busVoltageV - m.ratedVoltageV)) / m.ratedVoltageV;
+  if (Math.abs(vDevPct) > VOLTAGE_WARN_PCT)
+    warnings.push(`Bus voltage ${op.busVoltageV.toFixed(0)} V is ${vDevPct.toFixed(1)} % from rated (more than ±${VOLTAGE_WARN_PCT} %).`);
+  return {
+    bus: { frequencyHz: op.frequencyHz, voltageV: op.busVoltageV },
+    sets,
+    totals: {
+      kW: totKW,
+      kVAR: totKVAR,
+      kVA: Math.hypot(totKW, totKVAR),
+      loadKW: op.loadKW,
+      loadKVAR: op.loadKVAR,
+      feederLossKW: lossKW,
+      feederLossKVAR: lossKVAR,
+    },
+    warnings,
+    method: op.method,
+    iterations: op.iterations,
+  };
+}
