@@ -10,6 +10,7 @@ import { plantHandlers } from './plant-handlers';
 import { sharingHandlers } from './sharing-handlers';
 import { syncHandlers } from './sync-handlers';
 import { simulationHandlers } from './simulation-handlers';
+import { trainerHandlers } from './trainer-handlers';
 import { projectHandlers } from './project-handlers';
 import { parseOrThrow, ValidationError } from './validate';
 
@@ -19,6 +20,7 @@ export const handlers: HandlerTable = {
   ...sharingHandlers,
   ...syncHandlers,
   ...simulationHandlers,
+  ...trainerHandlers,
   ...projectHandlers,
 };
 

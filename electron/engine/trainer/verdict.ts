@@ -1,0 +1,143 @@
+/**
+ * Grades a synchronizing close: the contact against the window the exercise grades to,
+ * the surge and torque step against the machine's limits, a score and a plain-language
+ * verdict, plus the traces of the first seconds after closing.
+ */
+import type { SyncLimits, TrainerCheck, TrainerState, TrainerVerdict } from '../../../shared-types';
+import { InvalidInput } from '../errors';
+import { afterCloseTraces } from './after-close';
+import type { AfterCloseOptions } from './after-close';
+import { contactStress } from './contact-stress';
+import { MACHINE_STANDARD_WINDOW } from './levels';
+
+const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
+const signed = (v: number, d: number): string => (v > 0 ? '+' : '') + f(v, d);
+
+/** The trainee's window is looser than the graded one in at least one limit. */
+function looserWindow(set: SyncLimits | null, ref: SyncLimits): string[] {
+  if (!set) return [];
+  const out: string[] = [];
+  if (set.angleDeg > ref.angleDeg) out.push(`angle ±${f(set.angleDeg, 1)}° is wider than ±${f(ref.angleDeg, 1)}°`);
+  if (set.slipHz > ref.slipHz) out.push(`slip ${f(set.slipHz, 3)} Hz is wider than ${f(ref.slipHz, 3)} Hz`);
+  if (set.voltagePct > ref.voltagePct) out.push(`voltage ${f(set.voltagePct, 1)} % is wider than ${f(ref.voltagePct, 1)} %`);
+  return out;
+}
+
+/**
+ * The verdict of a closed exercise.
+ * @throws InvalidInput when the breaker has not closed yet.
+ */
+export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptions> = {}): TrainerVerdict {
+  const c = state.contact;
+  if (state.phase !== 'closed' || !c) throw new InvalidInput('state: the breaker has not closed yet; give the close command and step until contact.');
+  const m = state.machine;
+  const ref = state.referenceWindow;
+  const busPU = state.busVoltageV / m.ratedVoltageV;
+  const stress = contactStress(m, state.bus, c.angleDeg, 1 + c.voltageDifferencePct / 100, state.incomingFrequencyHz / m.ratedFrequencyHz, busPU);
+  // Machine limits: the stress of a close at the corner of the machine standard's window (angle and voltage at their limits).
+  const edge = contactStress(m, state.bus, MACHINE_STANDARD_WINDOW.angleDeg, 1 + MACHINE_STANDARD_WINDOW.voltagePct / 100);
+  const machineLimits = {
+    surgeCurrentPU: edge.surgeCurrentPU,
+    torqueStepPU: Math.abs(edge.torqueStepPU),
+    source: 'stress of a close at ±10°, +5 % (IEEE C50.12/C50.13 synchronizing limits, from memory) on this machine',
+  };
+  const windowSource = state.level.mustSetWindow ? 'exercise window (graded)' : 'exercise window';
+  const checks: TrainerCheck[] = [
+    { quantity: 'Phase angle at contact', unit: '°', value: c.angleDeg, limit: ref.angleDeg, source: windowSource, within: Math.abs(c.angleDeg) <= ref.angleDeg },
+    { quantity: 'Slip at contact', unit: 'Hz', value: c.slipHz, limit: ref.slipHz, source: windowSource, within: Math.abs(c.slipHz) <= ref.slipHz },
+    {
+      quantity: 'Voltage difference',
+      unit: '%',
+      value: c.voltageDifferencePct,
+      limit: ref.voltagePct,
+      source: windowSource,
+      within: Math.abs(c.voltageDifferencePct) <= ref.voltagePct,
+    },
+  ];
+  if (ref.incomingFaster) checks.push({ quantity: 'Incoming faster than bus', unit: 'Hz', value: c.slipHz, limit: 0, source: windowSource, within: c.slipHz > 0 });
+  if (ref.incomingHigher) {
+    checks.push({ quantity: 'Incoming voltage at or above bus', unit: '%', value: c.voltageDifferencePct, limit: 0, source: windowSource, within: c.voltageDifferencePct >= 0 });
+  }
+  const windowChecks = checks.length;
+  checks.push(
+    { quantity: 'Surge current', unit: 'pu', value: stress.surgeCurrentPU, limit: machineLimits.surgeCurrentPU, source: 'machine limit', within: stress.surgeCurrentPU <= machineLimits.surgeCurrentPU * (1 + 1e-9) },
+    { quantity: 'Torque step', unit: 'pu', value: stress.torqueStepPU, limit: machineLimits.torqueStepPU, source: 'machine limit', within: Math.abs(stress.torqueStepPU) <= machineLimits.torqueStepPU * (1 + 1e-9) },
+  );
+  const insideWindow = checks.slice(0, windowChecks).every((k) => k.within);
+  const withinMachineLimits = checks.slice(windowChecks).every((k) => k.within);
+
+  const ra = Math.abs(c.angleDeg) / ref.angleDeg;
+  const rs = Math.abs(c.slipHz) / ref.slipHz;
+  const rv = Math.abs(c.voltageDifferencePct) / ref.voltagePct;
+  let score: number;
+  if (insideWindow) {
+    // Inside: 100 for a perfect close, down to 55 at the window's corner; angle weighs most (it sets the surge).
+    score = 100 - 25 * ra - 10 * rs - 10 * rv;
+  } else {
+    // Outside: 50 at the edge, halving for every further window's width.
+    const worst = Math.max(ra, rs, rv, 1);
+    score = 50 * Math.pow(0.5, worst - 1);
+    if (ref.incomingFaster && c.slipHz <= 0) score = Math.min(score, 40);
+  }
+  if (!withinMachineLimits) {
+    const over = Math.max(stress.surgeCurrentPU / machineLimits.surgeCurrentPU, Math.abs(stress.torqueStepPU) / machineLimits.torqueStepPU);
+    score = Math.min(score, 20 / over);
+  }
+  const loose = looserWindow(state.level.mustSetWindow ? state.window : null, ref);
+  if (loose.length) score -= 10;
+  score = Math.round(Math.min(100, Math.max(0, score)));
+
+  const grade: TrainerVerdict['grade'] = !withinMachineLimits ? 'harmful' : !insideWindow ? 'rough' : score >= 80 ? 'good' : 'fair';
+  const at = `${signed(c.angleDeg, 1)}°, slip ${signed(c.slipHz, 3)} Hz, voltage ${signed(c.voltageDifferencePct, 1)} %`;
+  const parts: string[] = [];
+  if (grade === 'good') parts.push(`Good close at ${at}: inside the window with margin.`);
+  else if (grade === 'fair') parts.push(`Acceptable close at ${at}: inside the window, but near its edge.`);
+  else parts.push(`Closed outside the window at ${at}.`);
+  const outside = checks.slice(0, windowChecks).filter((k) => !k.within);
+  for (const k of outside) {
+    if (k.limit === 0) parts.push(`${k.quantity} was required and not met.`);
+    else parts.push(`${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 3 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 3 : 1)} ${k.unit} limit.`);
+  }
+  parts.push(
+    `Surge ${f(stress.surgeCurrentPU, 2)} pu (${f(stress.surgeCurrentA, 0)} A) and torque step ${f(stress.torqueStepPU, 2)} pu (${f(stress.torqueStepKNm, 2)} kN·m) ` +
+      (withinMachineLimits
+        ? `are within the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu).`
+        : `exceed the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu): on a real set this strains shaft, coupling and windings and may trip the protection.`),
+  );
+  if (c.slipHz < 0 && Math.abs(c.angleDeg) < 90) parts.push('The incoming set was slower than the bus, so it took power from the bus at first (motoring) — reverse-power protection may see it.');
+  const lead = c.commandAngleDeg - c.angleDeg;
+  if (Math.abs(c.slipHz) > 1e-6 && Math.abs(c.angleDeg) > 3) {
+    parts.push(`The command went at ${signed(c.commandAngleDeg, 1)}°; the breaker's ${state.level.breakerClosingMs} ms moved it ${f(Math.abs(lead), 1)}° before contact.`);
+  }
+  if (loose.length) parts.push(`The window you set was too loose: ${loose.join('; ')}.`);
+
+  const verdict = parts.join(' ');
+  const traces = afterCloseTraces(state, options);
+  return {
+    contact: { ...c },
+    surgeCurrentPU: stress.surgeCurrentPU,
+    surgeCurrentA: stress.surgeCurrentA,
+    peakCurrentA: stress.peakCurrentA,
+    torqueStepPU: stress.torqueStepPU,
+    torqueStepKNm: stress.torqueStepKNm,
+    machineLimits,
+    checks,
+    insideWindow,
+    withinMachineLimits,
+    score,
+    grade,
+    verdict,
+    traces,
+    attempt: {
+      seed: state.seed,
+      level: state.levelId,
+      angleAtContactDeg: c.angleDeg,
+      slipAtContactHz: c.slipHz,
+      voltageDifferencePct: c.voltageDifferencePct,
+      surgeCurrentPU: stress.surgeCurrentPU,
+      torqueStepPU: stress.torqueStepPU,
+      score,
+      verdict,
+    },
+  };
+}

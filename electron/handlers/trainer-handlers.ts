@@ -1,0 +1,138 @@
+/** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
+import { z } from 'zod';
+import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
+import type { SyncLimits, TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
+import type { HandlerGroup } from './handler';
+import { plantSchema } from './plant-schema';
+
+const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
+const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0').refine(Number.isFinite, 'must be a finite number');
+const nonNegative = (unit: string) => z.number({ error: `must be a number (${unit})` }).gte(0, 'must be 0 or more').refine(Number.isFinite, 'must be a finite number');
+
+const limitsSchema: z.ZodType<SyncLimits> = z
+  .object({
+    slipHz: positive('Hz'),
+    angleDeg: positive('°').lte(180, 'must be 180° or less'),
+    voltagePct: positive('%').lte(50, 'must be 50 % or less'),
+    incomingFaster: z.boolean({ error: 'must be true or false' }).optional(),
+    incomingHigher: z.boolean({ error: 'must be true or false' }).optional(),
+  })
+  .strict();
+
+const machineSchema: z.ZodType<TrainerMachine> = z
+  .object({
+    label: z.string({ error: 'must be text' }),
+    ratedKVA: positive('kVA'),
+    ratedKW: positive('kW'),
+    ratedVoltageV: positive('V'),
+    ratedFrequencyHz: positive('Hz'),
+    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more'),
+    xddpPU: positive('pu'),
+    xdpPU: positive('pu'),
+    tdopS: positive('s'),
+    inertiaS: positive('s'),
+    dampingPU: nonNegative('pu'),
+    raPU: nonNegative('pu'),
+    droopPct: nonNegative('%'),
+    actuatorLagS: nonNegative('s'),
+    engineLagS: nonNegative('s'),
+    regulatorGainPU: positive('pu'),
+    exciterLagS: nonNegative('s'),
+    ceilingPU: positive('pu'),
+  })
+  .strict();
+
+const busSchema: z.ZodType<TrainerBus> = z.object({ ratedKVA: positive('kVA'), xPU: positive('pu'), inertiaS: positive('s') }).strict();
+
+const levelSchema: z.ZodType<TrainerLevel> = z
+  .object({
+    id: z.string(),
+    label: z.string(),
+    description: z.string(),
+    breakerClosingMs: nonNegative('ms'),
+    busDriftHz: nonNegative('Hz'),
+    mustSetWindow: z.boolean(),
+  })
+  .strict();
+
+const contactSchema = z
+  .object({
+    atS: num('s'),
+    angleDeg: num('°'),
+    slipHz: num('Hz'),
+    voltageDifferencePct: num('%'),
+    deltaVPU: num('pu'),
+    commandAngleDeg: num('°'),
+  })
+  .strict();
+
+/** The live state as it comes back from the renderer: every number finite, nothing extra. */
+const stateSchema: z.ZodType<TrainerState> = z
+  .object({
+    seed: z.number().int('must be a whole number'),
+    levelId: z.string(),
+    level: levelSchema,
+    machine: machineSchema,
+    bus: busSchema,
+    window: limitsSchema.nullable(),
+    referenceWindow: limitsSchema,
+    phase: z.enum(['running', 'closing', 'closed'], { error: 'must be "running", "closing" or "closed"' }),
+    tS: nonNegative('s'),
+    busFrequencyHz: positive('Hz'),
+    busVoltageV: positive('V'),
+    busBaseFrequencyHz: positive('Hz'),
+    drift: z.object({ phase1: num('rad'), phase2: num('rad'), period1S: positive('s'), period2S: positive('s') }).strict(),
+    incomingFrequencyHz: positive('Hz'),
+    incomingVoltageV: nonNegative('V'),
+    angleDeg: num('°'),
+    speedReferenceHz: positive('Hz'),
+    voltageReferenceV: nonNegative('V'),
+    actuatorPU: num('pu'),
+    mechanicalPU: num('pu'),
+    fieldPU: num('pu'),
+    emfPU: num('pu'),
+    closeCommandAtS: num('s').nullable(),
+    closeCommandAngleDeg: num('°').nullable(),
+    contact: contactSchema.nullable(),
+  })
+  .strict();
+
+const direction = z.union([z.literal(-1), z.literal(0), z.literal(1)], { error: 'must be -1, 0 or 1' });
+const inputsSchema: z.ZodType<TrainerInputs> = z
+  .object({ speed: direction, voltage: direction, close: z.boolean({ error: 'must be true or false' }).optional(), window: limitsSchema.optional() })
+  .strict();
+
+export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose'> = {
+  trainerLevels: {
+    schema: z.object({}).strict(),
+    run: () => TRAINER_LEVELS.map((l) => ({ ...l })),
+  },
+  trainerStart: {
+    schema: z
+      .object({
+        seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+        levelId: z.string({ error: 'must be text' }),
+        machine: machineSchema.optional(),
+        bus: busSchema.optional(),
+        plant: plantSchema.optional(),
+        incomingSetId: z.string({ error: 'must be text' }).optional(),
+        window: limitsSchema.optional(),
+      })
+      .strict(),
+    run: (request) => startExercise(request),
+  },
+  trainerStep: {
+    schema: z
+      .object({
+        state: stateSchema,
+        inputs: inputsSchema,
+        dtS: nonNegative('s').lte(MAX_FRAME_S, `must be ${MAX_FRAME_S} s or less`),
+      })
+      .strict(),
+    run: ({ state, inputs, dtS }) => stepTrainer(state, inputs, dtS),
+  },
+  trainerClose: {
+    schema: z.object({ state: stateSchema }).strict(),
+    run: ({ state }) => judgeClose(state),
+  },
+};

@@ -1,0 +1,103 @@
+import { describe, expect, it } from 'vitest';
+import { afterCloseTraces, contactStress, DEFAULT_TRAINER_BUS, DEFAULT_TRAINER_MACHINE, judgeClose, startExercise } from '../../../electron/engine/trainer';
+import type { TrainerState } from '../../../shared-types';
+import { expectClose } from '../../helpers/expect-close';
+
+/** A closed exercise with the given contact (angle, slip, voltage difference). */
+function closedAt(angleDeg: number, slipHz: number, voltagePct: number, levelId = 'steady'): TrainerState {
+  const s = startExercise({ seed: 1, levelId });
+  const vb = s.busVoltageV;
+  const vi = vb * (1 + voltagePct / 100);
+  const k = vi / vb;
+  const rad = (angleDeg * Math.PI) / 180;
+  return {
+    ...s,
+    phase: 'closed',
+    angleDeg,
+    incomingFrequencyHz: s.busFrequencyHz + slipHz,
+    incomingVoltageV: vi,
+    emfPU: vi / 400,
+    fieldPU: vi / 400,
+    contact: { atS: 5, angleDeg, slipHz, voltageDifferencePct: voltagePct, deltaVPU: Math.sqrt(1 + k * k - 2 * k * Math.cos(rad)), commandAngleDeg: angleDeg - 2 },
+  };
+}
+
+describe('contactStress', () => {
+  const m = DEFAULT_TRAINER_MACHINE;
+  const bus = DEFAULT_TRAINER_BUS;
+  const x = m.xddpPU + (bus.xPU * m.ratedKVA) / bus.ratedKVA; // 0.15 + 0.15 × 500/2000 = 0.1875 pu
+
+  it('takes |ΔV| = 2 sin 15° at 30° between equal voltages (closed form) and I = ΔV / X', () => {
+    const s = contactStress(m, bus, 30, 1);
+    expectClose(s.deltaVPU, 2 * Math.sin((15 * Math.PI) / 180), { rel: 1e-12 }, '|ΔV|');
+    expectClose(s.surgeCurrentPU, s.deltaVPU / x, { rel: 1e-12 }, 'surge');
+    // 500 kVA at 400 V: I rated = 500000 / (√3 · 400) = 721.7 A (closed form).
+    expectClose(s.surgeCurrentA, (s.deltaVPU / x) * 721.6878, { rel: 1e-6 }, 'surge A');
+  });
+
+  it('uses the IEC 60909-0 peak factor κ = 1.02 + 0.98 e^(−3R/X)', () => {
+    const s = contactStress(m, bus, 20, 1);
+    expectClose(s.peakFactor, 1.02 + 0.98 * Math.exp((-3 * 0.01) / x), { rel: 1e-12 }, 'κ');
+    expectClose(s.peakCurrentA, s.peakFactor * Math.SQRT2 * s.surgeCurrentA, { rel: 1e-12 }, 'peak');
+  });
+
+  it('gives a synchronizing power k sin θ / X whose sign follows the angle (incoming leading delivers)', () => {
+    expectClose(contactStress(m, bus, 10, 1.05).powerStepPU, (1.05 * Math.sin(Math.PI / 18)) / x, { rel: 1e-12 }, 'P');
+    expect(contactStress(m, bus, -10, 1).torqueStepPU).toBeLessThan(0);
+    // Base torque of 500 kVA at 1500 rpm: 500 / (2π · 25) = 3.183 kN·m per pu (closed form).
+    expectClose(contactStress(m, bus, 10, 1).torqueStepKNm, contactStress(m, bus, 10, 1).torqueStepPU * 3.1831, { rel: 1e-4 }, 'kN·m');
+  });
+});
+
+describe('judgeClose', () => {
+  it('calls a close near 0° with small slip good, with a high score', () => {
+    const v = judgeClose(closedAt(1.5, 0.03, 0.5));
+    expect(v.insideWindow).toBe(true);
+    expect(v.withinMachineLimits).toBe(true);
+    expect(v.grade).toBe('good');
+    expect(v.score).toBeGreaterThanOrEqual(90);
+    expect(v.verdict).toMatch(/^Good close at \+1\.5°/);
+  });
+
+  it('calls a 40° close outside the window and beyond the machine limits harmful, naming the angle', () => {
+    const v = judgeClose(closedAt(40, 0.05, 1));
+    expect(v.insideWindow).toBe(false);
+    expect(v.withinMachineLimits).toBe(false);
+    expect(v.grade).toBe('harmful');
+    expect(v.score).toBeLessThan(20);
+    expect(v.verdict).toContain('Phase angle at contact +40.0 ° exceeded the ±10.0 ° limit.');
+    expect(v.verdict).toContain("exceed the machine's limits");
+  });
+
+  it('grades a too-fast slip outside the window though the angle is fine, and notes motoring for a slow set', () => {
+    const fast = judgeClose(closedAt(2, 0.25, 0));
+    expect(fast.grade).toBe('rough');
+    expect(fast.checks.find((c) => c.quantity === 'Slip at contact')!.within).toBe(false);
+    const slow = judgeClose(closedAt(-3, -0.05, 0));
+    expect(slow.verdict).toContain('slower than the bus');
+  });
+
+  it('penalises a window set looser than the graded one', () => {
+    const s = { ...closedAt(1, 0.02, 0, 'set-window'), window: { slipHz: 0.5, angleDeg: 30, voltagePct: 5 } };
+    const v = judgeClose(s);
+    expect(v.verdict).toContain('The window you set was too loose: angle ±30.0° is wider than ±10.0°; slip 0.500 Hz is wider than 0.100 Hz.');
+    const tight = judgeClose({ ...s, window: { slipHz: 0.1, angleDeg: 10, voltagePct: 5 } });
+    expect(tight.score - v.score).toBe(10);
+  });
+
+  it('refuses a state whose breaker has not closed', () => {
+    expect(() => judgeClose(startExercise({ seed: 1, levelId: 'steady' }))).toThrow('state: the breaker has not closed yet');
+  });
+});
+
+describe('afterCloseTraces', () => {
+  it('starts at the closed-form surge and power step and swings back towards zero angle', () => {
+    const s = closedAt(20, 0.05, 0);
+    const stress = contactStress(s.machine, s.bus, 20, 1, 1, s.busVoltageV / 400);
+    const t = afterCloseTraces(s);
+    expect(t.tS).toHaveLength(301);
+    expectClose(t.currentPU[0]!, stress.surgeCurrentPU, { rel: 1e-9 }, 'first current');
+    expectClose(t.powerPU[0]!, stress.powerStepPU, { rel: 1e-9 }, 'first power');
+    expect(Math.abs(t.angleDeg.at(-1)!)).toBeLessThan(10);
+  });
+});
