@@ -1,4 +1,5 @@
 /** The engine's public face: pure computations over plain data. */
 export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
 export { solveSharing, sweepLoad } from './sharing';
+export * from './sync';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';

@@ -1,0 +1,26 @@
+/** The synchronizing engine: sync-check verdict, presets, closing surge, bus equivalent and closing map. */
+export { evaluateSync } from './evaluate-sync';
+export { listSyncPresets, syncPreset, ieee1547PresetForRating } from './presets';
+export { syncCheck, sideState, DEFAULT_DEAD_PERMISSIVES } from './permissives';
+export type { SyncCheckInput, SyncCheckOutcome, SideState } from './permissives';
+export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, iecPeakFactor, noSurge } from './closing-surge';
+export type { SurgeCircuit } from './closing-surge';
+export { busEquivalent, incomingBranch, fictitiousROverX } from './bus-equivalent';
+export type { ImpedancePU } from './bus-equivalent';
+export { closingMap, closingMapJob } from './closing-map';
+export type { ClosingMapJob } from './closing-map';
+export { syncBasis } from './sync-basis';
+export type { SyncBasis } from './sync-basis';
+export { incomingFromSet, defaultPlantBus } from './plant-case';
+export { phasorDifference, deltaVMagnitude, wrapAngleDeg } from './phasor';
+export type { PhasorDifference } from './phasor';
+export {
+  slipPeriodS,
+  advanceAngleDeg,
+  windowOpenS,
+  windowTiming,
+  timeToAngleS,
+  closeCommandAngleDeg,
+  angleAtContactDeg,
+} from './slip-timing';
+export type { WindowTiming } from './slip-timing';
