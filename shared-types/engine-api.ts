@@ -10,6 +10,7 @@ import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
 import type { TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject } from './project';
+import type { BuildReportRequest, ReportResult } from './report';
 
 /** A method's request and response types. */
 export interface Method<Req, Res> {
@@ -45,6 +46,8 @@ export interface EngineApi {
   trainerClose: Method<{ state: TrainerState }, TrainerVerdict>;
   /** Read a project file's text: migrate older files forward, validate, fill defaults. */
   parseProject: Method<{ text: string }, ParsedProject>;
+  /** The printable plant report (HTML with inline SVG) and its tables and charts (long; progress). */
+  buildReport: Method<BuildReportRequest, ReportResult>;
 }
 
 /** A method name, which is also its channel name. */
@@ -67,6 +70,7 @@ export const ENGINE_METHODS = [
   'trainerStep',
   'trainerClose',
   'parseProject',
+  'buildReport',
 ] as const satisfies readonly EngineMethod[];
 
 /** Events the host pushes to the renderer; keys are channel names. */

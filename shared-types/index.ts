@@ -10,4 +10,5 @@ export * from './engine-api';
 export type * from './bridge';
 export type * from './trainer';
 export * from './project';
+export type * from './report';
 export * from './host-api';

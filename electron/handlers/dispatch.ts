@@ -12,6 +12,7 @@ import { syncHandlers } from './sync-handlers';
 import { simulationHandlers } from './simulation-handlers';
 import { trainerHandlers } from './trainer-handlers';
 import { projectHandlers } from './project-handlers';
+import { reportHandlers } from './report-handlers';
 import { parseOrThrow, ValidationError } from './validate';
 
 /** Every contract method mapped to its schema and engine call. */
@@ -22,6 +23,7 @@ export const handlers: HandlerTable = {
   ...simulationHandlers,
   ...trainerHandlers,
   ...projectHandlers,
+  ...reportHandlers,
 };
 
 /** The outcome of a call, as it crosses a process or worker boundary. */

@@ -1,0 +1,222 @@
+/**
+ * Gathers every result the report shows: the sharing at the chosen loads, the sync-check
+ * verdict and closing map, and each scenario's transient metrics. Each section may fail on
+ * its own (its problem is printed in its place); cancellation stops the whole report.
+ */
+import type {
+  BuildReportRequest,
+  Plant,
+  ProjectScenario,
+  ProjectSyncSettings,
+  SyncCase,
+  SyncPreset,
+} from '../../../shared-types';
+import { describePlant } from '../describe-plant';
+import { Cancelled, EngineError, InvalidInput } from '../errors';
+import type { ReportData, SharingPoint, SyncPart, TransientPart } from './report-data';
+import type { ReportEngine } from './report-engine';
+
+/** Sharing-table loads when the request names none, % of the online sets' rated kW. */
+export const DEFAULT_LOADS_PCT: readonly number[] = [25, 50, 75, 100];
+/** Load power factor at those points when the request names none (lagging). */
+export const DEFAULT_LOAD_PF = 0.8;
+/**
+ * Sync-check limits used when the project has none and the engine lists no preset: typical
+ * settings between generating sets (common practice, see REFERENCES.md §1), not a standard.
+ */
+export const FALLBACK_SYNC_LIMITS = { slipHz: 0.2, angleDeg: 10, voltagePct: 5, incomingFaster: true, incomingHigher: false } as const;
+/** Breaker closing time used when the project has none, ms (LV air breakers 30–80 ms, common practice). */
+export const DEFAULT_BREAKER_MS = 60;
+
+/** The sentence of anything a section throws; cancellation is re-thrown so the report stops. */
+function problemOf(err: unknown): string {
+  if (err instanceof EngineError && err.code === 'CANCELLED') throw err;
+  if (err instanceof Error) return err.message;
+  return String(err);
+}
+
+/** Throws `Cancelled` once the caller has cancelled. */
+function checkCancel(engine: ReportEngine): void {
+  if (engine.isCancelled()) throw new Cancelled('The report was cancelled.');
+}
+
+/**
+ * The report's own scenario for a plant without any: a block load of 25 % of the online sets'
+ * rated kW at power factor 0.8 landing at 1 s, run for 15 s (long enough for the ISO 8528-5
+ * recovery times of classes G1–G3, at most 10 s).
+ */
+export function defaultScenario(plant: Plant): ProjectScenario {
+  const onlineKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + s.ratedKW, 0);
+  const kW = Math.round(onlineKW * 0.25);
+  const kVAR = Math.round(kW * Math.tan(Math.acos(DEFAULT_LOAD_PF)));
+  return {
+    id: 'report-default',
+    name: `Block load ${kW} kW, ${kVAR} kVAR at 1 s`,
+    durationS: 15,
+    stepMs: 1,
+    events: [{ atS: 1, type: 'load-step', kW, kVAR }],
+  };
+}
+
+/** The set to synchronize when the project names none: the first offline set, else the last set. */
+function pickIncoming(plant: Plant): string {
+  return (plant.sets.find((s) => !s.online) ?? plant.sets[plant.sets.length - 1])?.id ?? '';
+}
+
+/**
+ * The sync-check case of a close at the edge of the window: slip, phase angle and voltage
+ * difference at their limits. Its surge is the largest a permissive close can give before
+ * breaker travel; the advance angle is for the largest slip the window allows.
+ */
+export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: string): SyncCase {
+  const set = plant.sets.find((g) => g.id === incomingSetId);
+  if (!set) throw new InvalidInput(`sync.incomingSetId: "${incomingSetId}" is not a set of the plant.`);
+  // The incoming set is not on the bus yet: the running bus is the other online sets.
+  const busPlant: Plant = { ...plant, sets: plant.sets.map((g) => (g.id === incomingSetId ? { ...g, online: false } : g)) };
+  const f = plant.ratedFrequencyHz;
+  const v = plant.ratedVoltageV;
+  return {
+    bus: { frequencyHz: f, voltageV: v, angleDeg: 0 },
+    incoming: {
+      frequencyHz: f + s.limits.slipHz,
+      voltageV: v * (1 + s.limits.voltagePct / 100),
+      angleDeg: s.limits.angleDeg,
+      ratedKVA: set.ratedKVA,
+      xddpPU: set.machine.xddpPU,
+      inertiaS: set.machine.inertiaS,
+      poles: set.poles,
+    },
+    plant: busPlant,
+    incomingSetId,
+    breakerClosingMs: s.breakerClosingMs,
+    limits: s.limits,
+    dead: s.dead,
+  };
+}
+
+async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, loadPF: number): Promise<SharingPoint[]> {
+  const plant = req.project.plant;
+  const onlineKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + s.ratedKW, 0);
+  const connected = plant.loads.filter((l) => l.online);
+  const tanPhi = Math.tan(Math.acos(loadPF));
+  const wanted: { label: string; loadPct: number | null; kW: number; kVAR: number; override: boolean }[] = [
+    {
+      label: 'connected load',
+      loadPct: null,
+      kW: connected.reduce((a, l) => a + l.kW, 0),
+      kVAR: connected.reduce((a, l) => a + l.kVAR, 0),
+      override: false,
+    },
+    ...(req.loadsPct ?? DEFAULT_LOADS_PCT).map((pct) => ({
+      label: `${pct} %`,
+      loadPct: pct,
+      kW: (onlineKW * pct) / 100,
+      kVAR: ((onlineKW * pct) / 100) * tanPhi,
+      override: true,
+    })),
+  ];
+  const points: SharingPoint[] = [];
+  for (const [i, w] of wanted.entries()) {
+    checkCancel(engine);
+    engine.progress((0.3 * i) / wanted.length, `sharing at ${w.label}`);
+    const point: SharingPoint = { label: w.label, loadPct: w.loadPct, loadKW: w.kW, loadKVAR: w.kVAR, result: null, problem: null };
+    try {
+      point.result = await engine.solveSharing(w.override ? { plant, load: { kW: w.kW, kVAR: w.kVAR } } : { plant });
+    } catch (err) {
+      point.problem = problemOf(err);
+    }
+    points.push(point);
+  }
+  return points;
+}
+
+async function syncPart(req: BuildReportRequest, engine: ReportEngine): Promise<SyncPart | { problem: string }> {
+  checkCancel(engine);
+  engine.progress(0.3, 'sync-check');
+  const plant = req.project.plant;
+  let presets: SyncPreset[] = [];
+  try {
+    presets = await engine.listSyncPresets();
+  } catch (err) {
+    problemOf(err);
+  }
+  const given = req.project.sync ?? null;
+  const first = presets[0] ?? null;
+  const settings: ProjectSyncSettings = given ?? {
+    presetId: first?.id ?? null,
+    limits: first?.limits ?? { ...FALLBACK_SYNC_LIMITS },
+    breakerClosingMs: DEFAULT_BREAKER_MS,
+    dead: { deadBus: false, deadLine: false, livePct: 80, deadPct: 20 },
+    incomingSetId: null,
+  };
+  const incomingSetId = settings.incomingSetId ?? pickIncoming(plant);
+  if (!incomingSetId) return { problem: 'The plant has no set to synchronize.' };
+  const part: SyncPart = {
+    settings,
+    preset: presets.find((p) => p.id === settings.presetId) ?? null,
+    defaulted: given === null,
+    incomingSetId,
+    edge: null,
+    map: null,
+    problem: null,
+  };
+  try {
+    const syncCase = edgeCase(plant, settings, incomingSetId);
+    part.edge = await engine.evaluateSync(syncCase);
+    checkCancel(engine);
+    const grid = req.closingMap ?? {};
+    part.map = await engine.closingMap(
+      { case: syncCase, angleSteps: grid.angleSteps ?? 37, slipSteps: grid.slipSteps ?? 21, slipRangeHz: grid.slipRangeHz ?? 0.5 },
+      (f) => engine.progress(0.3 + 0.2 * f, 'closing map'),
+    );
+  } catch (err) {
+    part.problem = problemOf(err);
+  }
+  return part;
+}
+
+async function transientParts(req: BuildReportRequest, engine: ReportEngine): Promise<TransientPart[]> {
+  const plant = req.project.plant;
+  const given = req.project.scenarios;
+  const list = given ? given.map((scenario) => ({ scenario, defaulted: false })) : [{ scenario: defaultScenario(plant), defaulted: true }];
+  const parts: TransientPart[] = [];
+  for (const [i, { scenario, defaulted }] of list.entries()) {
+    checkCancel(engine);
+    const part: TransientPart = { scenario, defaulted, result: null, problem: null };
+    const base = 0.5 + (0.5 * i) / list.length;
+    engine.progress(base, `simulating "${scenario.name}"`);
+    try {
+      part.result = await engine.simulate(
+        { name: scenario.name, plant, durationS: scenario.durationS, stepMs: scenario.stepMs, outputPoints: 800, events: scenario.events },
+        (f) => engine.progress(base + (0.5 * f) / list.length, `simulating "${scenario.name}"`),
+      );
+    } catch (err) {
+      part.problem = problemOf(err);
+    }
+    parts.push(part);
+  }
+  return parts;
+}
+
+/**
+ * Computes everything the report shows, section by section, through `engine`.
+ * @throws Cancelled when the caller cancels; section failures become their `problem` text.
+ */
+export async function assembleReport(req: BuildReportRequest, engine: ReportEngine): Promise<ReportData> {
+  const plant = req.project.plant;
+  const loadPF = req.loadPF ?? DEFAULT_LOAD_PF;
+  const sharing = await sharingPoints(req, engine, loadPF);
+  const sync = await syncPart(req, engine);
+  const transients = await transientParts(req, engine);
+  engine.progress(1, 'writing the report');
+  return {
+    title: req.project.name?.trim() || plant.name,
+    date: req.date,
+    plant,
+    description: describePlant(plant),
+    loadPF,
+    sharing,
+    sync,
+    transients,
+  };
+}

@@ -1,0 +1,25 @@
+/** Text helpers of the report: HTML escaping and number formatting that never prints NaN. */
+
+/** Escapes the five HTML-special characters so user text (names, ids) cannot become markup. */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
+/** A number with fixed decimals; blank values and non-finite numbers print as an em dash. */
+export function formatNumber(value: number | null | undefined, decimals: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const text = value.toFixed(decimals);
+  // "-0.0" reads as a sign error in a table.
+  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
+}
+
+/** A file-name-safe stem from free text: lower case, ASCII letters, digits and dashes. */
+export function slug(text: string): string {
+  const s = text
+    .normalize('NFKD')
+    .replace(/[^\x20-\x7e]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '');
+  return s.slice(0, 48).replace(/-+$/g, '') || 'plant';
+}
