@@ -38,6 +38,8 @@ export interface SetResult {
   currentA: number;
   /** Terminal voltage, V line-to-line. */
   terminalV: number;
+  /** Terminal voltage angle ahead of the bus, degrees (0 without a feeder). */
+  terminalAngleDeg?: number;
   /** kW as % of ratedKW. */
   loadingPct: number;
   /** kVA as % of ratedKVA. */
@@ -52,6 +54,8 @@ export interface SetResult {
   circulatingPct: number;
   /** Feeder losses, kW. */
   feederLossKW: number;
+  /** Reactive power absorbed by the feeder (X·I²), kVAR. */
+  feederLossKVAR?: number;
   flags: SetFlag[];
 }
 

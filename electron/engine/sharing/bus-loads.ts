@@ -64,3 +64,20 @@ export function busLoadKVARQuadratic(loads: readonly LoadTerm[], ratedVoltageV: 
   }
   return { constant, perV2 };
 }
+
+/** ∂(load kW)/∂V at (V, f), kW per V. */
+export function busLoadKWdV(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  let d = 0;
+  for (const l of loads) {
+    if (!l.impedance) continue;
+    d += ((2 * l.kW * voltageV) / (ratedVoltageV * ratedVoltageV)) * frequencyFactor(l, frequencyHz, ratedFrequencyHz);
+  }
+  return d;
+}
+
+/** ∂(load kVAR)/∂V at V, kVAR per V. */
+export function busLoadKVARdV(loads: readonly LoadTerm[], voltageV: number, ratedVoltageV: number): number {
+  let d = 0;
+  for (const l of loads) if (l.impedance) d += (2 * l.kVAR * voltageV) / (ratedVoltageV * ratedVoltageV);
+  return d;
+}

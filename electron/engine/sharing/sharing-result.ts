@@ -15,6 +15,8 @@ export interface OperatingPoint {
   kW: Float64Array;
   kVAR: Float64Array;
   terminalV: Float64Array;
+  /** Terminal voltage angle relative to the bus, degrees (feeder solve only). */
+  terminalAngleDeg?: Float64Array;
   lossKW: Float64Array;
   lossKVAR: Float64Array;
   loadKW: number;
@@ -44,6 +46,8 @@ function offlineResult(plant: Plant, idx: number): SetResult {
     pfLagging: true,
     currentA: 0,
     terminalV: 0,
+    terminalAngleDeg: 0,
+    feederLossKVAR: 0,
     loadingPct: 0,
     loadingKVAPct: 0,
     sharingErrorKWPct: 0,
@@ -99,6 +103,8 @@ export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingP
       pfLagging: kVAR >= 0,
       currentA,
       terminalV: vt,
+      terminalAngleDeg: op.terminalAngleDeg ? op.terminalAngleDeg[i]! : 0,
+      feederLossKVAR: op.lossKVAR[i]!,
       loadingPct: (100 * kW) / s.ratedKW,
       loadingKVAPct: (100 * kVA) / s.ratedKVA,
       sharingErrorKWPct: (100 * (kW - (totKW * s.ratedKW) / ratedKWSum)) / s.ratedKW,

@@ -4,6 +4,7 @@
  */
 import type { LoadOverride, Plant, SharingResult } from '../../../shared-types';
 import { solveClosedForm } from './closed-form';
+import { solveNetwork } from './network-solve';
 import { buildSharingModel } from './sharing-model';
 import { buildSharingResult } from './sharing-result';
 
@@ -16,6 +17,14 @@ import { buildSharingResult } from './sharing-result';
  */
 export function solveSharing(plant: Plant, load?: LoadOverride): SharingResult {
   const m = buildSharingModel(plant, load);
-  const op = solveClosedForm(m);
+  const closed = solveClosedForm(m);
+  if (!m.hasFeeders) return buildSharingResult(plant, m, closed);
+  const op = solveNetwork(m, {
+    frequencyHz: closed.frequencyHz,
+    voltageV: closed.busVoltageV,
+    kW: closed.kW,
+    kVAR: closed.kVAR,
+    isoState: closed.isoState,
+  });
   return buildSharingResult(plant, m, op);
 }
