@@ -1,15 +1,170 @@
-/** Handlers for synchronizing. (Filled in by the synchronizing engine.) */
+/**
+ * Handlers for synchronizing: the `droopline.sync` case schema (with the plant + incomingSetId alternative and
+ * limit presets), the sync-check verdict, the preset list and the closing map (in chunks, with progress and
+ * cancelling).
+ */
 import { z } from 'zod';
-import { EngineError } from '../engine';
-import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from '../../shared-types';
-import type { HandlerGroup } from './handler';
+import { SYNC_FORMAT } from '../../shared-types';
+import type { ClosingMapRequest, SyncCase } from '../../shared-types';
+import { Cancelled, closingMapJob, defaultPlantBus, evaluateSync, incomingFromSet, InvalidInput, listSyncPresets } from '../engine';
+import { breathe } from './handler';
+import type { HandlerContext, HandlerGroup } from './handler';
+import { plantSchema } from './plant-schema';
 
-const notYet = (what: string): never => {
-  throw new EngineError('INTERNAL', `${what} is not available in this build yet.`);
-};
+const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
+const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
+const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
+const flag = () => z.boolean({ error: 'must be true or false' });
+
+const limitsSchema = z
+  .object({
+    slipHz: positive('Hz').lte(5, 'must be 5 Hz or less'),
+    angleDeg: positive('°').lte(180, 'must be 180° or less'),
+    voltagePct: positive('%').lte(100, 'must be 100 % or less'),
+    incomingFaster: flag().optional(),
+    incomingHigher: flag().optional(),
+  })
+  .strict();
+
+const deadSchema = z
+  .object({
+    deadBus: flag().default(false),
+    deadLine: flag().default(false),
+    livePct: positive('%').lte(150, 'must be 150 % or less').default(80),
+    deadPct: nonNegative('%').default(25),
+  })
+  .strict()
+  .refine((d) => d.deadPct < d.livePct, { message: 'must be below livePct', path: ['deadPct'] });
+
+const busSchema = z
+  .object({
+    frequencyHz: nonNegative('Hz').lte(1000, 'must be 1000 Hz or less'),
+    voltageV: nonNegative('V').lte(50000, 'must be 50 000 V or less'),
+    angleDeg: num('°').optional(),
+  })
+  .strict();
+
+const incomingSchema = z
+  .object({
+    frequencyHz: nonNegative('Hz').lte(1000, 'must be 1000 Hz or less'),
+    voltageV: nonNegative('V').lte(50000, 'must be 50 000 V or less'),
+    angleDeg: num('°'),
+    ratedKVA: positive('kVA').optional(),
+    xddpPU: positive('pu').lte(2, 'must be 2 pu or less').optional(),
+    rOverX: nonNegative('').lte(20, 'must be 20 or less').optional(),
+    inertiaS: positive('s').lte(30, 'must be 30 s or less').optional(),
+    poles: num('poles').int('must be a whole number').gte(2, 'must be 2 or more').multipleOf(2, 'must be even').optional(),
+  })
+  .strict();
+
+const busSourceSchema = z
+  .object({
+    ratedKVA: positive('kVA'),
+    xPU: positive('pu').lte(10, 'must be 10 pu or less'),
+    rPU: nonNegative('pu').lte(10, 'must be 10 pu or less').optional(),
+  })
+  .strict();
+
+const presetIds = (): string[] => listSyncPresets().map((p) => p.id);
+
+/**
+ * Schema of a sync-check case (`droopline.sync`, version 1). Either `bus` + `incoming` with `ratedKVA` and
+ * `xddpPU`, or a `plant` and `incomingSetId` (the set's machine data fill what `incoming` leaves out; the bus
+ * defaults to the plant's rated frequency and voltage, or dead when no other set is online). Limits come from
+ * `limits`, or from the preset `presetId` when `limits` is absent.
+ */
+export const syncCaseSchema: z.ZodType<SyncCase> = z
+  .object({
+    format: z.literal(SYNC_FORMAT, { error: `must be "${SYNC_FORMAT}"` }).optional(),
+    version: z.literal(1, { error: 'must be 1 (this version of Droopline reads sync cases of version 1)' }).optional(),
+    name: z.string({ error: 'must be text' }).optional(),
+    bus: busSchema.optional(),
+    incoming: incomingSchema,
+    busSource: busSourceSchema.optional(),
+    plant: plantSchema.optional(),
+    incomingSetId: z.string({ error: 'must be text' }).min(1, 'must not be empty').optional(),
+    breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
+    limits: limitsSchema.optional(),
+    presetId: z.string({ error: 'must be text' }).optional(),
+    dead: deadSchema.optional(),
+    ratedVoltageV: positive('V').lte(50000, 'must be 50 000 V or less').optional(),
+    ratedFrequencyHz: positive('Hz').lte(1000, 'must be 1000 Hz or less').optional(),
+  })
+  .strict()
+  .superRefine((c, ctx) => {
+    const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message });
+    if (c.plant) {
+      if (c.incomingSetId === undefined) issue(['incomingSetId'], 'is required when a plant is given (which set is coming on?)');
+      else if (!c.plant.sets.some((s) => s.id === c.incomingSetId)) {
+        issue(['incomingSetId'], `must name a set of the plant (${c.plant.sets.map((s) => s.id).join(', ')})`);
+      }
+    } else {
+      if (c.incomingSetId !== undefined) issue(['plant'], 'is required when incomingSetId is given');
+      if (!c.bus) issue(['bus'], 'is required (or give a plant and incomingSetId)');
+      if (c.incoming.ratedKVA === undefined) issue(['incoming', 'ratedKVA'], 'is required (or give a plant and incomingSetId)');
+      if (c.incoming.xddpPU === undefined) issue(['incoming', 'xddpPU'], 'is required (or give a plant and incomingSetId)');
+    }
+    if (!c.limits) {
+      if (c.presetId === undefined) issue(['limits'], 'is required (or give presetId)');
+      else if (!presetIds().includes(c.presetId)) issue(['presetId'], `must be one of: ${presetIds().join(', ')}`);
+    }
+  })
+  .transform((c): SyncCase => {
+    const { bus, incoming, limits, plant, incomingSetId, ...rest } = c;
+    const fromSet = plant && incomingSetId ? incomingFromSet(plant, incomingSetId) : undefined;
+    return {
+      ...rest,
+      ...(plant ? { plant } : {}),
+      ...(incomingSetId !== undefined ? { incomingSetId } : {}),
+      bus: bus ?? defaultPlantBus(plant!, incomingSetId!),
+      incoming: {
+        ...incoming,
+        ratedKVA: incoming.ratedKVA ?? fromSet!.ratedKVA,
+        xddpPU: incoming.xddpPU ?? fromSet!.xddpPU,
+        ...(incoming.inertiaS ?? fromSet?.inertiaS ? { inertiaS: incoming.inertiaS ?? fromSet!.inertiaS } : {}),
+        ...(incoming.poles ?? fromSet?.poles ? { poles: incoming.poles ?? fromSet!.poles } : {}),
+      },
+      limits: limits ?? listSyncPresets().find((p) => p.id === c.presetId)!.limits,
+    };
+  });
+
+/** Schema of a closing-map request (grid defaults: 181 angles × 101 slips over ±0.5 Hz, closed form). */
+export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
+  .object({
+    case: syncCaseSchema,
+    angleSteps: num('steps').int('must be a whole number').gte(2, 'must be 2 or more').lte(1441, 'must be 1441 or less').default(181),
+    slipSteps: num('steps').int('must be a whole number').gte(2, 'must be 2 or more').lte(1001, 'must be 1001 or less').default(101),
+    slipRangeHz: positive('Hz').lte(5, 'must be 5 Hz or less').default(0.5),
+    method: z.enum(['closed-form', 'time-domain'], { error: 'must be "closed-form" or "time-domain"' }).default('closed-form'),
+    angleAxis: z.enum(['command', 'contact'], { error: 'must be "command" or "contact"' }).optional(),
+    voltageDifferencePct: num('%').gte(-50, 'must be −50 % or more').lte(50, 'must be 50 % or less').optional(),
+  })
+  .strict();
+
+/** Cells computed between progress reports and cancel checks. */
+const CELLS_PER_CHUNK = 4096;
+
+async function runClosingMap(req: ClosingMapRequest, ctx: HandlerContext) {
+  if (req.method === 'time-domain') {
+    throw new InvalidInput(
+      'method: the time-domain closing map is not available yet (the simulator has no breaker-close entry point in this build); use "closed-form".',
+    );
+  }
+  const job = closingMapJob(req);
+  const rowsPerChunk = Math.max(1, Math.floor(CELLS_PER_CHUNK / req.angleSteps));
+  ctx.progress(0, 'closing map');
+  for (let row = 0; row < job.rows; row += rowsPerChunk) {
+    if (ctx.signal.aborted) throw new Cancelled('The closing map was cancelled.');
+    const end = Math.min(job.rows, row + rowsPerChunk);
+    job.fillRows(row, end);
+    ctx.progress(end / job.rows, 'closing map');
+    if (end < job.rows) await breathe();
+  }
+  return job.map;
+}
 
 export const syncHandlers: HandlerGroup<'evaluateSync' | 'listSyncPresets' | 'closingMap'> = {
-  evaluateSync: { schema: z.custom<SyncCase>(), run: (): SyncResult => notYet('Sync-check') },
-  listSyncPresets: { schema: z.object({}).strict(), run: (): SyncPreset[] => [] },
-  closingMap: { schema: z.custom<ClosingMapRequest>(), run: (): ClosingMap => notYet('The closing map') },
+  evaluateSync: { schema: syncCaseSchema, run: (c) => evaluateSync(c) },
+  listSyncPresets: { schema: z.object({}).strict(), run: () => listSyncPresets() },
+  closingMap: { schema: closingMapRequestSchema, run: runClosingMap },
 };

@@ -1,5 +1,6 @@
 /** Every CLI sub-command. Add a command by adding its module here. */
 import type { CliCommand } from '../io';
 import { describeCommand } from './describe';
+import { syncCommand } from './sync';
 
-export const commands: CliCommand[] = [describeCommand];
+export const commands: CliCommand[] = [describeCommand, syncCommand];

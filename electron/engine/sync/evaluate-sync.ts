@@ -9,18 +9,23 @@ import { busEquivalent } from './bus-equivalent';
 import { closingSurge, noSurge, surgeCircuit } from './closing-surge';
 import { sideState, syncCheck } from './permissives';
 import { phasorDifference, wrapAngleDeg } from './phasor';
-import { syncPreset } from './presets';
+import { listSyncPresets } from './presets';
 import { advanceAngleDeg, angleAtContactDeg, closeCommandAngleDeg, slipPeriodS, timeToAngleS, windowOpenS, windowTiming } from './slip-timing';
 import { syncBasis } from './sync-basis';
 
-/** Where the limits came from, in words. */
+/** Where the limits came from, in words: the preset's standard and clause, or user-defined (edited from a preset). */
 function limitsSource(c: SyncCase): string {
-  if (!c.presetId) return 'User-defined limits';
-  try {
-    return syncPreset(c.presetId).source;
-  } catch {
-    return `Preset "${c.presetId}" (edited)`;
-  }
+  const preset = c.presetId === undefined ? undefined : listSyncPresets().find((p) => p.id === c.presetId);
+  if (!preset) return 'User-defined limits';
+  const a = preset.limits;
+  const b = c.limits;
+  const same =
+    a.slipHz === b.slipHz &&
+    a.angleDeg === b.angleDeg &&
+    a.voltagePct === b.voltagePct &&
+    !!a.incomingFaster === !!b.incomingFaster &&
+    !!a.incomingHigher === !!b.incomingHigher;
+  return same ? preset.source : `User-defined limits (edited from ${preset.label})`;
 }
 
 /**
