@@ -1,0 +1,94 @@
+/** `droopline solve plant.json [--json] [--load-kw N --load-kvar N]`: where the plant settles. */
+import type { SetFlag, SharingResult } from '../../../shared-types';
+import { numberFlag } from '../args';
+import { callEngine } from '../call';
+import { CliInputError } from '../io';
+import type { CliCommand } from '../io';
+import { readJson } from '../read-json';
+import { fmt, formatTable } from '../table';
+
+const CAUTION =
+  "Planning and training only: verify against makers' data, protection studies, local codes and licensed practice.";
+
+/** Short words for the table's flag column. */
+const FLAG_WORDS: Record<SetFlag, string> = {
+  'overload-kW': 'OVERLOAD kW',
+  'overload-kVA': 'OVERLOAD kVA',
+  'reverse-power': 'REVERSE POWER',
+  'at-max-kW': 'at max kW',
+  'at-min-kW': 'at min kW',
+  'under-excited': 'UNDER-EXCITED',
+  offline: 'offline',
+};
+
+/** The JSON the command prints: the issue's fields first, then everything else the engine returns. */
+function toJson(r: SharingResult): unknown {
+  return {
+    bus: r.bus,
+    sets: r.sets.map((s) => ({
+      id: s.id,
+      kW: s.kW,
+      kVAR: s.kVAR,
+      kVA: s.kVA,
+      pf: s.pf,
+      currentA: s.currentA,
+      terminalV: s.terminalV,
+      circulatingA: s.circulatingA,
+      loadingPct: s.loadingPct,
+      flags: s.flags,
+      ...s,
+    })),
+    warnings: r.warnings,
+    totals: r.totals,
+    method: r.method,
+    iterations: r.iterations,
+    caution: CAUTION,
+  };
+}
+
+function table(r: SharingResult): string {
+  const rows = r.sets.map((s) =>
+    s.online
+      ? [
+          s.id,
+          fmt(s.kW, 1),
+          fmt(s.kVAR, 1),
+          fmt(s.kVA, 1),
+          `${fmt(s.pf, 3)} ${s.kVAR >= 0 ? 'lag' : 'lead'}`,
+          fmt(s.currentA, 1),
+          fmt(s.terminalV, 1),
+          fmt(s.loadingPct, 1),
+          fmt(s.loadingKVAPct, 1),
+          fmt(s.circulatingA, 1),
+          fmt(s.feederLossKW, 2),
+          s.flags.map((f) => FLAG_WORDS[f]).join(', ') || 'ok',
+        ]
+      : [s.id, '—', '—', '—', '—', '—', '—', '—', '—', '—', '—', 'offline'],
+  );
+  const t = r.totals;
+  return (
+    `bus: ${fmt(r.bus.frequencyHz, 3)} Hz, ${fmt(r.bus.voltageV, 1)} V   (${r.method === 'closed-form' ? 'closed forms' : `Newton–Raphson, ${r.iterations} iterations`})\n\n` +
+    formatTable(['set', 'kW', 'kVAR', 'kVA', 'PF', 'A', 'terminal V', 'kW %', 'kVA %', 'circ. A', 'loss kW', 'flags'], rows) +
+    `\ntotal ${fmt(t.kW, 1)} kW, ${fmt(t.kVAR, 1)} kVAR; load ${fmt(t.loadKW, 1)} kW, ${fmt(t.loadKVAR, 1)} kVAR; feeder losses ${fmt(t.feederLossKW, 2)} kW, ${fmt(t.feederLossKVAR, 2)} kVAR\n` +
+    (r.warnings.length ? `\nwarnings:\n${r.warnings.map((w) => `  - ${w}`).join('\n')}\n` : '') +
+    `\n${CAUTION}\n`
+  );
+}
+
+export const solveCommand: CliCommand = {
+  name: 'solve',
+  summary: 'steady-state kW/kVAR sharing, bus frequency and voltage',
+  usage: 'droopline solve plant.json [--json] [--load-kw N --load-kvar N]',
+  valueFlags: ['load-kw', 'load-kvar'],
+  async run(args, io) {
+    const plant = await readJson(io, args.positional[0], 'plant');
+    const loadKW = numberFlag(args, 'load-kw');
+    const loadKVAR = numberFlag(args, 'load-kvar');
+    if (loadKVAR !== undefined && loadKW === undefined) throw new CliInputError('--load-kvar: needs --load-kw as well');
+    const request = loadKW === undefined ? { plant } : { plant, load: { kW: loadKW, kVAR: loadKVAR ?? 0 } };
+    const r = await callEngine(io, 'solveSharing', request);
+    if (!r.ok) return r.exitCode;
+    io.out(args.flags.has('json') ? JSON.stringify(toJson(r.value), null, 2) + '\n' : table(r.value));
+    return 0;
+  },
+};
