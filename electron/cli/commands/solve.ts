@@ -25,19 +25,10 @@ const FLAG_WORDS: Record<SetFlag, string> = {
 function toJson(r: SharingResult): unknown {
   return {
     bus: r.bus,
-    sets: r.sets.map((s) => ({
-      id: s.id,
-      kW: s.kW,
-      kVAR: s.kVAR,
-      kVA: s.kVA,
-      pf: s.pf,
-      currentA: s.currentA,
-      terminalV: s.terminalV,
-      circulatingA: s.circulatingA,
-      loadingPct: s.loadingPct,
-      flags: s.flags,
-      ...s,
-    })),
+    sets: r.sets.map((s) => {
+      const { id, kW, kVAR, kVA, pf, currentA, terminalV, circulatingA, loadingPct, flags, ...rest } = s;
+      return { id, kW, kVAR, kVA, pf, currentA, terminalV, circulatingA, loadingPct, flags, ...rest };
+    }),
     warnings: r.warnings,
     totals: r.totals,
     method: r.method,
