@@ -63,9 +63,12 @@ function pickIncoming(plant: Plant): string {
   return (plant.sets.find((s) => !s.online) ?? plant.sets[plant.sets.length - 1])?.id ?? '';
 }
 
+/** How close to each limit the "window edge" case sits (just inside, so rounding never blocks it). */
+export const EDGE_FRACTION = 0.999;
+
 /**
  * The sync-check case of a close at the edge of the window: slip, phase angle and voltage
- * difference at their limits. Its surge is the largest a permissive close can give before
+ * difference at their limits (times `EDGE_FRACTION`). Its surge is the largest a permissive close can give before
  * breaker travel; the advance angle is for the largest slip the window allows.
  */
 export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: string): SyncCase {
@@ -78,9 +81,9 @@ export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: st
   return {
     bus: { frequencyHz: f, voltageV: v, angleDeg: 0 },
     incoming: {
-      frequencyHz: f + s.limits.slipHz,
-      voltageV: v * (1 + s.limits.voltagePct / 100),
-      angleDeg: s.limits.angleDeg,
+      frequencyHz: f + EDGE_FRACTION * s.limits.slipHz,
+      voltageV: v * (1 + (EDGE_FRACTION * s.limits.voltagePct) / 100),
+      angleDeg: EDGE_FRACTION * s.limits.angleDeg,
       ratedKVA: set.ratedKVA,
       xddpPU: set.machine.xddpPU,
       inertiaS: set.machine.inertiaS,
@@ -141,7 +144,8 @@ async function syncPart(req: BuildReportRequest, engine: ReportEngine): Promise<
     problemOf(err);
   }
   const given = req.project.sync ?? null;
-  const first = presets[0] ?? null;
+  // Between generating sets the common-practice preset fits better than a utility-tie table.
+  const first = presets.find((p) => p.id === 'practice-generating-sets') ?? presets.find((p) => p.id.includes('practice')) ?? presets[0] ?? null;
   const settings: ProjectSyncSettings = given ?? {
     presetId: first?.id ?? null,
     limits: first?.limits ?? { ...FALLBACK_SYNC_LIMITS },

@@ -128,7 +128,7 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
   out.push('</section>');
   out.push('<section id="sync"><h2>5. Sync-check settings and closing map</h2>');
   if (isSyncPart(d.sync)) {
-    if (d.sync.defaulted) out.push('<p class="note">The project has no sync-check settings: the report uses the first limit preset, a 60 ms breaker and the first offline set (or the last set) as incoming.</p>');
+    if (d.sync.defaulted) out.push('<p class="note">The project has no sync-check settings: the report uses the common-practice limit preset for generating sets, a 60 ms breaker and the first offline set (or the last set) as incoming.</p>');
     if (d.sync.preset?.note) out.push(`<p class="note">Preset note: ${escapeHtml(d.sync.preset.note)}</p>`);
     tableOut('sync-settings');
     if (d.sync.problem) out.push(problemHtml(d.sync.problem));
