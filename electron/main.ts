@@ -2,23 +2,58 @@
 import { app, BrowserWindow } from 'electron';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { fileFromArgv, setupFiles } from './files/setup-files';
+import type { FilesService } from './files/setup-files';
 import { setupEngineIpc } from './ipc';
 import { setupMenu } from './menu';
 import { createMainWindow, setupSessionSecurity } from './window';
 
 const outDir = join(dirname(fileURLToPath(import.meta.url)), '..');
 let mainWindow: BrowserWindow | null = null;
+let files: FilesService | null = null;
+/** A file handed over before the window was ready (command line, macOS "open-file"). */
+let pendingFile: string | null = fileFromArgv(process.argv);
+
+// One instance, so one recovery copy and one recent list: a second launch (say, opening a
+// project from the file manager) hands its file to the running window and quits.
+if (!app.requestSingleInstanceLock()) app.quit();
+app.on('second-instance', (_e, argv) => {
+  if (!mainWindow) return;
+  if (mainWindow.isMinimized()) mainWindow.restore();
+  mainWindow.focus();
+  const file = fileFromArgv(argv);
+  if (file) files?.openPath(file);
+});
+app.on('open-file', (event, path) => {
+  event.preventDefault();
+  if (files && mainWindow) files.openPath(path);
+  else pendingFile = path;
+});
 
 app.on('web-contents-created', (_e, contents) => {
   contents.setWindowOpenHandler(() => ({ action: 'deny' }));
   contents.on('will-navigate', (event) => event.preventDefault());
 });
 
-void app.whenReady().then(() => {
+void app.whenReady().then(async () => {
   setupSessionSecurity();
-  setupEngineIpc((sender) => mainWindow !== null && sender === mainWindow.webContents);
-  setupMenu(() => undefined);
+  const isTrusted = (sender: Electron.WebContents) => mainWindow !== null && sender === mainWindow.webContents;
+  setupEngineIpc(isTrusted);
+  const service = setupFiles({
+    userDataDir: app.getPath('userData'),
+    documentsDir: app.getPath('documents'),
+    isTrusted,
+    window: () => mainWindow,
+    onRecentChanged: (recent) => setupMenu(service.command, recent),
+  });
+  files = service;
+  setupMenu(service.command, await service.recent());
   mainWindow = createMainWindow(outDir);
+  service.guardClose(mainWindow);
+  mainWindow.webContents.once('did-finish-load', () => {
+    if (pendingFile) service.openPath(pendingFile);
+    pendingFile = null;
+  });
   mainWindow.on('closed', () => {
     mainWindow = null;
   });

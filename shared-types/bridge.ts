@@ -5,6 +5,7 @@
 import type { EngineErrorShape } from './errors';
 import type { EngineMethod, EngineRequest, EngineResponse } from './engine-api';
 import type { ProgressEvent } from './progress';
+import type { HostCommand, HostMethod, HostOutcome, HostRequest, HostResponse } from './host-api';
 
 /** A call's outcome as it crosses a process or worker boundary. */
 export type EngineOutcome<T> = { ok: true; value: T } | { ok: false; error: EngineErrorShape };
@@ -15,6 +16,17 @@ export interface DrooplineBridge {
   cancel(id: number): void;
   /** Subscribe to progress of long jobs; returns the unsubscribe function. */
   onProgress(listener: (event: ProgressEvent) => void): () => void;
+  /** The desktop host's file services (see `host-api.ts`). */
+  host: HostBridge;
+}
+
+/** The host part of the bridge: file services, and the commands the host pushes. */
+export interface HostBridge {
+  invoke<K extends HostMethod>(method: K, request: HostRequest<K>): Promise<HostOutcome<HostResponse<K>>>;
+  /** Subscribe to menu and window commands; returns the unsubscribe function. */
+  onCommand(listener: (command: HostCommand) => void): () => void;
+  /** Full path of a dropped `File` ('' when it has none). Typed `object`: the contract has no DOM types. */
+  pathForFile(file: object): string;
 }
 
 /** Messages to the engine worker. */

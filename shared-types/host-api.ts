@@ -16,6 +16,8 @@ export interface OpenedFile {
   /** File name shown to the user, e.g. `water-works.droopline.json`. */
   fileName: string;
   text: string;
+  /** Full path of the backup beside it (`<file>.bak`, kept by the last save), or null. */
+  backupPath: string | null;
 }
 
 /** Where a save went. */
@@ -123,7 +125,8 @@ export type HostCommand =
   | { command: 'new' | 'open' | 'save' | 'save-as' }
   /** The user asked to close the window with unsaved changes and chose "Save". */
   | { command: 'save-and-close' }
-  | { command: 'open-recent'; path: string };
+  /** Open a file by path: a recent file, a file given on the command line or by the OS. */
+  | { command: 'open-path'; path: string };
 
 /** Events the host pushes to the renderer; keys are channel names. */
 export interface HostEvents {
