@@ -136,7 +136,9 @@ function solveDroopFrequency(m: SharingModel, voltageV: number, isoLambda: numbe
   for (let k = 0; k < MAX_BISECTIONS; k++) {
     const mid = 0.5 * (a + b);
     if (mid <= a || mid >= b) break;
-    if (h(mid) > 0) a = mid;
+    // ≥: on a flat stretch of exact balance (every set at a limit) take its high-frequency
+    // end, where the droop lines actually meet the load.
+    if (h(mid) >= 0) a = mid;
     else b = mid;
   }
   let f = 0.5 * (a + b);

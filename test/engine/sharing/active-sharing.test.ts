@@ -1,34 +1,273 @@
 import { describe, it, expect } from 'vitest';
-import { solveSharing } from '../../../electron/engine';
+import { solveSharing, NoSteadyState } from '../../../electron/engine';
+import type { SharingResult } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
 
-/** A set in droop with the given rating (kW; kVA = kW / 0.8), droop % and no-load Hz. */
+/** A set in droop: rating kW (kVA = 1.25 kW), droop %, no-load Hz; extra fields override. */
 function droopSet(id: string, kW: number, droopPct: number, noLoadHz: number, over: Record<string, unknown> = {}) {
-  return rawSet(id, { ratedKW: kW, ratedKVA: kW / 0.8, governor: { mode: 'droop', droopPct, noLoadHz }, ...over });
+  return rawSet(id, { ratedKW: kW, ratedKVA: kW * 1.25, governor: { mode: 'droop', droopPct, noLoadHz }, ...over });
 }
 
-describe('solveSharing: active power, closed forms', () => {
+/** An isochronous set of rating kW. */
+function isoSet(id: string, kW: number, setpointHz: number, over: Record<string, unknown> = {}) {
+  return rawSet(id, { ratedKW: kW, ratedKVA: kW * 1.25, governor: { mode: 'isochronous', setpointHz }, ...over });
+}
+
+const load = (kW: number, over: Record<string, unknown> = {}) => [{ id: 'L', kW, kVAR: 0, ...over }];
+const kw = (r: SharingResult) => r.sets.map((s) => s.kW);
+
+/** Droop % giving a slope of `kWPerHz` for a set of `ratedKW` at `fHz` rated: k = P_r / (δ f_r). */
+const droopFor = (ratedKW: number, kWPerHz: number, fHz: number) => (100 * ratedKW) / (kWPerHz * fHz);
+
+describe('solveSharing: droop sets (closed forms)', () => {
   it('two equal sets in 4 % droop from the same no-load setpoint split equally on the droop line', () => {
     // Closed form: k = 1000 kW / (0.04 · 50 Hz) = 500 kW/Hz each; f = 52 − 1200 / 1000 = 50.8 Hz.
-    const plant = makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 1000, 4, 52)], [{ id: 'L', kW: 1200, kVAR: 0 }]);
-    const r = solveSharing(plant);
+    const r = solveSharing(makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 1000, 4, 52)], load(1200)));
     expectClose(r.bus.frequencyHz, 50.8, { abs: 1e-9 }, 'bus frequency (closed form)');
     expectClose(r.sets[0]!.kW, 600, { rel: 1e-12 }, 'A kW (closed form)');
     expectClose(r.sets[1]!.kW, 600, { rel: 1e-12 }, 'B kW (closed form)');
     expect(r.method).toBe('closed-form');
+    // The bus frequency follows the droop line: 1800 kW → 52 − 1800/1000 = 50.2 Hz (closed form).
+    expectClose(solveSharing(makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 1000, 4, 52)], load(1800))).bus.frequencyHz, 50.2, { abs: 1e-9 });
   });
 
   it('unequal sets with equal per-unit droop share in proportion to rating (REFERENCES.md §3, computed)', () => {
     // REFERENCES.md §3 [computed]: 1000 + 500 kW, both 4 %, f_nl 62.4 Hz on 60 Hz, 1200 kW → 60.48 Hz, 800 / 400 kW.
-    const plant = makePlant([droopSet('A', 1000, 4, 62.4), droopSet('B', 500, 4, 62.4)], [{ id: 'L', kW: 1200, kVAR: 0 }], { ratedFrequencyHz: 60 });
-    const r = solveSharing(plant);
+    const r = solveSharing(makePlant([droopSet('A', 1000, 4, 62.4), droopSet('B', 500, 4, 62.4)], load(1200), { ratedFrequencyHz: 60 }));
     const k1 = 1000 / (0.04 * 60);
     const k2 = 500 / (0.04 * 60);
     expectClose(r.bus.frequencyHz, 62.4 - 1200 / (k1 + k2), { abs: 1e-9 }, 'f (recomputed closed form)');
     expectClose(r.bus.frequencyHz, 60.48, { abs: 1e-9 }, 'f (REFERENCES.md §3)');
-    expectClose(r.sets[0]!.kW, 800, { rel: 1e-12 }, 'A kW');
-    expectClose(r.sets[1]!.kW, 400, { rel: 1e-12 }, 'B kW');
+    expectClose(r.sets[0]!.kW, 800, { rel: 1e-12 }, 'A kW (REFERENCES.md §3)');
+    expectClose(r.sets[1]!.kW, 400, { rel: 1e-12 }, 'B kW (REFERENCES.md §3)');
     expectClose(r.sets[0]!.sharingErrorKWPct, 0, { abs: 1e-9 }, 'A sharing error');
+    expectClose(r.sets[0]!.loadingPct, 80, { rel: 1e-12 }, 'A loading %');
+  });
+
+  it('unequal droop: 3 % and 5 % with their own no-load settings (REFERENCES.md §3, computed)', () => {
+    // REFERENCES.md §3 [computed]: two 1000 kW sets, 3 % and 5 %, f_nl 61.8 and 63.0 Hz, 1500 kW → 60.5625 Hz, 687.5 / 812.5 kW.
+    const r = solveSharing(makePlant([droopSet('A', 1000, 3, 61.8), droopSet('B', 1000, 5, 63)], load(1500), { ratedFrequencyHz: 60 }));
+    expectClose(r.bus.frequencyHz, 60.5625, { abs: 1e-9 }, 'f');
+    expectClose(r.sets[0]!.kW, 687.5, { rel: 1e-12 }, 'A kW');
+    expectClose(r.sets[1]!.kW, 812.5, { rel: 1e-12 }, 'B kW');
+    // Sharing error vs proportional (750 kW each): −62.5 kW = −6.25 % of rating, and +6.25 % (closed form).
+    expectClose(r.sets[0]!.sharingErrorKWPct, -6.25, { abs: 1e-9 }, 'A sharing error %');
+    expectClose(r.sets[1]!.sharingErrorKWPct, 6.25, { abs: 1e-9 }, 'B sharing error %');
+  });
+
+  it('a no-load setpoint mismatch skews the split by what the droop lines predict', () => {
+    // Closed form: equal 1000 kW sets, 4 % on 50 Hz (k = 500 kW/Hz); f_nl 52.0 and 51.9 Hz; load 1000 kW.
+    // f = (k·52 + k·51.9 − 1000) / 2k = 50.95 Hz; skew = k·Δf_nl / 2 = 25 kW each way.
+    const r = solveSharing(makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 1000, 4, 51.9)], load(1000)));
+    expectClose(r.bus.frequencyHz, 50.95, { abs: 1e-9 }, 'f');
+    expectClose(r.sets[0]!.kW, 525, { rel: 1e-12 }, 'A kW');
+    expectClose(r.sets[1]!.kW, 475, { rel: 1e-12 }, 'B kW');
+  });
+
+  it('Chapman, parallel operation example (REFERENCES.md §6.2): 1 MW/Hz sets at 61.5 and 61.0 Hz', () => {
+    // Chapman, Electric Machinery Fundamentals, parallel operation: 2.5 MW → 60 Hz, 1.5 / 1.0 MW;
+    // +1 MW → 59.5 Hz, 2.0 / 1.5 MW; G2 raised 0.5 Hz → 59.75 Hz, 1.75 / 1.75 MW.
+    const d = droopFor(3000, 1000, 60); // 3000 kW sets, slope 1 MW/Hz
+    const plant = (f2: number, kW: number) => makePlant([droopSet('G1', 3000, d, 61.5), droopSet('G2', 3000, d, f2)], load(kW), { ratedFrequencyHz: 60 });
+    let r = solveSharing(plant(61, 2500));
+    expectClose(r.bus.frequencyHz, 60, { abs: 1e-9 }, 'f at 2.5 MW');
+    expect(kw(r).map((v) => +v.toFixed(6))).toEqual([1500, 1000]);
+    r = solveSharing(plant(61, 3500));
+    expectClose(r.bus.frequencyHz, 59.5, { abs: 1e-9 }, 'f at 3.5 MW');
+    expect(kw(r).map((v) => +v.toFixed(6))).toEqual([2000, 1500]);
+    r = solveSharing(plant(61.5, 3500));
+    expectClose(r.bus.frequencyHz, 59.75, { abs: 1e-9 }, 'f after raising G2');
+    expect(kw(r).map((v) => +v.toFixed(6))).toEqual([1750, 1750]);
+  });
+
+  it('Chapman, single set (REFERENCES.md §6.3): f_nl 61.0 Hz, 1 MW/Hz', () => {
+    const d = droopFor(3000, 1000, 60);
+    const one = (fnl: number, kW: number) => solveSharing(makePlant([droopSet('G', 3000, d, fnl)], load(kW), { ratedFrequencyHz: 60 })).bus.frequencyHz;
+    expectClose(one(61, 1000), 60, { abs: 1e-9 }, '1000 kW → 60 Hz (Chapman)');
+    expectClose(one(61, 1800), 59.2, { abs: 1e-9 }, '+800 kW → 59.2 Hz (Chapman)');
+    expectClose(one(61.8, 1800), 60, { abs: 1e-9 }, 'f_nl 61.8 Hz restores 60 Hz (Chapman)');
+  });
+
+  it('three sets P = 50(50 − f), 100(51 − f), 150(52 − f) MW, 700 MW (REFERENCES.md §6.4)', () => {
+    // REFERENCES.md §6.4: 49 Hz; 50 / 200 / 450 MW. 10 % droop keeps every set inside its rating.
+    const sets = [
+      droopSet('G1', 250_000, 10, 50),
+      droopSet('G2', 500_000, 10, 51),
+      droopSet('G3', 750_000, 10, 52),
+    ];
+    const r = solveSharing(makePlant(sets, load(700_000)));
+    expectClose(r.bus.frequencyHz, 49, { abs: 1e-9 }, 'f');
+    expectClose(r.sets[0]!.kW, 50_000, { rel: 1e-12 }, 'G1');
+    expectClose(r.sets[1]!.kW, 200_000, { rel: 1e-12 }, 'G2');
+    expectClose(r.sets[2]!.kW, 450_000, { rel: 1e-12 }, 'G3');
+  });
+
+  it('Glover, Sarma & Overbye, Example 12.4 (REFERENCES.md §6.1): 200 MW step on 1000/750/500 MVA units, R = 0.05', () => {
+    // Δf = −0.2667 Hz; ΔPm 88.9 / 66.7 / 44.4 MW. Droop R = 0.05 pu on the unit's own base = 5 %.
+    const plant = (kW: number) =>
+      makePlant([droopSet('U1', 1_000_000, 5, 63), droopSet('U2', 750_000, 5, 63), droopSet('U3', 500_000, 5, 63)], load(kW), { ratedFrequencyHz: 60 });
+    const before = solveSharing(plant(1_125_000));
+    const after = solveSharing(plant(1_325_000));
+    expectClose(after.bus.frequencyHz - before.bus.frequencyHz, -0.2667, { abs: 5e-5 }, 'Δf (Glover 12.4)');
+    expectClose(after.sets[0]!.kW - before.sets[0]!.kW, 88_900, { abs: 50 }, 'ΔP1 (Glover 12.4)');
+    expectClose(after.sets[1]!.kW - before.sets[1]!.kW, 66_700, { abs: 50 }, 'ΔP2 (Glover 12.4)');
+    expectClose(after.sets[2]!.kW - before.sets[2]!.kW, 44_400, { abs: 50 }, 'ΔP3 (Glover 12.4)');
+  });
+
+  it('Theraja, two 2000 kVA sets drooping 50→48 and 50→47.5 Hz (REFERENCES.md §6.5)', () => {
+    // Theraja, A Textbook of Electrical Technology Vol. II: 3000 kW → 48.33 Hz, 1667 / 1333 kW; most load without overload 3600 kW.
+    const s1 = rawSet('A', { ratedKW: 2000, ratedKVA: 2000, governor: { mode: 'droop', droopPct: 4, noLoadHz: 50 } });
+    const s2 = rawSet('B', { ratedKW: 2000, ratedKVA: 2000, governor: { mode: 'droop', droopPct: 5, noLoadHz: 50 } });
+    const r = solveSharing(makePlant([s1, s2], load(3000)));
+    expectClose(r.bus.frequencyHz, 48.33, { abs: 0.005 }, 'f (Theraja)');
+    expectClose(r.sets[0]!.kW, 1667, { abs: 0.5 }, 'A kW (Theraja)');
+    expectClose(r.sets[1]!.kW, 1333, { abs: 0.5 }, 'B kW (Theraja)');
+    const full = solveSharing(makePlant([s1, s2], load(3600)));
+    expectClose(full.sets[0]!.kW, 2000, { rel: 1e-12 }, 'A at rating at 3600 kW (Theraja)');
+    expect(full.sets[0]!.flags).toContain('at-max-kW');
+    expect(full.sets[0]!.flags).not.toContain('overload-kW');
+    expect(solveSharing(makePlant([s1, s2], load(3590))).sets[0]!.flags).not.toContain('at-max-kW');
+  });
+
+  it('Chapman, three 10 MW sets with slopes 5, 5, 6 MW/Hz (REFERENCES.md §6.6)', () => {
+    // 16 MW at 60 Hz: 5 / 5 / 6 MW; G3 reaches its limit first at 59.33 Hz (8.33 / 8.33 / 10 MW);
+    // f_nl 62.0 / 62.0 / 61.67 Hz gives rated output at 60 Hz.
+    const d5 = droopFor(10_000, 5000, 60);
+    const d6 = droopFor(10_000, 6000, 60);
+    const plant = (fnl: [number, number, number], kW: number) =>
+      makePlant([droopSet('G1', 10_000, d5, fnl[0]), droopSet('G2', 10_000, d5, fnl[1]), droopSet('G3', 10_000, d6, fnl[2])], load(kW), {
+        ratedFrequencyHz: 60,
+      });
+    let r = solveSharing(plant([61, 61, 61], 16_000));
+    expectClose(r.bus.frequencyHz, 60, { abs: 1e-9 }, 'f at 16 MW');
+    expect(kw(r).map((v) => +v.toFixed(6))).toEqual([5000, 5000, 6000]);
+    r = solveSharing(plant([61, 61, 61], 16_000 * (61 - 59 - 1 / 3)));
+    expectClose(r.bus.frequencyHz, 59.3333, { abs: 1e-4 }, 'f with G3 at limit (Chapman)');
+    expectClose(r.sets[2]!.kW, 10_000, { rel: 1e-9 }, 'G3 at 10 MW');
+    expectClose(r.sets[0]!.kW, 8333, { abs: 0.5 }, 'G1 8.33 MW (Chapman)');
+    expect(r.sets[2]!.flags).toContain('at-max-kW');
+    r = solveSharing(plant([62, 62, 61 + 2 / 3], 30_000));
+    expectClose(r.bus.frequencyHz, 60, { abs: 1e-9 }, 'rated output at 60 Hz (Chapman)');
+    for (const s of r.sets) expectClose(s.kW, 10_000, { rel: 1e-9 }, `${s.id} at rating`);
+  });
+
+  it('beyond the droop limit the saturated set stays at ratedKW and the others take the rest', () => {
+    // Closed form: A 500 kW (4 %, f_nl 52.5 Hz, 250 kW/Hz) reaches 500 kW at 50.5 Hz; B 1000 kW (52 Hz,
+    // 500 kW/Hz) then takes the rest: 52 − (1400 − 500)/500 = 50.2 Hz.
+    const r = solveSharing(makePlant([droopSet('A', 500, 4, 52.5), droopSet('B', 1000, 4, 52)], load(1400)));
+    expectClose(r.sets[0]!.kW, 500, { rel: 1e-12 }, 'A at max');
+    expectClose(r.bus.frequencyHz, 50.2, { abs: 1e-9 }, 'f');
+    expect(r.sets[0]!.flags).toEqual(['at-max-kW']);
+  });
+});
+
+describe('solveSharing: isochronous, base load, offline', () => {
+  it('isochronous + droop (REFERENCES.md §3, computed): the droop set sits on its line at the iso setpoint', () => {
+    // A isochronous 60 Hz, 1000 kW; B 500 kW, 5 %, f_nl 61.5 Hz → B 250 kW; load 900 kW → A 650 kW.
+    const plant = (kW: number) => makePlant([isoSet('A', 1000, 60), droopSet('B', 500, 5, 61.5)], load(kW), { ratedFrequencyHz: 60 });
+    const r = solveSharing(plant(900));
+    expect(r.bus.frequencyHz).toBe(60);
+    expectClose(r.sets[1]!.kW, 250, { rel: 1e-12 }, 'B kW');
+    expectClose(r.sets[0]!.kW, 650, { rel: 1e-12 }, 'A kW');
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('isochronous saturation hands frequency to the droop set (REFERENCES.md §3, computed)', () => {
+    // Load 1400 kW → A at 1000 kW, f = 61.5 − 400 / 166.7 = 59.10 Hz.
+    const r = solveSharing(makePlant([isoSet('A', 1000, 60), droopSet('B', 500, 5, 61.5)], load(1400), { ratedFrequencyHz: 60 }));
+    expectClose(r.sets[0]!.kW, 1000, { rel: 1e-12 }, 'A at max');
+    expectClose(r.bus.frequencyHz, 61.5 - 400 / (500 / (0.05 * 60)), { abs: 1e-9 }, 'f (closed form)');
+    expectClose(r.bus.frequencyHz, 59.1, { abs: 0.005 }, 'f (REFERENCES.md §3)');
+    expect(r.sets[0]!.flags).toContain('at-max-kW');
+    expect(r.warnings[0]).toMatch(/isochronous set\(s\) A are at full output: frequency is now set by the droop sets/);
+  });
+
+  it('an isochronous set at its minimum hands frequency to the droop sets when load is light', () => {
+    // Closed form: B at 60 Hz gives 250 kW; load 200 kW would need A at −50 kW but minKW = 0 → A at 0,
+    // B alone: f = 61.5 − 200 / 166.67 = 60.3 Hz.
+    const r = solveSharing(makePlant([isoSet('A', 1000, 60), droopSet('B', 500, 5, 61.5)], load(200), { ratedFrequencyHz: 60 }));
+    expectClose(r.sets[0]!.kW, 0, { abs: 1e-12 }, 'A at min');
+    expectClose(r.bus.frequencyHz, 60.3, { abs: 1e-9 }, 'f');
+    expect(r.sets[0]!.flags).toContain('at-min-kW');
+    expect(r.warnings[0]).toMatch(/at minimum output/);
+  });
+
+  it('reverse power down to minKW: an isochronous set may motor to its limit, flagged', () => {
+    // Closed form: A minKW −50 kW (trip 10 % of 1000 kW); load 220 kW, B gives 250 → A −30 kW at 60 Hz.
+    const r = solveSharing(makePlant([isoSet('A', 1000, 60, { minKW: -50 }), droopSet('B', 500, 5, 61.5)], load(220), { ratedFrequencyHz: 60 }));
+    expect(r.bus.frequencyHz).toBe(60);
+    expectClose(r.sets[0]!.kW, -30, { rel: 1e-12 }, 'A kW');
+    expect(r.sets[0]!.flags).toContain('reverse-power');
+    expect(r.warnings.join(' ')).toMatch(/A is motoring \(reverse power 30 kW, 3\.0 % of rating; trip setting 10 %\)/);
+  });
+
+  it('several isochronous sets share in proportion to ratedKW (load-sharing link), with a droop set', () => {
+    // Closed form: C (droop 500 kW, 4 %, f_nl 51 Hz) gives 250 kW at 50 Hz; 1750 − 250 = 1500 kW
+    // split 1000 : 500 by rating → 1000 / 500 kW.
+    const r = solveSharing(makePlant([isoSet('A', 1000, 50), isoSet('B', 500, 50), droopSet('C', 500, 4, 51)], load(1750)));
+    expect(r.bus.frequencyHz).toBe(50);
+    expectClose(r.sets[0]!.kW, 1000, { rel: 1e-12 }, 'A');
+    expectClose(r.sets[1]!.kW, 500, { rel: 1e-12 }, 'B');
+    expectClose(r.sets[2]!.kW, 250, { rel: 1e-12 }, 'C');
+    // All isochronous, linked: 900 kW → 600 / 300 kW at 50 Hz.
+    const all = solveSharing(makePlant([isoSet('A', 1000, 50), isoSet('B', 500, 50)], load(900)));
+    expect(kw(all).map((v) => +v.toFixed(9))).toEqual([600, 300]);
+  });
+
+  it('base-load sets hold baseKW (clamped to their limits); offline sets carry nothing', () => {
+    // Closed form: base 300 kW; A 1000 kW, 4 %, 52 Hz takes 1000 − 300 = 700 → f = 52 − 700/500 = 50.6 Hz.
+    const base = rawSet('B', { governor: { mode: 'baseload', baseKW: 300 } });
+    const off = droopSet('C', 1000, 4, 52, { online: false });
+    const r = solveSharing(makePlant([droopSet('A', 1000, 4, 52), base, off], load(1000)));
+    expectClose(r.sets[1]!.kW, 300, { rel: 1e-12 }, 'base kW');
+    expectClose(r.bus.frequencyHz, 50.6, { abs: 1e-9 }, 'f');
+    expect(r.sets[2]).toMatchObject({ id: 'C', online: false, kW: 0, kVAR: 0, currentA: 0, flags: ['offline'] });
+    const capped = solveSharing(makePlant([droopSet('A', 1000, 4, 52), rawSet('B', { governor: { mode: 'baseload', baseKW: 5000 } })], load(1500)));
+    expectClose(capped.sets[1]!.kW, 1000, { rel: 1e-12 }, 'base capped at ratedKW');
+  });
+
+  it('frequency-dependent loads settle where droop line and load line meet', () => {
+    // Closed form: k (f_nl − f) = P0 (1 + s (f − f_r)/f_r), k = 500 kW/Hz, f_nl 52, P0 1000 kW, s = 2:
+    // f = (k f_nl − P0 + P0 s) / (k + P0 s / f_r) = (26000 − 1000 + 2000) / (500 + 40) = 50 Hz.
+    const r = solveSharing(makePlant([droopSet('A', 1000, 4, 52)], load(1000, { frequencySensitivity: 2 })));
+    const f = (500 * 52 - 1000 + 1000 * 2) / (500 + (1000 * 2) / 50);
+    expectClose(r.bus.frequencyHz, f, { abs: 1e-9 }, 'f (closed form)');
+    expectClose(r.totals.loadKW, 1000 * (1 + (2 * (f - 50)) / 50), { rel: 1e-12 }, 'load kW at f');
+    expectClose(r.sets[0]!.kW, r.totals.loadKW, { rel: 1e-12 }, 'balance');
+  });
+});
+
+describe('solveSharing: no steady state', () => {
+  const noSS = (fn: () => unknown, re: RegExp) => {
+    let err: unknown;
+    try {
+      fn();
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(NoSteadyState);
+    expect((err as Error).message).toMatch(re);
+  };
+
+  it('load beyond the sets capability', () => {
+    noSS(() => solveSharing(makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 500, 4, 52)], load(1600))), /The load \(1600 kW\) is more than the online sets can supply \(1500 kW at full output\)/);
+    noSS(() => solveSharing(makePlant([isoSet('A', 1000, 50)], load(1200))), /isochronous set\(s\) A would run at full output/);
+  });
+
+  it('load below the sets minimum output', () => {
+    noSS(() => solveSharing(makePlant([droopSet('A', 1000, 4, 52), rawSet('B', { governor: { mode: 'baseload', baseKW: 400 } })], load(100))), /less than the sets' minimum output/);
+  });
+
+  it('isochronous sets without a load-sharing link', () => {
+    noSS(
+      () => solveSharing(makePlant([isoSet('A', 1000, 50, { governor: { mode: 'isochronous', loadSharingLink: false } }), isoSet('B', 1000, 50)], load(500))),
+      /Sets A and B are isochronous without a common load-sharing link/,
+    );
+  });
+
+  it('no frequency reference, no set online', () => {
+    noSS(() => solveSharing(makePlant([rawSet('B', { governor: { mode: 'baseload', baseKW: 400 } })], load(400))), /No online set controls frequency/);
+    noSS(() => solveSharing(makePlant([droopSet('A', 1000, 4, 52, { online: false })], load(400))), /No set is online/);
   });
 });
