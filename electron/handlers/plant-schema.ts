@@ -70,8 +70,8 @@ const setSchema = z
     leadingKVARLimitPct: nonNegative('%').lte(100, 'must be 100 % or less').default(30),
     governor: governorSchema,
     regulator: regulatorSchema,
-    machine: machineSchema.default({} as never),
-    feeder: feederSchema.default({} as never),
+    machine: machineSchema.prefault({}),
+    feeder: feederSchema.prefault({}),
   })
   .strict();
 
