@@ -2,4 +2,5 @@
 export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
 export { solveSharing, sweepLoad } from './sharing';
 export * from './sync';
+export * from './simulation';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';

@@ -1,0 +1,172 @@
+/**
+ * Scenario events applied to a running simulation: load steps, trips, breaker closes,
+ * setpoint changes, ramps and motor starts. Each changes the simulator's own model or
+ * state at a step boundary, never the caller's data, and writes a line to the log.
+ */
+import type { ScenarioEvent } from '../../../shared-types';
+import { InvalidInput } from '../errors';
+import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
+import { GOV_BASE, GOV_DROOP, REG_DROOP } from './codes';
+import { initialiseOffline } from './initialise';
+import type { Outputs } from './plant-dynamics';
+import type { LoadSlot, SimModel } from './sim-model';
+
+/** What an event may touch. */
+export interface EventTarget {
+  m: SimModel;
+  y: Float64Array;
+  out: Outputs;
+  log(atS: number, text: string): void;
+  /** Schedules an internal follow-up (the end of a motor start). */
+  later(atS: number, run: () => void): void;
+}
+
+function setIndex(m: SimModel, id: string, what: string): number {
+  const i = m.ids.indexOf(id);
+  if (i < 0) throw new InvalidInput(`${what}: there is no set "${id}" in the plant.`);
+  return i;
+}
+
+function fmt(v: number, digits: number): string {
+  return v.toFixed(digits);
+}
+
+/**
+ * Applies `ev` at time `t`.
+ * @throws InvalidInput for an unknown set or load id, or a load step without a load.
+ */
+export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): void {
+  const { m, y, out } = target;
+  const vr = m.ratedVoltageV;
+  const fr = m.ratedFrequencyHz;
+  switch (ev.type) {
+    case 'load-step': {
+      if (ev.loadId !== undefined) {
+        const l = m.loads.find((x) => x.id === ev.loadId);
+        if (!l) throw new InvalidInput(`load-step: there is no load "${ev.loadId}" in the plant.`);
+        l.on = ev.online ?? !l.on;
+        target.log(t, `load ${l.id} ${l.on ? 'switched on' : 'switched off'}`);
+        return;
+      }
+      if (ev.kW === undefined && ev.kVAR === undefined) throw new InvalidInput('load-step: give loadId, or kW and kVAR.');
+      const slot: LoadSlot = {
+        id: `step@${fmt(t, 3)}s`,
+        on: true,
+        pPU: (ev.kW ?? 0) / m.baseKVA,
+        qPU: (ev.kVAR ?? 0) / m.baseKVA,
+        impedance: ev.model === 'constant-impedance',
+        frequencySensitivity: 0,
+      };
+      m.loads.push(slot);
+      target.log(t, `load step ${fmt(ev.kW ?? 0, 0)} kW, ${fmt(ev.kVAR ?? 0, 0)} kVAR (${ev.model ?? 'constant-power'})`);
+      return;
+    }
+    case 'trip': {
+      const i = setIndex(m, ev.setId, 'trip');
+      const shutdown = ev.shutdown ?? true;
+      m.online[i] = 0;
+      if (shutdown) m.shutdown[i] = 1;
+      target.log(t, `${ev.setId} tripped${shutdown ? ' and shut down' : ' (breaker open, set running)'}`);
+      return;
+    }
+    case 'close': {
+      const i = setIndex(m, ev.setId, 'close');
+      if (m.online[i]) {
+        target.log(t, `close ${ev.setId}: breaker already closed, nothing done`);
+        return;
+      }
+      if (m.shutdown[i]) throw new InvalidInput(`close: set "${ev.setId}" is shut down and cannot be closed onto the bus.`);
+      const o = i * STATES_PER_SET;
+      if (ev.voltageV !== undefined || ev.frequencyHz !== undefined) {
+        const speed = ev.frequencyHz !== undefined ? ev.frequencyHz / fr : y[o + OMEGA]!;
+        const v = ev.voltageV !== undefined ? ev.voltageV / vr : Math.hypot(y[o + ED2]!, y[o + EQ2]!);
+        if (m.govMode[i] === GOV_DROOP) m.noLoadPU[i] = speed;
+        else m.setpointPU[i] = speed;
+        if (m.regMode[i] === REG_DROOP) m.noLoadVPU[i] = v;
+        else m.setpointVPU[i] = v;
+        const angle = y[o + DELTA]!;
+        initialiseOffline(m, i, y, false, angle);
+        y[o + OMEGA] = speed;
+      }
+      const busAngle = out.anyOnline ? Math.atan2(out.bus.im, out.bus.re) : 0;
+      if (ev.angleDeg !== undefined) {
+        // Off line, E'' lies along the rotor's q-axis: its angle is δ.
+        y[o + DELTA] = busAngle + (ev.angleDeg * Math.PI) / 180;
+      }
+      const rel = (((y[o + DELTA]! - busAngle) * 180) / Math.PI) % 360;
+      const relDeg = rel > 180 ? rel - 360 : rel < -180 ? rel + 360 : rel;
+      m.online[i] = 1;
+      target.log(
+        t,
+        out.anyOnline
+          ? `${ev.setId} breaker closed at ${fmt(relDeg, 1)}° (slip ${fmt((y[o + OMEGA]! - out.omegaBus) * fr, 3)} Hz)`
+          : `${ev.setId} breaker closed onto a dead bus`,
+      );
+      return;
+    }
+    case 'setpoint': {
+      const i = setIndex(m, ev.setId, 'setpoint');
+      const parts: string[] = [];
+      if (ev.frequencyHz !== undefined) {
+        if (m.govMode[i] === GOV_DROOP) m.noLoadPU[i] = ev.frequencyHz / fr;
+        else m.setpointPU[i] = ev.frequencyHz / fr;
+        parts.push(`${m.govMode[i] === GOV_DROOP ? 'no-load' : 'speed'} setpoint ${fmt(ev.frequencyHz, 3)} Hz`);
+      }
+      if (ev.voltageV !== undefined) {
+        if (m.regMode[i] === REG_DROOP) m.noLoadVPU[i] = ev.voltageV / vr;
+        else m.setpointVPU[i] = ev.voltageV / vr;
+        parts.push(`${m.regMode[i] === REG_DROOP ? 'no-load' : 'voltage'} setpoint ${fmt(ev.voltageV, 1)} V`);
+      }
+      if (ev.kW !== undefined) {
+        m.basePU[i] = ev.kW / (m.kwPU[i]! * m.ratedKVA[i]!);
+        m.rampT0[i] = Infinity;
+        m.rampT1[i] = Infinity;
+        parts.push(`base load ${fmt(ev.kW, 0)} kW`);
+      }
+      target.log(t, `${ev.setId}: ${parts.join(', ') || 'no change'}`);
+      return;
+    }
+    case 'ramp': {
+      const i = setIndex(m, ev.setId, 'ramp');
+      const o = i * STATES_PER_SET;
+      const ratedKW = m.kwPU[i]! * m.ratedKVA[i]!;
+      const from = out.pOwn[i]! / m.kwPU[i]!;
+      // Change to load control; the reference starts at the present output, so the
+      // actuator and engine lags carry on without a bump.
+      if (m.govMode[i] !== GOV_BASE) {
+        m.govMode[i] = GOV_BASE;
+        y[o + GOV_INT] = 0;
+      }
+      m.rampFrom[i] = from;
+      m.rampTo[i] = ev.toKW / ratedKW;
+      m.rampT0[i] = t;
+      m.rampT1[i] = t + Math.max(ev.durationS, 1e-9);
+      m.basePU[i] = ev.toKW / ratedKW;
+      target.log(t, `${ev.setId} ramps from ${fmt(from * ratedKW, 0)} kW to ${fmt(ev.toKW, 0)} kW over ${fmt(ev.durationS, 1)} s (load control)`);
+      return;
+    }
+    case 'motor-start': {
+      const sin = Math.sqrt(Math.max(0, 1 - ev.pf * ev.pf));
+      const slot: LoadSlot = {
+        id: `motor@${fmt(t, 3)}s`,
+        on: true,
+        pPU: (ev.kVA * ev.pf) / m.baseKVA,
+        qPU: (ev.kVA * sin) / m.baseKVA,
+        impedance: true,
+        frequencySensitivity: 0,
+      };
+      m.loads.push(slot);
+      target.log(t, `motor start: locked rotor ${fmt(ev.kVA, 0)} kVA at pf ${fmt(ev.pf, 2)} for ${fmt(ev.durationS, 2)} s`);
+      const runKW = ev.runningKW ?? 0;
+      const runKVAR = ev.runningKVAR ?? 0;
+      target.later(t + ev.durationS, () => {
+        slot.on = false;
+        if (runKW !== 0 || runKVAR !== 0) {
+          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0 });
+        }
+        target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR`);
+      });
+      return;
+    }
+  }
+}

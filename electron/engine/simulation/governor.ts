@@ -1,0 +1,83 @@
+/**
+ * The governor: speed droop, isochronous PI with a load-sharing link, or base load
+ * (load control, with ramps), acting through an actuator lag and an engine torque lag.
+ *
+ *   demand u (pu of ratedKW), clamped to [minKW, ratedKW] / ratedKW
+ *     droop:        u = (f_nl − f) / (droop · f_rated)      (DESIGN.md, "Speed droop")
+ *     isochronous:  u = K_p (e + z),  T_reset dz/dt = e + (p̄ − p) / K_p,  e = (f_set − f) / f_rated
+ *                   p̄ = Σ P / Σ ratedKW of the linked isochronous sets (load-sharing link)
+ *     base load:    u = baseKW / ratedKW (moving along a ramp when one runs)
+ *   T_act dx/dt = u · kW/kVA − x,   T_eng dPm/dt = x − Pm
+ *
+ * In steady state the droop set sits exactly on its droop line and the isochronous
+ * sets hold their setpoint with kW in proportion to `ratedKW` — the definitions the
+ * steady-state solver uses. The integrator stops while the demand is clamped
+ * (conditional integration), so it does not wind up. Before its breaker closes an
+ * isochronous or base-load set holds `setpointHz` (speed control before paralleling).
+ */
+import { ACTUATOR, GOV_INT, OMEGA, PMECH } from './layout';
+import { GOV_BASE, GOV_DROOP } from './codes';
+import type { SimModel } from './sim-model';
+
+/**
+ * Proportional gain of the isochronous governor, pu power per pu speed error: a 5 %
+ * transient droop (common practice for engine governors; the plant file has no field for it).
+ */
+export const ISO_GAIN_PU = 20;
+
+/**
+ * Motoring power of a stopped-fuel engine (friction, pumping), pu of ratedKW: what a set
+ * draws when its fuel is cut, and what decelerates a shut-down set. 8 % lies in the
+ * 5–15 % range that reverse-power settings of diesels are chosen against (REFERENCES.md §4).
+ */
+export const MOTORING_PU = 0.08;
+
+/** Reverse-power (device 32) time delay, s: inside the 2–10 s of REFERENCES.md §4 (common practice). */
+export const REVERSE_POWER_DELAY_S = 3;
+
+/** Base-load reference of set `i` at time `t`, pu of ratedKW, following a ramp if one runs. */
+export function baseReference(m: SimModel, i: number, t: number): number {
+  const t0 = m.rampT0[i]!;
+  if (t < t0) return m.basePU[i]!;
+  const t1 = m.rampT1[i]!;
+  if (t >= t1) return m.rampTo[i]!;
+  return m.rampFrom[i]! + ((m.rampTo[i]! - m.rampFrom[i]!) * (t - t0)) / (t1 - t0);
+}
+
+/**
+ * Writes the governor derivatives of set `i` (state offset `o`). `pOwn` is its
+ * electrical power (pu own base); `pBarIso` the linked isochronous group's loading
+ * (pu of ratedKW).
+ */
+export function governorDerivatives(m: SimModel, i: number, o: number, t: number, y: Float64Array, dy: Float64Array, pOwn: number, pBarIso: number): void {
+  const kw = m.kwPU[i]!;
+  const w = y[o + OMEGA]!;
+  let demand: number;
+  let dz = 0;
+  if (m.shutdown[i]) {
+    demand = -MOTORING_PU * kw * (w > 0 ? Math.min(1, w) : 0);
+  } else {
+    const mode = m.govMode[i]!;
+    // Off line the governor can always back off to no load.
+    const lo = m.online[i] ? m.minPU[i]! : Math.min(0, m.minPU[i]!);
+    const hi = m.maxPU[i]!;
+    let u: number;
+    if (mode === GOV_DROOP) {
+      u = (m.noLoadPU[i]! - w) / m.droop[i]!;
+    } else if (mode === GOV_BASE && m.online[i]) {
+      u = baseReference(m, i, t);
+    } else {
+      const e = m.setpointPU[i]! - w;
+      const z = y[o + GOV_INT]!;
+      u = ISO_GAIN_PU * (e + z);
+      const share = m.online[i] && m.isoLinked[i] && mode !== GOV_BASE ? (pBarIso - pOwn / kw) / ISO_GAIN_PU : 0;
+      dz = (e + share) / m.resetS[i]!;
+      if ((u >= hi && dz > 0) || (u <= lo && dz < 0)) dz = 0;
+    }
+    demand = (u > hi ? hi : u < lo ? lo : u) * kw;
+  }
+  dy[o + GOV_INT] = dz;
+  const x = y[o + ACTUATOR]!;
+  dy[o + ACTUATOR] = (demand - x) / m.actuatorS[i]!;
+  dy[o + PMECH] = (x - y[o + PMECH]!) / m.engineS[i]!;
+}

@@ -1,0 +1,11 @@
+/** The time-domain simulator's public face. */
+export { simulate, MIN_CHUNK_STEPS } from './simulate';
+export type { SimulationHooks } from './simulate';
+export { createSimulation, DEFAULT_STEP_MS, DEFAULT_OUTPUT_POINTS, MAX_STEP_MS } from './simulation';
+export type { Simulation, SteppedSimulation } from './simulation';
+export { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, recoveryBandPct } from './iso-8528-5';
+export type { ClassLimit, ClassLimitKey } from './iso-8528-5';
+export { ISO_GAIN_PU, MOTORING_PU, REVERSE_POWER_DELAY_S } from './governor';
+export { REGULATOR_RESET_S, PF_TRIM_S } from './regulator';
+export { TDDO_S } from './sim-model';
+export { POWER_LOAD_BREAK_PU } from './network';

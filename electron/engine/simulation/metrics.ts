@@ -1,0 +1,127 @@
+/**
+ * Figures read off a run: frequency nadir and peak, transient deviations, recovery
+ * times into a band, voltage dip and rise, the final operating point, and the
+ * ISO 8528-5 class verdicts. Deviations follow ISO 8528-5's form
+ * `(f_extreme − f_initial) / f_rated × 100 %` (REFERENCES.md §2, from memory).
+ */
+import type { ClassCheck, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
+import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
+import type { ClassLimitKey } from './iso-8528-5';
+
+/** A trace of (t, x) samples in typed arrays. */
+export interface Trace {
+  t: Float64Array;
+  x: Float64Array;
+  length: number;
+}
+
+/**
+ * Seconds from `tStart` until `x` stays inside `final ± band`, 0 if it never leaves, or
+ * null if it is still outside within the last tenth of the window (not settled in the run).
+ */
+export function recoveryTime(tr: Trace, tStart: number, final: number, band: number): number | null {
+  const tEnd = tr.length > 0 ? tr.t[tr.length - 1]! : tStart;
+  let lastOut = -1;
+  for (let k = tr.length - 1; k >= 0; k--) {
+    const tk = tr.t[k]!;
+    if (tk < tStart) break;
+    if (Math.abs(tr.x[k]! - final) > band) {
+      lastOut = k;
+      break;
+    }
+  }
+  if (lastOut < 0) return 0;
+  const tOut = lastOut + 1 < tr.length ? tr.t[lastOut + 1]! : tEnd;
+  if (tOut > tStart + 0.9 * (tEnd - tStart)) return null;
+  return tOut - tStart;
+}
+
+/** What the simulator hands over to build the metrics. */
+export interface MetricsInput {
+  ratedFrequencyHz: number;
+  ratedVoltageV: number;
+  /** First event time (0 without events). */
+  disturbanceS: number;
+  initialFrequencyHz: number;
+  initialVoltageV: number;
+  nadirHz: number;
+  peakHz: number;
+  minVoltageV: number;
+  maxVoltageV: number;
+  frequency: Trace;
+  voltage: Trace;
+  finalSets: FinalSet[];
+  /** Largest speed droop of the sets on line at the end, % (0 if none is in droop). */
+  droopPct: number;
+}
+
+function band(tr: Trace, from: number): number {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let k = tr.length - 1; k >= 0 && tr.t[k]! >= from; k--) {
+    lo = Math.min(lo, tr.x[k]!);
+    hi = Math.max(hi, tr.x[k]!);
+  }
+  return hi >= lo ? hi - lo : 0;
+}
+
+/** Builds the metrics and the ISO 8528-5 class table. */
+export function computeMetrics(inp: MetricsInput): SimulationMetrics {
+  const fr = inp.ratedFrequencyHz;
+  const vr = inp.ratedVoltageV;
+  const fTr = inp.frequency;
+  const vTr = inp.voltage;
+  const finalF = fTr.length > 0 ? fTr.x[fTr.length - 1]! : 0;
+  const finalV = vTr.length > 0 ? vTr.x[vTr.length - 1]! : 0;
+  const tEnd = fTr.length > 0 ? fTr.t[fTr.length - 1]! : 0;
+  const t0 = inp.disturbanceS;
+  const dipF = ((inp.nadirHz - inp.initialFrequencyHz) / fr) * 100;
+  const riseF = ((inp.peakHz - inp.initialFrequencyHz) / fr) * 100;
+  const dipV = ((inp.minVoltageV - inp.initialVoltageV) / vr) * 100;
+  const riseV = ((inp.maxVoltageV - inp.initialVoltageV) / vr) * 100;
+  const recF = (c: PerformanceClass) => recoveryTime(fTr, t0, finalF, (recoveryBandPct('frequency', c) / 100) * fr);
+  const recV = (c: PerformanceClass) => recoveryTime(vTr, t0, finalV, (recoveryBandPct('voltage', c) / 100) * vr);
+  const perClass = (fn: (c: PerformanceClass) => number | null) => ({ G1: fn('G1'), G2: fn('G2'), G3: fn('G3') });
+  const settleFrom = tEnd - 0.1 * (tEnd - t0);
+  const measured: Record<ClassLimitKey, number | null> = {
+    frequencyDroop: inp.droopPct,
+    frequencyBand: (band(fTr, settleFrom) / fr) * 100,
+    frequencyDip: Math.min(0, dipF),
+    frequencyRise: Math.max(0, riseF),
+    frequencyRecovery: recF('G2'),
+    voltageDeviation: (Math.abs(finalV - inp.initialVoltageV) / (2 * vr)) * 100,
+    voltageDip: Math.min(0, dipV),
+    voltageRise: Math.max(0, riseV),
+    voltageRecovery: recV('G2'),
+  };
+  const byClass: Partial<Record<ClassLimitKey, Record<PerformanceClass, number | null>>> = {
+    frequencyRecovery: perClass(recF),
+    voltageRecovery: perClass(recV),
+  };
+  const classes: ClassCheck[] = ISO_8528_5_LIMITS.map((l) => {
+    const mbc = byClass[l.key];
+    const pass = {} as Record<PerformanceClass, boolean | null>;
+    for (const c of PERFORMANCE_CLASSES) {
+      const value = mbc ? mbc[c]! : measured[l.key];
+      // A recovery that never settles inside the run fails rather than going unjudged.
+      pass[c] = mbc && value === null ? false : judge(l, c, value);
+    }
+    const row: ClassCheck = { quantity: l.quantity, unit: l.unit, measured: measured[l.key], limits: { ...l.limits }, pass, source: l.source };
+    if (mbc) row.measuredByClass = mbc;
+    return row;
+  });
+  return {
+    initial: { frequencyHz: inp.initialFrequencyHz, voltageV: inp.initialVoltageV },
+    frequencyNadirHz: inp.nadirHz,
+    frequencyPeakHz: inp.peakHz,
+    frequencyDeviationPct: Math.abs(dipF) > Math.abs(riseF) ? dipF : riseF,
+    frequencyRecoveryS: measured.frequencyRecovery,
+    frequencyBandPct: recoveryBandPct('frequency', 'G2'),
+    voltageDipPct: Math.max(0, -dipV),
+    voltagePeakPct: Math.max(0, riseV),
+    voltageRecoveryS: measured.voltageRecovery,
+    voltageBandPct: recoveryBandPct('voltage', 'G2'),
+    final: { frequencyHz: finalF, voltageV: finalV, sets: inp.finalSets },
+    classes,
+  };
+}

@@ -1,0 +1,88 @@
+/**
+ * The voltage regulator and exciter: a PI regulator on terminal voltage feeding a
+ * first-order exciter with a ceiling — a simplification of IEEE Std 421.5 type ST1A
+ * (potential-source controlled rectifier): lead-lag (T_C = T_B = 0), rate feedback
+ * (K_F = 0) and commutation (K_C = 0) left out, with integral action added so the
+ * set sits exactly on its droop line in steady state, as engine-set AVRs do.
+ *
+ *   reference (pu of rated voltage)
+ *     reactive droop:  V_ref = V_nl − droop · Q / Qbase         (DESIGN.md, "Reactive droop")
+ *     voltage:         V_ref = V_set
+ *     cross-current:   V_ref = V_set − k (q − q̄), q = Q / ratedKVA, q̄ over the cross-current
+ *                      sets on line, k = droop / (Qbase/ratedKVA) (the CT loop's burden)
+ *     power factor:    V_ref = V_set + trim,  T_pf d(trim)/dt = P tan φ − Q
+ *   error e = V_ref − V_t;  u = K_A (e + z), T_I dz/dt = e;   T_E dE_fd/dt = u − E_fd
+ *   0 ≤ u ≤ ceiling · (V_t when shunt-excited, else 1)
+ *
+ * With shunt (self) excitation the ceiling follows terminal voltage (ST1A's V_t·V_Rmax),
+ * so a set de-excited at start builds up from its residual voltage only if the loop
+ * gain `ceilingPU` exceeds one, and not at all without residual magnetism.
+ */
+import { AVR_INT, EFD, VAR_TRIM } from './layout';
+import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
+import type { SimModel } from './sim-model';
+
+/** Integral time of the voltage regulator, s (the plant file has no field for it; 1 s is common practice). */
+export const REGULATOR_RESET_S = 1;
+
+/** Time constant of the power-factor controller's trim of the voltage reference, s. */
+export const PF_TRIM_S = 5;
+
+/** Voltage reference of set `i`, pu, given its kW and kVAR (pu own base) and the cross-current mean q̄. */
+export function voltageReference(m: SimModel, i: number, y: Float64Array, o: number, qOwn: number, qBarCross: number): number {
+  const mode = m.regMode[i]!;
+  if (mode === REG_DROOP) return m.noLoadVPU[i]! - (m.regDroop[i]! * qOwn) / m.qBasePU[i]!;
+  if (mode === REG_VOLTAGE) return m.setpointVPU[i]!;
+  if (mode === REG_CROSS) {
+    if (!m.online[i]) return m.setpointVPU[i]!;
+    return m.setpointVPU[i]! - (crossCurrentGain(m, i) * (qOwn - qBarCross));
+  }
+  return m.setpointVPU[i]! + y[o + VAR_TRIM]!;
+}
+
+/** Gain of the cross-current loop, pu voltage per pu (kVA base) of kVAR off the mean. */
+export function crossCurrentGain(m: SimModel, i: number): number {
+  return Math.max(m.regDroop[i]!, 0.01) / m.qBasePU[i]!;
+}
+
+/** Upper limit of the regulator output, pu: the ceiling, scaled by terminal voltage when shunt-excited. */
+export function fieldCeiling(m: SimModel, i: number, vt: number): number {
+  return m.shunt[i] ? m.ceilingPU[i]! * vt : m.ceilingPU[i]!;
+}
+
+/**
+ * Writes the regulator derivatives of set `i` (state offset `o`). `vt` is the terminal
+ * voltage magnitude, `pOwn`/`qOwn` the set's kW/kVAR at its terminals (pu own base).
+ */
+export function regulatorDerivatives(
+  m: SimModel,
+  i: number,
+  o: number,
+  y: Float64Array,
+  dy: Float64Array,
+  vt: number,
+  pOwn: number,
+  qOwn: number,
+  qBarCross: number,
+): void {
+  let u = 0;
+  let dz = 0;
+  let dTrim = 0;
+  if (!m.shutdown[i]) {
+    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - vt;
+    const hi = fieldCeiling(m, i, vt);
+    u = m.gainPU[i]! * (e + y[o + AVR_INT]!);
+    dz = e / m.avrResetS[i]!;
+    if (u >= hi) {
+      u = hi;
+      if (dz > 0) dz = 0;
+    } else if (u <= 0) {
+      u = 0;
+      if (dz < 0) dz = 0;
+    }
+    if (m.regMode[i] === REG_PF && m.online[i]) dTrim = (pOwn * m.tanPhi[i]! - qOwn) / PF_TRIM_S;
+  }
+  dy[o + AVR_INT] = dz;
+  dy[o + VAR_TRIM] = dTrim;
+  dy[o + EFD] = (u - y[o + EFD]!) / m.exciterS[i]!;
+}

@@ -1,0 +1,208 @@
+/**
+ * The plant compiled for the simulator: per-set parameters in typed arrays on a
+ * common per-unit base, the controls that events change, and the load slots on the
+ * bus. Built once per simulation; events change the control arrays, never the caller's
+ * plant.
+ *
+ * Per-unit bases: machine, governor and regulator quantities are on each set's own
+ * base (`ratedKVA`, plant `ratedVoltageV`); the network is solved on the system base
+ * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
+ */
+import type { Plant } from '../../../shared-types';
+import { REGULATOR_RESET_S } from './regulator';
+
+import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
+
+/**
+ * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no
+ * field for it. 0.03 s sits inside the 0.01–0.05 s typical of sets of this size
+ * (REFERENCES.md §4, from memory).
+ */
+export const TDDO_S = 0.03;
+
+/** One load on the bus, in pu of `baseKVA` at rated voltage and frequency. */
+export interface LoadSlot {
+  id: string;
+  on: boolean;
+  pPU: number;
+  qPU: number;
+  impedance: boolean;
+  frequencySensitivity: number;
+}
+
+/** The simulator's working model of a plant. */
+export interface SimModel {
+  n: number;
+  ids: string[];
+  ratedFrequencyHz: number;
+  ratedVoltageV: number;
+  /** System base, kVA. */
+  baseKVA: number;
+  /** Rated angular speed ωs = 2π f_rated, rad/s. */
+  omegaS: number;
+
+  ratedKVA: Float64Array;
+  /** ratedKW / ratedKVA. */
+  kwPU: Float64Array;
+  /** Qbase / ratedKVA = √(1 − ratedPF²) (DESIGN.md, "Reactive droop"). */
+  qBasePU: Float64Array;
+  inertiaS: Float64Array;
+  dampingPU: Float64Array;
+  xdPU: Float64Array;
+  xd1PU: Float64Array;
+  xd2PU: Float64Array;
+  td0S: Float64Array;
+  td20S: Float64Array;
+  residualPU: Float64Array;
+  /** Admittance of X''d plus the feeder, pu on the system base. */
+  yRe: Float64Array;
+  yIm: Float64Array;
+  /** Feeder impedance, pu on the system base. */
+  zfRe: Float64Array;
+  zfIm: Float64Array;
+
+  // Governor
+  govMode: Int8Array;
+  isoLinked: Uint8Array;
+  droop: Float64Array;
+  /** Speed references, pu of rated frequency. */
+  noLoadPU: Float64Array;
+  setpointPU: Float64Array;
+  /** Base-load output, pu of ratedKW (ramps move it; see `rampT0`). */
+  basePU: Float64Array;
+  minPU: Float64Array;
+  maxPU: Float64Array;
+  actuatorS: Float64Array;
+  engineS: Float64Array;
+  resetS: Float64Array;
+  rampT0: Float64Array;
+  rampT1: Float64Array;
+  rampFrom: Float64Array;
+  rampTo: Float64Array;
+  reverseTripPU: Float64Array;
+
+  // Regulator
+  regMode: Int8Array;
+  regDroop: Float64Array;
+  /** Voltage references, pu of rated voltage. */
+  noLoadVPU: Float64Array;
+  setpointVPU: Float64Array;
+  tanPhi: Float64Array;
+  gainPU: Float64Array;
+  exciterS: Float64Array;
+  avrResetS: Float64Array;
+  ceilingPU: Float64Array;
+  shunt: Uint8Array;
+
+  // Breaker and engine status
+  online: Uint8Array;
+  shutdown: Uint8Array;
+
+  loads: LoadSlot[];
+  /** Time constants raised to two steps so the fixed-step integrator stays stable. */
+  raised: string[];
+}
+
+/**
+ * Compiles a validated plant (defaults filled) for a step of `stepS` seconds.
+ * Lags shorter than two steps are raised to two steps (a lag that short has no
+ * visible effect at this step and would make RK4 unstable); each is named in `raised`.
+ */
+export function buildSimModel(plant: Plant, stepS: number): SimModel {
+  const n = plant.sets.length;
+  const f = () => new Float64Array(n);
+  let baseKVA = 0;
+  for (const s of plant.sets) baseKVA += s.ratedKVA;
+  const vr = plant.ratedVoltageV;
+  const fr = plant.ratedFrequencyHz;
+  const zBaseOhm = (vr * vr) / (baseKVA * 1000);
+  const m: SimModel = {
+    n,
+    ids: plant.sets.map((s) => s.id),
+    ratedFrequencyHz: fr,
+    ratedVoltageV: vr,
+    baseKVA,
+    omegaS: 2 * Math.PI * fr,
+    ratedKVA: f(), kwPU: f(), qBasePU: f(), inertiaS: f(), dampingPU: f(),
+    xdPU: f(), xd1PU: f(), xd2PU: f(), td0S: f(), td20S: f(), residualPU: f(),
+    yRe: f(), yIm: f(), zfRe: f(), zfIm: f(),
+    govMode: new Int8Array(n), isoLinked: new Uint8Array(n), droop: f(), noLoadPU: f(), setpointPU: f(),
+    basePU: f(), minPU: f(), maxPU: f(), actuatorS: f(), engineS: f(), resetS: f(),
+    rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(),
+    regMode: new Int8Array(n), regDroop: f(), noLoadVPU: f(), setpointVPU: f(), tanPhi: f(),
+    gainPU: f(), exciterS: f(), avrResetS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
+    online: new Uint8Array(n), shutdown: new Uint8Array(n),
+    loads: [],
+    raised: [],
+  };
+  const minLag = 2 * stepS;
+  const lag = (value: number, what: string) => {
+    if (value >= minLag) return value;
+    if (value > 0) m.raised.push(`${what} ${value} s`);
+    return minLag;
+  };
+  plant.sets.forEach((s, i) => {
+    const g = s.governor;
+    const r = s.regulator;
+    const mc = s.machine;
+    m.ratedKVA[i] = s.ratedKVA;
+    m.kwPU[i] = s.ratedKW / s.ratedKVA;
+    m.qBasePU[i] = Math.sqrt(1 - s.ratedPF * s.ratedPF);
+    m.inertiaS[i] = mc.inertiaS;
+    m.dampingPU[i] = mc.dampingPU;
+    m.xdPU[i] = mc.xdPU;
+    m.xd1PU[i] = Math.min(mc.xdpPU, mc.xdPU);
+    m.xd2PU[i] = Math.min(mc.xddpPU, m.xd1PU[i]!);
+    m.td0S[i] = lag(mc.tdopS, `${s.id} machine.tdopS`);
+    m.td20S[i] = lag(TDDO_S, `${s.id} T''d0`);
+    m.residualPU[i] = r.residualPU;
+    const zfRe = s.feeder.rOhm / zBaseOhm;
+    const zfIm = s.feeder.xOhm / zBaseOhm;
+    m.zfRe[i] = zfRe;
+    m.zfIm[i] = zfIm;
+    // X''d on the system base: the same ohms, so pu scale with baseKVA / ratedKVA.
+    const zr = zfRe;
+    const zi = zfIm + m.xd2PU[i]! * (baseKVA / s.ratedKVA);
+    const d2 = zr * zr + zi * zi;
+    m.yRe[i] = zr / d2;
+    m.yIm[i] = -zi / d2;
+
+    m.govMode[i] = g.mode === 'droop' ? GOV_DROOP : g.mode === 'isochronous' ? GOV_ISO : GOV_BASE;
+    m.isoLinked[i] = g.loadSharingLink === false ? 0 : 1;
+    m.droop[i] = g.droopPct / 100;
+    m.noLoadPU[i] = g.noLoadHz / fr;
+    m.setpointPU[i] = g.setpointHz / fr;
+    m.basePU[i] = g.baseKW / s.ratedKW;
+    m.minPU[i] = s.minKW / s.ratedKW;
+    m.maxPU[i] = 1;
+    m.actuatorS[i] = lag(g.actuatorLagS, `${s.id} governor.actuatorLagS`);
+    m.engineS[i] = lag(g.engineLagS, `${s.id} governor.engineLagS`);
+    m.resetS[i] = g.isoResetS;
+    m.rampT0[i] = Infinity;
+    m.rampT1[i] = Infinity;
+    m.reverseTripPU[i] = s.reversePowerTripPct / 100;
+
+    m.regMode[i] = r.mode === 'reactive-droop' ? REG_DROOP : r.mode === 'cross-current' ? REG_CROSS : r.mode === 'voltage' ? REG_VOLTAGE : REG_PF;
+    m.regDroop[i] = r.droopPct / 100;
+    m.noLoadVPU[i] = r.noLoadV / vr;
+    m.setpointVPU[i] = r.setpointV / vr;
+    m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    m.gainPU[i] = r.gainPU;
+    m.exciterS[i] = lag(r.exciterLagS, `${s.id} regulator.exciterLagS`);
+    m.avrResetS[i] = REGULATOR_RESET_S;
+    m.ceilingPU[i] = r.ceilingPU;
+    m.shunt[i] = r.shuntExcited ? 1 : 0;
+    m.online[i] = s.online ? 1 : 0;
+  });
+  for (const l of plant.loads) {
+    m.loads.push({
+      id: l.id,
+      on: l.online,
+      pPU: l.kW / baseKVA,
+      qPU: l.kVAR / baseKVA,
+      impedance: l.model === 'constant-impedance',
+      frequencySensitivity: l.frequencySensitivity,
+    });
+  }
+  return m;
+}

@@ -1,0 +1,355 @@
+/**
+ * `createSimulation`: a plant in motion, stepped by the caller. Fixed-step RK4 over the
+ * plant's state (machines, governors, regulators), the bus solved at every evaluation,
+ * events applied at step boundaries, protection (reverse power) checked every step,
+ * results recorded and decimated. Used by `simulate` for whole runs and by live views
+ * (the operator trainer) a frame at a time.
+ */
+import type { Scenario, ScenarioEvent, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
+import { Diverged, InvalidInput } from '../errors';
+import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
+import { GOV_DROOP } from './codes';
+import { buildSimModel } from './sim-model';
+import type { SimModel } from './sim-model';
+import { createOutputs, evaluatePlant } from './plant-dynamics';
+import type { Outputs } from './plant-dynamics';
+import { createRk4, rk4StepFromK1 } from './integrator';
+import type { Rhs, Rk4 } from './integrator';
+import { initialiseAtRest } from './initialise';
+import { applyEvent } from './events';
+import type { EventTarget } from './events';
+import { Recorder } from './recorder';
+import type { SetSample } from './recorder';
+import { computeMetrics } from './metrics';
+import { REVERSE_POWER_DELAY_S } from './governor';
+
+/** Default integration step, ms. */
+export const DEFAULT_STEP_MS = 1;
+/** Default number of plotted points. */
+export const DEFAULT_OUTPUT_POINTS = 2000;
+/** Largest step the simulator accepts, ms (RK4 stability with the fastest lags). */
+export const MAX_STEP_MS = 20;
+
+/** A running simulation. */
+export interface Simulation {
+  /** Simulated time now, s. */
+  readonly timeS: number;
+  /** Integration step, s. */
+  readonly stepS: number;
+  /** Runs whole steps until `seconds` more have passed, applying due scenario events. */
+  advance(seconds: number): void;
+  /** Applies an event now (its `atS` is ignored). */
+  applyEvent(event: ScenarioEvent): void;
+  /** The plant now. */
+  snapshot(): SimulationSnapshot;
+  /** Metrics, series and log of the run so far. */
+  result(): SimulationResult;
+}
+
+function wrapDeg(rad: number): number {
+  let d = ((rad * 180) / Math.PI) % 360;
+  if (d > 180) d -= 360;
+  if (d < -180) d += 360;
+  return d;
+}
+
+class Run implements Simulation {
+  readonly stepS: number;
+  private k = 0;
+  private readonly m: SimModel;
+  private readonly y: Float64Array;
+  private readonly out: Outputs;
+  private readonly rk: Rk4;
+  private readonly rhs: Rhs;
+  private readonly events: ScenarioEvent[];
+  private nextEvent = 0;
+  private readonly pending: { atS: number; run: () => void }[] = [];
+  private readonly recorder: Recorder;
+  private readonly logs: SimulationLogEntry[] = [];
+  private readonly warnings: string[] = [];
+  private readonly target: EventTarget;
+  private readonly sample: SetSample;
+  private readonly reverseTimer: Float64Array;
+  private readonly currentScaleA: number;
+  private disturbanceS: number | null = null;
+  private initialF = 0;
+  private initialV = 0;
+  private nadir = Infinity;
+  private peak = -Infinity;
+  private vMin = Infinity;
+  private vMax = -Infinity;
+  private lastF = 0;
+  private lastV = 0;
+
+  constructor(private readonly scenario: Scenario) {
+    const stepMs = scenario.stepMs ?? DEFAULT_STEP_MS;
+    if (!(stepMs > 0 && stepMs <= MAX_STEP_MS)) throw new InvalidInput(`stepMs: must be greater than 0 and at most ${MAX_STEP_MS} ms.`);
+    if (!(scenario.durationS > 0 && Number.isFinite(scenario.durationS))) throw new InvalidInput('durationS: must be greater than 0.');
+    this.stepS = stepMs / 1000;
+    const plant = scenario.plant;
+    this.m = buildSimModel(plant, this.stepS);
+    const n = this.m.n;
+    this.y = new Float64Array(n * STATES_PER_SET);
+    this.out = createOutputs(n);
+    this.rk = createRk4(this.y.length);
+    const m = this.m;
+    const out = this.out;
+    this.rhs = (t, y, dy) => evaluatePlant(m, t, y, dy, out);
+    const deExcited = new Set(scenario.startDeExcited ?? []);
+    for (const id of deExcited) {
+      const i = m.ids.indexOf(id);
+      if (i < 0) throw new InvalidInput(`startDeExcited: there is no set "${id}" in the plant.`);
+      if (m.online[i]) throw new InvalidInput(`startDeExcited: set "${id}" is on line; only an off-line set can start de-excited.`);
+    }
+    const init = initialiseAtRest(m, plant, this.y, deExcited);
+    out.bus.re = init.busPU;
+    out.bus.im = 0;
+    this.events = [...scenario.events].sort((a, b) => a.atS - b.atS);
+    const totalSteps = Math.round(scenario.durationS / this.stepS);
+    this.recorder = new Recorder(m.ids, totalSteps, scenario.outputPoints ?? 2000);
+    this.sample = { kW: new Float64Array(n), kVAR: new Float64Array(n), currentA: new Float64Array(n), speedHz: new Float64Array(n), terminalV: new Float64Array(n) };
+    this.reverseTimer = new Float64Array(n);
+    this.currentScaleA = (m.baseKVA * 1000) / (Math.sqrt(3) * m.ratedVoltageV);
+    this.target = {
+      m,
+      y: this.y,
+      out,
+      log: (atS, text) => this.logs.push({ atS, text }),
+      later: (atS, run) => {
+        this.pending.push({ atS, run });
+        this.pending.sort((a, b) => a.atS - b.atS);
+      },
+    };
+    if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
+    this.rhs(0, this.y, this.rk.k1);
+    this.initialF = this.frequencyHz();
+    this.initialV = this.voltageV();
+    this.lastF = this.initialF;
+    this.lastV = this.initialV;
+  }
+
+  get timeS(): number {
+    return this.k * this.stepS;
+  }
+
+  private frequencyHz(): number {
+    return this.out.anyOnline ? this.out.omegaBus * this.m.ratedFrequencyHz : 0;
+  }
+
+  private voltageV(): number {
+    return Math.hypot(this.out.bus.re, this.out.bus.im) * this.m.ratedVoltageV;
+  }
+
+  private markDisturbance(t: number): void {
+    if (this.disturbanceS !== null) return;
+    this.disturbanceS = t;
+    this.initialF = this.lastF;
+    this.initialV = this.lastV;
+    this.nadir = Infinity;
+    this.peak = -Infinity;
+    this.vMin = Infinity;
+    this.vMax = -Infinity;
+  }
+
+  private applyDue(t: number): void {
+    const half = 0.5 * this.stepS;
+    const dueEvent = this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half;
+    const duePending = this.pending.length > 0 && this.pending[0]!.atS <= t + half;
+    if (!dueEvent && !duePending) return;
+    // Fresh outputs at this exact state (bus angle for a close, present kW for a ramp).
+    this.rhs(t, this.y, this.rk.k1);
+    if (dueEvent) this.markDisturbance(t);
+    while (this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half) {
+      applyEvent(this.target, this.events[this.nextEvent++]!, t);
+    }
+    while (this.pending.length > 0 && this.pending[0]!.atS <= t + half) this.pending.shift()!.run();
+  }
+
+  private observe(t: number, force: boolean): void {
+    const f = this.frequencyHz();
+    const v = this.voltageV();
+    this.lastF = f;
+    this.lastV = v;
+    if (f < this.nadir) this.nadir = f;
+    if (f > this.peak) this.peak = f;
+    if (v < this.vMin) this.vMin = v;
+    if (v > this.vMax) this.vMax = v;
+    this.recorder.trace(this.k, t, f, v, force);
+    if (!this.recorder.wants(this.k, force)) return;
+    const m = this.m;
+    const out = this.out;
+    const s = this.sample;
+    for (let i = 0; i < m.n; i++) {
+      const sk = m.ratedKVA[i]!;
+      s.kW[i] = out.pOwn[i]! * sk;
+      s.kVAR[i] = out.qOwn[i]! * sk;
+      s.currentA[i] = Math.hypot(out.iRe[i]!, out.iIm[i]!) * this.currentScaleA;
+      s.speedHz[i] = this.y[i * STATES_PER_SET + OMEGA]! * m.ratedFrequencyHz;
+      s.terminalV[i] = out.vt[i]! * m.ratedVoltageV;
+    }
+    this.recorder.record(this.k, t, f, v, s);
+  }
+
+  /** Reverse-power relay (device 32) of each on-line set; true when one tripped. */
+  private protect(t: number): boolean {
+    const m = this.m;
+    let tripped = false;
+    for (let i = 0; i < m.n; i++) {
+      const limit = m.reverseTripPU[i]! * m.kwPU[i]!;
+      if (!m.online[i] || limit <= 0) {
+        this.reverseTimer[i] = 0;
+        continue;
+      }
+      if (this.out.pOwn[i]! < -limit) {
+        this.reverseTimer[i] = this.reverseTimer[i]! + this.stepS;
+        if (this.reverseTimer[i]! >= REVERSE_POWER_DELAY_S - 1e-9) {
+          m.online[i] = 0;
+          m.shutdown[i] = 1;
+          this.reverseTimer[i] = 0;
+          tripped = true;
+          const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
+          this.logs.push({
+            atS: t,
+            text: `${m.ids[i]} tripped on reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${REVERSE_POWER_DELAY_S} s`,
+          });
+        }
+      } else this.reverseTimer[i] = 0;
+    }
+    return tripped;
+  }
+
+  private checkFinite(t: number): void {
+    const m = this.m;
+    const y = this.y;
+    for (let i = 0; i < m.n; i++) {
+      const w = y[i * STATES_PER_SET + OMEGA]!;
+      if (!(Math.abs(w) < 5) || !Number.isFinite(y[i * STATES_PER_SET + EFD]!)) {
+        throw new Diverged(
+          `The simulation diverged at t = ${t.toFixed(3)} s (set ${m.ids[i]} speed ${(w * m.ratedFrequencyHz).toFixed(1)} Hz). Try a smaller step (stepMs, now ${(this.stepS * 1000).toFixed(2)} ms) or check the machine data.`,
+        );
+      }
+    }
+    if (!Number.isFinite(this.out.bus.re) || !Number.isFinite(this.out.bus.im)) {
+      throw new Diverged(`The bus voltage could not be solved at t = ${t.toFixed(3)} s: the load is more than the on-line sets can carry.`);
+    }
+  }
+
+  private step(): void {
+    const t = this.timeS;
+    this.applyDue(t);
+    this.rhs(t, this.y, this.rk.k1);
+    this.observe(t, false);
+    if (this.protect(t)) this.rhs(t, this.y, this.rk.k1);
+    rk4StepFromK1(this.rhs, t, this.stepS, this.y, this.rk);
+    this.k++;
+    this.checkFinite(this.timeS);
+  }
+
+  advance(seconds: number): void {
+    if (!(seconds >= 0)) throw new InvalidInput('advance: seconds must be 0 or more.');
+    const target = Math.round((this.timeS + seconds) / this.stepS);
+    while (this.k < target) this.step();
+  }
+
+  /** Runs `count` steps (for chunked runs). */
+  steps(count: number): void {
+    for (let j = 0; j < count; j++) this.step();
+  }
+
+  get stepCount(): number {
+    return this.k;
+  }
+
+  applyEvent(event: ScenarioEvent): void {
+    const t = this.timeS;
+    this.rhs(t, this.y, this.rk.k1);
+    this.markDisturbance(t);
+    applyEvent(this.target, event, t);
+  }
+
+  snapshot(): SimulationSnapshot {
+    const t = this.timeS;
+    this.rhs(t, this.y, this.rk.k1);
+    const m = this.m;
+    const out = this.out;
+    const busAngle = Math.atan2(out.bus.im, out.bus.re);
+    const dead = !out.anyOnline;
+    const sets: SetSnapshot[] = [];
+    for (let i = 0; i < m.n; i++) {
+      const o = i * STATES_PER_SET;
+      const sk = m.ratedKVA[i]!;
+      sets.push({
+        id: m.ids[i]!,
+        online: m.online[i] === 1,
+        shutdown: m.shutdown[i] === 1,
+        speedHz: this.y[o + OMEGA]! * m.ratedFrequencyHz,
+        phaseAngleDeg: dead ? null : wrapDeg(Math.atan2(out.vtIm[i]!, out.vtRe[i]!) - busAngle),
+        rotorAngleDeg: dead ? null : wrapDeg(this.y[o + DELTA]! - busAngle),
+        kW: out.pOwn[i]! * sk,
+        kVAR: out.qOwn[i]! * sk,
+        mechanicalKW: this.y[o + PMECH]! * sk,
+        currentA: Math.hypot(out.iRe[i]!, out.iIm[i]!) * this.currentScaleA,
+        terminalV: out.vt[i]! * m.ratedVoltageV,
+        fieldPU: this.y[o + EFD]!,
+      });
+    }
+    return {
+      timeS: t,
+      frequencyHz: this.frequencyHz(),
+      voltageV: this.voltageV(),
+      deadBus: dead,
+      loadKW: out.loadP * m.baseKVA,
+      loadKVAR: out.loadQ * m.baseKVA,
+      sets,
+    };
+  }
+
+  result(): SimulationResult {
+    const t = this.timeS;
+    this.applyDue(t);
+    this.rhs(t, this.y, this.rk.k1);
+    this.observe(t, true);
+    const m = this.m;
+    const out = this.out;
+    const rec = this.recorder;
+    let droopPct = 0;
+    for (let i = 0; i < m.n; i++) if (m.online[i] && m.govMode[i] === GOV_DROOP) droopPct = Math.max(droopPct, m.droop[i]! * 100);
+    const warnings = [...this.warnings];
+    if (out.unconverged > 0) warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
+    if (!out.anyOnline) warnings.push('No set is on line at the end of the run: the bus is dead.');
+    const metrics = computeMetrics({
+      ratedFrequencyHz: m.ratedFrequencyHz,
+      ratedVoltageV: m.ratedVoltageV,
+      disturbanceS: this.disturbanceS ?? 0,
+      initialFrequencyHz: this.initialF,
+      initialVoltageV: this.initialV,
+      nadirHz: this.nadir,
+      peakHz: this.peak,
+      minVoltageV: this.vMin,
+      maxVoltageV: this.vMax,
+      frequency: { t: rec.traceT.data, x: rec.traceF.data, length: rec.traceT.length },
+      voltage: { t: rec.traceT.data, x: rec.traceV.data, length: rec.traceT.length },
+      finalSets: m.ids.map((id, i) => ({ id, online: m.online[i] === 1, kW: out.pOwn[i]! * m.ratedKVA[i]!, kVAR: out.qOwn[i]! * m.ratedKVA[i]! })),
+      droopPct,
+    });
+    return { metrics, series: rec.series(), log: [...this.logs], warnings, steps: this.k };
+  }
+}
+
+/** A chunkable simulation (what `simulate` and the handler drive). */
+export interface SteppedSimulation extends Simulation {
+  /** Runs `count` integration steps. */
+  steps(count: number): void;
+  /** Steps taken so far. */
+  readonly stepCount: number;
+}
+
+/**
+ * Starts a simulation of `scenario` at rest (the on-line plant at its steady state,
+ * from `solveSharing`). The scenario is copied where it matters; it is never mutated.
+ * @throws InvalidInput for a step out of range or unknown set ids.
+ * @throws NoSteadyState when the on-line plant has no operating point to start from.
+ */
+export function createSimulation(scenario: Scenario): SteppedSimulation {
+  return new Run(scenario);
+}
