@@ -8,10 +8,9 @@
  */
 import type { ClosingMap, ClosingMapRequest } from '../../../shared-types';
 import { InvalidInput } from '../errors';
-import { iecPeakFactor, powerStepPU, surgeCurrentPU, surgeCircuit } from './closing-surge';
+import { iecPeakFactor, surgeCircuit } from './closing-surge';
 import type { SurgeCircuit } from './closing-surge';
 import { sideState } from './permissives';
-import { wrapAngleDeg } from './phasor';
 import { syncBasis } from './sync-basis';
 
 /** A closing map being filled: `fillRows(from, to)` computes slip rows [from, to). */
@@ -80,23 +79,37 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
       const surge = map.surgeCurrentPU;
       const peak = map.peakCurrentPU;
       const torque = map.torqueStepPU;
+      // The closed forms of closing-surge.ts, unrolled with constants hoisted: |ΔV|² = V1² + V2² − 2 V1 V2 cos θ.
+      const v1 = circuit.busVoltagePU;
+      const v2 = circuit.incomingVoltagePU;
+      const sumSq = v1 * v1 + v2 * v2;
+      const twoV1V2 = 2 * v1 * v2;
+      const invX = 1 / circuit.loopXPU;
+      const pMax = v1 * v2 * invX;
+      const degToRad = Math.PI / 180;
+      let maxAll = map.maxSurgeCurrentPU;
+      let maxWin = map.maxSurgeInWindowPU;
       for (let j = from; j < to; j++) {
         const s = slipsHz[j]!;
         const shiftDeg = angleAxis === 'command' ? 360 * s * tS : 0;
         const speedPU = (c.bus.frequencyHz + s) / ratedHz;
         const slipInWindow = s >= window.slipMinHz - 1e-12 && s <= window.slipMaxHz + 1e-12;
+        const row = j * nA;
         for (let i = 0; i < nA; i++) {
           const a = anglesDeg[i]!;
-          const contact = shiftDeg === 0 ? a : wrapAngleDeg(a + shiftDeg);
-          const k = j * nA + i;
-          const iPU = surgeCurrentPU(circuit, contact);
-          surge[k] = iPU;
-          peak[k] = peakPerSym * iPU;
-          torque[k] = powerStepPU(circuit, contact) / speedPU;
-          if (iPU > map.maxSurgeCurrentPU) map.maxSurgeCurrentPU = iPU;
-          if (slipInWindow && Math.abs(a) <= window.angleDeg + 1e-12 && iPU > map.maxSurgeInWindowPU) map.maxSurgeInWindowPU = iPU;
+          // cos and sin are 360°-periodic, so the contact angle needs no wrapping here.
+          const th = (a + shiftDeg) * degToRad;
+          const sq = sumSq - twoV1V2 * Math.cos(th);
+          const iPU = (sq > 0 ? Math.sqrt(sq) : 0) * invX;
+          surge[row + i] = iPU;
+          peak[row + i] = peakPerSym * iPU;
+          torque[row + i] = (pMax * Math.sin(th)) / speedPU;
+          if (iPU > maxAll) maxAll = iPU;
+          if (slipInWindow && iPU > maxWin && Math.abs(a) <= window.angleDeg + 1e-12) maxWin = iPU;
         }
       }
+      map.maxSurgeCurrentPU = maxAll;
+      map.maxSurgeInWindowPU = maxWin;
     },
   };
 }
