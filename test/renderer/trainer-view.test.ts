@@ -1,0 +1,176 @@
+import 'vitest-canvas-mock';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { flushPromises, mount } from '@vue/test-utils';
+import type { VueWrapper } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import TrainerView from '../../renderer/views/TrainerView.vue';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { useTrainerStore } from '../../renderer/stores/trainer';
+import { setEngineClient } from '../../renderer/transport';
+import { directClient } from '../helpers/direct-client';
+import type { TrainerAttempt } from '../../shared-types';
+
+/** The operator looks and acts every 50 ms (the live view steps every animation frame; the model is the same). */
+const FRAME_S = 0.05;
+
+/**
+ * A scripted operator: presses and releases keys on the window, as a trainee would, and
+ * lets the model run one frame per step. It sees only what the screen shows (slip, ΔV, angle).
+ */
+function operator(trainer: ReturnType<typeof useTrainerStore>) {
+  const down = (key: string): void => void window.dispatchEvent(new KeyboardEvent('keydown', { key }));
+  const up = (key: string): void => void window.dispatchEvent(new KeyboardEvent('keyup', { key }));
+  const frames = async (n: number): Promise<void> => {
+    for (let i = 0; i < n && trainer.state?.phase !== 'closed'; i++) await trainer.advance(FRAME_S);
+  };
+  /** Holds `key` for `n` frames. */
+  const press = async (key: string, n: number): Promise<void> => {
+    down(key);
+    await frames(Math.max(1, n));
+    up(key);
+  };
+  return {
+    frames,
+    press,
+    down,
+    /** Brings slip to about `targetHz` and the voltage within 1 %: hold for a time in proportion to the error, then watch. */
+    async match(targetHz: number): Promise<void> {
+      for (let round = 0; round < 60; round++) {
+        const slipErr = trainer.slipHz - targetHz;
+        const dv = trainer.voltageDifferencePct;
+        if (Math.abs(slipErr) < 0.015 && Math.abs(dv) < 1) return;
+        if (Math.abs(slipErr) >= 0.015) await press(slipErr > 0 ? 'ArrowDown' : 'ArrowUp', Math.min(20, Math.round((Math.abs(slipErr) / 0.2) * 20)));
+        if (Math.abs(dv) >= 1) await press(dv > 0 ? 'ArrowLeft' : 'ArrowRight', Math.min(20, Math.round((Math.abs(dv) / 1) * 20)));
+        await frames(15);
+      }
+      throw new Error(`operator could not match: slip ${trainer.slipHz}, ΔV ${trainer.voltageDifferencePct} %`);
+    },
+    /** Waits until the angle is in [lo, hi] degrees (at most `maxS` seconds). */
+    async waitForAngle(lo: number, hi: number, maxS = 60): Promise<void> {
+      for (let i = 0; i < maxS / FRAME_S; i++) {
+        const a = trainer.state!.angleDeg;
+        if (a >= lo && a <= hi) return;
+        await trainer.advance(FRAME_S);
+      }
+      throw new Error('the angle never came round');
+    },
+  };
+}
+
+describe('TrainerView driven by key presses', () => {
+  let w: VueWrapper | null = null;
+  beforeEach(() => {
+    setActivePinia(createPinia());
+    setEngineClient(directClient());
+    // The test is the clock: no animation frames of its own.
+    vi.stubGlobal('requestAnimationFrame', () => 1);
+    vi.stubGlobal('cancelAnimationFrame', () => undefined);
+  });
+  afterEach(() => {
+    w?.unmount();
+    w = null;
+    vi.unstubAllGlobals();
+  });
+
+  async function setUp(seed: number) {
+    await usePlantStore().loadDemo();
+    const trainer = useTrainerStore();
+    trainer.seed = seed;
+    w = mount(TrainerView, { attachTo: document.body });
+    await flushPromises();
+    expect(trainer.state?.seed).toBe(seed);
+    return trainer;
+  }
+
+  it('closes inside the window after matching speed and voltage, and calls it good', async () => {
+    const trainer = await setUp(2024);
+    expect(w!.get('[data-test="trainer-caution"]').text()).toContain('not an authorisation to operate');
+    const op = operator(trainer);
+    await op.match(0.05);
+    // Command when the angle is one advance angle short of zero, so contact lands near 0°.
+    const adv = 360 * trainer.slipHz * 0.08;
+    await op.waitForAngle(-adv - 2, -adv + 0.5);
+    op.down(' ');
+    await op.frames(6);
+    await flushPromises();
+    const v = trainer.verdict!;
+    expect(v.insideWindow).toBe(true);
+    expect(['good', 'fair']).toContain(v.grade);
+    expect(Math.abs(v.contact.angleDeg)).toBeLessThan(3);
+    expect(v.score).toBeGreaterThanOrEqual(80);
+    expect(w!.get('[data-test="verdict-grade"]').text()).toMatch(/✓/);
+    expect(w!.get('[data-test="verdict-text"]').text()).toMatch(/inside the window/);
+    expect(trainer.attempts).toHaveLength(1);
+    expect(trainer.attempts[0]!.seed).toBe(2024);
+    expect(w!.get('[data-test="attempt-0"] [data-test="attempt-score"]').text()).toBe(String(v.score));
+  });
+
+  it('closes far outside the window when Space goes at a wide angle, and says so', async () => {
+    const trainer = await setUp(2024);
+    const op = operator(trainer);
+    await op.match(0.15);
+    await op.waitForAngle(60, 120);
+    op.down(' ');
+    await op.frames(6);
+    await flushPromises();
+    const v = trainer.verdict!;
+    expect(v.insideWindow).toBe(false);
+    expect(v.grade).toBe('harmful');
+    expect(v.score).toBeLessThan(20);
+    expect(w!.get('[data-test="verdict-grade"]').text()).toContain('Harmful close');
+    expect(w!.get('[data-test="verdict-text"]').text()).toMatch(/Closed outside the window .*Phase angle at contact/);
+    expect(v.traces.tS.length).toBeGreaterThan(100);
+  });
+
+  it('repeats the same start from the same seed', async () => {
+    const trainer = await setUp(77);
+    const first = trainer.state!;
+    await trainer.start(77);
+    expect(trainer.state!.angleDeg).toBe(first.angleDeg);
+    expect(trainer.state!.incomingFrequencyHz).toBe(first.incomingFrequencyHz);
+  });
+
+  it('holds raise while the key is down and nudges on a short click of the button', async () => {
+    const trainer = await setUp(5);
+    const op = operator(trainer);
+    const ref0 = trainer.state!.speedReferenceHz;
+    await op.press('ArrowUp', 10);
+    // 10 steps of 50 ms at 0.2 Hz/s = 0.1 Hz (closed form).
+    expect(trainer.state!.speedReferenceHz - ref0).toBeCloseTo(0.1, 9);
+    const btn = w!.get('[data-test="voltage-lower"]');
+    const v0 = trainer.state!.voltageReferenceV;
+    await btn.trigger('pointerdown');
+    await btn.trigger('pointerup');
+    await op.frames(10);
+    // A click holds for 0.25 s: 1 %/s × 0.25 s × 400 V = 1 V (closed form).
+    expect(v0 - trainer.state!.voltageReferenceV).toBeCloseTo(1, 6);
+  });
+
+  it('asks for the window first on that level, then allows the close', async () => {
+    await usePlantStore().loadDemo();
+    const trainer = useTrainerStore();
+    trainer.levelId = 'set-window';
+    w = mount(TrainerView, { attachTo: document.body });
+    await flushPromises();
+    expect(w.get('[data-test="trainer-state"]').text()).toContain('Set the sync-check window');
+    expect(w.get('[data-test="close-breaker"]').attributes('disabled')).toBeDefined();
+    await w.get('[data-test="trainer-window"] [data-test="limit-angle"]').setValue('10');
+    await w.get('[data-test="trainer-window"] [data-test="limit-slip"]').setValue('0.1');
+    await w.get('[data-test="trainer-window"] [data-test="limit-voltage"]').setValue('5');
+    await w.get('[data-test="trainer-apply-window"]').trigger('click');
+    expect(trainer.canClose).toBe(true);
+    await trainer.advance(FRAME_S);
+    expect(trainer.state!.window).toEqual({ slipHz: 0.1, angleDeg: 10, voltagePct: 5 });
+  });
+
+  it('keeps the log with the project: snapshot and restore', () => {
+    const trainer = useTrainerStore();
+    const a: TrainerAttempt = { at: '2026-01-01T00:00:00.000Z', seed: 1, level: 'steady', angleAtContactDeg: 2, slipAtContactHz: 0.05, voltageDifferencePct: 0.5, surgeCurrentPU: 0.2, torqueStepPU: 0.2, score: 90, verdict: 'Good close.' };
+    trainer.restore([a]);
+    const snap = trainer.snapshot();
+    expect(snap).toEqual([a]);
+    snap[0]!.score = 1;
+    expect(trainer.attempts[0]!.score).toBe(90);
+    expect(trainer.summary).toEqual({ count: 1, best: 90, mean: 90 });
+  });
+});
