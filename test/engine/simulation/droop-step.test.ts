@@ -1,0 +1,53 @@
+/** A load step on one set in droop: where it ends, and the energy it takes on the way. */
+import { describe, expect, it } from 'vitest';
+import { createSimulation, simulate } from '../../../electron/engine';
+import { expectClose } from '../../helpers/expect-close';
+import { makePlant, rawSet } from '../../helpers/plants';
+
+describe('load step on a set in droop', () => {
+  // DESIGN.md, "Speed droop": P = ratedKW (f_nl − f) / (droop · f_rated), so after a step to
+  // 700 kW a 1000 kW set at 4 % droop, f_nl 52 Hz, settles at 52 − 0.04 · 50 · 0.7 = 50.6 Hz.
+  it('ends on the droop line', () => {
+    const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 400, kVAR: 250 }]);
+    const r = simulate({ plant, durationS: 12, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', kW: 300, kVAR: 150 }] });
+    expectClose(r.metrics.initial.frequencyHz, 52 - 0.04 * 50 * 0.4, { abs: 1e-6 }, 'initial frequency, Hz (droop line at 400 kW)');
+    expectClose(r.metrics.final.frequencyHz, 52 - 0.04 * 50 * 0.7, { abs: 0.002 }, 'final frequency, Hz (droop line at 700 kW)');
+    expectClose(r.metrics.final.sets[0]!.kW, 700, { abs: 0.5 }, 'final kW');
+    // It dips below the final value on the way (the engine lags) and recovers.
+    expect(r.metrics.frequencyNadirHz).toBeLessThan(r.metrics.final.frequencyHz);
+    expect(r.metrics.frequencyRecoveryS).not.toBeNull();
+  });
+
+  // Closed form: with damping off, d(H S ω²)/dt = S (Pm − Pe) for each set (torque-form swing
+  // equation, Kundur 1994 eq. 3.9), and without feeders Σ Pe is the load. So the change of
+  // kinetic energy equals ∫ (Σ Pm − P_load) dt.
+  it('keeps the energy books with damping off', () => {
+    const noDamping = { xdPU: 2.5, dampingPU: 0, inertiaS: 1.2 };
+    const plant = makePlant(
+      [rawSet('A', { machine: noDamping }), rawSet('B', { ratedKVA: 625, ratedKW: 500, machine: { ...noDamping, inertiaS: 0.8 } })],
+      [{ id: 'L', kW: 700, kVAR: 300 }],
+    );
+    const sim = createSimulation({ plant, durationS: 4, stepMs: 1, events: [] });
+    const h = [1.2 * 1250, 0.8 * 625];
+    const ke = () => sim.snapshot().sets.reduce((sum, s, i) => sum + h[i]! * (s.speedHz / 50) ** 2, 0);
+    const net = () => {
+      const s = sim.snapshot();
+      return s.sets.reduce((sum, x) => sum + x.mechanicalKW, 0) - s.loadKW;
+    };
+    sim.advance(0.2);
+    sim.applyEvent({ atS: 0, type: 'load-step', kW: 400, kVAR: 100 });
+    const ke0 = ke();
+    let integral = 0;
+    let prev = net();
+    const dt = 0.001;
+    for (let k = 0; k < 2500; k++) {
+      sim.advance(dt);
+      const now = net();
+      integral += 0.5 * (prev + now) * dt;
+      prev = now;
+    }
+    const dKE = ke() - ke0;
+    expect(Math.abs(dKE)).toBeGreaterThan(20); // the step really moved the rotors (kW·s)
+    expectClose(dKE, integral, { rel: 0.005 }, 'kinetic energy change, kW·s');
+  });
+});

@@ -1,0 +1,88 @@
+/**
+ * Electromechanical swing of one set against a stiff bus, and the first instants of a
+ * load step: checks of the swing equation against closed forms.
+ */
+import { describe, expect, it } from 'vitest';
+import { createSimulation } from '../../../electron/engine';
+import { expectClose } from '../../helpers/expect-close';
+import { makePlant, rawSet } from '../../helpers/plants';
+
+describe('small-signal swing frequency against a stiff bus', () => {
+  // Kundur, Power System Stability and Control (1994), Example 12.2 (REFERENCES.md §3):
+  // E' = 1.123, E_B = 0.995, X_T = X'd + X_E = 0.3 + 0.65 = 0.95, δ0 = 49.92°, H = 3.5 s, 60 Hz,
+  // P = 0.9 → Ks = 0.757 pu/rad, ωn = 6.39 rad/s.
+  it('recovers ωn = sqrt(ωs Ks / 2H) within 2 %', () => {
+    const vr = 400;
+    // X_E is folded into the machine (X'd = X''d = X_T), so the bus is the set's terminal; the
+    // kVAR the set sends into the bus follows from Kundur's E', E_B, δ0:
+    // I = (E'∠δ0 − E_B) / jX_T, Q_bus = Im(E_B I*).
+    const d0 = (49.92 * Math.PI) / 180;
+    const iRe = (1.123 * Math.sin(d0)) / 0.95;
+    const iIm = -(1.123 * Math.cos(d0) - 0.995) / 0.95;
+    const qBusPU = -0.995 * iIm;
+    const qBase = 1000 * Math.sqrt(1 - 0.95 ** 2);
+    const noLoadV = 0.995 * vr + 0.04 * vr * ((qBusPU * 1000) / qBase);
+    expectClose(0.995 * iRe, 0.9, { abs: 0.002 }, 'P at the bus, pu (Kundur Ex. 12.2: 0.9)');
+    const plant = makePlant(
+      [
+        rawSet('G', {
+          ratedKVA: 1000,
+          ratedKW: 950,
+          ratedPF: 0.95,
+          governor: { mode: 'baseload', baseKW: 0.995 * iRe * 1000, actuatorLagS: 0.01, engineLagS: 0.01 },
+          regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV },
+          // Classical model: X''d = X'd = X_T, field flux frozen (T'd0 very long), no damping.
+          machine: { xdPU: 1.81, xdpPU: 0.95, xddpPU: 0.95, tdopS: 1e6, inertiaS: 3.5, dampingPU: 0 },
+        }),
+        // The "infinite bus": a set a thousand times larger holding 0.995 pu.
+        rawSet('BUS', {
+          ratedKVA: 1e6,
+          ratedKW: 8e5,
+          governor: { mode: 'isochronous', setpointHz: 60 },
+          regulator: { mode: 'voltage', setpointV: 0.995 * vr },
+          machine: { xddpPU: 0.15, xdpPU: 0.2, inertiaS: 10 },
+        }),
+      ],
+      [{ id: 'L', kW: 900, kVAR: 0 }],
+      { ratedFrequencyHz: 60, ratedVoltageV: vr },
+    );
+    const sim = createSimulation({ plant, durationS: 6, stepMs: 1, events: [] });
+    const s0 = sim.snapshot();
+    // The operating point is Kundur's: rotor angle ahead of the bus.
+    expectClose(s0.sets[0]!.rotorAngleDeg!, 49.92, { abs: 0.3 }, 'δ0, degrees (Kundur Ex. 12.2)');
+    sim.applyEvent({ atS: 0, type: 'setpoint', setId: 'G', kW: 0.995 * iRe * 1000 + 4.5 });
+    const times: number[] = [];
+    let prev = 0;
+    let prevT = 0;
+    for (let k = 0; k < 3000; k++) {
+      sim.advance(0.002);
+      const s = sim.snapshot();
+      const slip = s.sets[0]!.speedHz - s.sets[1]!.speedHz;
+      if (k > 100 && prev < 0 && slip >= 0) times.push(prevT + (0.002 * -prev) / (slip - prev));
+      prev = slip;
+      prevT = s.timeS;
+    }
+    expect(times.length).toBeGreaterThanOrEqual(4);
+    const period = (times[times.length - 1]! - times[0]!) / (times.length - 1);
+    const omegaMeasured = (2 * Math.PI) / period;
+    const ks = ((1.123 * 0.995) / 0.95) * Math.cos((49.92 * Math.PI) / 180);
+    const omegaN = Math.sqrt((2 * Math.PI * 60 * ks) / (2 * 3.5));
+    expectClose(ks, 0.757, { abs: 0.001 }, 'Ks recomputed (Kundur Ex. 12.2: 0.757 pu/rad)');
+    expectClose(omegaMeasured, omegaN, { rel: 0.02 }, 'ωn, rad/s (Kundur Ex. 12.2: 6.39)');
+  });
+});
+
+describe('the first instant of a load step', () => {
+  // Closed form: swing equation 2H dω/dt = Pm − Pe, so RoCoF = ΔP f0 / 2H (REFERENCES.md §3):
+  // 0.3 pu step, H = 1 s, 50 Hz → 7.5 Hz/s.
+  it('falls at ΔP f0 / 2H', () => {
+    const plant = makePlant([rawSet('A', { ratedKVA: 1000, ratedKW: 800, machine: { inertiaS: 1 } })], [{ id: 'L', kW: 400, kVAR: 200 }]);
+    const sim = createSimulation({ plant, durationS: 1, stepMs: 0.5, events: [] });
+    sim.advance(0.01);
+    sim.applyEvent({ atS: 0, type: 'load-step', kW: 300, kVAR: 0 });
+    const f0 = sim.snapshot().frequencyHz;
+    sim.advance(0.005);
+    const rocof = (sim.snapshot().frequencyHz - f0) / 0.005;
+    expectClose(rocof, -(0.3 * 50) / (2 * 1), { rel: 0.02 }, 'RoCoF, Hz/s (closed form: −7.5)');
+  });
+});
