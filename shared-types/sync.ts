@@ -229,4 +229,6 @@ export interface ClosingMap {
   /** Largest values on the map and inside the window. */
   maxSurgeCurrentPU: number;
   maxSurgeInWindowPU: number;
+  /** How the map was made, in a sentence (time-domain maps say which bus state and window of time they use). */
+  note?: string;
 }

@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { Cancelled, closingMapJob, defaultPlantBus, evaluateSync, incomingFromSet, InvalidInput, listSyncPresets } from '../engine';
+import { Cancelled, closingMapJobFor, defaultPlantBus, evaluateSync, incomingFromSet, listSyncPresets } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
@@ -145,13 +145,9 @@ export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
 const CELLS_PER_CHUNK = 4096;
 
 async function runClosingMap(req: ClosingMapRequest, ctx: HandlerContext) {
-  if (req.method === 'time-domain') {
-    throw new InvalidInput(
-      'method: the time-domain closing map is not available yet (the simulator has no breaker-close entry point in this build); use "closed-form".',
-    );
-  }
-  const job = closingMapJob(req);
-  const rowsPerChunk = Math.max(1, Math.floor(CELLS_PER_CHUNK / req.angleSteps));
+  const job = closingMapJobFor(req);
+  // A time-domain cell is a whole (short) simulation: report and check for cancel after every row.
+  const rowsPerChunk = req.method === 'time-domain' ? 1 : Math.max(1, Math.floor(CELLS_PER_CHUNK / req.angleSteps));
   ctx.progress(0, 'closing map');
   for (let row = 0; row < job.rows; row += rowsPerChunk) {
     if (ctx.signal.aborted) throw new Cancelled('The closing map was cancelled.');

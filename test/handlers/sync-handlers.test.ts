@@ -146,6 +146,26 @@ describe('closingMap handler', () => {
     expect(r).toEqual({ ok: false, error: { name: 'EngineError', code: 'CANCELLED', message: 'The closing map was cancelled.' } });
   });
 
+  it('runs the time-domain method row by row with progress, from a plant case', async () => {
+    const fractions: number[] = [];
+    const payload = {
+      case: { plant: demoPlantJson(), incomingSetId: 'G3', incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 }, breakerClosingMs: 60, presetId: 'practice-generating-sets' },
+      method: 'time-domain',
+      angleSteps: 5,
+      slipSteps: 3,
+    };
+    const r = await dispatch('closingMap', payload, { progress: (f) => fractions.push(f), signal: new AbortController().signal });
+    expect(r.ok).toBe(true);
+    expect((r as { value: ClosingMap }).value.method).toBe('time-domain');
+    expect(fractions).toEqual([0, 1 / 3, 2 / 3, 1]);
+  });
+
+  it('refuses the time-domain method without a plant, by field', async () => {
+    expect(await messageOf('closingMap', { case: caseFile(), method: 'time-domain', angleSteps: 5, slipSteps: 3 })).toContain(
+      "INVALID_INPUT: method: the time-domain closing map needs the case's plant and incomingSetId",
+    );
+  });
+
   it('refuses bad grid sizes by field', async () => {
     expect(await messageOf('closingMap', { case: caseFile(), angleSteps: 2.5 })).toContain('angleSteps: must be a whole number');
     expect(await messageOf('closingMap', { case: caseFile(), slipRangeHz: 9 })).toContain('slipRangeHz: must be 5 Hz or less');

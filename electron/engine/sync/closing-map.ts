@@ -5,71 +5,26 @@
  * contacts touch 360 s t later and slip moves the picture; with `angleAxis: 'contact'` the map is the bare surge.
  *
  * Built as a job that fills rows in chunks, so a caller can report progress and cancel between chunks.
+ * `method: 'time-domain'` runs the simulator instead (closing-map-time-domain.ts).
  */
 import type { ClosingMap, ClosingMapRequest } from '../../../shared-types';
-import { InvalidInput } from '../errors';
-import { iecPeakFactor, surgeCircuit } from './closing-surge';
-import type { SurgeCircuit } from './closing-surge';
-import { sideState } from './permissives';
-import { syncBasis } from './sync-basis';
+import { iecPeakFactor } from './closing-surge';
+import { setUpClosingMap } from './closing-map-grid';
+import type { ClosingMapJob } from './closing-map-grid';
+import { timeDomainClosingMapJob } from './closing-map-time-domain';
 
-/** A closing map being filled: `fillRows(from, to)` computes slip rows [from, to). */
-export interface ClosingMapJob {
-  /** The map; its arrays fill in as rows are computed. */
-  map: ClosingMap;
-  /** Number of slip rows. */
-  rows: number;
-  fillRows(from: number, to: number): void;
-}
-
-function linspace(from: number, to: number, n: number): number[] {
-  const out = new Array<number>(n);
-  for (let i = 0; i < n; i++) out[i] = n === 1 ? from : from + ((to - from) * i) / (n - 1);
-  return out;
-}
+export type { ClosingMapJob } from './closing-map-grid';
 
 /**
  * Sets up a closed-form closing map for `req` (nothing computed yet). Pure with respect to `req`.
  * @throws InvalidInput when the bus is not live (there is no surge to map) or grid sizes are unusable.
  */
 export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
+  const { map, basis, circuit, shiftS: tS } = setUpClosingMap(req, 'closed-form');
   const c = req.case;
-  if (!(req.angleSteps >= 2 && req.slipSteps >= 2 && Number.isInteger(req.angleSteps) && Number.isInteger(req.slipSteps))) {
-    throw new InvalidInput('angleSteps, slipSteps: must be whole numbers of 2 or more.');
-  }
-  if (!(req.slipRangeHz > 0)) throw new InvalidInput('slipRangeHz: must be greater than 0.');
-  const basis = syncBasis(c);
-  if (sideState((c.bus.voltageV / basis.voltageV) * 100, c.dead) !== 'live') {
-    throw new InvalidInput('case.bus.voltageV: the bus is not live, so there is no synchronizing surge to map (a dead-bus close has none).');
-  }
-  const base = surgeCircuit(c, basis);
-  const voltageDifferencePct = req.voltageDifferencePct ?? ((c.incoming.voltageV - c.bus.voltageV) / basis.voltageV) * 100;
-  const circuit: SurgeCircuit = { ...base, incomingVoltagePU: base.busVoltagePU + voltageDifferencePct / 100 };
-  if (!(circuit.incomingVoltagePU >= 0)) throw new InvalidInput('voltageDifferencePct: leaves the incoming voltage below 0.');
-  const angleAxis = req.angleAxis ?? 'command';
-  const tS = c.breakerClosingMs / 1000;
-  const nA = req.angleSteps;
-  const nS = req.slipSteps;
-  const anglesDeg = linspace(-180, 180, nA);
-  const slipsHz = linspace(-req.slipRangeHz, req.slipRangeHz, nS);
-  const cells = nA * nS;
-  const L = c.limits;
-  const window = { angleDeg: L.angleDeg, slipHz: L.slipHz, slipMinHz: L.incomingFaster ? 0 : -L.slipHz, slipMaxHz: L.slipHz };
-  const map: ClosingMap = {
-    anglesDeg,
-    slipsHz,
-    surgeCurrentPU: new Array<number>(cells).fill(0),
-    peakCurrentPU: new Array<number>(cells).fill(0),
-    torqueStepPU: new Array<number>(cells).fill(0),
-    window,
-    method: 'closed-form',
-    angleAxis,
-    voltageDifferencePct,
-    baseCurrentA: circuit.baseCurrentA,
-    torqueBaseKNm: circuit.torqueBaseKNm,
-    maxSurgeCurrentPU: 0,
-    maxSurgeInWindowPU: 0,
-  };
+  const { anglesDeg, slipsHz, window } = map;
+  const nA = anglesDeg.length;
+  const nS = slipsHz.length;
   const peakPerSym = iecPeakFactor(circuit.rOverX) * Math.SQRT2;
   const ratedHz = basis.ratedFrequencyHz;
   return {
@@ -91,7 +46,7 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
       let maxWin = map.maxSurgeInWindowPU;
       for (let j = from; j < to; j++) {
         const s = slipsHz[j]!;
-        const shiftDeg = angleAxis === 'command' ? 360 * s * tS : 0;
+        const shiftDeg = 360 * s * tS;
         const speedPU = (c.bus.frequencyHz + s) / ratedHz;
         const slipInWindow = s >= window.slipMinHz - 1e-12 && s <= window.slipMaxHz + 1e-12;
         const row = j * nA;
@@ -114,9 +69,14 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
   };
 }
 
-/** The whole closed-form closing map in one call (see `closingMapJob` for progress and cancelling). */
+/** The job for the request's method: closed form (default) or the time-domain simulator. */
+export function closingMapJobFor(req: ClosingMapRequest): ClosingMapJob {
+  return req.method === 'time-domain' ? timeDomainClosingMapJob(req) : closingMapJob(req);
+}
+
+/** The whole closing map in one call, by the request's method (see `closingMapJobFor` for progress and cancelling). */
 export function closingMap(req: ClosingMapRequest): ClosingMap {
-  const job = closingMapJob(req);
+  const job = closingMapJobFor(req);
   job.fillRows(0, job.rows);
   return job.map;
 }
