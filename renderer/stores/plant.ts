@@ -1,36 +1,85 @@
 /**
- * The plant store: the current (last valid) plant, its rated figures, and the
- * problems of the last candidate that was refused. A refused plant never replaces
- * the current one.
+ * The plant store: the current (last valid) plant and its rated figures, the draft the
+ * editor shows (which may be invalid while the user types), the field problems of the
+ * draft, and undo/redo. A refused plant never replaces the current one: results keep
+ * coming from the last valid plant until the draft is valid again.
+ *
+ * Other views read `plant`; project files call `load(plant, 'project')` and save
+ * `snapshot()`, watching `revision` and `dirty`.
  */
 import { defineStore } from 'pinia';
-import { ref, shallowRef } from 'vue';
+import { computed, ref, shallowRef } from 'vue';
 import type { FieldIssue, Plant, PlantDescription } from '../../shared-types';
 import demoPlant from '../demo/water-works.plant.json';
 import { EngineCallError, engine, messageOf } from '../transport';
+import { latestOnly } from './latest-only';
+import { clonePlain, draftOf, getIn, setIn } from './plant-draft';
+import type { PlantDraft } from './plant-draft';
+
+/** How many steps undo keeps. */
+export const UNDO_DEPTH = 200;
 
 export const usePlantStore = defineStore('plant', () => {
   /** The last valid plant (defaults filled in by the schema). */
   const plant = shallowRef<Plant | null>(null);
   const description = shallowRef<PlantDescription | null>(null);
-  /** Field problems of the last refused candidate. */
+  /** Field problems of the last refused candidate (a loaded file or the edited draft). */
   const issues = ref<FieldIssue[]>([]);
+  /** Where `issues` came from: the editor's draft, or a file that was refused. */
+  const issuesFrom = ref<'edit' | 'load' | null>(null);
   /** A sentence about the last failure, or null. */
   const error = ref<string | null>(null);
   const source = ref('');
 
-  /** Validates `candidate`; on success it becomes the plant, otherwise the current plant stays. */
+  /** The plant as edited; equals `plant` whenever the draft is valid. */
+  const draft = shallowRef<PlantDraft | null>(null);
+  /** Field problems of the draft, for the editor to show beside each field. */
+  const draftIssues = ref<FieldIssue[]>([]);
+  /** Increments whenever `plant` changes (accepted edit, undo, redo or load). */
+  const revision = ref(0);
+  /** True after an accepted edit, undo or redo, until `load()` or `markSaved()`. */
+  const dirty = ref(false);
+
+  const past = shallowRef<PlantDraft[]>([]);
+  const future = shallowRef<PlantDraft[]>([]);
+  /** The field the last edit touched: typing into one field is one undo step. */
+  let lastEditKey: string | null = null;
+
+  const canUndo = computed(() => past.value.length > 0);
+  const canRedo = computed(() => future.value.length > 0);
+  /** True when the draft has problems (results come from the last valid plant). */
+  const draftInvalid = computed(() => draftIssues.value.length > 0);
+
+  async function describe(valid: Plant): Promise<void> {
+    try {
+      const d = await engine().call('describePlant', { plant: valid });
+      if (plant.value === valid) description.value = d;
+    } catch (e) {
+      error.value = `rated figures: ${messageOf(e)}`;
+    }
+  }
+
+  /** Validates `candidate`; on success it becomes the plant and the draft, and undo history restarts. */
   async function load(candidate: unknown, from: string): Promise<boolean> {
     try {
       const valid = await engine().call('validatePlant', { plant: candidate });
       plant.value = valid;
+      draft.value = draftOf(valid);
       source.value = from;
       issues.value = [];
+      issuesFrom.value = null;
+      draftIssues.value = [];
       error.value = null;
-      description.value = await engine().call('describePlant', { plant: valid });
+      past.value = [];
+      future.value = [];
+      lastEditKey = null;
+      revision.value++;
+      dirty.value = false;
+      await describe(valid);
       return true;
     } catch (e) {
       issues.value = e instanceof EngineCallError ? e.issues : [];
+      issuesFrom.value = 'load';
       error.value = `${from}: ${messageOf(e)}`;
       return false;
     }
@@ -41,5 +90,144 @@ export const usePlantStore = defineStore('plant', () => {
     return load(structuredClone(demoPlant), 'demo plant');
   }
 
-  return { plant, description, issues, error, source, load, loadDemo };
+  // Validation of the draft: one request at a time, always for the newest draft.
+  const validator = latestOnly(async (candidate: PlantDraft) => {
+    if (candidate !== draft.value) return; // an older draft: a newer one is queued or done
+    try {
+      const valid = await engine().call('validatePlant', { plant: candidate });
+      if (candidate !== draft.value) return;
+      plant.value = valid;
+      draftIssues.value = [];
+      if (issuesFrom.value === 'edit') {
+        issues.value = [];
+        issuesFrom.value = null;
+      }
+      error.value = null;
+      revision.value++;
+      dirty.value = true;
+      await describe(valid);
+    } catch (e) {
+      if (candidate !== draft.value) return;
+      const found = e instanceof EngineCallError ? e.issues : [];
+      draftIssues.value = found;
+      issues.value = found;
+      issuesFrom.value = 'edit';
+      error.value = found.length
+        ? `The edited plant has ${found.length === 1 ? 'a problem' : `${found.length} problems`}; results are from the last valid plant.`
+        : `edit: ${messageOf(e)}`;
+    }
+  });
+
+  function commit(next: PlantDraft, key: string | null): Promise<void> {
+    const current = draft.value;
+    if (!current || next === current) return Promise.resolve();
+    if (key === null || key !== lastEditKey) {
+      past.value = [...past.value.slice(-(UNDO_DEPTH - 1)), current];
+    }
+    future.value = [];
+    lastEditKey = key;
+    draft.value = next;
+    return validator.push(next);
+  }
+
+  /**
+   * Sets one field of the draft (`path` as the engine names it, e.g.
+   * `sets[1].governor.droopPct`). Successive edits of the same field are one undo step.
+   */
+  function edit(path: string, value: unknown): Promise<void> {
+    if (!draft.value || Object.is(getIn(draft.value, path), value)) return Promise.resolve();
+    return commit(setIn(draft.value, path, value), path);
+  }
+
+  /**
+   * Sets several fields at once (e.g. kW and kVAR from a kVA and PF entry); successive
+   * calls with the same `key` are one undo step.
+   */
+  function editFields(key: string, values: readonly (readonly [string, unknown])[]): Promise<void> {
+    if (!draft.value) return Promise.resolve();
+    let next = draft.value;
+    for (const [path, value] of values) if (!Object.is(getIn(next, path), value)) next = setIn(next, path, value);
+    return commit(next, key);
+  }
+
+  /** Applies a whole-draft change (add, remove, move, duplicate…) as one undo step. */
+  function change(recipe: (d: PlantDraft) => PlantDraft): Promise<void> {
+    if (!draft.value) return Promise.resolve();
+    return commit(recipe(draft.value), null);
+  }
+
+  /** Steps back one edit. */
+  function undo(): Promise<void> {
+    const prev = past.value[past.value.length - 1];
+    if (!prev || !draft.value) return Promise.resolve();
+    future.value = [...future.value, draft.value];
+    past.value = past.value.slice(0, -1);
+    lastEditKey = null;
+    draft.value = prev;
+    return validator.push(prev);
+  }
+
+  /** Re-applies the last undone edit. */
+  function redo(): Promise<void> {
+    const next = future.value[future.value.length - 1];
+    if (!next || !draft.value) return Promise.resolve();
+    past.value = [...past.value, draft.value];
+    future.value = future.value.slice(0, -1);
+    lastEditKey = null;
+    draft.value = next;
+    return validator.push(next);
+  }
+
+  /** Ends the current undo step, so the next keystroke in the same field starts a new one. */
+  function closeStep(): void {
+    lastEditKey = null;
+  }
+
+  /** The problem of the draft at `path`, if any. */
+  function issueAt(path: string): string | undefined {
+    return draftIssues.value.find((i) => i.path === path)?.message;
+  }
+
+  /** A deep copy of the last valid plant, for saving. */
+  function snapshot(): Plant | null {
+    return plant.value ? clonePlain(plant.value) : null;
+  }
+
+  /** Marks the current plant as saved (`dirty` becomes false). */
+  function markSaved(): void {
+    dirty.value = false;
+  }
+
+  /** Resolves when the draft's validation (and the rated figures) are up to date. */
+  function settled(): Promise<void> {
+    return validator.settled();
+  }
+
+  return {
+    plant,
+    description,
+    issues,
+    issuesFrom,
+    error,
+    source,
+    draft,
+    draftIssues,
+    draftInvalid,
+    revision,
+    dirty,
+    canUndo,
+    canRedo,
+    load,
+    loadDemo,
+    edit,
+    editFields,
+    change,
+    undo,
+    redo,
+    closeStep,
+    issueAt,
+    snapshot,
+    markSaved,
+    settled,
+  };
 });

@@ -1,0 +1,80 @@
+/**
+ * The droop characteristics of each set, as line segments to draw (DESIGN.md definitions):
+ * - speed droop: `f = noLoadHz − P · (droopPct/100) · f_rated / ratedKW` (the inverse of
+ *   `P = ratedKW (noLoadHz − f) / (droopPct/100 · f_rated)`); isochronous: `f = setpointHz`;
+ *   base load: `P = baseKW` at any frequency;
+ * - reactive droop: `V = noLoadV − (droopPct/100) · V_rated · Q / Qbase` with
+ *   `Qbase = ratedKVA √(1 − ratedPF²)`; cross-current and voltage control: `V = setpointV`;
+ *   power-factor control: `Q = P tan(acos pf)` at the set's operating kW.
+ */
+import type { GenSet, Plant } from '../../../shared-types';
+
+/** A point of a characteristic: x in kW or kVAR, y in Hz or V. */
+export interface XY {
+  x: number;
+  y: number;
+}
+
+/** A set's characteristic: a straight segment, or a vertical line at `x` spanning the plot. */
+export type Characteristic = { kind: 'segment'; points: [XY, XY] } | { kind: 'vertical'; x: number };
+
+/** The speed characteristic of `set` (frequency, Hz, against output, kW). */
+export function speedDroopLine(set: GenSet, plant: Plant): Characteristic {
+  const g = set.governor;
+  const lowKW = Math.min(0, set.minKW);
+  if (g.mode === 'baseload') return { kind: 'vertical', x: g.baseKW };
+  if (g.mode === 'isochronous') {
+    return { kind: 'segment', points: [{ x: lowKW, y: g.setpointHz }, { x: set.ratedKW, y: g.setpointHz }] };
+  }
+  const hzPerKW = ((g.droopPct / 100) * plant.ratedFrequencyHz) / set.ratedKW;
+  const f = (kW: number) => g.noLoadHz - kW * hzPerKW;
+  return { kind: 'segment', points: [{ x: lowKW, y: f(lowKW) }, { x: set.ratedKW, y: f(set.ratedKW) }] };
+}
+
+/** Reactive base `Qbase = ratedKVA √(1 − ratedPF²)`, kVAR. */
+export function kVARBase(set: GenSet): number {
+  return set.ratedKVA * Math.sqrt(1 - set.ratedPF * set.ratedPF);
+}
+
+/**
+ * The voltage characteristic of `set` (terminal voltage, V, against kVAR), drawn from a
+ * leading `fromKVAR` to a lagging `toKVAR`. A power-factor set needs its operating `kW`.
+ */
+export function reactiveDroopLine(set: GenSet, plant: Plant, fromKVAR: number, toKVAR: number, kW = 0): Characteristic {
+  const r = set.regulator;
+  if (r.mode === 'power-factor') return { kind: 'vertical', x: kW * Math.tan(Math.acos(r.pf)) };
+  if (r.mode !== 'reactive-droop') {
+    return { kind: 'segment', points: [{ x: fromKVAR, y: r.setpointV }, { x: toKVAR, y: r.setpointV }] };
+  }
+  const vPerKVAR = ((r.droopPct / 100) * plant.ratedVoltageV) / kVARBase(set);
+  const v = (q: number) => r.noLoadV - q * vPerKVAR;
+  return { kind: 'segment', points: [{ x: fromKVAR, y: v(fromKVAR) }, { x: toKVAR, y: v(toKVAR) }] };
+}
+
+/** The [min, max] of `values` widened by `pad` of the span (or by `minSpan` / 2 when flat). */
+export function paddedRange(values: readonly number[], pad = 0.06, minSpan = 1): [number, number] {
+  const finite = values.filter(Number.isFinite);
+  if (finite.length === 0) return [0, minSpan];
+  let lo = Math.min(...finite);
+  let hi = Math.max(...finite);
+  if (hi - lo < minSpan) {
+    const mid = (hi + lo) / 2;
+    lo = mid - minSpan / 2;
+    hi = mid + minSpan / 2;
+  }
+  const p = (hi - lo) * pad;
+  return [lo - p, hi + p];
+}
+
+/** `[lo, hi]` widened outward to multiples of half a power of ten of its span (48.5–51.5 Hz, 390–420 V). */
+export function niceRange([lo, hi]: [number, number]): [number, number] {
+  const span = hi - lo;
+  if (!(span > 0) || !Number.isFinite(span)) return [lo, hi];
+  const step = 10 ** Math.floor(Math.log10(span)) / 2;
+  return [Math.floor(lo / step) * step, Math.ceil(hi / step) * step];
+}
+
+/** Points of a characteristic for a line dataset, with verticals spanning `[yLo, yHi]`. */
+export function characteristicPoints(c: Characteristic, yLo: number, yHi: number): XY[] {
+  return c.kind === 'segment' ? c.points : [{ x: c.x, y: yLo }, { x: c.x, y: yHi }];
+}

@@ -1,0 +1,349 @@
+/**
+ * Chart.js configurations of the Sharing view, built from the plant, the engine's result
+ * and the chart theme. Pure: the same inputs give the same configuration (tests read the
+ * datasets back). Every set keeps its colour, dash and point shape in every chart.
+ */
+import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions } from 'chart.js';
+import type { LoadSweep, Plant, SharingResult } from '../../../shared-types';
+import { characteristicPoints, kVARBase, niceRange, paddedRange, reactiveDroopLine, speedDroopLine } from './droop-lines';
+import type { XY } from './droop-lines';
+import { hatch, seriesStyle, withAlpha } from './series-style';
+import type { ChartTheme } from './theme';
+
+type Scatter = ChartDataset<'scatter', XY[]>;
+
+const fix = (v: number, d: number) => (Number.isFinite(v) ? v.toFixed(d) : '—');
+
+function axis(theme: ChartTheme, title: string, extra: ScaleOptions<'linear'> | object = {}): ScaleOptions<'linear'> {
+  return {
+    type: 'linear',
+    title: { display: true, text: title, color: theme.fg },
+    ticks: { color: theme.muted },
+    grid: { color: theme.grid },
+    border: { color: theme.grid },
+    ...extra,
+  } as ScaleOptions<'linear'>;
+}
+
+function basePlugins(theme: ChartTheme) {
+  return {
+    legend: {
+      position: 'bottom' as const,
+      labels: {
+        color: theme.fg,
+        usePointStyle: true,
+        boxHeight: 8,
+        filter: (item: LegendItem) => !String(item.text).endsWith('operating point'),
+      },
+    },
+    tooltip: { animation: false as const },
+  };
+}
+
+function hLine(y: number, color: string, text: string, theme: ChartTheme, dash: number[] = [6, 3]) {
+  return {
+    type: 'line' as const,
+    yMin: y,
+    yMax: y,
+    yScaleID: 'y',
+    borderColor: color,
+    borderWidth: 1.5,
+    borderDash: dash,
+    label: {
+      display: true,
+      content: text,
+      position: 'start' as const,
+      backgroundColor: theme.panel,
+      color: theme.fg,
+      font: { size: 11 },
+      padding: 3,
+    },
+  };
+}
+
+/**
+ * Speed-droop lines: frequency against kW for each online set, its operating point on
+ * the line, and the common bus frequency drawn across.
+ */
+export function speedDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme): ChartConfiguration {
+  const busHz = result?.bus.frequencyHz;
+  const online = plant.sets.map((s, i) => ({ s, i })).filter(({ s }) => s.online);
+  const lines = online.map(({ s }) => speedDroopLine(s, plant));
+  const ys: number[] = [plant.ratedFrequencyHz];
+  for (const c of lines) if (c.kind === 'segment') ys.push(c.points[0].y, c.points[1].y);
+  if (busHz !== undefined) ys.push(busHz);
+  const [yLo, yHi] = niceRange(paddedRange(ys, 0.04, 0.5));
+  const datasets: Scatter[] = [];
+  online.forEach(({ s, i }, k) => {
+    const st = seriesStyle(i, theme);
+    const c = lines[k];
+    if (!c) return;
+    datasets.push({
+      label: `${s.id} ${s.governor.mode === 'droop' ? `droop ${s.governor.droopPct} %` : s.governor.mode === 'isochronous' ? 'isochronous' : 'base load'}`,
+      data: characteristicPoints(c, yLo, yHi),
+      showLine: true,
+      borderColor: st.color,
+      backgroundColor: st.color,
+      borderDash: st.dash,
+      borderWidth: 2,
+      pointRadius: 0,
+      pointStyle: st.pointStyle,
+    });
+    const r = result?.sets.find((x) => x.id === s.id);
+    if (r && busHz !== undefined) {
+      datasets.push({
+        label: `${s.id} operating point`,
+        data: [{ x: r.kW, y: busHz }],
+        borderColor: st.color,
+        backgroundColor: st.color,
+        pointStyle: st.pointStyle,
+        pointRadius: 6,
+        pointHoverRadius: 8,
+      });
+    }
+  });
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      scales: {
+        x: axis(theme, 'Output (kW)'),
+        y: axis(theme, 'Frequency (Hz)', { min: yLo, max: yHi }),
+      },
+      plugins: {
+        ...basePlugins(theme),
+        tooltip: {
+          animation: false,
+          callbacks: { label: (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kW at ${fix(ctx.parsed.y ?? NaN, 3)} Hz` },
+        },
+        annotation: {
+          annotations: busHz === undefined ? {} : { bus: hLine(busHz, theme.fg, `bus ${fix(busHz, 3)} Hz`, theme) },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}
+
+/**
+ * Reactive-droop lines: terminal voltage against kVAR for each online set, its operating
+ * point (kVAR, terminal V), and the bus voltage drawn across.
+ */
+export function reactiveDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme): ChartConfiguration {
+  const busV = result?.bus.voltageV;
+  const online = plant.sets.map((s, i) => ({ s, i })).filter(({ s }) => s.online);
+  const prepared = online.map(({ s, i }) => {
+    const r = result?.sets.find((x) => x.id === s.id);
+    const qb = kVARBase(s);
+    const from = Math.min(-0.3 * qb, r ? r.kVAR * 1.1 : 0);
+    const to = Math.max(qb, r ? r.kVAR * 1.1 : 0);
+    return { s, i, r, c: reactiveDroopLine(s, plant, from, to, r?.kW ?? 0) };
+  });
+  const ys: number[] = [plant.ratedVoltageV];
+  for (const p of prepared) {
+    if (p.c.kind === 'segment') ys.push(p.c.points[0].y, p.c.points[1].y);
+    if (p.r) ys.push(p.r.terminalV);
+  }
+  if (busV !== undefined) ys.push(busV);
+  const [yLo, yHi] = niceRange(paddedRange(ys, 0.04, 4));
+  const datasets: Scatter[] = [];
+  for (const { s, i, r, c } of prepared) {
+    const st = seriesStyle(i, theme);
+    const mode = s.regulator.mode;
+    const what =
+      mode === 'reactive-droop' ? `reactive droop ${s.regulator.droopPct} %` : mode === 'cross-current' ? 'cross-current' : mode === 'voltage' ? 'voltage control' : `PF ${s.regulator.pf}`;
+    datasets.push({
+      label: `${s.id} ${what}`,
+      data: characteristicPoints(c, yLo, yHi),
+      showLine: true,
+      borderColor: st.color,
+      backgroundColor: st.color,
+      borderDash: st.dash,
+      borderWidth: 2,
+      pointRadius: 0,
+      pointStyle: st.pointStyle,
+    });
+    if (r) {
+      datasets.push({
+        label: `${s.id} operating point`,
+        data: [{ x: r.kVAR, y: r.terminalV }],
+        borderColor: st.color,
+        backgroundColor: st.color,
+        pointStyle: st.pointStyle,
+        pointRadius: 6,
+        pointHoverRadius: 8,
+      });
+    }
+  }
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      scales: {
+        x: axis(theme, 'Reactive output (kVAR, + lagging)'),
+        y: axis(theme, 'Terminal voltage (V, line-to-line)', { min: yLo, max: yHi }),
+      },
+      plugins: {
+        ...basePlugins(theme),
+        tooltip: {
+          animation: false,
+          callbacks: { label: (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kVAR at ${fix(ctx.parsed.y ?? NaN, 1)} V` },
+        },
+        annotation: {
+          annotations: busV === undefined ? {} : { bus: hLine(busV, theme.fg, `bus ${fix(busV, 1)} V`, theme) },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}
+
+/**
+ * Each online set's output against its rating: a kW bar (solid) and a kVA bar (hatched),
+ * each as output + spare up to the rating, with anything above the rating cross-hatched
+ * in the warning colour. Bar length = rating when within it.
+ */
+export function shareBarChart(plant: Plant, result: SharingResult | null, theme: ChartTheme): ChartConfiguration {
+  const online = plant.sets.map((s, i) => ({ s, i })).filter(({ s }) => s.online);
+  const rows = online.map(({ s, i }) => ({ s, i, r: result?.sets.find((x) => x.id === s.id) }));
+  const colors = rows.map(({ i }) => seriesStyle(i, theme).color);
+  const over = hatch(theme.bad, withAlpha(theme.bad, 0.25), 5);
+  const kw = rows.map(({ r }) => r?.kW ?? 0);
+  const kva = rows.map(({ r }) => r?.kVA ?? 0);
+  const ratedKW = rows.map(({ s }) => s.ratedKW);
+  const ratedKVA = rows.map(({ s }) => s.ratedKVA);
+  const bar = (label: string, stack: string, data: number[], bg: (CanvasPattern | string)[] | CanvasPattern | string, border: string[] | string, borderWidth = 0) => ({
+    label,
+    stack,
+    data,
+    backgroundColor: bg,
+    borderColor: border,
+    borderWidth,
+    borderSkipped: false,
+    barPercentage: 0.9,
+    categoryPercentage: 0.8,
+  });
+  const datasets = [
+    bar('kW output', 'kW', kw.map((v, k) => Math.min(v, ratedKW[k] ?? 0)), colors, colors),
+    bar('kW above rating', 'kW', kw.map((v, k) => Math.max(0, v - (ratedKW[k] ?? 0))), over, theme.bad, 1),
+    bar('kW spare to rating', 'kW', kw.map((v, k) => Math.max(0, (ratedKW[k] ?? 0) - Math.max(0, v))), colors.map((c) => withAlpha(c, 0.12)), colors, 1),
+    bar('kVA output', 'kVA', kva.map((v, k) => Math.min(v, ratedKVA[k] ?? 0)), colors.map((c) => hatch(c, withAlpha(c, 0.35))), colors, 1),
+    bar('kVA above rating', 'kVA', kva.map((v, k) => Math.max(0, v - (ratedKVA[k] ?? 0))), over, theme.bad, 1),
+    bar('kVA spare to rating', 'kVA', kva.map((v, k) => Math.max(0, (ratedKVA[k] ?? 0) - v)), colors.map((c) => withAlpha(c, 0.12)), colors, 1),
+  ];
+  const legendItems: LegendItem[] = [
+    { text: 'kW output (solid)', fillStyle: theme.muted, strokeStyle: theme.muted, lineWidth: 1, fontColor: theme.fg },
+    { text: 'kVA output (hatched)', fillStyle: hatch(theme.muted, withAlpha(theme.muted, 0.35)), strokeStyle: theme.muted, lineWidth: 1, fontColor: theme.fg },
+    { text: 'spare to rating (faint)', fillStyle: withAlpha(theme.muted, 0.12), strokeStyle: theme.muted, lineWidth: 1, fontColor: theme.fg },
+    { text: 'above rating (cross-hatched)', fillStyle: over, strokeStyle: theme.bad, lineWidth: 1, fontColor: theme.fg },
+  ] as LegendItem[];
+  return {
+    type: 'bar',
+    data: { labels: rows.map(({ s }) => `${s.id}`), datasets },
+    options: {
+      indexAxis: 'y',
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      scales: {
+        x: { ...axis(theme, 'Output against rating (kW solid, kVA hatched)'), stacked: true },
+        y: { type: 'category', stacked: true, ticks: { color: theme.fg }, grid: { display: false }, border: { color: theme.grid } },
+      },
+      plugins: {
+        legend: { position: 'bottom', onClick: () => undefined, labels: { color: theme.fg, generateLabels: () => legendItems } },
+        tooltip: {
+          animation: false,
+          callbacks: { label: (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} ${ctx.dataset.stack === 'kVA' ? 'kVA' : 'kW'}` },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}
+
+/**
+ * The load sweep: bus frequency (left axis) and each set's kW (right axis) against the
+ * total load, with the load being shown marked. Points without a steady state are gaps.
+ */
+export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTheme, markKW: number | null): ChartConfiguration {
+  const points = sweep?.points ?? [];
+  const datasets: ChartDataset<'scatter', ({ x: number; y: number | null })[]>[] = [
+    {
+      label: 'Bus frequency (Hz, left)',
+      yAxisID: 'f',
+      data: points.map((p) => ({ x: p.loadKW, y: p.frequencyHz })),
+      showLine: true,
+      borderColor: theme.fg,
+      backgroundColor: theme.fg,
+      borderWidth: 2.5,
+      pointRadius: 0,
+      pointStyle: 'line',
+      spanGaps: false,
+    },
+  ];
+  (sweep?.setIds ?? []).forEach((id, j) => {
+    const i = plant.sets.findIndex((s) => s.id === id);
+    const st = seriesStyle(i < 0 ? j : i, theme);
+    datasets.push({
+      label: `${id} kW (right)`,
+      yAxisID: 'p',
+      data: points.map((p) => ({ x: p.loadKW, y: p.setKW[j] ?? null })),
+      showLine: true,
+      borderColor: st.color,
+      backgroundColor: st.color,
+      borderDash: st.dash,
+      borderWidth: 2,
+      pointRadius: 2.5,
+      pointStyle: st.pointStyle,
+      spanGaps: false,
+    });
+  });
+  const fs = points.map((p) => p.frequencyHz).filter((v): v is number => v !== null);
+  const [fLo, fHi] = niceRange(paddedRange([...fs, plant.ratedFrequencyHz], 0.04, 0.5));
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      scales: {
+        x: axis(theme, 'Total load (kW)'),
+        f: axis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
+        p: axis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
+      },
+      plugins: {
+        ...basePlugins(theme),
+        tooltip: {
+          animation: false,
+          callbacks: {
+            label: (ctx) =>
+              ctx.dataset.yAxisID === 'f'
+                ? `${fix(ctx.parsed.x ?? NaN, 0)} kW load: ${fix(ctx.parsed.y ?? NaN, 3)} Hz`
+                : `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.y ?? NaN, 0)} kW`,
+          },
+        },
+        annotation: {
+          annotations:
+            markKW === null
+              ? {}
+              : {
+                  now: {
+                    type: 'line',
+                    xMin: markKW,
+                    xMax: markKW,
+                    xScaleID: 'x',
+                    borderColor: theme.accent,
+                    borderWidth: 1.5,
+                    borderDash: [4, 3],
+                    label: { display: true, content: `shown load ${fix(markKW, 0)} kW`, position: 'start', backgroundColor: theme.panel, color: theme.fg, font: { size: 11 }, padding: 3 },
+                  },
+                },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}

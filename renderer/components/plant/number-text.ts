@@ -1,0 +1,15 @@
+/** Text ⇄ number for editor fields: the user's text is kept while typing, the model holds numbers. */
+
+/** The number typed, or null for an empty or unreadable field (the engine then names the rule). */
+export function parseNumber(text: string): number | null {
+  const t = text.trim().replace(/\s/g, '').replace(',', '.').replace('−', '-');
+  if (t === '') return null;
+  const v = Number(t);
+  return Number.isFinite(v) ? v : null;
+}
+
+/** A model number as the field shows it (float noise trimmed: 61.440000000001 → "61.44"). */
+export function showNumber(v: unknown): string {
+  if (typeof v !== 'number' || !Number.isFinite(v)) return '';
+  return String(Number(v.toPrecision(10)));
+}

@@ -1,0 +1,143 @@
+/**
+ * The rows of the set sheet, grouped as the trade thinks of a set: rating, limits,
+ * governor, regulator, machine data, feeder. Each row names the field by its path inside
+ * a set (the engine's issue path is `sets[i].` + this key) and shows its unit.
+ */
+import type { SetDraft } from '../../stores/plant-draft';
+import { TYPICAL_RANGES } from '../../stores/plant-draft';
+
+/** A choice of a select row. */
+export interface Choice {
+  value: string;
+  label: string;
+}
+
+/** One row of the sheet. */
+export interface SheetRow {
+  /** Path inside the set, e.g. `governor.droopPct`. */
+  key: string;
+  label: string;
+  /** Unit shown beside the label ("–" for a plain number). */
+  unit: string;
+  kind: 'number' | 'text' | 'select' | 'online' | 'check';
+  /** Words for a check row: [checked, unchecked]. */
+  words?: [string, string];
+  choices?: Choice[];
+  /** Input step for the arrow keys. */
+  step?: number;
+  /** Typical range shown in the last column. */
+  typical?: string;
+  /** When the field is not used by the set's current mode: a note saying when it is. */
+  unusedWhen?: (s: SetDraft) => string | null;
+  /** A hint (title) explaining the field. */
+  hint?: string;
+}
+
+/** A titled group of rows. */
+export interface SheetGroup {
+  id: string;
+  title: string;
+  note?: string;
+  rows: SheetRow[];
+}
+
+const governorModes: Choice[] = [
+  { value: 'droop', label: 'droop' },
+  { value: 'isochronous', label: 'isochronous' },
+  { value: 'baseload', label: 'base load' },
+];
+
+const regulatorModes: Choice[] = [
+  { value: 'reactive-droop', label: 'reactive droop' },
+  { value: 'cross-current', label: 'cross-current' },
+  { value: 'voltage', label: 'voltage control' },
+  { value: 'power-factor', label: 'power factor' },
+];
+
+const govUnused = (used: string, ...modes: string[]) => (s: SetDraft) => (modes.includes(s.governor.mode) ? null : `used in ${used} mode`);
+const regUnused = (used: string, ...modes: string[]) => (s: SetDraft) => (modes.includes(s.regulator.mode) ? null : `used in ${used} mode`);
+
+/** The groups of the set sheet, top to bottom. */
+export const SET_GROUPS: readonly SheetGroup[] = [
+  {
+    id: 'identity',
+    title: 'Set',
+    rows: [
+      { key: 'id', label: 'Id', unit: '', kind: 'text', hint: 'Unique short name, e.g. G1' },
+      { key: 'name', label: 'Name', unit: '', kind: 'text' },
+      { key: 'online', label: 'Breaker', unit: '', kind: 'online', hint: 'Online: breaker closed, set shares the load' },
+    ],
+  },
+  {
+    id: 'rating',
+    title: 'Rating',
+    rows: [
+      { key: 'ratedKVA', label: 'Rated apparent power', unit: 'kVA', kind: 'number', step: 10 },
+      { key: 'ratedKW', label: 'Rated active power', unit: 'kW', kind: 'number', step: 10 },
+      { key: 'ratedPF', label: 'Rated power factor', unit: 'lag', kind: 'number', step: 0.01 },
+      { key: 'poles', label: 'Poles', unit: '', kind: 'number', step: 2, hint: 'Rated speed n = 120 f / poles' },
+    ],
+  },
+  {
+    id: 'limits',
+    title: 'Limits',
+    rows: [
+      { key: 'minKW', label: 'Minimum output', unit: 'kW', kind: 'number', step: 10 },
+      { key: 'reversePowerTripPct', label: 'Reverse-power trip (32)', unit: '% kW', kind: 'number', step: 1, typical: TYPICAL_RANGES.reversePowerTripPct },
+      { key: 'leadingKVARLimitPct', label: 'Leading kVAR limit', unit: '% kVA', kind: 'number', step: 5 },
+    ],
+  },
+  {
+    id: 'governor',
+    title: 'Governor (speed)',
+    note: 'droop % = 100 × (f no-load − f at rated kW) / f rated',
+    rows: [
+      { key: 'governor.mode', label: 'Mode', unit: '', kind: 'select', choices: governorModes },
+      { key: 'governor.droopPct', label: 'Speed droop', unit: '%', kind: 'number', step: 0.5, typical: TYPICAL_RANGES['governor.droopPct'], unusedWhen: govUnused('droop', 'droop') },
+      { key: 'governor.noLoadHz', label: 'No-load frequency', unit: 'Hz', kind: 'number', step: 0.1, unusedWhen: govUnused('droop', 'droop') },
+      { key: 'governor.setpointHz', label: 'Setpoint frequency', unit: 'Hz', kind: 'number', step: 0.1, unusedWhen: govUnused('isochronous', 'isochronous') },
+      { key: 'governor.baseKW', label: 'Base load', unit: 'kW', kind: 'number', step: 10, unusedWhen: govUnused('base-load', 'baseload') },
+      {
+        key: 'governor.loadSharingLink',
+        label: 'Load-sharing link',
+        unit: '',
+        kind: 'check',
+        words: ['linked', 'not linked'],
+        hint: 'Isochronous sets on a load-sharing link share kW in proportion to rated kW',
+        unusedWhen: govUnused('isochronous', 'isochronous'),
+      },
+    ],
+  },
+  {
+    id: 'regulator',
+    title: 'Voltage regulator',
+    note: 'reactive droop: % of rated V at the kVAR of rated current and rated PF',
+    rows: [
+      { key: 'regulator.mode', label: 'Mode', unit: '', kind: 'select', choices: regulatorModes },
+      { key: 'regulator.droopPct', label: 'Reactive droop', unit: '%', kind: 'number', step: 0.5, typical: TYPICAL_RANGES['regulator.droopPct'], unusedWhen: regUnused('reactive-droop', 'reactive-droop') },
+      { key: 'regulator.noLoadV', label: 'No-load voltage', unit: 'V', kind: 'number', step: 1, unusedWhen: regUnused('reactive-droop', 'reactive-droop') },
+      { key: 'regulator.setpointV', label: 'Setpoint voltage', unit: 'V', kind: 'number', step: 1, unusedWhen: regUnused('voltage or cross-current', 'voltage', 'cross-current') },
+      { key: 'regulator.pf', label: 'Power factor held', unit: 'lag', kind: 'number', step: 0.01, unusedWhen: regUnused('power-factor', 'power-factor') },
+    ],
+  },
+  {
+    id: 'machine',
+    title: 'Machine data',
+    note: 'per unit on the set’s own kVA and the plant voltage; typical values, verify with the maker’s data',
+    rows: [
+      { key: 'machine.xdPU', label: 'X d synchronous', unit: 'pu', kind: 'number', step: 0.1, typical: TYPICAL_RANGES['machine.xdPU'] },
+      { key: 'machine.xdpPU', label: "X'd transient", unit: 'pu', kind: 'number', step: 0.01, typical: TYPICAL_RANGES['machine.xdpPU'] },
+      { key: 'machine.xddpPU', label: "X''d subtransient", unit: 'pu', kind: 'number', step: 0.01, typical: TYPICAL_RANGES['machine.xddpPU'] },
+      { key: 'machine.tdopS', label: "T'd0 open-circuit", unit: 's', kind: 'number', step: 0.1, typical: TYPICAL_RANGES['machine.tdopS'] },
+      { key: 'machine.inertiaS', label: 'H inertia (set + engine)', unit: 's', kind: 'number', step: 0.1, typical: TYPICAL_RANGES['machine.inertiaS'] },
+    ],
+  },
+  {
+    id: 'feeder',
+    title: 'Feeder to the bus (per phase)',
+    rows: [
+      { key: 'feeder.rOhm', label: 'Resistance R', unit: 'Ω', kind: 'number', step: 0.0005 },
+      { key: 'feeder.xOhm', label: 'Reactance X', unit: 'Ω', kind: 'number', step: 0.0005 },
+    ],
+  },
+];

@@ -1,0 +1,200 @@
+/**
+ * The plant as the editor holds it (a draft that may be invalid while the user types)
+ * and pure edits on it. Every edit returns a new draft and leaves the old one intact,
+ * so the undo history can keep old drafts by reference.
+ */
+import type { GenSet, Load, Plant } from '../../shared-types';
+
+/** `T` with every number allowed to be `null` (an emptied field). */
+export type Editable<T> = T extends number
+  ? T | null
+  : T extends (infer U)[]
+    ? Editable<U>[]
+    : T extends object
+      ? { [K in keyof T]: Editable<T[K]> }
+      : T;
+
+/** A plant being edited: the plant-file shape, with numbers that may be empty. */
+export type PlantDraft = Editable<Plant>;
+export type SetDraft = Editable<GenSet>;
+export type LoadDraft = Editable<Load>;
+
+/** One step of a field path: a property name or a list index. */
+export type PathStep = string | number;
+
+/**
+ * Splits a field path as the engine writes it (`sets[1].governor.droopPct`) into steps.
+ * The same string names the field in the editor, so issues map to fields by equality.
+ */
+export function parsePath(path: string): PathStep[] {
+  const steps: PathStep[] = [];
+  for (const m of path.matchAll(/([^.[\]]+)|\[(\d+)\]/g)) {
+    if (m[2] !== undefined) steps.push(Number(m[2]));
+    else if (m[1] !== undefined) steps.push(m[1]);
+  }
+  return steps;
+}
+
+/** The value at `path` in `root`, or undefined. */
+export function getIn(root: unknown, path: string): unknown {
+  let v: unknown = root;
+  for (const step of parsePath(path)) {
+    if (v === null || typeof v !== 'object') return undefined;
+    v = (v as Record<PathStep, unknown>)[step];
+  }
+  return v;
+}
+
+/** A copy of `root` with `value` at `path`; only the objects along the path are copied. */
+export function setIn<T>(root: T, path: string, value: unknown): T {
+  const steps = parsePath(path);
+  const put = (node: unknown, i: number): unknown => {
+    const step = steps[i];
+    if (step === undefined) return value;
+    if (Array.isArray(node)) {
+      const copy = node.slice();
+      copy[step as number] = put(node[step as number], i + 1);
+      return copy;
+    }
+    const obj = (node !== null && typeof node === 'object' ? node : {}) as Record<PathStep, unknown>;
+    return { ...obj, [step]: put(obj[step], i + 1) };
+  };
+  return put(root, 0) as T;
+}
+
+/** A deep copy of plain data (drafts hold only JSON values). */
+export function clonePlain<T>(v: T): T {
+  return JSON.parse(JSON.stringify(v)) as T;
+}
+
+/** The first id `prefix + n` (n = 1, 2, …) not in `used`. */
+export function nextId(prefix: string, used: readonly string[]): string {
+  for (let n = 1; ; n++) {
+    const id = `${prefix}${n}`;
+    if (!used.includes(id)) return id;
+  }
+}
+
+/**
+ * A new set with every field given (so the draft equals its validated form): 500 kVA,
+ * 0.8 PF, 4 poles, 4 % speed and reactive droop with the plant schema's default
+ * no-load setpoints (rated output at rated frequency and voltage), typical machine data
+ * for an engine set (REFERENCES.md §4, from memory; verify with the maker's data).
+ */
+export function newSet(draft: PlantDraft): SetDraft {
+  const f = draft.ratedFrequencyHz ?? 50;
+  const v = draft.ratedVoltageV ?? 400;
+  const id = nextId('G', draft.sets.map((s) => s.id));
+  return {
+    id,
+    name: `Set ${id}`,
+    online: true,
+    ratedKVA: 500,
+    ratedKW: 400,
+    ratedPF: 0.8,
+    poles: 4,
+    minKW: 0,
+    reversePowerTripPct: 10,
+    leadingKVARLimitPct: 30,
+    governor: { mode: 'droop', droopPct: 4, noLoadHz: f * 1.04, setpointHz: f, baseKW: 0, loadSharingLink: true, actuatorLagS: 0.05, engineLagS: 0.3, isoResetS: 2 },
+    regulator: {
+      mode: 'reactive-droop',
+      droopPct: 4,
+      noLoadV: v * 1.04,
+      setpointV: v,
+      pf: 0.9,
+      exciterLagS: 0.1,
+      gainPU: 50,
+      ceilingPU: 3,
+      shuntExcited: false,
+      residualPU: 0.03,
+    },
+    machine: { ...TYPICAL_MACHINE, dampingPU: 2, raPU: 0.01 },
+    feeder: { rOhm: 0, xOhm: 0 },
+  };
+}
+
+/**
+ * Typical machine data of a 100 kVA – 3 MVA engine set, per unit on its own base
+ * (REFERENCES.md §4, ranges from memory: X d 1.5–3.5, X'd 0.15–0.35, X''d 0.10–0.20,
+ * T'd0 1–3 s LV, H 0.5–1.5 s). Mid-range values; typical, verify with the maker's data.
+ */
+export const TYPICAL_MACHINE = { xdPU: 2.5, xdpPU: 0.25, xddpPU: 0.15, tdopS: 2.5, inertiaS: 1 } as const;
+
+/** The typical ranges shown beside the machine-data fields (same source as `TYPICAL_MACHINE`). */
+export const TYPICAL_RANGES: Readonly<Record<string, string>> = {
+  'machine.xdPU': '1.5–3.5',
+  'machine.xdpPU': '0.15–0.35',
+  'machine.xddpPU': '0.10–0.20',
+  'machine.tdopS': '1–3 LV, 2–6 MV',
+  'machine.inertiaS': '0.5–1.5',
+  'governor.droopPct': '3–5 (4 common)',
+  'regulator.droopPct': '3–5',
+  reversePowerTripPct: '5–15 diesel',
+};
+
+/** A new constant-power load of 100 kW, 60 kVAR. */
+export function newLoad(draft: PlantDraft): LoadDraft {
+  const id = nextId('L', draft.loads.map((l) => l.id));
+  return { id, name: `Load ${id}`, online: true, kW: 100, kVAR: 60, model: 'constant-power', frequencySensitivity: 0 };
+}
+
+type ListKey = 'sets' | 'loads';
+
+/** Appends a new set or load. */
+export function addItem(draft: PlantDraft, list: ListKey): PlantDraft {
+  return list === 'sets' ? { ...draft, sets: [...draft.sets, newSet(draft)] } : { ...draft, loads: [...draft.loads, newLoad(draft)] };
+}
+
+/** Inserts a copy of item `index` right after it, with a fresh id and "(copy)" in its name. */
+export function duplicateItem(draft: PlantDraft, list: ListKey, index: number): PlantDraft {
+  const items = draft[list] as (SetDraft | LoadDraft)[];
+  const item = items[index];
+  if (!item) return draft;
+  const prefix = list === 'sets' ? 'G' : 'L';
+  const copy = { ...clonePlain(item), id: nextId(prefix, items.map((i) => i.id)), name: `${item.name} (copy)` };
+  const next = [...items.slice(0, index + 1), copy, ...items.slice(index + 1)];
+  return { ...draft, [list]: next };
+}
+
+/** Removes item `index`. */
+export function removeItem(draft: PlantDraft, list: ListKey, index: number): PlantDraft {
+  const items = draft[list] as unknown[];
+  if (index < 0 || index >= items.length) return draft;
+  return { ...draft, [list]: items.filter((_, i) => i !== index) };
+}
+
+/** Moves item `index` by `by` places (−1 earlier, +1 later), clamped to the list. */
+export function moveItem(draft: PlantDraft, list: ListKey, index: number, by: number): PlantDraft {
+  const items = (draft[list] as unknown[]).slice();
+  const to = Math.min(items.length - 1, Math.max(0, index + by));
+  if (to === index || index < 0 || index >= items.length) return draft;
+  const [item] = items.splice(index, 1);
+  items.splice(to, 0, item);
+  return { ...draft, [list]: items };
+}
+
+/**
+ * Changes the rated frequency and scales every set's frequency setpoints by the same
+ * ratio, so a 50 Hz plant switched to 60 Hz keeps its droop settings in per unit
+ * (51.2 Hz no-load at 50 Hz becomes 61.44 Hz at 60 Hz).
+ */
+export function changeRatedFrequency(draft: PlantDraft, hz: 50 | 60): PlantDraft {
+  const old = draft.ratedFrequencyHz;
+  if (old === hz) return draft;
+  const k = old ? hz / old : 1;
+  const scale = (v: number | null) => (v === null ? null : Math.round(v * k * 1e6) / 1e6);
+  return {
+    ...draft,
+    ratedFrequencyHz: hz,
+    sets: draft.sets.map((s) => ({
+      ...s,
+      governor: { ...s.governor, noLoadHz: scale(s.governor.noLoadHz), setpointHz: scale(s.governor.setpointHz) },
+    })),
+  };
+}
+
+/** Draft from a valid plant (a deep copy, so later edits never reach the plant). */
+export function draftOf(plant: Plant): PlantDraft {
+  return clonePlain(plant) as PlantDraft;
+}

@@ -1,0 +1,177 @@
+/**
+ * The sharing store: where the current plant settles (`solveSharing`) and the load sweep
+ * (`sweepLoad`), recomputed whenever the plant changes. A load slider replaces the plant's
+ * loads by one constant-power load at a % of the online sets' kW rating; while it is
+ * dragged, only the newest position is ever sent (older ones are dropped, never queued).
+ */
+import { defineStore } from 'pinia';
+import { computed, ref, shallowRef, watch } from 'vue';
+import type { LoadOverride, LoadSweep, Plant, SharingResult } from '../../shared-types';
+import { engine, messageOf } from '../transport';
+import { latestOnly } from './latest-only';
+import { usePlantStore } from './plant';
+
+/** Points of the load sweep (0 to 110 % in 2.5 % steps). */
+export const SWEEP_STEPS = 45;
+/** The slider's range, % of the online sets' kW rating. */
+export const LOAD_PCT_MAX = 110;
+/** kVAR per kW of the swept load when the plant has no load to take it from (PF 0.8 lagging). */
+const DEFAULT_Q_PER_P = 0.75;
+
+/** Sum of the online sets' rated kW. */
+export function onlineRatedKW(plant: Plant): number {
+  return plant.sets.reduce((sum, s) => sum + (s.online ? s.ratedKW : 0), 0);
+}
+
+/** The plant's online loads at rated voltage and frequency, kW and kVAR. */
+export function connectedLoad(plant: Plant): LoadOverride {
+  let kW = 0;
+  let kVAR = 0;
+  for (const l of plant.loads) {
+    if (!l.online) continue;
+    kW += l.kW;
+    kVAR += l.kVAR;
+  }
+  return { kW, kVAR };
+}
+
+/**
+ * The aggregate load at `pct` % of the online kW rating, with the kVAR/kW ratio of the
+ * plant's own loads (or PF 0.8 lagging when they draw no kW).
+ */
+export function loadAtPct(plant: Plant, pct: number): LoadOverride {
+  const own = connectedLoad(plant);
+  const qPerP = own.kW > 0 ? own.kVAR / own.kW : DEFAULT_Q_PER_P;
+  const kW = (pct / 100) * onlineRatedKW(plant);
+  return { kW, kVAR: kW * qPerP };
+}
+
+interface SolveInput {
+  plant: Plant;
+  loadPct: number | null;
+}
+
+export const useSharingStore = defineStore('sharing', () => {
+  const plantStore = usePlantStore();
+
+  /** The operating point of `resultPlant`, or null (see `error`). */
+  const result = shallowRef<SharingResult | null>(null);
+  /** The plant `result` belongs to. */
+  const resultPlant = shallowRef<Plant | null>(null);
+  /** The load override `result` was solved with (null: the plant's own loads). */
+  const resultLoad = shallowRef<LoadOverride | null>(null);
+  /** Why there is no operating point (no steady state, engine unavailable…). */
+  const error = ref<string | null>(null);
+
+  const sweep = shallowRef<LoadSweep | null>(null);
+  const sweepPlant = shallowRef<Plant | null>(null);
+  const sweepError = ref<string | null>(null);
+
+  /** The slider: total load as % of the online kW rating; null = the plant's own loads. */
+  const loadPct = ref<number | null>(null);
+
+  /** Solve requests answered (for the status line and tests). */
+  const solves = ref(0);
+
+  const solver = latestOnly(async ({ plant, loadPct: pct }: SolveInput) => {
+    const load = pct === null ? undefined : loadAtPct(plant, pct);
+    try {
+      const r = await engine().call('solveSharing', load ? { plant, load } : { plant });
+      result.value = r;
+      error.value = null;
+    } catch (e) {
+      result.value = null;
+      error.value = messageOf(e);
+    }
+    resultPlant.value = plant;
+    resultLoad.value = load ?? null;
+    solves.value++;
+  });
+
+  const sweeper = latestOnly(async (plant: Plant) => {
+    try {
+      sweep.value = await engine().call('sweepLoad', { plant, steps: SWEEP_STEPS, fromPct: 0, toPct: LOAD_PCT_MAX });
+      sweepError.value = null;
+    } catch (e) {
+      sweep.value = null;
+      sweepError.value = messageOf(e);
+    }
+    sweepPlant.value = plant;
+  });
+
+  function solveNow(): Promise<void> {
+    const plant = plantStore.plant;
+    if (!plant) return Promise.resolve();
+    return solver.push({ plant, loadPct: loadPct.value });
+  }
+
+  watch(
+    () => plantStore.plant,
+    (plant) => {
+      if (!plant) return;
+      void solver.push({ plant, loadPct: loadPct.value });
+      void sweeper.push(plant);
+    },
+    // Synchronous: the request leaves in the same tick as the edit that changed the plant.
+    { immediate: true, flush: 'sync' },
+  );
+
+  /** Moves the load slider (null returns to the plant's own loads) and recomputes. */
+  function setLoadPct(pct: number | null): Promise<void> {
+    loadPct.value = pct === null ? null : Math.min(LOAD_PCT_MAX, Math.max(0, pct));
+    return solveNow();
+  }
+
+  /** The online kW rating of the current plant. */
+  const ratedKW = computed(() => (plantStore.plant ? onlineRatedKW(plantStore.plant) : 0));
+  /** The plant's own connected load. */
+  const ownLoad = computed(() => (plantStore.plant ? connectedLoad(plantStore.plant) : { kW: 0, kVAR: 0 }));
+  /** The plant's own load as % of the online kW rating (where the slider rests). */
+  const ownLoadPct = computed(() => (ratedKW.value > 0 ? (100 * ownLoad.value.kW) / ratedKW.value : 0));
+  /** The slider position shown: the override, or the plant's own load. */
+  const shownLoadPct = computed(() => loadPct.value ?? ownLoadPct.value);
+  /** The load the result is for (override or the plant's own), kW and kVAR. */
+  const shownLoad = computed<LoadOverride>(() => resultLoad.value ?? (resultPlant.value ? connectedLoad(resultPlant.value) : ownLoad.value));
+
+  /** Power factor of the sets' total output, or null with no output. */
+  const totalPF = computed(() => {
+    const t = result.value?.totals;
+    return t && t.kVA > 0 ? t.kW / t.kVA : null;
+  });
+  /** Total kW as % of the online kW rating of the plant the result is for. */
+  const totalLoadingPct = computed(() => {
+    const r = result.value;
+    const p = resultPlant.value;
+    if (!r || !p) return null;
+    const rated = onlineRatedKW(p);
+    return rated > 0 ? (100 * r.totals.kW) / rated : null;
+  });
+
+  /** Resolves when the solve and the sweep are up to date. */
+  async function settled(): Promise<void> {
+    await plantStore.settled();
+    await Promise.all([solver.settled(), sweeper.settled()]);
+  }
+
+  return {
+    result,
+    resultPlant,
+    resultLoad,
+    error,
+    sweep,
+    sweepPlant,
+    sweepError,
+    loadPct,
+    solves,
+    ratedKW,
+    ownLoad,
+    ownLoadPct,
+    shownLoadPct,
+    shownLoad,
+    totalPF,
+    totalLoadingPct,
+    setLoadPct,
+    solveNow,
+    settled,
+  };
+});
