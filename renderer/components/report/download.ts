@@ -1,0 +1,71 @@
+/**
+ * Exports from the app: CSV text of a table and file downloads (a link with `download`,
+ * which both Electron and the browser preview honour). Pure except `saveFile`.
+ */
+
+/** One CSV field: numbers in full precision, blanks empty, text quoted when it needs it (RFC 4180). */
+export function csvField(v: string | number | null | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+/** A CSV document (CRLF line ends, RFC 4180) from a header and rows. */
+export function toCsv(columns: readonly string[], rows: readonly (readonly (string | number | null | undefined)[])[]): string {
+  return [columns, ...rows].map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
+}
+
+/** A file-name-safe stem (letters, digits, dashes). */
+export function fileStem(text: string): string {
+  return (
+    text
+      .normalize('NFKD')
+      .replace(/[^\x20-\x7e]/g, '')
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 60) || 'droopline'
+  );
+}
+
+/** Offers `data` as a download named `name` (a Blob, or a data: URL for chart images). */
+export function saveFile(name: string, data: Blob | string): void {
+  const url = typeof data === 'string' ? data : URL.createObjectURL(data);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  a.rel = 'noopener';
+  a.style.display = 'none';
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  if (typeof data !== 'string') setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+/** Downloads a CSV table. A byte-order mark lets spreadsheet programs read the units' symbols (°, Ω). */
+export function saveCsv(name: string, columns: readonly string[], rows: readonly (readonly (string | number | null | undefined)[])[]): void {
+  saveFile(name.endsWith('.csv') ? name : `${name}.csv`, new Blob(['\ufeff', toCsv(columns, rows)], { type: 'text/csv;charset=utf-8' }));
+}
+
+/**
+ * Draws an SVG (a report chart) onto a canvas at `scale` and resolves its PNG data URL.
+ * Rejects where the browser cannot rasterise it.
+ */
+export function svgToPng(svg: string, widthPx: number, heightPx: number, scale = 2): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const img = new Image();
+    img.onload = () => {
+      const c = document.createElement('canvas');
+      c.width = Math.round(widthPx * scale);
+      c.height = Math.round(heightPx * scale);
+      const g = c.getContext('2d');
+      if (!g) return reject(new Error('no 2-D canvas here'));
+      g.fillStyle = '#ffffff';
+      g.fillRect(0, 0, c.width, c.height);
+      g.drawImage(img, 0, 0, c.width, c.height);
+      resolve(c.toDataURL('image/png'));
+    };
+    img.onerror = () => reject(new Error('the chart could not be drawn as an image'));
+    img.src = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(svg)}`;
+  });
+}

@@ -1,0 +1,47 @@
+/** The metrics and ISO 8528-5 class tables of runs as rows (shown, and exported as CSV). */
+import type { ClassCheck, PerformanceClass, SimulationMetrics } from '../../../shared-types';
+
+export const CLASSES: readonly PerformanceClass[] = ['G1', 'G2', 'G3'];
+
+/** One metric: label with unit, decimals, and how to read it from a run's metrics. */
+export interface MetricRow {
+  key: string;
+  label: string;
+  decimals: number;
+  read: (m: SimulationMetrics) => number | null;
+}
+
+/** The figures of a run, in the order shown. */
+export const METRIC_ROWS: readonly MetricRow[] = [
+  { key: 'initialHz', label: 'Frequency before the first event (Hz)', decimals: 3, read: (m) => m.initial?.frequencyHz ?? null },
+  { key: 'nadirHz', label: 'Frequency nadir (Hz)', decimals: 3, read: (m) => m.frequencyNadirHz },
+  { key: 'peakHz', label: 'Frequency peak (Hz)', decimals: 3, read: (m) => m.frequencyPeakHz },
+  { key: 'devPct', label: 'Transient frequency deviation (% of rated)', decimals: 2, read: (m) => m.frequencyDeviationPct },
+  { key: 'fRecS', label: 'Frequency recovery time (s)', decimals: 2, read: (m) => m.frequencyRecoveryS },
+  { key: 'vDipPct', label: 'Voltage dip (% of rated)', decimals: 2, read: (m) => m.voltageDipPct },
+  { key: 'vPeakPct', label: 'Voltage rise (% of rated)', decimals: 2, read: (m) => m.voltagePeakPct },
+  { key: 'vRecS', label: 'Voltage recovery time (s)', decimals: 2, read: (m) => m.voltageRecoveryS },
+  { key: 'finalHz', label: 'Final frequency (Hz)', decimals: 3, read: (m) => m.final.frequencyHz },
+  { key: 'finalV', label: 'Final voltage (V)', decimals: 1, read: (m) => m.final.voltageV },
+];
+
+/** A number for a table cell: fixed decimals, never NaN ("—" for blanks). */
+export function fmt(v: number | null | undefined, decimals: number): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  const s = v.toFixed(decimals);
+  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
+}
+
+/** A verdict in words with an icon (never colour alone). */
+export function verdict(pass: boolean | null): { icon: string; word: string; kind: 'meets' | 'fails' | 'none' } {
+  if (pass === null) return { icon: '–', word: 'not judged', kind: 'none' };
+  return pass ? { icon: '✓', word: 'meets', kind: 'meets' } : { icon: '✗', word: 'fails', kind: 'fails' };
+}
+
+/** CSV rows of a class table: quantity, unit, measured, then limit and verdict per class, then the source. */
+export function classCsv(checks: readonly ClassCheck[]): { columns: string[]; rows: (string | number | null)[][] } {
+  return {
+    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${k} limit`, `${k} verdict`]), 'Limit source'],
+    rows: checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdict(c.pass[k]).word]), c.source]),
+  };
+}
