@@ -20,12 +20,17 @@ export interface LoadStepEvent {
   model?: LoadModel;
 }
 
-/** A set trips: its breaker opens; with `shutdown` (default true) the engine stops and the field is removed. */
+/**
+ * A set trips: its breaker opens and, with `shutdown` (default true), the engine stops and
+ * the field is removed. With `openBreaker: false` only the engine stops (an engine
+ * protection trip): the set then motors on the bus until its reverse-power relay opens it.
+ */
 export interface TripEvent {
   atS: number;
   type: 'trip';
   setId: string;
   shutdown?: boolean;
+  openBreaker?: boolean;
 }
 
 /**

@@ -35,7 +35,15 @@ const loadStep = z
   })
   .strict();
 
-const trip = z.object({ atS: atS(), type: z.literal('trip'), setId: id(), shutdown: z.boolean({ error: 'must be true or false' }).optional() }).strict();
+const trip = z
+  .object({
+    atS: atS(),
+    type: z.literal('trip'),
+    setId: id(),
+    shutdown: z.boolean({ error: 'must be true or false' }).optional(),
+    openBreaker: z.boolean({ error: 'must be true or false' }).optional(),
+  })
+  .strict();
 
 const close = z
   .object({
@@ -76,7 +84,7 @@ const motorStart = z
 const EVENT_TYPES = '"load-step", "trip", "close", "setpoint", "ramp" or "motor-start"';
 
 const eventSchema = z.discriminatedUnion('type', [loadStep, trip, close, setpoint, ramp, motorStart], {
-  error: (iss) => (iss.code === 'invalid_union' ? `type: must be ${EVENT_TYPES}` : undefined),
+  error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined),
 });
 
 /**
@@ -118,6 +126,7 @@ export const scenarioSchema: z.ZodType<Scenario> = z
           if (e.kW !== undefined || e.kVAR !== undefined) at('kW', 'give either loadId or kW/kVAR, not both');
         } else if (e.kW === undefined && e.kVAR === undefined) at('kW', 'is required (or name a plant load with loadId)');
       }
+      if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false) at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
       if (e.type === 'setpoint' && e.frequencyHz === undefined && e.voltageV === undefined && e.kW === undefined)
         at('frequencyHz', 'give frequencyHz, voltageV or kW');
     });

@@ -64,9 +64,11 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
     case 'trip': {
       const i = setIndex(m, ev.setId, 'trip');
       const shutdown = ev.shutdown ?? true;
-      m.online[i] = 0;
+      const open = ev.openBreaker ?? true;
+      if (!open && !shutdown) throw new InvalidInput('trip: with openBreaker false the engine must shut down (shutdown true), or nothing trips.');
+      if (open) m.online[i] = 0;
       if (shutdown) m.shutdown[i] = 1;
-      target.log(t, `${ev.setId} tripped${shutdown ? ' and shut down' : ' (breaker open, set running)'}`);
+      target.log(t, !open ? `${ev.setId} engine shut down, breaker still closed` : `${ev.setId} tripped${shutdown ? ' and shut down' : ' (breaker open, set running)'}`);
       return;
     }
     case 'close': {

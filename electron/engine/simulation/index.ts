@@ -9,3 +9,7 @@ export { ISO_GAIN_PU, MOTORING_PU, REVERSE_POWER_DELAY_S } from './governor';
 export { REGULATOR_RESET_S, PF_TRIM_S } from './regulator';
 export { TDDO_S } from './sim-model';
 export { POWER_LOAD_BREAK_PU } from './network';
+
+import { recoveryTime } from './metrics';
+/** Internals for tests only. */
+export const simulationTesting = { recoveryTime };

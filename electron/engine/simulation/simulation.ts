@@ -80,6 +80,7 @@ class Run implements Simulation {
   private vMax = -Infinity;
   private lastF = 0;
   private lastV = 0;
+  private collapsed = false;
 
   constructor(private readonly scenario: Scenario) {
     const stepMs = scenario.stepMs ?? DEFAULT_STEP_MS;
@@ -170,6 +171,12 @@ class Run implements Simulation {
     const v = this.voltageV();
     this.lastF = f;
     this.lastV = v;
+    if (!this.collapsed && this.out.anyOnline && f < 0.9 * this.m.ratedFrequencyHz) {
+      this.collapsed = true;
+      this.warnings.push(
+        `Frequency fell below 90 % of rated (${(0.9 * this.m.ratedFrequencyHz).toFixed(1)} Hz) at t = ${t.toFixed(2)} s: the sets on line cannot carry the load. A real plant would shed load or trip on underfrequency (device 81) here.`,
+      );
+    }
     if (f < this.nadir) this.nadir = f;
     if (f > this.peak) this.peak = f;
     if (v < this.vMin) this.vMin = v;
