@@ -106,6 +106,13 @@ export function setupFiles(options: FilesOptions): FilesService {
   let asking = false;
 
   const recentChanged = (files: RecentFile[]) => options.onRecentChanged?.(files);
+  // Recent-list reads and writes run one after another, so a read never overtakes a pending write.
+  let recentQueue: Promise<unknown> = Promise.resolve();
+  function serial<T>(work: () => Promise<T>): Promise<T> {
+    const next = recentQueue.then(work);
+    recentQueue = next.catch(() => undefined);
+    return next;
+  }
 
   async function readOpened(path: string): Promise<OpenedFile> {
     const fileName = basename(path);
@@ -174,12 +181,13 @@ export function setupFiles(options: FilesOptions): FilesService {
       if (r.canceled || !r.filePath) return null;
       return save(withProjectSuffix(r.filePath), text);
     },
-    recentList: () => listRecent(options.userDataDir),
-    async recentClear() {
-      const files = await clearRecent(options.userDataDir);
-      recentChanged(files);
-      return files;
-    },
+    recentList: () => serial(() => listRecent(options.userDataDir)),
+    recentClear: () =>
+      serial(async () => {
+        const files = await clearRecent(options.userDataDir);
+        recentChanged(files);
+        return files;
+      }),
     recoveryRead: () => readRecovery(options.userDataDir),
     async recoveryWrite(copy) {
       const savedAt = now().toISOString();
@@ -190,7 +198,7 @@ export function setupFiles(options: FilesOptions): FilesService {
       await discardRecovery(options.userDataDir, steps);
       return null;
     },
-    async documentState(state) {
+    documentState: (state) => serial(async () => {
       const before = doc;
       doc = state;
       const win = options.window();
@@ -203,7 +211,7 @@ export function setupFiles(options: FilesOptions): FilesService {
         recentChanged(await addRecent(options.userDataDir, state.path, state.projectName, now().toISOString()));
       }
       return null;
-    },
+    }),
     async windowClose() {
       const win = options.window();
       allowClose = true;
@@ -238,7 +246,7 @@ export function setupFiles(options: FilesOptions): FilesService {
   return {
     command: send,
     openPath: (path) => send({ command: 'open-path', path }),
-    recent: () => listRecent(options.userDataDir),
+    recent: () => serial(() => listRecent(options.userDataDir)),
     guardClose(win) {
       win.on('close', (event) => {
         if (allowClose || !doc.dirty) return;

@@ -1,0 +1,296 @@
+/**
+ * The project store end to end in-process: the store, the Electron host client over a
+ * fake preload bridge, the real main-side file service (Electron mocked) writing to a
+ * temporary folder, and the engine's handler table.
+ */
+import { describe, it, expect, vi, beforeEach, afterEach } from 'vitest';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { createPinia, setActivePinia } from 'pinia';
+import type { HostBridge, HostCommand, Plant } from '../../shared-types';
+import { setEngineClient } from '../../renderer/transport';
+import { setHostClient } from '../../renderer/host';
+import { createElectronHost } from '../../renderer/host/electron-host';
+import { useProjectStore } from '../../renderer/stores/project';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { useUiStore } from '../../renderer/stores/ui';
+import { parseProject } from '../../electron/project';
+import { directClient } from '../helpers/direct-client';
+import { demoPlantJson } from '../helpers/plants';
+import { projectText } from '../helpers/projects';
+
+const h = vi.hoisted(() => {
+  const handles = new Map<string, (...args: unknown[]) => unknown>();
+  const dialog = { showOpenDialog: vi.fn(), showSaveDialog: vi.fn(), showMessageBox: vi.fn() };
+  const commandListeners: ((c: unknown) => void)[] = [];
+  const win = {
+    closed: 0,
+    webContents: { send: (_ch: string, c: unknown) => commandListeners.forEach((l) => l(c)) },
+    setDocumentEdited: vi.fn(),
+    setRepresentedFilename: vi.fn(),
+    isDestroyed: () => false,
+    on: () => undefined,
+    close() {
+      this.closed++;
+    },
+  };
+  return { handles, dialog, commandListeners, win };
+});
+
+vi.mock('electron', () => ({
+  ipcMain: { handle: (ch: string, fn: (...a: unknown[]) => unknown) => h.handles.set(ch, fn) },
+  dialog: h.dialog,
+}));
+
+const { setupFiles } = await import('../../electron/files/setup-files');
+
+let dir: string;
+const me = {};
+
+/** A fresh app session: new stores, a new main-side service over the same folders. */
+function session(): ReturnType<typeof useProjectStore> {
+  h.handles.clear();
+  h.commandListeners.length = 0;
+  setupFiles({ userDataDir: join(dir, 'user-data'), documentsDir: dir, isTrusted: (s) => s === me, window: () => h.win as never });
+  const bridge: HostBridge = {
+    invoke: (method, request) => h.handles.get(method)!({ sender: me }, JSON.parse(JSON.stringify(request))) as never,
+    onCommand: (listener) => {
+      h.commandListeners.push(listener as (c: unknown) => void);
+      return () => undefined;
+    },
+    pathForFile: () => '',
+  };
+  setActivePinia(createPinia());
+  setEngineClient(directClient());
+  setHostClient(createElectronHost(bridge));
+  return useProjectStore();
+}
+
+/** An accepted change to the plant (as the plant editor makes one). */
+async function editPlant(change: (p: Plant) => void): Promise<void> {
+  const plants = usePlantStore();
+  const next = structuredClone(plants.plant!) as Plant;
+  change(next);
+  expect(await plants.load(next, 'edit')).toBe(true);
+}
+
+function saveDialogAnswers(path: string | null): void {
+  h.dialog.showSaveDialog.mockResolvedValue(path ? { canceled: false, filePath: path } : { canceled: true, filePath: '' });
+}
+function openDialogAnswers(path: string): void {
+  h.dialog.showOpenDialog.mockResolvedValue({ canceled: false, filePaths: [path] });
+}
+
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'droopline-project-'));
+  vi.clearAllMocks();
+  h.win.closed = 0;
+});
+afterEach(() => {
+  setHostClient(undefined);
+  rmSync(dir, { recursive: true, force: true });
+});
+
+describe('project store', () => {
+  it('starts clean with the demo plant, titled by its name', async () => {
+    const project = session();
+    await project.start();
+    expect(project.name).toBe('Kestrel Ford Water Treatment Works (demo)');
+    expect(project.dirty).toBe(false);
+    expect(project.title).toBe('Kestrel Ford Water Treatment Works (demo) — Droopline');
+    expect(document.title).toBe(project.title);
+    expect(project.recovery).toBeNull();
+  });
+
+  it('marks unsaved changes in the title and the window, and clears the mark when saved', async () => {
+    const project = session();
+    await project.start();
+    await editPlant((p) => (p.sets[0]!.governor.droopPct = 5));
+    expect(project.dirty).toBe(true);
+    expect(project.title).toBe('● Kestrel Ford Water Treatment Works (demo) — Droopline');
+    await vi.waitFor(() => expect(h.win.setDocumentEdited).toHaveBeenLastCalledWith(true));
+    saveDialogAnswers(join(dir, 'works'));
+    expect(await project.save()).toBe(true);
+    expect(project.dirty).toBe(false);
+    expect(project.fileName).toBe('works.droopline.json');
+    expect(project.title).toBe('works.droopline.json — Droopline');
+    expect(h.win.setDocumentEdited).toHaveBeenLastCalledWith(false);
+  });
+
+  it('round-trips: save, open the file again, identical project', async () => {
+    const first = session();
+    await first.start();
+    await editPlant((p) => (p.sets[1]!.governor.noLoadHz = 51.35));
+    useUiStore().show('synchronizing');
+    saveDialogAnswers(join(dir, 'study.droopline.json'));
+    await first.saveAs();
+    const savedProject = first.current();
+    const fileText = readFileSync(join(dir, 'study.droopline.json'), 'utf8');
+    expect(parseProject(fileText).project).toEqual(savedProject);
+
+    const second = session();
+    await second.start();
+    openDialogAnswers(join(dir, 'study.droopline.json'));
+    expect(await second.open()).toBe(true);
+    expect(second.current()).toEqual(savedProject);
+    expect(second.text()).toBe(fileText);
+    expect(useUiStore().view).toBe('synchronizing');
+    expect(second.dirty).toBe(false);
+    expect(second.recent.map((r) => r.fileName)).toEqual(['study.droopline.json']);
+  });
+
+  it('keeps parts it has no store for exactly as the file had them', async () => {
+    const file = join(dir, 'full.droopline.json');
+    writeFileSync(file, projectText());
+    const project = session();
+    await project.start();
+    expect(await project.openPath(file)).toBe(true);
+    await editPlant((p) => (p.loads[0]!.kW += 10));
+    await project.save();
+    const again = parseProject(readFileSync(file, 'utf8')).project;
+    const before = parseProject(projectText()).project;
+    expect(again.scenarios).toEqual(before.scenarios);
+    expect(again.sync).toEqual(before.sync);
+    expect(again.trainerLog).toEqual(before.trainerLog);
+    expect(again.plant.loads[0]!.kW).toBe(before.plant.loads[0]!.kW + 10);
+    expect(readFileSync(`${file}.bak`, 'utf8')).toBe(projectText());
+  });
+
+  it('opens a version-1 plant file as a new, unsaved-to-file project; Save asks where', async () => {
+    const plantFile = join(dir, 'site.plant.json');
+    writeFileSync(plantFile, JSON.stringify(demoPlantJson()));
+    const project = session();
+    await project.start();
+    expect(await project.openPath(plantFile)).toBe(true);
+    expect(project.path).toBeNull();
+    expect(project.notice?.tone).toBe('info');
+    expect(project.notice?.text).toContain('This was a plant file');
+    saveDialogAnswers(join(dir, 'site project'));
+    expect(await project.save()).toBe(true);
+    expect(h.dialog.showSaveDialog).toHaveBeenCalledOnce();
+    expect(readFileSync(plantFile, 'utf8')).toBe(JSON.stringify(demoPlantJson()));
+    expect(parseProject(readFileSync(join(dir, 'site project.droopline.json'), 'utf8')).migratedFrom).toBeNull();
+  });
+
+  it('refuses a truncated file with a clear message, keeps the current project and offers the backup', async () => {
+    const file = join(dir, 'cut.droopline.json');
+    const full = projectText({ name: 'Backed up' });
+    writeFileSync(file, full.slice(0, 300));
+    writeFileSync(`${file}.bak`, full);
+    const project = session();
+    await project.start();
+    const before = project.text();
+    expect(await project.openPath(file)).toBe(false);
+    expect(project.notice?.tone).toBe('error');
+    expect(project.notice?.text).toMatch(/^Could not open "cut.droopline.json". The file stops in the middle of the project \(line \d+, column \d+/);
+    expect(project.text()).toBe(before);
+    expect(readFileSync(file, 'utf8')).toBe(full.slice(0, 300));
+    expect(project.backupOffer).toBe(`${file}.bak`);
+    expect(await project.openPath(project.backupOffer!)).toBe(true);
+    expect(project.name).toBe('Backed up');
+  });
+
+  it('refuses a file from a newer version, saying so', async () => {
+    const file = join(dir, 'future.droopline.json');
+    writeFileSync(file, projectText({ version: 7 }));
+    const project = session();
+    await project.start();
+    expect(await project.openPath(file)).toBe(false);
+    expect(project.notice?.text).toBe(
+      'Could not open "future.droopline.json". This project was saved by a newer version of Droopline (file version 7; this version reads up to 1). Open it with a newer Droopline. The file was not changed.',
+    );
+  });
+
+  it('autosaves a recovery copy while edited; the next start offers it and restores the changes as unsaved', async () => {
+    const first = session();
+    await first.start();
+    await editPlant((p) => (p.sets[2]!.ratedKW = 420));
+    await first.flushAutosave();
+    expect(existsSync(join(dir, 'user-data', 'recovery', 'recovery.json'))).toBe(true);
+    expect(first.lastAutosaveAt).not.toBeNull();
+    // Killed here: no save, no clean close. Next start:
+    const second = session();
+    await second.start();
+    expect(second.recovery?.projectName).toBe('Kestrel Ford Water Treatment Works (demo)');
+    expect(usePlantStore().plant!.sets[2]!.ratedKW).toBe(400);
+    expect(await second.restoreRecovery()).toBe(true);
+    // The copy stays on disk until the restored changes are saved.
+    await new Promise((r) => setTimeout(r, 20));
+    expect(existsSync(join(dir, 'user-data', 'recovery', 'recovery.json'))).toBe(true);
+    expect(usePlantStore().plant!.sets[2]!.ratedKW).toBe(420);
+    expect(second.dirty).toBe(true);
+    expect(second.recovery).toBeNull();
+    expect(second.notice?.text).toContain('Restored the unsaved changes');
+  });
+
+  it('does not overwrite the recovery copy before the user answers, and forgets it on "discard"', async () => {
+    const first = session();
+    await first.start();
+    await editPlant((p) => (p.sets[0]!.ratedKW = 990));
+    await first.flushAutosave();
+    const copy = readFileSync(join(dir, 'user-data', 'recovery', 'recovery.json'), 'utf8');
+    const second = session();
+    await second.start();
+    await editPlant((p) => (p.sets[0]!.ratedKW = 900));
+    await second.flushAutosave();
+    expect(readFileSync(join(dir, 'user-data', 'recovery', 'recovery.json'), 'utf8')).toBe(copy);
+    await second.discardRecovery();
+    expect(existsSync(join(dir, 'user-data', 'recovery', 'recovery.json'))).toBe(false);
+    const third = session();
+    await third.start();
+    expect(third.recovery).toBeNull();
+  });
+
+  it('removes the recovery copy once the project is saved', async () => {
+    const project = session();
+    await project.start();
+    await editPlant((p) => (p.sets[0]!.ratedKW = 990));
+    await project.flushAutosave();
+    saveDialogAnswers(join(dir, 'saved.json'));
+    await project.save();
+    expect(existsSync(join(dir, 'user-data', 'recovery', 'recovery.json'))).toBe(false);
+  });
+
+  it('asks before replacing unsaved changes: Cancel keeps them, "Don\'t save" goes on', async () => {
+    const file = join(dir, 'other.droopline.json');
+    writeFileSync(file, projectText({ name: 'Other' }));
+    const project = session();
+    await project.start();
+    await editPlant((p) => (p.sets[0]!.ratedKW = 990));
+    const cancelled = project.openPath(file);
+    await vi.waitFor(() => expect(project.question?.action).toBe('open another project'));
+    project.question!.answer('cancel');
+    expect(await cancelled).toBe(false);
+    expect(project.dirty).toBe(true);
+    const discarded = project.openPath(file);
+    await vi.waitFor(() => expect(project.question).not.toBeNull());
+    project.question!.answer('discard');
+    expect(await discarded).toBe(true);
+    expect(project.name).toBe('Other');
+    expect(project.dirty).toBe(false);
+  });
+
+  it('runs menu commands; "save and close" saves and then closes the window', async () => {
+    const file = join(dir, 'menu.droopline.json');
+    writeFileSync(file, projectText());
+    const project = session();
+    await project.start();
+    h.win.webContents.send('hostCommand', { command: 'open-path', path: file } satisfies HostCommand);
+    await vi.waitFor(() => expect(project.fileName).toBe('menu.droopline.json'));
+    await editPlant((p) => (p.sets[0]!.ratedKW = 990));
+    h.win.webContents.send('hostCommand', { command: 'save-and-close' } satisfies HostCommand);
+    await vi.waitFor(() => expect(h.win.closed).toBe(1));
+    expect(parseProject(readFileSync(file, 'utf8')).project.plant.sets[0]!.ratedKW).toBe(990);
+  });
+
+  it('starts a new project from the one-set template', async () => {
+    const project = session();
+    await project.start();
+    expect(await project.newProject()).toBe(true);
+    expect(project.name).toBe('Untitled project');
+    expect(usePlantStore().plant!.sets.map((s) => s.id)).toEqual(['G1']);
+    expect(project.path).toBeNull();
+    expect(project.dirty).toBe(false);
+  });
+});
