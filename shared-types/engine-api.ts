@@ -8,6 +8,7 @@ import type { LoadSweep, SharingResult, SolveSharingRequest, SweepLoadRequest } 
 import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from './sync';
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
+import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
@@ -36,6 +37,14 @@ export interface EngineApi {
   closingMap: Method<ClosingMapRequest, ClosingMap>;
   /** Time-domain simulation of a scenario (long; progress). */
   simulate: Method<Scenario, SimulationResult>;
+  /** Trainer difficulty levels. */
+  trainerLevels: Method<Record<string, never>, TrainerLevel[]>;
+  /** Start a seeded synchronizing exercise. */
+  trainerStart: Method<TrainerStartRequest, TrainerState>;
+  /** Advance the exercise one frame under the held controls (state in, state out). */
+  trainerStep: Method<TrainerStepRequest, TrainerState>;
+  /** Verdict, score and after-close traces of a closed exercise. */
+  trainerClose: Method<TrainerCloseRequest, TrainerVerdict>;
   /** Trainer difficulty levels. */
   trainerLevels: Method<Record<string, never>, TrainerLevel[]>;
   /** Start a seeded synchronizing exercise. */

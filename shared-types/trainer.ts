@@ -153,6 +153,8 @@ export interface TrainerState {
   closeCommandAtS: number | null;
   /** Phase angle when the command was given, degrees (null before). */
   closeCommandAngleDeg: number | null;
+  /** Plant set the exercise was built from (null: the standard set). */
+  incomingSetId: string | null;
   contact: TrainerContact | null;
 }
 
@@ -175,6 +177,8 @@ export interface TrainerTraces {
   powerPU: number[];
   /** Shaft speed as electrical frequency, Hz. */
   speedHz: number[];
+  /** Which model made them: the plant's simulator (all sets, full machine models) or the trainer's two-machine swing. */
+  source: 'plant-simulator' | 'two-machine';
 }
 
 /** One line of the verdict table: a quantity against its limit. */
@@ -186,6 +190,13 @@ export interface TrainerCheck {
   /** Where the limit comes from. */
   source: string;
   within: boolean;
+}
+
+/** Request of `trainerClose`. */
+export interface TrainerCloseRequest {
+  state: TrainerState;
+  /** The plant the exercise came from: the traces then come from its simulator. */
+  plant?: Plant;
 }
 
 /** Result of `trainerClose`. */
@@ -208,6 +219,8 @@ export interface TrainerVerdict {
   /** Plain-language verdict, a few sentences. */
   verdict: string;
   traces: TrainerTraces;
+  /** Why the traces fell back to the two-machine model, when they did. */
+  tracesNote: string | null;
   /** The log line of this attempt (time stamp filled by the caller). */
   attempt: Omit<TrainerAttempt, 'at'>;
 }

@@ -93,6 +93,7 @@ const stateSchema: z.ZodType<TrainerState> = z
     emfPU: num('pu'),
     closeCommandAtS: num('s').nullable(),
     closeCommandAngleDeg: num('°').nullable(),
+    incomingSetId: z.string().nullable(),
     contact: contactSchema.nullable(),
   })
   .strict();
@@ -132,7 +133,7 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
     run: ({ state, inputs, dtS }) => stepTrainer(state, inputs, dtS),
   },
   trainerClose: {
-    schema: z.object({ state: stateSchema }).strict(),
-    run: ({ state }) => judgeClose(state),
+    schema: z.object({ state: stateSchema, plant: plantSchema.optional() }).strict(),
+    run: ({ state, plant }) => judgeClose(state, {}, plant),
   },
 };

@@ -173,7 +173,8 @@ export const useTrainerStore = defineStore('trainer', () => {
   }
 
   async function judge(s: TrainerState): Promise<void> {
-    const v = await engine().call('trainerClose', { state: s });
+    const p = plantStore.plant;
+    const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}) });
     verdict.value = v;
     attempts.value = [{ at: new Date().toISOString(), ...v.attempt }, ...attempts.value].slice(0, MAX_ATTEMPTS);
   }

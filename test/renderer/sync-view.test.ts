@@ -4,7 +4,7 @@ import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
 import PhasorScope from '../../renderer/components/sync/PhasorScope.vue';
 import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
-import { angleOfTip, phasorTip, sectorPath } from '../../renderer/components/sync/phasor-geometry';
+import { angleOfTip, phasorTip, RIM_FRACTION, sectorPath } from '../../renderer/components/sync/phasor-geometry';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { DEFAULT_SYNC_SETTINGS, useSyncStore } from '../../renderer/stores/sync';
 import { setEngineClient } from '../../renderer/transport';
@@ -37,7 +37,7 @@ describe('phasor scope geometry', () => {
     expectClose(drawnAngle(w, 'scope-incoming-A'), 37.5, { abs: 1e-9 }, 'incoming A');
     expectClose(drawnAngle(w, 'scope-incoming-B'), 37.5 - 120, { abs: 1e-9 }, 'incoming B');
     expectClose(drawnAngle(w, 'scope-incoming-C'), 37.5 + 120, { abs: 1e-9 }, 'incoming C');
-    expect(w.get('[data-test="scope-window"]').attributes('d')).toBe(sectorPath(160, 160, 128, 10));
+    expect(w.get('[data-test="scope-window"]').attributes('d')).toBe(sectorPath(160, 160, 320 * RIM_FRACTION, 10));
     expect(w.find('[data-test="scope-advance"]').exists()).toBe(true);
     expect(w.get('svg').attributes('aria-label')).toContain('incoming 37.5 degrees ahead of the bus');
   });

@@ -68,7 +68,7 @@ export function afterCloseTraces(state: TrainerState, options: Partial<AfterClos
 
   const steps = Math.round(o.durationS / o.stepS);
   const every = Math.max(1, Math.round(o.outputS / o.stepS));
-  const traces: TrainerTraces = { tS: [], angleDeg: [], currentPU: [], powerPU: [], speedHz: [] };
+  const traces: TrainerTraces = { tS: [], angleDeg: [], currentPU: [], powerPU: [], speedHz: [], source: 'two-machine' };
   const keep = (t: number): void => {
     const d = y[0]!;
     const dv = Math.sqrt(Math.max(0, e * e + vb * vb - 2 * e * vb * Math.cos(d)));

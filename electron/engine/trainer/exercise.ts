@@ -71,6 +71,7 @@ export function startExercise(request: TrainerStartRequest): TrainerState {
     emfPU,
     closeCommandAtS: null,
     closeCommandAngleDeg: null,
+    incomingSetId: fromPlant ? (request.incomingSetId ?? null) : null,
     contact: null,
   };
 }

@@ -7,5 +7,6 @@ export type { ContactStress } from './contact-stress';
 export { afterCloseTraces } from './after-close';
 export type { AfterCloseOptions } from './after-close';
 export { judgeClose } from './verdict';
+export { afterClosePlantTraces } from './after-close-plant';
 export { seededRandom } from './random';
 export { trainerMachineFromPlant } from './from-plant';

@@ -60,7 +60,7 @@ export const MACHINE_STANDARD_WINDOW = { angleDeg: 10, voltagePct: 5, slipHz: 0.
 
 /** A 500 kVA, 400 V, 50 Hz, 4-pole set with common data (invented for the demo). */
 export const DEFAULT_TRAINER_MACHINE: TrainerMachine = {
-  label: 'Incoming set (500 kVA)',
+  label: 'standard 500 kVA set (demo data)',
   ratedKVA: 500,
   ratedKW: 400,
   ratedVoltageV: 400,

@@ -3,9 +3,10 @@
  * the surge and torque step against the machine's limits, a score and a plain-language
  * verdict, plus the traces of the first seconds after closing.
  */
-import type { SyncLimits, TrainerCheck, TrainerState, TrainerVerdict } from '../../../shared-types';
+import type { Plant, SyncLimits, TrainerCheck, TrainerState, TrainerTraces, TrainerVerdict } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { afterCloseTraces } from './after-close';
+import { afterClosePlantTraces } from './after-close-plant';
 import type { AfterCloseOptions } from './after-close';
 import { contactStress } from './contact-stress';
 import { MACHINE_STANDARD_WINDOW } from './levels';
@@ -24,10 +25,11 @@ function looserWindow(set: SyncLimits | null, ref: SyncLimits): string[] {
 }
 
 /**
- * The verdict of a closed exercise.
+ * The verdict of a closed exercise. With `plant` (the one the exercise came from) the
+ * traces come from the plant's simulator, else from the two-machine swing model.
  * @throws InvalidInput when the breaker has not closed yet.
  */
-export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptions> = {}): TrainerVerdict {
+export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptions> = {}, plant?: Plant): TrainerVerdict {
   const c = state.contact;
   if (state.phase !== 'closed' || !c) throw new InvalidInput('state: the breaker has not closed yet; give the close command and step until contact.');
   const m = state.machine;
@@ -112,7 +114,16 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   if (loose.length) parts.push(`The window you set was too loose: ${loose.join('; ')}.`);
 
   const verdict = parts.join(' ');
-  const traces = afterCloseTraces(state, options);
+  let traces: TrainerTraces | null = null;
+  let tracesNote: string | null = null;
+  if (plant && state.incomingSetId) {
+    try {
+      traces = afterClosePlantTraces(state, plant, state.incomingSetId, options.durationS === undefined ? {} : { durationS: options.durationS });
+    } catch (e) {
+      tracesNote = `The plant's simulator could not run this close (${e instanceof Error ? e.message : String(e)}); the traces come from the two-machine model.`;
+    }
+  }
+  traces ??= afterCloseTraces(state, options);
   return {
     contact: { ...c },
     surgeCurrentPU: stress.surgeCurrentPU,
@@ -128,6 +139,7 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
     grade,
     verdict,
     traces,
+    tracesNote,
     attempt: {
       seed: state.seed,
       level: state.levelId,

@@ -36,3 +36,6 @@ export function sectorPath(cx: number, cy: number, r: number, halfDeg: number): 
   // From the left edge (+h, counter-clockwise side) round clockwise on screen to the right edge (−h).
   return `M ${cx} ${cy} L ${a.x.toFixed(2)} ${a.y.toFixed(2)} A ${r} ${r} 0 ${large} 1 ${b.x.toFixed(2)} ${b.y.toFixed(2)} Z`;
 }
+
+/** Radius of the scope's rim as a fraction of its size (room outside it for the degree labels). */
+export const RIM_FRACTION = 0.37;
