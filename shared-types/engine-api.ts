@@ -9,7 +9,6 @@ import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } 
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
 import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
-import type { TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
 
@@ -45,14 +44,6 @@ export interface EngineApi {
   trainerStep: Method<TrainerStepRequest, TrainerState>;
   /** Verdict, score and after-close traces of a closed exercise. */
   trainerClose: Method<TrainerCloseRequest, TrainerVerdict>;
-  /** Trainer difficulty levels. */
-  trainerLevels: Method<Record<string, never>, TrainerLevel[]>;
-  /** Start a seeded synchronizing exercise. */
-  trainerStart: Method<TrainerStartRequest, TrainerState>;
-  /** Advance the exercise one frame under the held controls (state in, state out). */
-  trainerStep: Method<TrainerStepRequest, TrainerState>;
-  /** Verdict, score and after-close traces of a closed exercise. */
-  trainerClose: Method<{ state: TrainerState }, TrainerVerdict>;
   /** Read a project file's text: migrate older files forward, validate, fill defaults. */
   parseProject: Method<{ text: string }, ParsedProject>;
   /** The printable plant report (HTML with inline SVG) and its tables and charts (long; progress). */
