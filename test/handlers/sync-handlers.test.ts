@@ -104,8 +104,7 @@ describe('evaluateSync handler', () => {
   });
 
   it('does not mutate the request', async () => {
-    const c = { ...caseFile(), plant: undefined };
-    delete c.plant;
+    const c = { ...caseFile(), plant: demoPlantJson(), incomingSetId: 'G2' };
     const before = JSON.stringify(c);
     await dispatch('evaluateSync', c);
     expect(JSON.stringify(c)).toBe(before);
