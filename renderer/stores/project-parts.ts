@@ -4,6 +4,9 @@
  * the project store exactly as the opened file had it, so nothing is lost on save.
  */
 import type { Project } from '../../shared-types';
+import { useSyncStore } from './sync';
+import { useTrainerStore } from './trainer';
+import { useTransientsStore } from './transients';
 
 /** One part of the project owned by a store. */
 export interface ProjectPart<K extends PartKey> {
@@ -16,5 +19,12 @@ export type PartKey = 'scenarios' | 'sync' | 'trainerLog';
 
 /** The stores that own parts (call inside a Pinia-enabled context). */
 export function projectParts(): { [K in PartKey]?: ProjectPart<K> } {
-  return {};
+  const transients = useTransientsStore();
+  const sync = useSyncStore();
+  const trainer = useTrainerStore();
+  return {
+    scenarios: { snapshot: () => transients.snapshot(), restore: (list) => transients.restore(list) },
+    sync: { snapshot: () => sync.snapshot(), restore: (settings) => sync.restore(settings) },
+    trainerLog: { snapshot: () => trainer.snapshot(), restore: (log) => trainer.restore(log) },
+  };
 }

@@ -242,6 +242,7 @@ export const useProjectStore = defineStore('project', () => {
     path.value = file.path;
     fileName.value = file.fileName;
     baseline.value = savedContent;
+    if (!dirty.value) plantStore.markSaved();
     if (!dirty.value) await host().call('recoveryDiscard', {}).catch(() => null);
     await pushDocumentState();
   }

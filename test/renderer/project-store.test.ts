@@ -15,6 +15,9 @@ import { createElectronHost } from '../../renderer/host/electron-host';
 import { useProjectStore } from '../../renderer/stores/project';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useUiStore } from '../../renderer/stores/ui';
+import { useSyncStore } from '../../renderer/stores/sync';
+import { useTrainerStore } from '../../renderer/stores/trainer';
+import { useTransientsStore } from '../../renderer/stores/transients';
 import { parseProject } from '../../electron/project';
 import { directClient } from '../helpers/direct-client';
 import { demoPlantJson } from '../helpers/plants';
@@ -140,7 +143,7 @@ describe('project store', () => {
     expect(second.recent.map((r) => r.fileName)).toEqual(['study.droopline.json']);
   });
 
-  it('keeps parts it has no store for exactly as the file had them', async () => {
+  it('keeps scenarios, sync settings and the trainer log through open and save', async () => {
     const file = join(dir, 'full.droopline.json');
     writeFileSync(file, projectText());
     const project = session();
@@ -155,6 +158,27 @@ describe('project store', () => {
     expect(again.trainerLog).toEqual(before.trainerLog);
     expect(again.plant.loads[0]!.kW).toBe(before.plant.loads[0]!.kW + 10);
     expect(readFileSync(`${file}.bak`, 'utf8')).toBe(projectText());
+  });
+
+  it('counts edits in the sync, transients and trainer stores as changes and saves them', async () => {
+    const file = join(dir, 'parts.droopline.json');
+    writeFileSync(file, projectText());
+    const project = session();
+    await project.start();
+    await project.openPath(file);
+    expect(useTransientsStore().scenarios.map((s) => s.name)).toEqual(['Pump start at 2 s']);
+    expect(useTrainerStore().attempts).toHaveLength(1);
+    useSyncStore().setBreakerClosingMs(95);
+    expect(project.dirty).toBe(true);
+    await project.save();
+    expect(parseProject(readFileSync(file, 'utf8')).project.sync?.breakerClosingMs).toBe(95);
+    useTrainerStore().clearLog();
+    useTransientsStore().removeScenario('S1');
+    expect(project.dirty).toBe(true);
+    await project.save();
+    const saved = parseProject(readFileSync(file, 'utf8')).project;
+    expect(saved.trainerLog).toEqual([]);
+    expect(saved.scenarios).toEqual([]);
   });
 
   it('opens a version-1 plant file as a new, unsaved-to-file project; Save asks where', async () => {
