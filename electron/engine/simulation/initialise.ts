@@ -8,7 +8,7 @@
 import type { Plant } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { ACTUATOR, AVR_INT, DELTA, ED2, EFD, EQ1, EQ2, GOV_INT, OMEGA, PMECH, STATES_PER_SET, VAR_TRIM } from './layout';
-import { GOV_BASE, GOV_DROOP, REG_DROOP, REG_PF } from './codes';
+import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from './codes';
 import { ISO_GAIN_PU } from './governor';
 import { voltageReference } from './regulator';
 import type { SimModel } from './sim-model';
@@ -48,17 +48,7 @@ export function initialiseAtRest(m: SimModel, plant: Plant, y: Float64Array, deE
   const vb = op.bus.voltageV / m.ratedVoltageV;
   const w = op.bus.frequencyHz / m.ratedFrequencyHz;
   const byId = new Map(op.sets.map((s) => [s.id, s]));
-  // Cross-current mean for the regulator references.
-  let crossKVAR = 0;
-  let crossKVA = 0;
-  for (let i = 0; i < m.n; i++) {
-    const r = byId.get(m.ids[i]!);
-    if (m.online[i] && r && plant.sets[i]!.regulator.mode === 'cross-current') {
-      crossKVAR += r.kVAR;
-      crossKVA += m.ratedKVA[i]!;
-    }
-  }
-  const qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
+  const vts = new Float64Array(m.n);
   for (let i = 0; i < m.n; i++) {
     if (!m.online[i]) continue;
     const r = byId.get(m.ids[i]!)!;
@@ -98,7 +88,6 @@ export function initialiseAtRest(m: SimModel, plant: Plant, y: Float64Array, deE
     const ed2 = e2Re * s - e2Im * co;
     const eq2 = e2Re * co + e2Im * s;
     const pOwn = r.kW / sk;
-    const qOwn = r.kVAR / sk;
     y[o + DELTA] = delta;
     y[o + OMEGA] = w;
     y[o + EQ1] = eq1;
@@ -110,8 +99,28 @@ export function initialiseAtRest(m: SimModel, plant: Plant, y: Float64Array, deE
     const efd = eq1 + (m.xdPU[i]! - x1) * id - m.residualPU[i]!;
     y[o + EFD] = efd;
     y[o + VAR_TRIM] = m.regMode[i] === REG_PF ? vt - m.setpointVPU[i]! : 0;
-    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - vt;
-    y[o + AVR_INT] = efd / m.gainPU[i]! - e;
+    vts[i] = vt;
+  }
+  // Regulator integrators last: the cross-current sets need the group's means.
+  let crossKVAR = 0;
+  let crossKVA = 0;
+  let crossV = 0;
+  for (let i = 0; i < m.n; i++) {
+    if (m.online[i] && m.regMode[i] === REG_CROSS) {
+      crossKVAR += byId.get(m.ids[i]!)!.kVAR;
+      crossV += vts[i]! * m.ratedKVA[i]!;
+      crossKVA += m.ratedKVA[i]!;
+    }
+  }
+  const qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
+  const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
+  for (let i = 0; i < m.n; i++) {
+    if (!m.online[i]) continue;
+    const o = i * STATES_PER_SET;
+    const qOwn = byId.get(m.ids[i]!)!.kVAR / m.ratedKVA[i]!;
+    const sensed = m.regMode[i] === REG_CROSS ? vBarCross : vts[i]!;
+    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - sensed;
+    y[o + AVR_INT] = y[o + EFD]! / m.gainPU[i]! - e;
   }
   return { busPU: vb, frequencyPU: w };
 }

@@ -145,6 +145,7 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   let isoRated = 0;
   let crossKVAR = 0;
   let crossKVA = 0;
+  let crossV = 0;
   let loss = 0;
   for (let i = 0; i < n; i++) {
     const sk = m.ratedKVA[i]!;
@@ -176,6 +177,7 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
       }
       if (m.regMode[i] === REG_CROSS && !m.shutdown[i]) {
         crossKVAR += q * sk;
+        crossV += vt[i]! * sk;
         crossKVA += sk;
       }
     } else {
@@ -191,6 +193,7 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   out.feederLossP = loss;
   const pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
   const qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
+  const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
 
   // Pass 3: derivatives.
   for (let i = 0; i < n; i++) {
@@ -205,6 +208,7 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
     const iq = ir * c + ii * s;
     machineDerivatives(m, i, o, y, dy, pOwn[i]!, id, iq, omegaBus);
     governorDerivatives(m, i, o, t, y, dy, pOwn[i]!, pBarIso);
-    regulatorDerivatives(m, i, o, y, dy, vt[i]!, pOwn[i]!, qOwn[i]!, qBarCross);
+    const sensed = m.online[i] && m.regMode[i] === REG_CROSS && !m.shutdown[i] ? vBarCross : vt[i]!;
+    regulatorDerivatives(m, i, o, y, dy, vt[i]!, sensed, pOwn[i]!, qOwn[i]!, qBarCross);
   }
 }

@@ -9,7 +9,11 @@
  *     reactive droop:  V_ref = V_nl − droop · Q / Qbase         (DESIGN.md, "Reactive droop")
  *     voltage:         V_ref = V_set
  *     cross-current:   V_ref = V_set − k (q − q̄), q = Q / ratedKVA, q̄ over the cross-current
- *                      sets on line, k = droop / (Qbase/ratedKVA) (the CT loop's burden)
+ *                      sets on line, k = droop / (Qbase/ratedKVA) (the CT loop's burden); the
+ *                      group's regulators compare V_ref with the group's ratedKVA-weighted mean
+ *                      terminal voltage, so in steady state the mean sits on V_set and kVAR is
+ *                      exactly in proportion to ratedKVA (DESIGN.md's cross-current definition,
+ *                      as the sharing solver takes it, also with unequal feeders)
  *     power factor:    V_ref = V_set + trim,  T_pf d(trim)/dt = P tan φ − Q
  *   error e = V_ref − V_t;  u = K_A (e + z), T_I dz/dt = e;   T_E dE_fd/dt = u − E_fd
  *   0 ≤ u ≤ ceiling · (V_t when shunt-excited, else 1)
@@ -52,7 +56,9 @@ export function fieldCeiling(m: SimModel, i: number, vt: number): number {
 
 /**
  * Writes the regulator derivatives of set `i` (state offset `o`). `vt` is the terminal
- * voltage magnitude, `pOwn`/`qOwn` the set's kW/kVAR at its terminals (pu own base).
+ * voltage magnitude, `vSensed` the voltage the regulator compares with its reference
+ * (`vt`, or the cross-current group's mean), `pOwn`/`qOwn` the set's kW/kVAR at its
+ * terminals (pu own base).
  */
 export function regulatorDerivatives(
   m: SimModel,
@@ -61,6 +67,7 @@ export function regulatorDerivatives(
   y: Float64Array,
   dy: Float64Array,
   vt: number,
+  vSensed: number,
   pOwn: number,
   qOwn: number,
   qBarCross: number,
@@ -69,7 +76,7 @@ export function regulatorDerivatives(
   let dz = 0;
   let dTrim = 0;
   if (!m.shutdown[i]) {
-    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - vt;
+    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - vSensed;
     const hi = fieldCeiling(m, i, vt);
     u = m.gainPU[i]! * (e + y[o + AVR_INT]!);
     dz = e / m.avrResetS[i]!;

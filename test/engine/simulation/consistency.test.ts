@@ -52,19 +52,28 @@ describe('simulation run to rest agrees with solveSharing', () => {
     settlesOnSolver(plant, 14);
   });
 
-  it('cross-current group holding voltage, sharing kVAR by ratedKVA', () => {
+  // Unequal feeders: the regulator modes must agree with the solver's network too.
+  const feederA = { feeder: { rOhm: 0.004, xOhm: 0.006 } };
+  const feederB = { feeder: { rOhm: 0.01, xOhm: 0.008 } };
+
+  it('cross-current group holding voltage, sharing kVAR by ratedKVA (unequal feeders)', () => {
     const cc = { mode: 'cross-current', droopPct: 4 };
-    const plant = makePlant([rawSet('A', { regulator: cc }), rawSet('B', { ratedKVA: 800, ratedKW: 640, regulator: cc })], [load(900, 650, 'constant-impedance')]);
+    const plant = makePlant([rawSet('A', { regulator: cc, ...feederA }), rawSet('B', { ratedKVA: 800, ratedKW: 640, regulator: cc, ...feederB })], [load(900, 650, 'constant-impedance')]);
     settlesOnSolver(plant, 14);
   });
 
-  it('voltage-control set with a reactive-droop set', () => {
-    const plant = makePlant([rawSet('A', { regulator: { mode: 'voltage' } }), rawSet('B')], [load(900, 500)]);
+  it('voltage-control set with a reactive-droop set (unequal feeders)', () => {
+    const plant = makePlant([rawSet('A', { regulator: { mode: 'voltage' }, ...feederA }), rawSet('B', feederB)], [load(900, 500)]);
     settlesOnSolver(plant, 14);
   });
 
-  it('power-factor control set with a reactive-droop set', () => {
-    const plant = makePlant([rawSet('A'), rawSet('B', { regulator: { mode: 'power-factor', pf: 0.95 } })], [load(1000, 650)]);
+  it('power-factor control set with a reactive-droop set (unequal feeders)', () => {
+    const plant = makePlant([rawSet('A', feederA), rawSet('B', { regulator: { mode: 'power-factor', pf: 0.95 }, ...feederB })], [load(1000, 650)]);
     settlesOnSolver(plant, 40, 4);
+  });
+
+  it('loads that follow frequency (frequencySensitivity)', () => {
+    const plant = makePlant([rawSet('A'), rawSet('B')], [{ id: 'L', kW: 900, kVAR: 400, frequencySensitivity: 2 }]);
+    settlesOnSolver(plant, 14);
   });
 });
