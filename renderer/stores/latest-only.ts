@@ -34,6 +34,9 @@ export function latestOnly<T>(job: (input: T) => Promise<void>): LatestOnly<T> {
       current = waiting;
       waiting = null;
     }
+    // Cleared in the same step as the last look at `waiting`: a push arriving after
+    // this line starts a new drain instead of waiting for one that has ended.
+    running = null;
   }
 
   return {
@@ -42,9 +45,7 @@ export function latestOnly<T>(job: (input: T) => Promise<void>): LatestOnly<T> {
         waiting = { input };
         return running;
       }
-      running = drain(input).finally(() => {
-        running = null;
-      });
+      running = drain(input);
       return running;
     },
     settled(): Promise<void> {

@@ -67,6 +67,9 @@ export const useSharingStore = defineStore('sharing', () => {
   const sweepPlant = shallowRef<Plant | null>(null);
   const sweepError = ref<string | null>(null);
 
+  /** How many views show the sweep; it is computed only while one does. */
+  const sweepViewers = ref(0);
+
   /** The slider: total load as % of the online kW rating; null = the plant's own loads. */
   const loadPct = ref<number | null>(null);
 
@@ -105,16 +108,36 @@ export const useSharingStore = defineStore('sharing', () => {
     return solver.push({ plant, loadPct: loadPct.value });
   }
 
+  let sweepAsked: Plant | null = null;
+  function sweepIfShown(): void {
+    const plant = plantStore.plant;
+    if (!plant || sweepViewers.value === 0 || sweepAsked === plant) return;
+    sweepAsked = plant;
+    void sweeper.push(plant);
+  }
+
   watch(
     () => plantStore.plant,
     (plant) => {
       if (!plant) return;
       void solver.push({ plant, loadPct: loadPct.value });
-      void sweeper.push(plant);
+      sweepIfShown();
     },
     // Synchronous: the request leaves in the same tick as the edit that changed the plant.
     { immediate: true, flush: 'sync' },
   );
+
+  /**
+   * A view that shows the load sweep calls this on mount and the returned function on
+   * unmount; the sweep (the costliest call) is then kept up to date only while shown.
+   */
+  function showSweep(): () => void {
+    sweepViewers.value++;
+    sweepIfShown();
+    return () => {
+      sweepViewers.value = Math.max(0, sweepViewers.value - 1);
+    };
+  }
 
   /** Moves the load slider (null returns to the plant's own loads) and recomputes. */
   function setLoadPct(pct: number | null): Promise<void> {
@@ -172,6 +195,7 @@ export const useSharingStore = defineStore('sharing', () => {
     totalLoadingPct,
     setLoadPct,
     solveNow,
+    showSweep,
     settled,
   };
 });
