@@ -16,8 +16,8 @@ export interface EventField {
 /** Fields per event type, in the order shown (time is always first and not listed here). */
 export const EVENT_FIELDS: Readonly<Record<ScenarioEventType, readonly EventField[]>> = {
   'load-step': [
-    { key: 'kW', label: 'kW', unit: 'kW', kind: 'number', hint: 'negative sheds load' },
-    { key: 'kVAR', label: 'kVAR', unit: 'kVAR', kind: 'number' },
+    { key: 'kW', label: 'Active', unit: 'kW', kind: 'number', hint: 'negative sheds load' },
+    { key: 'kVAR', label: 'Reactive', unit: 'kVAR', kind: 'number' },
   ],
   trip: [{ key: 'setId', label: 'Set', unit: '', kind: 'set' }],
   close: [
