@@ -70,6 +70,8 @@ export const useProjectStore = defineStore('project', () => {
   /** The recovery question is answered (or there was none): autosave may now replace the copy. */
   const recoveryResolved = ref(false);
   let started = false;
+  /** Settles when `start()` has put the first project in place; file actions wait for it. */
+  let ready: Promise<void> = Promise.resolve();
 
   function part<K extends PartKey>(key: K): Project[K] {
     const owner = parts[key];
@@ -163,6 +165,7 @@ export const useProjectStore = defineStore('project', () => {
    * project as it was and says why; a backup beside it is offered.
    */
   async function openText(textIn: string, origin: Origin): Promise<boolean> {
+    await ready;
     const label = origin.fileName ?? 'the file';
     backupOffer.value = null;
     let parsed;
@@ -249,6 +252,7 @@ export const useProjectStore = defineStore('project', () => {
 
   /** Saves to the current file, or asks where (Save As). True when the project was saved. */
   async function save(): Promise<boolean> {
+    await ready;
     if (!path.value) return saveAs();
     const target = path.value;
     return guarded(async () => {
@@ -264,6 +268,7 @@ export const useProjectStore = defineStore('project', () => {
 
   /** Asks where to save and saves there (the browser preview downloads without a picker). */
   async function saveAs(): Promise<boolean> {
+    await ready;
     return guarded(async () => {
       const savedContent = content.value;
       const t = await verified();
@@ -278,6 +283,7 @@ export const useProjectStore = defineStore('project', () => {
 
   /** Starts a new project from a one-set template plant. */
   async function newProject(): Promise<boolean> {
+    await ready;
     if (!(await mayReplace('start a new project'))) return false;
     const project: Project = { format: PROJECT_FORMAT, version: PROJECT_VERSION, name: UNTITLED, plant: structuredClone(newPlant) as unknown as Project['plant'], ...EMPTY_PARTS };
     const ok = await install(project, { path: null, fileName: null }, false);
@@ -368,9 +374,14 @@ export const useProjectStore = defineStore('project', () => {
    * place as an unsaved project when nothing is loaded, reads the recent list and looks
    * for a recovery copy left by a session that ended with unsaved changes.
    */
-  async function start(): Promise<void> {
-    if (started) return;
+  function start(): Promise<void> {
+    if (started) return ready;
     started = true;
+    ready = startOnce();
+    return ready;
+  }
+
+  async function startOnce(): Promise<void> {
     host().onCommand((c) => void runCommand(c));
     if (!plantStore.plant) await plantStore.loadDemo();
     if (plantStore.plant && baseline.value === null) {
