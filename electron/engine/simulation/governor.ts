@@ -18,6 +18,7 @@
 import { ACTUATOR, GOV_INT, OMEGA, PMECH } from './layout';
 import { GOV_BASE, GOV_DROOP } from './codes';
 import type { SimModel } from './sim-model';
+import type { Outputs } from './plant-dynamics';
 
 /**
  * Proportional gain of the isochronous governor, pu power per pu speed error: a 5 %
@@ -45,11 +46,14 @@ export function baseReference(m: SimModel, i: number, t: number): number {
 }
 
 /**
- * Writes the governor derivatives of set `i` (state offset `o`). `pOwn` is its
- * electrical power (pu own base); `pBarIso` the linked isochronous group's loading
+ * Writes the governor derivatives of set `i` (state offset `o`), reading from `out` the
+ * time, its electrical power (pu own base) and the linked isochronous group's loading
  * (pu of ratedKW).
  */
-export function governorDerivatives(m: SimModel, i: number, o: number, t: number, y: Float64Array, dy: Float64Array, pOwn: number, pBarIso: number): void {
+export function governorDerivatives(m: SimModel, i: number, o: number, y: Float64Array, dy: Float64Array, out: Outputs): void {
+  const t = out.t;
+  const pOwn = out.pOwn[i]!;
+  const pBarIso = out.pBarIso;
   const kw = m.kwPU[i]!;
   const w = y[o + OMEGA]!;
   let demand: number;

@@ -26,26 +26,21 @@
  */
 import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH } from './layout';
 import type { SimModel } from './sim-model';
+import type { Outputs } from './plant-dynamics';
 
 /** Speeds below this (pu) are taken as this when power is turned into torque. */
 export const MIN_TORQUE_SPEED_PU = 0.1;
 
 /**
- * Writes dδ, dω, dE'q, dE''d, dE''q of set `i` (state offset `o`).
- * `peOwn` is the electrical power and `idOwn`, `iqOwn` the d/q stator current, all pu on
- * the set's own base; `omegaBus` the bus speed (pu) the damping acts against.
+ * Writes dδ, dω, dE'q, dE''d, dE''q of set `i` (state offset `o`), reading from `out` its
+ * electrical power and d/q stator current (pu on its own base) and the bus speed (pu)
+ * the damping acts against.
  */
-export function machineDerivatives(
-  m: SimModel,
-  i: number,
-  o: number,
-  y: Float64Array,
-  dy: Float64Array,
-  peOwn: number,
-  idOwn: number,
-  iqOwn: number,
-  omegaBus: number,
-): void {
+export function machineDerivatives(m: SimModel, i: number, o: number, y: Float64Array, dy: Float64Array, out: Outputs): void {
+  const peOwn = out.pOwn[i]!;
+  const idOwn = out.id[i]!;
+  const iqOwn = out.iq[i]!;
+  const omegaBus = out.omegaBus;
   const w = y[o + OMEGA]!;
   const wt = w > MIN_TORQUE_SPEED_PU ? w : MIN_TORQUE_SPEED_PU;
   dy[o + DELTA] = m.omegaS * (w - 1);

@@ -75,6 +75,10 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
   const finalV = vTr.length > 0 ? vTr.x[vTr.length - 1]! : 0;
   const tEnd = fTr.length > 0 ? fTr.t[fTr.length - 1]! : 0;
   const t0 = inp.disturbanceS;
+  // Nothing on line during the whole window: no extremes to speak of.
+  if (!Number.isFinite(inp.nadirHz)) {
+    inp = { ...inp, nadirHz: inp.initialFrequencyHz, peakHz: inp.initialFrequencyHz, minVoltageV: inp.initialVoltageV, maxVoltageV: inp.initialVoltageV };
+  }
   const dipF = ((inp.nadirHz - inp.initialFrequencyHz) / fr) * 100;
   const riseF = ((inp.peakHz - inp.initialFrequencyHz) / fr) * 100;
   const dipV = ((inp.minVoltageV - inp.initialVoltageV) / vr) * 100;

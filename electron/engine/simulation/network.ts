@@ -25,12 +25,26 @@ export interface BusVoltage {
   converged: boolean;
 }
 
+/** Offsets of the bus solve's inputs in its `Float64Array` (typed storage: nothing is boxed per call). */
+export const NET_A_RE = 0;
+export const NET_A_IM = 1;
+export const NET_IN_RE = 2;
+export const NET_IN_IM = 3;
+export const NET_P = 4;
+export const NET_Q = 5;
+
 /**
  * Solves the bus voltage in place (`bus` holds the warm start and receives the answer).
- * `aRe, aIm`: total admittance; `inRe, inIm`: Norton current; `p, q`: constant-power
- * load, all pu on the system base.
+ * `net` holds the total admittance A, the Norton current I_N and the constant-power load
+ * P + jQ, all pu on the system base, at the `NET_*` offsets.
  */
-export function solveBus(aRe: number, aIm: number, inRe: number, inIm: number, p: number, q: number, bus: BusVoltage): void {
+export function solveBus(net: Float64Array, bus: BusVoltage): void {
+  const aRe = net[NET_A_RE]!;
+  const aIm = net[NET_A_IM]!;
+  const inRe = net[NET_IN_RE]!;
+  const inIm = net[NET_IN_IM]!;
+  const p = net[NET_P]!;
+  const q = net[NET_Q]!;
   let x = bus.re;
   let y = bus.im;
   if (!(x * x + y * y > 1e-4)) {

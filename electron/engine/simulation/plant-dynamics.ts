@@ -9,7 +9,7 @@ import { GOV_ISO, REG_CROSS } from './codes';
 import { machineDerivatives } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
-import { solveBus } from './network';
+import { NET_A_IM, NET_A_RE, NET_IN_IM, NET_IN_RE, NET_P, NET_Q, solveBus } from './network';
 import type { BusVoltage } from './network';
 import type { SimModel } from './sim-model';
 
@@ -30,7 +30,20 @@ export interface Outputs {
   /** Electrical power and terminal kVAR, pu on the set's own base. */
   pOwn: Float64Array;
   qOwn: Float64Array;
+  /** Stator current on the rotor's d- and q-axes, pu on the set's own base. */
+  id: Float64Array;
+  iq: Float64Array;
+  /** Voltage each regulator compares with its reference, pu (its own terminal voltage, or the cross-current group's mean). */
+  vSensed: Float64Array;
+  /** Time of this evaluation, s. */
+  t: number;
+  /** Linked isochronous group's loading, pu of ratedKW. */
+  pBarIso: number;
+  /** Cross-current group's mean kVAR, pu of ratedKVA. */
+  qBarCross: number;
   bus: BusVoltage;
+  /** Inputs of the bus solve (see `network.ts`). */
+  net: Float64Array;
   anyOnline: boolean;
   /** Bus speed: inertia-weighted mean speed of the on-line sets, pu. */
   omegaBus: number;
@@ -47,7 +60,13 @@ export function createOutputs(n: number): Outputs {
   const f = () => new Float64Array(n);
   return {
     eRe: f(), eIm: f(), sinD: f(), cosD: f(), iRe: f(), iIm: f(), vtRe: f(), vtIm: f(), vt: f(), pOwn: f(), qOwn: f(),
+    id: f(), iq: f(), vSensed: f(),
+    // Non-integer starting values keep these fields stored as doubles.
+    t: 0.5,
+    pBarIso: 0.5,
+    qBarCross: 0.5,
     bus: { re: 1, im: 0, iterations: 0, converged: true },
+    net: new Float64Array(6),
     anyOnline: false,
     omegaBus: 1,
     loadP: 0,
@@ -127,7 +146,14 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   }
   const bus = out.bus;
   if (anyOnline) {
-    solveBus(aRe + pZ, aIm - qZ, inRe, inIm, pP, qP, bus);
+    const net = out.net;
+    net[NET_A_RE] = aRe + pZ;
+    net[NET_A_IM] = aIm - qZ;
+    net[NET_IN_RE] = inRe;
+    net[NET_IN_IM] = inIm;
+    net[NET_P] = pP;
+    net[NET_Q] = qP;
+    solveBus(net, bus);
     if (!bus.converged) out.unconverged++;
   } else {
     bus.re = 0;
@@ -191,24 +217,29 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
     }
   }
   out.feederLossP = loss;
-  const pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
-  const qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
+  out.t = t;
+  out.pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
+  out.qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
   const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
 
-  // Pass 3: derivatives.
+  // Pass 3: derivatives. Per-set inputs go through the typed arrays of `out`, not as
+  // number arguments, so no value is boxed per call.
+  const { id, iq, vSensed } = out;
   for (let i = 0; i < n; i++) {
-    const o = i * STATES_PER_SET;
     const scale = m.baseKVA / m.ratedKVA[i]!;
     const ir = iRe[i]! * scale;
     const ii = iIm[i]! * scale;
     // Rotor frame: x_dq = x (sin δ + j cos δ).
     const s = sinD[i]!;
     const c = cosD[i]!;
-    const id = ir * s - ii * c;
-    const iq = ir * c + ii * s;
-    machineDerivatives(m, i, o, y, dy, pOwn[i]!, id, iq, omegaBus);
-    governorDerivatives(m, i, o, t, y, dy, pOwn[i]!, pBarIso);
-    const sensed = m.online[i] && m.regMode[i] === REG_CROSS && !m.shutdown[i] ? vBarCross : vt[i]!;
-    regulatorDerivatives(m, i, o, y, dy, vt[i]!, sensed, pOwn[i]!, qOwn[i]!, qBarCross);
+    id[i] = ir * s - ii * c;
+    iq[i] = ir * c + ii * s;
+    vSensed[i] = m.online[i] && m.regMode[i] === REG_CROSS && !m.shutdown[i] ? vBarCross : vt[i]!;
+  }
+  for (let i = 0; i < n; i++) {
+    const o = i * STATES_PER_SET;
+    machineDerivatives(m, i, o, y, dy, out);
+    governorDerivatives(m, i, o, y, dy, out);
+    regulatorDerivatives(m, i, o, y, dy, out);
   }
 }

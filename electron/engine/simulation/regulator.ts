@@ -25,6 +25,7 @@
 import { AVR_INT, EFD, VAR_TRIM } from './layout';
 import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
 import type { SimModel } from './sim-model';
+import type { Outputs } from './plant-dynamics';
 
 /** Integral time of the voltage regulator, s (the plant file has no field for it; 1 s is common practice). */
 export const REGULATOR_RESET_S = 1;
@@ -55,28 +56,19 @@ export function fieldCeiling(m: SimModel, i: number, vt: number): number {
 }
 
 /**
- * Writes the regulator derivatives of set `i` (state offset `o`). `vt` is the terminal
- * voltage magnitude, `vSensed` the voltage the regulator compares with its reference
- * (`vt`, or the cross-current group's mean), `pOwn`/`qOwn` the set's kW/kVAR at its
- * terminals (pu own base).
+ * Writes the regulator derivatives of set `i` (state offset `o`), reading from `out` its
+ * terminal voltage, the voltage its regulator senses (its own, or the cross-current
+ * group's mean), its kW/kVAR at the terminals (pu own base) and the cross-current mean.
  */
-export function regulatorDerivatives(
-  m: SimModel,
-  i: number,
-  o: number,
-  y: Float64Array,
-  dy: Float64Array,
-  vt: number,
-  vSensed: number,
-  pOwn: number,
-  qOwn: number,
-  qBarCross: number,
-): void {
+export function regulatorDerivatives(m: SimModel, i: number, o: number, y: Float64Array, dy: Float64Array, out: Outputs): void {
+  const vt = out.vt[i]!;
+  const pOwn = out.pOwn[i]!;
+  const qOwn = out.qOwn[i]!;
   let u = 0;
   let dz = 0;
   let dTrim = 0;
   if (!m.shutdown[i]) {
-    const e = voltageReference(m, i, y, o, qOwn, qBarCross) - vSensed;
+    const e = voltageReference(m, i, y, o, qOwn, out.qBarCross) - out.vSensed[i]!;
     const hi = fieldCeiling(m, i, vt);
     u = m.gainPU[i]! * (e + y[o + AVR_INT]!);
     dz = e / m.avrResetS[i]!;

@@ -107,7 +107,7 @@ class Run implements Simulation {
     out.bus.im = 0;
     this.events = [...scenario.events].sort((a, b) => a.atS - b.atS);
     const totalSteps = Math.round(scenario.durationS / this.stepS);
-    this.recorder = new Recorder(m.ids, totalSteps, scenario.outputPoints ?? 2000);
+    this.recorder = new Recorder(m.ids, totalSteps, scenario.outputPoints ?? DEFAULT_OUTPUT_POINTS);
     this.sample = { kW: new Float64Array(n), kVAR: new Float64Array(n), currentA: new Float64Array(n), speedHz: new Float64Array(n), terminalV: new Float64Array(n) };
     this.reverseTimer = new Float64Array(n);
     this.currentScaleA = (m.baseKVA * 1000) / (Math.sqrt(3) * m.ratedVoltageV);
@@ -177,10 +177,13 @@ class Run implements Simulation {
         `Frequency fell below 90 % of rated (${(0.9 * this.m.ratedFrequencyHz).toFixed(1)} Hz) at t = ${t.toFixed(2)} s: the sets on line cannot carry the load. A real plant would shed load or trip on underfrequency (device 81) here.`,
       );
     }
-    if (f < this.nadir) this.nadir = f;
-    if (f > this.peak) this.peak = f;
-    if (v < this.vMin) this.vMin = v;
-    if (v > this.vMax) this.vMax = v;
+    // A dead bus has no frequency: extremes are taken while some set is on line.
+    if (this.out.anyOnline) {
+      if (f < this.nadir) this.nadir = f;
+      if (f > this.peak) this.peak = f;
+      if (v < this.vMin) this.vMin = v;
+      if (v > this.vMax) this.vMax = v;
+    }
     this.recorder.trace(this.k, t, f, v, force);
     if (!this.recorder.wants(this.k, force)) return;
     const m = this.m;
