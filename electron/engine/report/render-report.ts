@@ -25,6 +25,7 @@ caption { text-align: left; color: #5b6670; padding: 2px 0 4px; }
 th, td { border: 1px solid #d4d9de; padding: 2px 6px; vertical-align: top; }
 thead th { background: #eef1f3; text-align: left; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+.verdict { white-space: nowrap; }
 .verdict-fails { font-weight: 700; }
 .problem { border-left: 3px solid #b02a2a; padding: 4px 10px; background: #fbeeee; }
 .note { color: #5b6670; }
@@ -48,8 +49,10 @@ footer { margin-top: 24px; border-top: 1px solid #d4d9de; padding-top: 6px; colo
 
 function cell(v: string | number | null, decimals: number, column: string): string {
   if (typeof v === 'number' || v === null) return `<td class="num">${formatNumber(v, decimals)}</td>`;
-  const cls = v === 'fails' || v === 'blocked' ? ' class="verdict-fails"' : '';
-  const mark = v === 'fails' || v === 'blocked' ? '✗ ' : v === 'meets' || v === 'permissive' ? '✓ ' : '';
+  const bad = v === 'fails' || v === 'blocked';
+  const good = v === 'meets' || v === 'permissive';
+  const cls = bad ? ' class="verdict verdict-fails"' : good || v === 'not judged' ? ' class="verdict"' : '';
+  const mark = bad ? '✗ ' : good ? '✓ ' : v === 'not judged' ? '– ' : '';
   return `<td${cls} data-column="${escapeHtml(column)}">${mark}${escapeHtml(v)}</td>`;
 }
 
