@@ -40,7 +40,11 @@ export function run(): BenchResult[] {
   for (const n of [2, 8, 32]) {
     const sc = benchScenario(n, 5);
     const r = bench(`simulate, ${n} sets, 5 s at 1 ms`, () => simulate(sc), { minMs: 1500 });
-    r.extra = { 'set-steps/s': `${((n * 5000) / (r.medianMs / 1000) / 1e6).toFixed(2)} M` };
+    const cpu = [cpuMs(() => simulate(sc)), cpuMs(() => simulate(sc)), cpuMs(() => simulate(sc))].sort((a, b) => a - b)[1]!;
+    r.extra = {
+      'set-steps/s': `${((n * 5000) / (r.medianMs / 1000) / 1e6).toFixed(2)} M`,
+      'on CPU time': `${((n * 5000) / (cpu / 1000) / 1e6).toFixed(2)} M`,
+    };
     out.push(r);
   }
   const sc = benchScenario(8, 60);
