@@ -266,7 +266,8 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
 
 /**
  * The load sweep: bus frequency (left axis) and each set's kW (right axis) against the
- * total load, with the load being shown marked. Points without a steady state are gaps.
+ * total load, with the load being shown marked. Points without a steady state are gaps,
+ * and the range beyond the last operating point is hatched and labelled.
  */
 export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTheme, markKW: number | null): ChartConfiguration {
   const points = sweep?.points ?? [];
@@ -302,6 +303,9 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
     });
   });
   const fs = points.map((p) => p.frequencyHz).filter((v): v is number => v !== null);
+  // Where the sweep first finds no operating point (beyond capacity), shaded to the end.
+  const firstNone = points.findIndex((p, k) => p.frequencyHz === null && k > 0 && points[k - 1]?.frequencyHz !== null);
+  const noSteadyFromKW = firstNone > 0 ? (points[firstNone - 1]!.loadKW + points[firstNone]!.loadKW) / 2 : null;
   const [fLo, fHi] = niceRange(paddedRange([...fs, plant.ratedFrequencyHz], 0.04, 0.5));
   return {
     type: 'scatter',
@@ -311,7 +315,7 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: axis(theme, 'Total load (kW)'),
+        x: axis(theme, 'Total load (kW)', { min: 0, max: points.length ? points[points.length - 1]!.loadKW : undefined }),
         f: axis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
         p: axis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
       },
@@ -327,8 +331,22 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
           },
         },
         annotation: {
-          annotations:
-            markKW === null
+          annotations: {
+            ...(noSteadyFromKW === null
+              ? {}
+              : {
+                  none: {
+                    type: 'box',
+                    xMin: noSteadyFromKW,
+                    xMax: points[points.length - 1]?.loadKW ?? noSteadyFromKW,
+                    xScaleID: 'x',
+                    yScaleID: 'f',
+                    backgroundColor: hatch(withAlpha(theme.bad, 0.45), 'transparent', 8),
+                    borderWidth: 0,
+                    label: { display: true, content: ['no steady', 'state'], position: { x: 'center', y: 'start' }, color: theme.bad, font: { size: 11 } },
+                  },
+                }),
+            ...(markKW === null
               ? {}
               : {
                   now: {
@@ -341,7 +359,8 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
                     borderDash: [4, 3],
                     label: { display: true, content: `shown load ${fix(markKW, 0)} kW`, position: 'start', backgroundColor: theme.panel, color: theme.fg, font: { size: 11 }, padding: 3 },
                   },
-                },
+                }),
+          },
         },
       },
     },

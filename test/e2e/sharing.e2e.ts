@@ -1,0 +1,152 @@
+/**
+ * The Plant and Sharing views in the browser preview (Chromium, engine in the Web Worker):
+ * a droop edit in the set sheet moves the bus frequency by what the droop lines predict,
+ * the load slider recomputes, a refused field keeps the last valid results; screenshots of
+ * both views (light and dark) and the edit-to-result latency go to out/test-output/.
+ */
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { ARTIFACTS, launch, openPage } from './chromium';
+import { demoPlant } from '../helpers/plants';
+
+const num = async (page: Page, testId: string): Promise<number> => parseFloat((await page.getByTestId(testId).first().textContent()) ?? 'NaN');
+
+/**
+ * Bus frequency of droop sets sharing a total output P (closed form, DESIGN.md speed droop;
+ * REFERENCES.md §3 "droop slope"): each set gives P_i = k_i (f_nl,i − f) with
+ * k_i = ratedKW_i / (droop_i/100 × f_rated), and Σ P_i = P, so f = (Σ k_i f_nl,i − P) / Σ k_i.
+ */
+function droopBusHz(sets: { ratedKW: number; droopPct: number; noLoadHz: number }[], ratedHz: number, totalKW: number): number {
+  let sumK = 0;
+  let sumKF = 0;
+  for (const s of sets) {
+    const k = s.ratedKW / ((s.droopPct / 100) * ratedHz);
+    sumK += k;
+    sumKF += k * s.noLoadHz;
+  }
+  return (sumKF - totalKW) / sumK;
+}
+
+describe('Plant and Sharing views in the browser preview', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('moves the bus frequency by what the droop lines predict when a droop % is edited', async () => {
+    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    await page.getByTestId('set-sheet').waitFor();
+    await expect.poll(() => page.getByTestId('plant-bus').textContent()).toContain('Hz');
+
+    await page.getByTestId('nav-sharing').click();
+    await page.getByTestId('sharing-table').waitFor();
+    const f0 = await num(page, 'bus-frequency');
+    const p0 = await num(page, 'total-kw');
+
+    // Edit G1's speed droop from 4 % to 5 % in the set sheet.
+    await page.getByTestId('nav-plant').click();
+    const droop = page.locator('[data-test="field-sets[0].governor.droopPct"]');
+    await droop.fill('5');
+    await droop.blur();
+    await page.getByTestId('nav-sharing').click();
+    await expect.poll(() => num(page, 'bus-frequency')).not.toBe(f0);
+    const f1 = await num(page, 'bus-frequency');
+
+    const plant = demoPlant();
+    const sets = plant.sets.map((s) => ({ ratedKW: s.ratedKW, droopPct: s.governor.droopPct, noLoadHz: s.governor.noLoadHz }));
+    // Before the edit the closed form through the shown total output gives the shown frequency.
+    expect(Math.abs(droopBusHz(sets, 50, p0) - f0)).toBeLessThanOrEqual(0.0006);
+    sets[0]!.droopPct = 5;
+    // Predicted with the total output before the edit (load + feeder losses); the losses shift by
+    // a fraction of a kW when the split changes, under 0.001 Hz here, hence the tolerance.
+    const predicted = droopBusHz(sets, 50, p0);
+    expect(Math.abs(f1 - predicted)).toBeLessThanOrEqual(0.002);
+    expect(Math.abs(f1 - f0 - (predicted - f0))).toBeLessThanOrEqual(0.002);
+    // A meaningful change: about −0.13 Hz for the demo plant.
+    expect(f1 - f0).toBeLessThan(-0.1);
+    await page.setViewportSize({ width: 1360, height: 1900 });
+    await page.screenshot({ path: join(ARTIFACTS, 'sharing-view.png') });
+    await page.setViewportSize({ width: 1360, height: 860 });
+    expect(errors).toEqual([]);
+  });
+
+  it('recomputes while the load slider moves and keeps the last valid results for a refused field', async () => {
+    const { page, errors } = await openPage(browser, `${inject('previewUrl')}#/sharing`);
+    await page.getByTestId('sharing-table').waitFor();
+    const f0 = await num(page, 'bus-frequency');
+    const slider = page.getByTestId('load-slider');
+    await slider.focus();
+    for (let i = 0; i < 20; i++) await page.keyboard.press('ArrowRight');
+    await expect.poll(() => num(page, 'bus-frequency')).toBeLessThan(f0);
+    // More load on droop sets: lower frequency (droop line).
+    const f1 = await num(page, 'bus-frequency');
+    // Twenty 0.5 % steps up from the plant's own 57.4 %.
+    expect(parseFloat((await page.getByTestId('load-readout').textContent()) ?? '')).toBeGreaterThan(66);
+
+    await page.getByTestId('nav-plant').click();
+    const kva = page.locator('[data-test="field-sets[1].ratedKVA"]');
+    await kva.fill('0');
+    await expect.poll(() => page.locator('[data-test="field-issue"]').first().textContent()).toContain('must be greater than 0');
+    expect(await page.getByTestId('edit-state').textContent()).toContain('refused');
+    await page.setViewportSize({ width: 1360, height: 2250 });
+    await page.screenshot({ path: join(ARTIFACTS, 'plant-editor-refused-field.png') });
+    await page.setViewportSize({ width: 1360, height: 860 });
+    await page.getByTestId('nav-sharing').click();
+    expect(await page.getByTestId('stale-note').textContent()).toContain('last valid plant');
+    expect(await num(page, 'bus-frequency')).toBe(f1);
+    await page.getByTestId('nav-plant').click();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.locator('[data-test="field-issue"]').count()).toBe(0);
+    expect(errors).toEqual([]);
+  });
+
+  it('screenshots the plant editor and the dark theme, and measures edit-to-result time', async () => {
+    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    await page.setViewportSize({ width: 1360, height: 2250 });
+    await page.getByTestId('set-sheet').waitFor();
+    await expect.poll(() => page.getByTestId('plant-bus').textContent()).toContain('Hz');
+    await page.screenshot({ path: join(ARTIFACTS, 'plant-editor.png') });
+
+    // Edit-to-result latency: from the input event to the bus figure changing in the DOM.
+    const times = await page.evaluate(async () => {
+      const input = document.querySelector<HTMLInputElement>('[data-test="field-sets[1].governor.droopPct"]')!;
+      const bus = document.querySelector('[data-test="plant-bus"]')!;
+      const out: number[] = [];
+      for (const v of ['4.5', '5', '3.5', '4', '4.2', '3.8', '4.6', '4.1', '3.9', '4']) {
+        const before = bus.textContent;
+        const t0 = performance.now();
+        const changed = new Promise<number>((done) => {
+          const mo = new MutationObserver(() => {
+            if (bus.textContent !== before) {
+              mo.disconnect();
+              done(performance.now() - t0);
+            }
+          });
+          mo.observe(bus, { subtree: true, characterData: true, childList: true });
+        });
+        input.value = v;
+        input.dispatchEvent(new Event('input', { bubbles: true }));
+        out.push(await changed);
+      }
+      return out;
+    });
+    const sorted = [...times].sort((a, b) => a - b);
+    writeFileSync(
+      join(ARTIFACTS, 'sharing-edit-latency.json'),
+      JSON.stringify({ what: 'ms from a droop edit to the new bus frequency in the DOM (demo plant, browser preview)', times, medianMs: sorted[5] }, null, 2),
+    );
+
+    await page.emulateMedia({ colorScheme: 'dark' });
+    await page.getByTestId('nav-sharing').click();
+    await page.getByTestId('sharing-table').waitFor();
+    await page.setViewportSize({ width: 1360, height: 1900 });
+    await page.screenshot({ path: join(ARTIFACTS, 'sharing-view-dark.png') });
+    expect(errors).toEqual([]);
+  });
+});
