@@ -207,8 +207,11 @@ export interface TrainerVerdict {
   peakCurrentA: number;
   torqueStepPU: number;
   torqueStepKNm: number;
-  /** Machine limits: surge and torque of a close at the edge of the machine standard's window. */
-  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; source: string };
+  /**
+   * Machine limits: surge and torque step of a close at the edge of the machine standard's window, and the
+   * peak current and power of the same model's swing after such a close.
+   */
+  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; peakCurrentPU: number; peakPowerPU: number; source: string };
   checks: TrainerCheck[];
   insideWindow: boolean;
   withinMachineLimits: boolean;

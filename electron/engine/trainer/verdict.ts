@@ -10,9 +10,42 @@ import { afterClosePlantTraces } from './after-close-plant';
 import type { AfterCloseOptions } from './after-close';
 import { contactStress } from './contact-stress';
 import { MACHINE_STANDARD_WINDOW } from './levels';
+import { governorDroopPU } from './live-model';
 
 const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
 const signed = (v: number, d: number): string => (v > 0 ? '+' : '') + f(v, d);
+
+/** A copy of `state` closed at the corner of the machine standard's window (+10°, +5 %, +0.067 Hz), running light. */
+function cornerState(state: TrainerState): TrainerState {
+  const m = state.machine;
+  const fr = m.ratedFrequencyHz;
+  const w = MACHINE_STANDARD_WINDOW;
+  const fInc = state.busFrequencyHz + w.slipHz;
+  const vInc = state.busVoltageV * (1 + w.voltagePct / 100);
+  const mech = m.dampingPU * (fInc / fr - 1);
+  const k = 1 + w.voltagePct / 100;
+  const rad = (w.angleDeg * Math.PI) / 180;
+  return {
+    ...state,
+    angleDeg: w.angleDeg,
+    incomingFrequencyHz: fInc,
+    incomingVoltageV: vInc,
+    speedReferenceHz: fInc + mech * governorDroopPU(m) * fr,
+    voltageReferenceV: vInc,
+    actuatorPU: mech,
+    mechanicalPU: mech,
+    emfPU: vInc / m.ratedVoltageV,
+    fieldPU: vInc / m.ratedVoltageV,
+    contact: {
+      atS: state.contact?.atS ?? 0,
+      angleDeg: w.angleDeg,
+      slipHz: w.slipHz,
+      voltageDifferencePct: w.voltagePct,
+      deltaVPU: Math.sqrt(1 + k * k - 2 * k * Math.cos(rad)),
+      commandAngleDeg: w.angleDeg,
+    },
+  };
+}
 
 /** The trainee's window is looser than the graded one in at least one limit. */
 function looserWindow(set: SyncLimits | null, ref: SyncLimits): string[] {
@@ -41,8 +74,32 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   const machineLimits = {
     surgeCurrentPU: edge.surgeCurrentPU,
     torqueStepPU: Math.abs(edge.torqueStepPU),
-    source: 'stress of a close at ±10°, +5 % (IEEE C50.12/C50.13 synchronizing limits, from memory) on this machine',
+    peakCurrentPU: 0,
+    peakPowerPU: 0,
+    source: 'stress of a close at ±10°, +5 %, +0.067 Hz (IEEE C50.12/C50.13 synchronizing limits, from memory) on this machine',
   };
+  // Traces of the first seconds: the plant's simulator when the exercise came from a plant, else the two-machine swing.
+  let tracesNote: string | null = null;
+  let usePlant = !!(plant && state.incomingSetId);
+  const tracesOf = (x: TrainerState): TrainerTraces => {
+    if (usePlant && plant && x.incomingSetId) {
+      try {
+        return afterClosePlantTraces(x, plant, x.incomingSetId, options.durationS === undefined ? {} : { durationS: options.durationS });
+      } catch (e) {
+        usePlant = false;
+        tracesNote = `The plant's simulator could not run this close (${e instanceof Error ? e.message : String(e)}); the traces come from the two-machine model.`;
+      }
+    }
+    return afterCloseTraces(x, options);
+  };
+  const traces = tracesOf(state);
+  // The same model run for a close at the corner of the machine standard's window sets the limits for the swing.
+  const edgeTraces = tracesOf(cornerState(state));
+  const peak = (xs: number[]): number => xs.reduce((a, v) => Math.max(a, Math.abs(v)), 0);
+  const peakCurrentPU = peak(traces.currentPU);
+  const peakPowerPU = peak(traces.powerPU);
+  machineLimits.peakCurrentPU = peak(edgeTraces.currentPU);
+  machineLimits.peakPowerPU = peak(edgeTraces.powerPU);
   const windowSource = state.level.mustSetWindow ? 'exercise window (graded)' : 'exercise window';
   const checks: TrainerCheck[] = [
     { quantity: 'Phase angle at contact', unit: '°', value: c.angleDeg, limit: ref.angleDeg, source: windowSource, within: Math.abs(c.angleDeg) <= ref.angleDeg },
@@ -64,6 +121,8 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   checks.push(
     { quantity: 'Surge current', unit: 'pu', value: stress.surgeCurrentPU, limit: machineLimits.surgeCurrentPU, source: 'machine limit', within: stress.surgeCurrentPU <= machineLimits.surgeCurrentPU * (1 + 1e-9) },
     { quantity: 'Torque step', unit: 'pu', value: stress.torqueStepPU, limit: machineLimits.torqueStepPU, source: 'machine limit', within: Math.abs(stress.torqueStepPU) <= machineLimits.torqueStepPU * (1 + 1e-9) },
+    { quantity: 'Peak current, first seconds', unit: 'pu', value: peakCurrentPU, limit: machineLimits.peakCurrentPU, source: 'machine limit (swing)', within: peakCurrentPU <= machineLimits.peakCurrentPU * (1 + 1e-9) },
+    { quantity: 'Peak power swing', unit: 'pu', value: peakPowerPU, limit: machineLimits.peakPowerPU, source: 'machine limit (swing)', within: peakPowerPU <= machineLimits.peakPowerPU * (1 + 1e-9) },
   );
   const insideWindow = checks.slice(0, windowChecks).every((k) => k.within);
   const withinMachineLimits = checks.slice(windowChecks).every((k) => k.within);
@@ -82,7 +141,12 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
     if (ref.incomingFaster && c.slipHz <= 0) score = Math.min(score, 40);
   }
   if (!withinMachineLimits) {
-    const over = Math.max(stress.surgeCurrentPU / machineLimits.surgeCurrentPU, Math.abs(stress.torqueStepPU) / machineLimits.torqueStepPU);
+    const over = Math.max(
+      stress.surgeCurrentPU / machineLimits.surgeCurrentPU,
+      Math.abs(stress.torqueStepPU) / machineLimits.torqueStepPU,
+      peakCurrentPU / machineLimits.peakCurrentPU,
+      peakPowerPU / machineLimits.peakPowerPU,
+    );
     score = Math.min(score, 20 / over);
   }
   const loose = looserWindow(state.level.mustSetWindow ? state.window : null, ref);
@@ -106,6 +170,12 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
         ? `are within the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu).`
         : `exceed the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu): on a real set this strains shaft, coupling and windings and may trip the protection.`),
   );
+  const swingOver = checks.slice(windowChecks + 2).filter((k) => !k.within);
+  if (swingOver.length) {
+    parts.push(
+      `In the first seconds the set swung to ${f(peakCurrentPU, 2)} pu current and ${f(peakPowerPU, 2)} pu power against ${f(machineLimits.peakCurrentPU, 2)} and ${f(machineLimits.peakPowerPU, 2)} pu for a close at the window's edge: it was pulled into step hard.`,
+    );
+  }
   if (c.slipHz < 0 && Math.abs(c.angleDeg) < 90) parts.push('The incoming set was slower than the bus, so it took power from the bus at first (motoring) — reverse-power protection may see it.');
   const lead = c.commandAngleDeg - c.angleDeg;
   if (Math.abs(c.slipHz) > 1e-6 && Math.abs(c.angleDeg) > 3) {
@@ -114,16 +184,6 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   if (loose.length) parts.push(`The window you set was too loose: ${loose.join('; ')}.`);
 
   const verdict = parts.join(' ');
-  let traces: TrainerTraces | null = null;
-  let tracesNote: string | null = null;
-  if (plant && state.incomingSetId) {
-    try {
-      traces = afterClosePlantTraces(state, plant, state.incomingSetId, options.durationS === undefined ? {} : { durationS: options.durationS });
-    } catch (e) {
-      tracesNote = `The plant's simulator could not run this close (${e instanceof Error ? e.message : String(e)}); the traces come from the two-machine model.`;
-    }
-  }
-  traces ??= afterCloseTraces(state, options);
   return {
     contact: { ...c },
     surgeCurrentPU: stress.surgeCurrentPU,

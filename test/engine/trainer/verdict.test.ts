@@ -16,6 +16,11 @@ function closedAt(angleDeg: number, slipHz: number, voltagePct: number, levelId 
     phase: 'closed',
     angleDeg,
     incomingFrequencyHz: s.busFrequencyHz + slipHz,
+    // Running light at that speed: governor reference on the droop line, engine giving the friction power (D = 2 pu, R = 4 %).
+    speedReferenceHz: s.busFrequencyHz + slipHz + 2 * ((s.busFrequencyHz + slipHz) / 50 - 1) * 0.04 * 50,
+    actuatorPU: 2 * ((s.busFrequencyHz + slipHz) / 50 - 1),
+    mechanicalPU: 2 * ((s.busFrequencyHz + slipHz) / 50 - 1),
+    voltageReferenceV: vi,
     incomingVoltageV: vi,
     emfPU: vi / 400,
     fieldPU: vi / 400,
@@ -76,6 +81,14 @@ describe('judgeClose', () => {
     expect(fast.checks.find((c) => c.quantity === 'Slip at contact')!.within).toBe(false);
     const slow = judgeClose(closedAt(-3, -0.05, 0));
     expect(slow.verdict).toContain('slower than the bus');
+  });
+
+  it('calls a close near 0° but at 1.5 Hz slip harmful: the swing after it exceeds that of a close at the window edge', () => {
+    const v = judgeClose(closedAt(-3, 1.5, 0));
+    expect(v.checks.find((c) => c.quantity === 'Surge current')!.within).toBe(true);
+    expect(v.checks.find((c) => c.quantity === 'Peak power swing')!.within).toBe(false);
+    expect(v.grade).toBe('harmful');
+    expect(v.verdict).toContain('it was pulled into step hard');
   });
 
   it('penalises a window set looser than the graded one', () => {

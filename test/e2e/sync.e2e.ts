@@ -1,0 +1,113 @@
+/**
+ * Synchronizing and Trainer views in the browser preview (Chromium): the live scope, the
+ * closing map with hover readout, a trainer exercise closed by key presses, screenshots of
+ * both views, and the frame times of the live scopes (printed, not asserted: speed is a
+ * measurement, not a test).
+ */
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { ARTIFACTS, launch, openPage } from './chromium';
+
+interface FrameRecord {
+  workMs: number[];
+  intervalMs: number[];
+}
+
+function quantile(xs: number[], q: number): number {
+  const s = [...xs].sort((a, b) => a - b);
+  if (!s.length) return NaN;
+  return s[Math.min(s.length - 1, Math.floor(q * (s.length - 1) + 0.5))]!;
+}
+
+/** Lets the scope run for `seconds` and summarises its frames. */
+async function measureFrames(page: Page, name: string, seconds: number): Promise<string> {
+  await page.evaluate((n) => {
+    const f = window.__drooplineFrames?.[n];
+    if (f) {
+      f.workMs.length = 0;
+      f.intervalMs.length = 0;
+    }
+  }, name);
+  await page.waitForTimeout(seconds * 1000);
+  const rec = await page.evaluate((n) => window.__drooplineFrames?.[n] ?? null, name) as FrameRecord | null;
+  expect(rec, `frame meter "${name}" missing`).not.toBeNull();
+  const w = rec!.workMs;
+  const i = rec!.intervalMs;
+  return (
+    `${name}: ${w.length} frames in ${seconds} s (${(w.length / seconds).toFixed(0)} per second); work per frame (rAF callback to DOM patched) p50 ${quantile(w, 0.5).toFixed(2)} ms, ` +
+    `p95 ${quantile(w, 0.95).toFixed(2)} ms, max ${Math.max(...w).toFixed(2)} ms; frame interval p50 ${quantile(i, 0.5).toFixed(1)} ms, p95 ${quantile(i, 0.95).toFixed(1)} ms`
+  );
+}
+
+describe('Synchronizing and Trainer in the browser preview', () => {
+  let browser: Browser;
+  const figures: string[] = [];
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    browser = await launch();
+  });
+  afterAll(async () => {
+    if (figures.length) {
+      const text = `Live scope frame times, headless Chromium (${new Date().toISOString()}):\n${figures.join('\n')}\n`;
+      writeFileSync(join(ARTIFACTS, 'live-scope-frames.txt'), text);
+      console.log(text);
+    }
+    await browser?.close();
+  });
+
+  it('turns the scope, shows the permissive state, computes and hovers the closing map', async () => {
+    const base = inject('previewUrl');
+    const { page, errors } = await openPage(browser, `${base}?measure-frames#/synchronizing`);
+    await page.getByTestId('synchronizing-view').waitFor();
+    await expect.poll(() => page.getByTestId('permissive').textContent()).toMatch(/Permissive|Blocked/);
+    const a1 = await page.getByTestId('readout-angle').locator('[data-test="readout-value"]').textContent();
+    await page.waitForTimeout(400);
+    const a2 = await page.getByTestId('readout-angle').locator('[data-test="readout-value"]').textContent();
+    expect(a2, 'the angle turns').not.toBe(a1);
+    figures.push(await measureFrames(page, 'synchronizing', 8));
+
+    await page.getByTestId('map-compute').click();
+    await page.getByTestId('closing-map').waitFor({ timeout: 20_000 });
+    const box = (await page.locator('[data-test="closing-map"] canvas').boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.55, box.y + box.height * 0.45);
+    await expect.poll(() => page.getByTestId('map-hover').textContent()).toMatch(/surge [\d.]+ pu \(\d+ A rms\), torque step -?[\d.]+ pu/);
+    await page.getByTestId('turn-toggle').click();
+    // The view scrolls inside the shell: a tall window shows all of it in one picture.
+    await page.setViewportSize({ width: 1360, height: 2300 });
+    const box2 = (await page.locator('[data-test="closing-map"] canvas').boundingBox())!;
+    await page.mouse.move(box2.x + box2.width * 0.5, box2.y + box2.height * 0.42);
+    await expect.poll(() => page.getByTestId('map-hover').textContent()).toMatch(/surge/);
+    await page.screenshot({ path: join(ARTIFACTS, 'sync-view.png'), fullPage: true });
+    expect(await page.getByTestId('caution').textContent()).toContain('planning and training only');
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('runs a trainer exercise from the keyboard to a close and shows the verdict and the log', async () => {
+    const base = inject('previewUrl');
+    const { page, errors } = await openPage(browser, `${base}?measure-frames#/trainer`);
+    await page.getByTestId('trainer-view').waitFor();
+    await expect.poll(() => page.getByTestId('trainer-state').textContent()).toMatch(/window/);
+    expect(await page.getByTestId('trainer-caution').textContent()).toContain('not an authorisation to operate');
+    figures.push(await measureFrames(page, 'trainer', 8));
+    // Hold raise speed for a second: the set speeds up.
+    const before = await page.getByTestId('readout-incoming').locator('[data-test="readout-value"]').textContent();
+    await page.keyboard.down('ArrowUp');
+    await page.waitForTimeout(1000);
+    await page.keyboard.up('ArrowUp');
+    await page.waitForTimeout(800);
+    const after = await page.getByTestId('readout-incoming').locator('[data-test="readout-value"]').textContent();
+    expect(after).not.toBe(before);
+    await page.screenshot({ path: join(ARTIFACTS, 'trainer-running.png'), fullPage: true });
+    await page.keyboard.press(' ');
+    await page.getByTestId('trainer-verdict').waitFor({ timeout: 10_000 });
+    await page.setViewportSize({ width: 1360, height: 2000 });
+    expect(await page.getByTestId('verdict-text').textContent()).toMatch(/Surge [\d.]+ pu/);
+    expect(await page.getByTestId('attempt-log').textContent()).toContain('1 attempt');
+    await page.screenshot({ path: join(ARTIFACTS, 'trainer-verdict.png'), fullPage: true });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+});
