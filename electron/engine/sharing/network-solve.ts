@@ -15,7 +15,7 @@
  * The bus balance (Σ P_r = load kW, Σ Q_r = load kVAR) and the voltage unit's setpoint
  * close the system.
  */
-import { Diverged, NoSteadyState } from '../errors';
+import { Diverged, EngineError, NoSteadyState } from '../errors';
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF } from './sharing-model';
 import type { SharingModel } from './sharing-model';
 import { governorKW, isoKW, isoLambdaRange } from './active-sharing';
@@ -27,6 +27,8 @@ const MAX_OUTER = 60;
 const MAX_INNER = 40;
 const MAX_HALVINGS = 12;
 const OUTER_TOL = 1e-12;
+/** Below this (per Hz, per unit of the plant's kVA) the balance counts as flat in frequency. */
+const FLAT = 1e-12;
 
 /** Per-solve work arrays (allocated once; the iterations allocate nothing). */
 interface Work {
@@ -64,6 +66,16 @@ interface Work {
   /** Scratch: the governor target of the set being solved, W, and its derivative. */
   targetW: number;
   targetD: number;
+  /** Scratch of `localEval`: sending-end powers, terminal phasor parts and magnitude, residuals. */
+  lps: number;
+  lqs: number;
+  lA: number;
+  lB: number;
+  lE: number;
+  le1: number;
+  le2: number;
+  /** Continuation factor on every feeder impedance (1 = the real feeders). */
+  zScale: number;
 }
 
 function setTarget(w: Work, p: number, d: number): void {
@@ -82,8 +94,8 @@ function target(w: Work, i: number): void {
     const r = m.ratedKW[i]! * 1000;
     // Beyond the group's range the line is extended with slope r so that Newton can see
     // past saturation; the caller then switches mode.
-    if (y0 > w.isoHi) return setTarget(w, maxW + (y0 - w.isoHi) * r, r);
-    if (y0 < w.isoLo) return setTarget(w, minW + (y0 - w.isoLo) * r, r);
+    if (y0 >= w.isoHi) return setTarget(w, maxW + (y0 - w.isoHi) * r, r);
+    if (y0 <= w.isoLo) return setTarget(w, minW + (y0 - w.isoLo) * r, r);
     const raw = y0 * r;
     if (raw >= maxW) return setTarget(w, maxW, 0);
     if (raw <= minW) return setTarget(w, minW, 0);
@@ -101,11 +113,32 @@ function target(w: Work, i: number): void {
  * Solves set i's two local equations for (P_r, Q_r) at the current outer unknowns, and
  * fills the derivatives of P_r, Q_r and |V_t| by the outer unknowns. False if it fails.
  */
+/**
+ * Set i's local residuals at receiving-end powers (pr, qr), W and VAR; stores the feeder
+ * quantities in `w.l*`. Returns |e1| + |e2|.
+ */
+function localEval(w: Work, pr: number, qr: number, vb: number, R: number, X: number, droopLaw: boolean, a: number, v0: number, tp: number, qTarget: number): number {
+  const L = (pr * pr + qr * qr) / (vb * vb);
+  const ps = pr + R * L;
+  const qs = qr + X * L;
+  const A = vb + (R * pr + X * qr) / vb;
+  const B = (X * pr - R * qr) / vb;
+  const E = Math.hypot(A, B);
+  w.lps = ps;
+  w.lqs = qs;
+  w.lA = A;
+  w.lB = B;
+  w.lE = E;
+  w.le1 = ps - tp;
+  w.le2 = droopLaw ? qs - a * (v0 - E) : qs - qTarget;
+  return Math.abs(w.le1) + Math.abs(w.le2);
+}
+
 function solveSet(w: Work, i: number): boolean {
   const m = w.m;
   const vb = w.y[1]!;
-  const R = m.rOhm[i]!;
-  const X = m.xOhm[i]!;
+  const R = m.rOhm[i]! * w.zScale;
+  const X = m.xOhm[i]! * w.zScale;
   const reg = m.reg[i]!;
   const a = m.slopeKVARPerV[i]! * 1000;
   const v0 = m.noLoadV[i]!;
@@ -114,68 +147,76 @@ function solveSet(w: Work, i: number): boolean {
   const tp = w.targetW;
   const td = w.targetD;
   const inUnit = w.unitWeight[i]! > 0;
-  const qGiven = !inUnit ? 0 : reg === REG_CROSS ? w.y[2]! * m.ratedKVA[i]! : w.y[2]!;
+  const droopLaw = reg === REG_DROOP && !inUnit;
+  const qTarget = inUnit ? (reg === REG_CROSS ? w.y[2]! * m.ratedKVA[i]! : w.y[2]!) : reg === REG_PF ? tan * tp : 0;
   const scale = Math.max(1, m.ratedKVA[i]! * 1000);
   const inv = 1 / (vb * vb);
   let pr = w.pr[i]!;
   let qr = w.qr[i]!;
-  let j11 = 1;
-  let j12 = 0;
-  let j21 = 0;
-  let j22 = 1;
-  let dEdP = 0;
-  let dEdQ = 0;
-  let A = vb;
-  let B = 0;
-  let E = vb;
-  let ps = pr;
-  let qs = qr;
+  let res = localEval(w, pr, qr, vb, R, X, droopLaw, a, v0, tp, qTarget);
+  if (!Number.isFinite(res)) {
+    // A poor warm start (far outside the feeder's reach): start from the targets.
+    pr = tp;
+    qr = qTarget;
+    res = localEval(w, pr, qr, vb, R, X, droopLaw, a, v0, tp, qTarget);
+  }
   let ok = false;
-  for (let k = 0; k < MAX_INNER; k++) {
-    const L = (pr * pr + qr * qr) * inv;
-    ps = pr + R * L;
-    qs = qr + X * L;
-    A = vb + (R * pr + X * qr) / vb;
-    B = (X * pr - R * qr) / vb;
-    E = Math.hypot(A, B);
-    const e1 = ps - tp;
-    const e2 = reg === REG_DROOP && !inUnit ? qs - a * (v0 - E) : reg === REG_PF && !inUnit ? qs - tan * tp : qs - qGiven;
-    dEdP = (A * R + B * X) / (vb * E);
-    dEdQ = (A * X - B * R) / (vb * E);
-    j11 = 1 + 2 * R * pr * inv;
-    j12 = 2 * R * qr * inv;
-    j21 = 2 * X * pr * inv;
-    j22 = 1 + 2 * X * qr * inv;
-    if (reg === REG_DROOP && !inUnit) {
-      j21 += a * dEdP;
-      j22 += a * dEdQ;
-    }
-    const res = Math.abs(e1) + Math.abs(e2);
-    if (!Number.isFinite(res)) return false;
+  for (let k = 0; k < MAX_INNER && Number.isFinite(res); k++) {
     if (res <= 1e-13 * scale) {
       ok = true;
       break;
+    }
+    const A = w.lA;
+    const B = w.lB;
+    const E = w.lE;
+    const e1 = w.le1;
+    const e2 = w.le2;
+    const j11 = 1 + 2 * R * pr * inv;
+    const j12 = 2 * R * qr * inv;
+    let j21 = 2 * X * pr * inv;
+    let j22 = 1 + 2 * X * qr * inv;
+    if (droopLaw) {
+      j21 += (a * (A * R + B * X)) / (vb * E);
+      j22 += (a * (A * X - B * R)) / (vb * E);
     }
     const det = j11 * j22 - j12 * j21;
     if (!(Math.abs(det) > 1e-300)) return false;
     const dp = (e1 * j22 - e2 * j12) / det;
     const dq = (e2 * j11 - e1 * j21) / det;
-    pr -= dp;
-    qr -= dq;
-    if (Math.abs(dp) + Math.abs(dq) <= 1e-15 * scale) {
-      ok = k > 0 || res <= 1e-9 * scale;
-      if (ok) {
-        const L2 = (pr * pr + qr * qr) * inv;
-        ps = pr + R * L2;
-        qs = qr + X * L2;
-        A = vb + (R * pr + X * qr) / vb;
-        B = (X * pr - R * qr) / vb;
-        E = Math.hypot(A, B);
+    // Damped Newton: halve the step until the residual falls (stiff droop behind a resistive feeder overshoots).
+    let t = 1;
+    let accepted = false;
+    for (let h = 0; h < 30; h++) {
+      const r2 = localEval(w, pr - t * dp, qr - t * dq, vb, R, X, droopLaw, a, v0, tp, qTarget);
+      if (r2 < res) {
+        pr -= t * dp;
+        qr -= t * dq;
+        res = r2;
+        accepted = true;
+        break;
       }
+      t *= 0.5;
+    }
+    if (!accepted) {
+      // No decrease even for tiny steps: at the floor of rounding, or no local solution.
+      ok = res <= 1e-9 * scale;
+      localEval(w, pr, qr, vb, R, X, droopLaw, a, v0, tp, qTarget);
       break;
     }
   }
+  if (!ok && res <= 1e-9 * scale) ok = true;
+  const A = w.lA;
+  const B = w.lB;
+  const E = w.lE;
   if (!ok || !(E > 0)) return false;
+  const ps = w.lps;
+  const qs = w.lqs;
+  const dEdP = (A * R + B * X) / (vb * E);
+  const dEdQ = (A * X - B * R) / (vb * E);
+  const j11 = 1 + 2 * R * pr * inv;
+  const j12 = 2 * R * qr * inv;
+  const j21 = 2 * X * pr * inv + (droopLaw ? a * dEdP : 0);
+  const j22 = 1 + 2 * X * qr * inv + (droopLaw ? a * dEdQ : 0);
   w.pr[i] = pr;
   w.qr[i] = qr;
   w.ps[i] = ps;
@@ -270,6 +311,16 @@ function newtonStep(w: Work): boolean {
     b[r] = b[r]! * s;
     for (let c = 0; c < n; c++) a[3 * r + c] = a[3 * r + c]! * s;
   }
+  // Every droop set at a kW limit: the balance is flat in frequency. If it is already met,
+  // hold the frequency (row 0 becomes Δf = 0) and let the other equations converge.
+  // (Only a frequency-sensitive load then gives the column a trace of slope.)
+  if (!w.isoMode && Math.abs(a[0]!) < FLAT && Math.abs(a[3]!) < FLAT && Math.abs(a[6]!) < FLAT) {
+    if (Math.abs(b[0]!) > OUTER_TOL) return false;
+    a[0] = 1;
+    a[1] = 0;
+    a[2] = 0;
+    b[0] = 0;
+  }
   for (let c = 0; c < n; c++) {
     let piv = c;
     for (let r = c + 1; r < n; r++) if (Math.abs(a[3 * r + c]!) > Math.abs(a[3 * piv + c]!)) piv = r;
@@ -296,26 +347,28 @@ function newtonStep(w: Work): boolean {
     b[r] = s / a[3 * r + r]!;
   }
   for (let r = 0; r < n; r++) if (!Number.isFinite(b[r]!)) return false;
+  // Trust region: no Newton step moves frequency or voltage by more than half of rated.
+  const m = w.m;
+  const limits0 = w.isoMode ? 1 : 0.5 * m.ratedFrequencyHz;
+  let shrink = 1;
+  if (Math.abs(b[0]!) > limits0) shrink = Math.min(shrink, limits0 / Math.abs(b[0]!));
+  if (Math.abs(b[1]!) > 0.5 * m.ratedVoltageV) shrink = Math.min(shrink, (0.5 * m.ratedVoltageV) / Math.abs(b[1]!));
+  if (shrink < 1) for (let r = 0; r < n; r++) b[r] = b[r]! * shrink;
   return true;
 }
 
 /** Runs Newton–Raphson from `w.y`; returns the iteration count or throws. */
 function iterate(w: Work): number {
-  const m = w.m;
   if (!evaluate(w)) throw new Diverged('The network solve could not start: a set cannot deliver its output through its feeder at the starting voltage. Check the feeder impedances.');
   let norm = residualNorm(w);
   const y0 = new Float64Array(3);
   for (let it = 1; it <= MAX_OUTER; it++) {
     if (norm <= OUTER_TOL) return it - 1;
     if (!newtonStep(w)) {
-      if (!w.isoMode) {
-        let free = false;
-        for (let i = 0; i < m.n; i++) {
-          if (m.gov[i] !== GOV_DROOP) continue;
-          const raw = m.slopeKWPerHz[i]! * (m.noLoadHz[i]! - w.y[0]!);
-          if (raw < m.maxKW[i]! && raw > m.minKW[i]!) free = true;
-        }
-        if (!free) throw capabilityError(w);
+      if (!w.isoMode && escapePlateau(w)) {
+        if (!evaluate(w)) throw new Diverged('The network solve lost its way while the droop sets were at their limits. Check the feeder impedances.');
+        norm = residualNorm(w);
+        continue;
       }
       throw new Diverged('The network solve met a singular Jacobian (the operating point is not defined by the settings). Check setpoints and feeders.');
     }
@@ -348,6 +401,103 @@ function iterate(w: Work): number {
   if (norm <= 1e-9) return MAX_OUTER;
   if (!w.isoMode && allDroopAtMax(w)) throw capabilityError(w);
   throw new Diverged(`The network solve did not converge in ${MAX_OUTER} iterations (residual ${norm.toExponential(1)} of rating). Check for extreme feeder impedances or setpoints.`);
+}
+
+/**
+ * With every droop set at a kW limit the balance is flat in frequency and Newton has no
+ * slope. Move the frequency just inside the nearest droop line in the direction the
+ * imbalance asks for; if there is none, no steady state exists. Returns true if moved.
+ */
+function escapePlateau(w: Work): boolean {
+  const m = w.m;
+  const f = w.y[0]!;
+  const short = w.f[0]! < 0; // the sets deliver less than the load: frequency must fall
+  let target = short ? -Infinity : Infinity;
+  for (let i = 0; i < m.n; i++) {
+    if (m.gov[i] !== GOV_DROOP) continue;
+    const k = m.slopeKWPerHz[i]!;
+    const fMax = m.noLoadHz[i]! - m.maxKW[i]! / k; // at or below: at max
+    const fMin = m.noLoadHz[i]! - m.minKW[i]! / k; // at or above: at min
+    const inside = 0.01 * (fMin - fMax);
+    if (short && fMin <= f + 1e-12) target = Math.max(target, fMin - inside);
+    if (!short && fMax >= f - 1e-12) target = Math.min(target, fMax + inside);
+  }
+  if (!Number.isFinite(target)) {
+    if (short) throw capabilityError(w);
+    throw new NoSteadyState(
+      `The load (${Math.round(w.loadW / 1000)} kW) is less than the sets' minimum output: frequency would rise until a set trips. Take a set off line or lower the base-load settings.`,
+    );
+  }
+  w.y[0] = target;
+  return true;
+}
+
+/** First continuation step, and the smallest before giving up (fractions of the feeder impedances). */
+const CONTINUATION_FIRST = 0.125;
+const CONTINUATION_MIN = 1 / 512;
+
+/**
+ * Newton–Raphson from the closed-form start; if that start is too far from the answer
+ * (stiff regulators behind long feeders), grow the feeder impedances from a small
+ * fraction to their real values, predicting each step from the last two solutions and
+ * halving the step when Newton fails (natural-parameter continuation).
+ */
+function iterateWithContinuation(w: Work): number {
+  const y = Float64Array.from(w.y);
+  const pr = Float64Array.from(w.pr);
+  const qr = Float64Array.from(w.qr);
+  try {
+    w.zScale = 1;
+    return iterate(w);
+  } catch (e) {
+    if (!(e instanceof Diverged)) throw e;
+  }
+  w.y.set(y);
+  w.pr.set(pr);
+  w.qr.set(qr);
+  // Last accepted point (s, y, P_r, Q_r) and the one before, for the secant predictor.
+  const yPrev = new Float64Array(3);
+  let sPrev = -1;
+  let s = 0;
+  let ds = CONTINUATION_FIRST;
+  let total = 0;
+  let lastError: EngineError | null = null;
+  try {
+    while (s < 1) {
+      const sTry = Math.min(1, s + ds);
+      y.set(w.y);
+      pr.set(w.pr);
+      qr.set(w.qr);
+      if (sPrev >= 0) {
+        const k = (sTry - s) / (s - sPrev);
+        for (let j = 0; j < w.ny; j++) w.y[j] = y[j]! + k * (y[j]! - yPrev[j]!);
+      }
+      w.zScale = sTry;
+      try {
+        total += iterate(w);
+      } catch (e) {
+        if (!(e instanceof EngineError)) throw e;
+        lastError = e;
+        w.y.set(y);
+        w.pr.set(pr);
+        w.qr.set(qr);
+        ds *= 0.5;
+        if (ds < CONTINUATION_MIN) break;
+        continue;
+      }
+      yPrev.set(y);
+      sPrev = s;
+      s = sTry;
+      ds = Math.min(2 * ds, 0.25);
+    }
+  } finally {
+    w.zScale = 1;
+  }
+  if (s >= 1) return total;
+  if (lastError instanceof NoSteadyState) throw lastError;
+  throw new Diverged(
+    'No operating point was found for this network: the feeders may be too weak for the power and reactive power they must carry (voltage collapse), or the regulator settings too far apart. Check feeder impedances and voltage setpoints.',
+  );
 }
 
 function allDroopAtMax(w: Work): boolean {
@@ -411,6 +561,14 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
     isoHi: 0,
     targetW: 0,
     targetD: 0,
+    lps: 0,
+    lqs: 0,
+    lA: 0,
+    lB: 0,
+    lE: 0,
+    le1: 0,
+    le2: 0,
+    zScale: 1,
   };
   for (let i = 0; i < n; i++) w.sBaseVA += m.ratedKVA[i]! * 1000;
   const cross = hasUnit && m.reg[m.voltageUnit[0]!] === REG_CROSS;
@@ -431,9 +589,20 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
   const { lo, hi } = m.isoGroup.length > 0 ? isoLambdaRange(m) : { lo: 0, hi: 0 };
   w.isoLo = lo;
   w.isoHi = hi;
+  // The closed forms suggest whether the isochronous group holds frequency; feeder losses
+  // can change that, so the other states are tried when the suggested one fails or
+  // contradicts itself (a saturated group whose frequency lands on the wrong side of its setpoint).
+  const tried: IsoState[] = [];
+  let firstError: EngineError | null = null;
   let isoState: IsoState = start.isoState;
   let iterations = 0;
-  for (let attempt = 0; attempt < 3; attempt++) {
+  const nextUntried = (): IsoState | null => {
+    if (m.isoGroup.length === 0) return null;
+    for (const s of ['holding', 'at-max', 'at-min'] as const) if (!tried.includes(s)) return s;
+    return null;
+  };
+  for (;;) {
+    tried.push(isoState);
     init();
     if (isoState === 'holding') {
       w.isoMode = true;
@@ -449,7 +618,17 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
       w.isoLambdaFixed = isoState === 'at-max' ? hi : lo;
       w.y[0] = start.frequencyHz;
     }
-    iterations += iterate(w);
+    let next: IsoState | null = null;
+    try {
+      iterations += iterateWithContinuation(w);
+    } catch (e) {
+      if (!(e instanceof EngineError)) throw e;
+      firstError ??= e;
+      next = nextUntried();
+      if (next === null) throw firstError;
+      isoState = next;
+      continue;
+    }
     if (w.isoMode) {
       const lambda = w.y[0]!;
       if (lambda > hi + 1e-12 || lambda < lo - 1e-12) {
@@ -463,21 +642,18 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
               : `The load (${Math.round(w.loadW / 1000)} kW) is less than the sets' minimum output: the isochronous set(s) ${ids} cannot back off further and frequency would rise until a set trips.`,
           );
         }
-        isoState = lambda > hi ? 'at-max' : 'at-min';
-        continue;
+        next = lambda > hi ? 'at-max' : 'at-min';
       }
-      isoState = 'holding';
     } else if (m.isoGroup.length > 0) {
       const f = w.y[0]!;
-      // Saturated at max but the frequency rose above the setpoint: the group can hold it after all.
-      if ((isoState === 'at-max' && f > m.isoSetpointHz) || (isoState === 'at-min' && f < m.isoSetpointHz)) {
-        isoState = 'holding';
-        continue;
-      }
+      if ((isoState === 'at-max' && f > m.isoSetpointHz) || (isoState === 'at-min' && f < m.isoSetpointHz)) next = 'holding';
     }
-    return finish(w, isoState, iterations);
+    if (next === null) return finish(w, isoState, iterations);
+    if (tried.includes(next)) {
+      throw firstError ?? new Diverged('The network solve could not decide whether the isochronous sets hold frequency (it switched back and forth). Check the isochronous setpoints and limits.');
+    }
+    isoState = next;
   }
-  throw new Diverged('The network solve could not decide whether the isochronous sets hold frequency (it switched back and forth). Check the isochronous setpoints and limits.');
 }
 
 function finish(w: Work, isoState: IsoState, iterations: number): OperatingPoint {
