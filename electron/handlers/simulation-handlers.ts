@@ -96,7 +96,7 @@ export const scenarioSchema: z.ZodType<Scenario> = z
     format: z.literal(SCENARIO_FORMAT, { error: `must be "${SCENARIO_FORMAT}"` }).optional(),
     version: z.literal(SCENARIO_VERSION, { error: `must be ${SCENARIO_VERSION} (this version of Droopline reads scenarios of version ${SCENARIO_VERSION})` }).optional(),
     name: z.string({ error: 'must be text' }).optional(),
-    plant: plantSchema,
+    plant: plantSchema.optional(),
     plantFile: z.string({ error: 'must be text' }).optional(),
     durationS: positive('s').lte(MAX_DURATION_S, `must be ${MAX_DURATION_S} s or less`),
     stepMs: positive('ms').gte(0.01, 'must be 0.01 ms or more').lte(MAX_STEP_MS, `must be ${MAX_STEP_MS} ms or less`).default(1),
@@ -106,13 +106,22 @@ export const scenarioSchema: z.ZodType<Scenario> = z
   })
   .strict()
   .superRefine((s, ctx) => {
-    const setIds = new Set(s.plant.sets.map((x) => x.id));
-    const loadIds = new Set(s.plant.loads.map((x) => x.id));
+    if (!s.plant) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['plant'],
+        message: s.plantFile !== undefined ? `is required here: plantFile ("${s.plantFile}") is read by the command line only` : 'is required',
+      });
+      return;
+    }
+    const plant = s.plant;
+    const setIds = new Set(plant.sets.map((x) => x.id));
+    const loadIds = new Set(plant.loads.map((x) => x.id));
     const steps = (s.durationS * 1000) / s.stepMs;
     if (steps > MAX_STEPS)
       ctx.addIssue({ code: 'custom', path: ['stepMs'], message: `too small for ${s.durationS} s: the run would take more than ${MAX_STEPS.toLocaleString('en')} steps` });
     (s.startDeExcited ?? []).forEach((sid, i) => {
-      const set = s.plant.sets.find((x) => x.id === sid);
+      const set = plant.sets.find((x) => x.id === sid);
       if (!set) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `no set "${sid}" in the plant` });
       else if (set.online) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `set "${sid}" is on line; only an off-line set can start de-excited` });
     });

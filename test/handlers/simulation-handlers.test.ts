@@ -33,6 +33,8 @@ describe('simulate handler', () => {
 
   it.each([
     [{ durationS: undefined }, 'durationS: is required'],
+    [{ plant: undefined }, 'plant: is required'],
+    [{ plant: undefined, plantFile: 'works.plant.json' }, 'plant: is required here: plantFile ("works.plant.json") is read by the command line only'],
     [{ durationS: -1 }, 'durationS: must be greater than 0'],
     [{ durationS: 7200 }, 'durationS: must be 3600 s or less'],
     [{ stepMs: 50 }, 'stepMs: must be 20 ms or less'],

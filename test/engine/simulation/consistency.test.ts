@@ -14,7 +14,7 @@ import { demoPlant, makePlant, rawSet } from '../../helpers/plants';
 
 const block = { id: 'B', name: 'B', online: true, kW: 300, kVAR: 180, model: 'constant-power' as const, frequencySensitivity: 0 };
 
-function settlesOnSolver(plant: Plant, durationS: number, stepMs = 2, events: ScenarioEvent[] = [{ atS: 0.5, type: 'load-step', kW: block.kW, kVAR: block.kVAR }]): void {
+function settlesOnSolver(plant: Plant, durationS: number, stepMs = 5, events: ScenarioEvent[] = [{ atS: 0.5, type: 'load-step', kW: block.kW, kVAR: block.kVAR }]): void {
   const r = simulate({ plant, durationS, stepMs, events, outputPoints: 50 });
   const after = { ...plant, loads: [...plant.loads, block] };
   const ss = solveSharing(after);
@@ -69,7 +69,7 @@ describe('simulation run to rest agrees with solveSharing', () => {
 
   it('power-factor control set with a reactive-droop set (unequal feeders)', () => {
     const plant = makePlant([rawSet('A', feederA), rawSet('B', { regulator: { mode: 'power-factor', pf: 0.95 }, ...feederB })], [load(1000, 650)]);
-    settlesOnSolver(plant, 40, 4);
+    settlesOnSolver(plant, 40);
   });
 
   it('loads that follow frequency (frequencySensitivity)', () => {
