@@ -47,7 +47,8 @@ export function evaluateSync(c: SyncCase): SyncResult {
   if (bothLive && !(c.incoming.frequencyHz > 0)) throw new InvalidInput('incoming.frequencyHz: must be greater than 0 when the incoming set is live.');
 
   // On a dead side frequency and angle mean nothing: report zero slip rather than a meaningless number.
-  const slipHz = bothLive ? c.incoming.frequencyHz - c.bus.frequencyHz : 0;
+  // Rounded to 1 nHz so that 60.1 − 60 reads 0.1, not 0.10000000000000142 (far below any meter's resolution).
+  const slipHz = bothLive ? Math.round((c.incoming.frequencyHz - c.bus.frequencyHz) * 1e9) / 1e9 : 0;
   const angleNowDeg = wrapAngleDeg(c.incoming.angleDeg - (c.bus.angleDeg ?? 0));
   const voltageDifferenceV = c.incoming.voltageV - c.bus.voltageV;
   const voltageDifferencePct = (voltageDifferenceV / basis.voltageV) * 100;
