@@ -3,7 +3,7 @@
  * progress and cancel) from the current plant, the Transients scenarios and the Synchronizing
  * settings, and the last report for preview, print and export.
  */
-import { defineStore } from 'pinia';
+import { defineStore, getActivePinia } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import type { BuildReportRequest, ReportResult } from '../../shared-types';
 import { EngineCallError, engine, messageOf } from '../transport';
@@ -29,6 +29,16 @@ export function parseLoads(text: string): { loads: number[]; problem: string | n
   return { loads, problem: null };
 }
 
+/**
+ * The open project's name, read from the project store's state when that store exists (no
+ * import, so the report does not depend on the project-file machinery); null otherwise.
+ */
+function openProjectName(): string | null {
+  const state = getActivePinia()?.state.value as Record<string, { name?: unknown } | undefined> | undefined;
+  const name = state?.['project']?.name;
+  return typeof name === 'string' && name.trim() && name !== 'Untitled project' ? name.trim() : null;
+}
+
 /** Today's date as YYYY-MM-DD in local time. */
 function today(): string {
   const d = new Date();
@@ -38,7 +48,7 @@ function today(): string {
 
 export const useReportStore = defineStore('report', () => {
   const plantStore = usePlantStore();
-  /** Name printed as the title; blank uses the plant's name. */
+  /** Name printed as the title; blank uses the open project's name, else the plant's. */
   const projectName = ref('');
   const date = ref(today());
   const loadsText = ref(DEFAULT_REPORT_LOADS.join(', '));
@@ -64,7 +74,7 @@ export const useReportStore = defineStore('report', () => {
     const scenarios = useTransientsStore().snapshot();
     return {
       project: {
-        name: projectName.value.trim() || plant.name,
+        name: projectName.value.trim() || openProjectName() || plant.name,
         plant,
         scenarios: useScenarios.value && scenarios.length ? scenarios : undefined,
         sync: useSyncStore().snapshot(),

@@ -99,6 +99,14 @@ describe('transients and report in the browser preview', () => {
     const png = await download(page, 'report-png-droop-speed');
     expect(png.name).toMatch(/droop-speed\.png$/);
     await tall(page, 'report.png');
+    // Printing from the Report view prints the report alone (the shell's bars and the options hide).
+    await page.evaluate(() => document.body.classList.add('print-report'));
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.locator('header.top').evaluate((el) => getComputedStyle(el).display)).toBe('none');
+    expect(await page.locator('.controls').evaluate((el) => getComputedStyle(el).display)).toBe('none');
+    expect(await page1.evaluate((el) => el.shadowRoot!.querySelector('.caution')!.textContent)).toContain('planning and training only');
+    await page.screenshot({ path: join(ARTIFACTS, 'report-print.png') });
+    await page.emulateMedia({ media: 'screen' });
     expect(errors).toEqual([]);
   });
 });
