@@ -21,7 +21,7 @@ function baseCase(over: Partial<SyncCase> = {}, inc: Partial<SyncCase['incoming'
 describe('evaluateSync', () => {
   it('computes slip, period, advance angle and window for 0.1 Hz and 100 ms (REFERENCES.md §3)', () => {
     const r = evaluateSync(baseCase());
-    expectClose(r.slipHz, 0.1, { abs: 1e-9 });
+    expect(r.slipHz).toBe(0.1); // 60.1 − 60 Hz, rounded to 1 nHz (no 0.10000000000000142 in the output)
     expectClose(r.slipPeriodS!, 10, { rel: 1e-9 });
     expectClose(r.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms → 3.6°');
     expectClose(r.closeCommandAngleDeg, -3.6, { rel: 1e-9 });
