@@ -10,8 +10,14 @@
  */
 import { NoSteadyState } from '../errors';
 import { busLoadKW, busLoadKWLinear } from './bus-loads';
-import { GOV_BASE, GOV_DROOP, GOV_ISO } from './sharing-model';
+import * as codes from './sharing-model';
 import type { SharingModel } from './sharing-model';
+
+// Module-local copies: hot loops compare against plain constants, not live import bindings.
+const GOV_BASE = codes.GOV_BASE;
+const GOV_DROOP = codes.GOV_DROOP;
+const GOV_ISO = codes.GOV_ISO;
+
 
 /** How the isochronous group ended up: holding frequency, saturated, or absent. */
 export type IsoState = 'none' | 'holding' | 'at-max' | 'at-min';
@@ -24,6 +30,7 @@ export interface ActiveSolution {
 }
 
 const MAX_BISECTIONS = 200;
+const MAX_WALK = 30;
 
 /** Output of a droop or base-load set at frequency `f`, kW. */
 export function governorKW(m: SharingModel, i: number, f: number): number {
@@ -104,6 +111,30 @@ function fmtKW(v: number): string {
 }
 
 /**
+ * The exact balance frequency on the segment containing `f`: with the sets clamped as they
+ * are at `f`, Σ k_i (f_nl,i − f) + C = a_L + b_L (f − f_r). NaN if the segment is flat.
+ */
+function segmentSolve(m: SharingModel, voltageV: number, isoLambda: number | null, f: number): number {
+  let sumK = 0;
+  let sumKf = 0;
+  let fixed = 0;
+  for (let i = 0; i < m.n; i++) {
+    if (m.gov[i] === GOV_DROOP) {
+      const raw = m.slopeKWPerHz[i]! * (m.noLoadHz[i]! - f);
+      if (raw < m.maxKW[i]! && raw > m.minKW[i]!) {
+        sumK += m.slopeKWPerHz[i]!;
+        sumKf += m.slopeKWPerHz[i]! * m.noLoadHz[i]!;
+        continue;
+      }
+    }
+    fixed += m.gov[i] === GOV_ISO ? isoKW(m, i, isoLambda ?? 0) : governorKW(m, i, f);
+  }
+  const lin = busLoadKWLinear(m.loads, voltageV, f, m.ratedVoltageV, m.ratedFrequencyHz);
+  const den = sumK + lin.b;
+  return den > 0 ? (sumKf + fixed - lin.a + lin.b * m.ratedFrequencyHz) / den : NaN;
+}
+
+/**
  * Solves the frequency where droop (and base-load, and saturated isochronous) sets
  * meet the load at bus voltage `voltageV`. `isoKWFixed` is the isochronous group's
  * fixed output when saturated. Writes per-set kW into `p`.
@@ -131,36 +162,31 @@ function solveDroopFrequency(m: SharingModel, voltageV: number, isoLambda: numbe
       `The load (${fmtKW(busLoadKW(m.loads, voltageV, hi, vr, fr))}) is less than the sets' minimum output (${fmtKW(gen(hi))}): frequency would rise until a set trips. Take a set off line or lower the base-load settings.`,
     );
   }
-  let a = lo;
-  let b = hi;
-  for (let k = 0; k < MAX_BISECTIONS; k++) {
-    const mid = 0.5 * (a + b);
-    if (mid <= a || mid >= b) break;
-    // ≥: on a flat stretch of exact balance (every set at a limit) take its high-frequency
-    // end, where the droop lines actually meet the load.
-    if (h(mid) >= 0) a = mid;
-    else b = mid;
+  // Fast path: walk the droop segments (each step solves the balance exactly with the
+  // sets clamped where they are); usually settles in two or three steps.
+  const tolKW = 1e-12 * (Math.abs(gen(lo)) + busLoadKW(m.loads, voltageV, lo, vr, fr) + 1);
+  let f = 0.5 * (lo + hi);
+  for (let k = 0; k < MAX_WALK; k++) {
+    const next = segmentSolve(m, voltageV, isoLambda, f);
+    if (!Number.isFinite(next)) break;
+    const clamped = next < lo ? lo : next > hi ? hi : next;
+    if (clamped === f) break;
+    f = clamped;
   }
-  let f = 0.5 * (a + b);
-  // Exact finish: with the clamped sets fixed, Σ k_i (f_nl,i − f) + C = a_L + b_L (f − f_r).
-  let sumK = 0;
-  let sumKf = 0;
-  let fixed = 0;
-  for (let i = 0; i < m.n; i++) {
-    if (m.gov[i] === GOV_DROOP) {
-      const raw = m.slopeKWPerHz[i]! * (m.noLoadHz[i]! - f);
-      if (raw < m.maxKW[i]! && raw > m.minKW[i]!) {
-        sumK += m.slopeKWPerHz[i]!;
-        sumKf += m.slopeKWPerHz[i]! * m.noLoadHz[i]!;
-        continue;
-      }
+  if (!(Math.abs(h(f)) <= tolKW)) {
+    // Bisection, then the exact solve of the segment where it landed.
+    let a = lo;
+    let b = hi;
+    for (let k = 0; k < MAX_BISECTIONS; k++) {
+      const mid = 0.5 * (a + b);
+      if (mid <= a || mid >= b) break;
+      // ≥: on a flat stretch of exact balance (every set at a limit) take its high-frequency
+      // end, where the droop lines actually meet the load.
+      if (h(mid) >= 0) a = mid;
+      else b = mid;
     }
-    fixed += m.gov[i] === GOV_ISO ? isoKW(m, i, isoLambda ?? 0) : governorKW(m, i, f);
-  }
-  const lin = busLoadKWLinear(m.loads, voltageV, f, vr, fr);
-  const den = sumK + lin.b;
-  if (den > 0) {
-    const exact = (sumKf + fixed - lin.a + lin.b * fr) / den;
+    f = 0.5 * (a + b);
+    const exact = segmentSolve(m, voltageV, isoLambda, f);
     if (Number.isFinite(exact) && Math.abs(h(exact)) <= Math.abs(h(f))) f = exact;
   }
   for (let i = 0; i < m.n; i++) p[i] = m.gov[i] === GOV_ISO ? isoKW(m, i, isoLambda ?? 0) : governorKW(m, i, f);

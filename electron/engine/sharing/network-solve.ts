@@ -16,12 +16,21 @@
  * close the system.
  */
 import { Diverged, EngineError, NoSteadyState } from '../errors';
-import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF } from './sharing-model';
+import * as codes from './sharing-model';
 import type { SharingModel } from './sharing-model';
 import { governorKW, isoKW, isoLambdaRange } from './active-sharing';
 import type { IsoState } from './active-sharing';
 import { busLoadKVAR, busLoadKVARdV, busLoadKW, busLoadKWdV, busLoadKWLinear } from './bus-loads';
 import type { OperatingPoint } from './sharing-result';
+
+// Module-local copies: hot loops compare against plain constants, not live import bindings.
+const GOV_BASE = codes.GOV_BASE;
+const GOV_DROOP = codes.GOV_DROOP;
+const GOV_ISO = codes.GOV_ISO;
+const REG_CROSS = codes.REG_CROSS;
+const REG_DROOP = codes.REG_DROOP;
+const REG_PF = codes.REG_PF;
+
 
 const MAX_OUTER = 60;
 const MAX_INNER = 40;

@@ -11,8 +11,13 @@
  */
 import { NoSteadyState } from '../errors';
 import { busLoadKVAR, busLoadKVARQuadratic } from './bus-loads';
-import { REG_DROOP, REG_PF } from './sharing-model';
+import * as codes from './sharing-model';
 import type { SharingModel } from './sharing-model';
+
+// Module-local copies: hot loops compare against plain constants, not live import bindings.
+const REG_DROOP = codes.REG_DROOP;
+const REG_PF = codes.REG_PF;
+
 
 /** kVAR of a reactive-droop set at terminal voltage `voltageV`. */
 export function droopKVAR(m: SharingModel, i: number, voltageV: number): number {
