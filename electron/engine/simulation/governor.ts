@@ -62,8 +62,9 @@ export function governorDerivatives(m: SimModel, i: number, o: number, y: Float6
     demand = -MOTORING_PU * kw * (w > 0 ? Math.min(1, w) : 0);
   } else {
     const mode = m.govMode[i]!;
-    // Off line the governor can always back off to no load.
-    const lo = m.online[i] ? m.minPU[i]! : Math.min(0, m.minPU[i]!);
+    // Off line the governor may cut the fuel completely: the engine's own losses then
+    // slow it down (net output −MOTORING_PU). On line it keeps to minKW.
+    const lo = m.online[i] ? m.minPU[i]! : -MOTORING_PU;
     const hi = m.maxPU[i]!;
     let u: number;
     if (mode === GOV_DROOP) {

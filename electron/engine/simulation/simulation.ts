@@ -56,6 +56,8 @@ function wrapDeg(rad: number): number {
 class Run implements Simulation {
   readonly stepS: number;
   private k = 0;
+  /** Time `advance` has been asked to reach, s (kept apart from k·h so frame times do not drift). */
+  private targetS = 0;
   private readonly m: SimModel;
   private readonly y: Float64Array;
   private readonly out: Outputs;
@@ -257,7 +259,10 @@ class Run implements Simulation {
 
   advance(seconds: number): void {
     if (!(seconds >= 0)) throw new InvalidInput('advance: seconds must be 0 or more.');
-    const target = Math.round((this.timeS + seconds) / this.stepS);
+    // Re-anchor only when stepped past the target by other means (`steps`), not by rounding.
+    if (this.targetS < this.timeS - 0.5 * this.stepS) this.targetS = this.timeS;
+    this.targetS += seconds;
+    const target = Math.round(this.targetS / this.stepS);
     while (this.k < target) this.step();
   }
 
