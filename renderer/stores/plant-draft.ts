@@ -22,16 +22,23 @@ export type LoadDraft = Editable<Load>;
 /** One step of a field path: a property name or a list index. */
 export type PathStep = string | number;
 
+/** Parsed paths: every editor field asks on every edit, so each path is split once. */
+const parsed = new Map<string, PathStep[]>();
+
 /**
  * Splits a field path as the engine writes it (`sets[1].governor.droopPct`) into steps.
  * The same string names the field in the editor, so issues map to fields by equality.
  */
-export function parsePath(path: string): PathStep[] {
+export function parsePath(path: string): readonly PathStep[] {
+  const known = parsed.get(path);
+  if (known) return known;
   const steps: PathStep[] = [];
   for (const m of path.matchAll(/([^.[\]]+)|\[(\d+)\]/g)) {
     if (m[2] !== undefined) steps.push(Number(m[2]));
     else if (m[1] !== undefined) steps.push(m[1]);
   }
+  if (parsed.size > 5000) parsed.clear();
+  parsed.set(path, steps);
   return steps;
 }
 

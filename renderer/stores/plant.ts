@@ -97,7 +97,8 @@ export const usePlantStore = defineStore('plant', () => {
       const valid = await engine().call('validatePlant', { plant: candidate });
       if (candidate !== draft.value) return;
       plant.value = valid;
-      draftIssues.value = [];
+      // Replaced only when there were some: every field watches this list.
+      if (draftIssues.value.length) draftIssues.value = [];
       if (issuesFrom.value === 'edit') {
         issues.value = [];
         issuesFrom.value = null;

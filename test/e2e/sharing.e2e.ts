@@ -5,7 +5,7 @@
  * both views (light and dark) and the edit-to-result latency go to out/test-output/.
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { ARTIFACTS, launch, openPage } from './chromium';
@@ -73,6 +73,16 @@ describe('Plant and Sharing views in the browser preview', () => {
     await page.setViewportSize({ width: 1360, height: 1900 });
     await page.screenshot({ path: join(ARTIFACTS, 'sharing-view.png') });
     await page.setViewportSize({ width: 1360, height: 860 });
+
+    // Export CSV downloads a file carrying the shown bus frequency; copy says what it did.
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-csv').click()]);
+    expect(download.suggestedFilename()).toBe('kestrel-ford-water-treatment-works-demo-sharing.csv');
+    const csv = readFileSync((await download.path())!, 'utf8');
+    const busLine = csv.split('\r\n')[1]!.split(',');
+    expect(busLine[0]).toBe('bus frequency (Hz)');
+    expect(parseFloat(busLine[1]!).toFixed(3)).toBe(f1.toFixed(3));
+    await page.getByTestId('copy-text').click();
+    await expect.poll(() => page.getByTestId('export-note').textContent()).toMatch(/copied as text|clipboard is not available/);
     expect(errors).toEqual([]);
   });
 

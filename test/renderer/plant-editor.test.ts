@@ -87,6 +87,13 @@ describe('Plant editor', () => {
     window.dispatchEvent(new KeyboardEvent('keydown', { key: 'Z', ctrlKey: true, shiftKey: true }));
     await settle();
     expect((field(w, 'sets[2].governor.noLoadHz').element as HTMLInputElement).value).toBe('51.4');
+    // Ctrl+Z typed in a text field outside the Plant view is that field's own undo.
+    const elsewhere = document.createElement('input');
+    document.body.appendChild(elsewhere);
+    elsewhere.dispatchEvent(new KeyboardEvent('keydown', { key: 'z', ctrlKey: true, bubbles: true }));
+    await settle();
+    expect(usePlantStore().plant?.sets[2]?.governor.noLoadHz).toBe(51.4);
+    elsewhere.remove();
     await w.get('[data-test="undo"]').trigger('click');
     await settle();
     expect(usePlantStore().plant?.sets[2]?.governor.noLoadHz).toBe(51.1);

@@ -3,8 +3,13 @@
  * governor, regulator, machine data, feeder. Each row names the field by its path inside
  * a set (the engine's issue path is `sets[i].` + this key) and shows its unit.
  */
-import type { SetDraft } from '../../stores/plant-draft';
 import { TYPICAL_RANGES } from '../../stores/plant-draft';
+
+/** The modes of a set, which decide which of its fields are in use. */
+export interface SetModes {
+  governorMode: string;
+  regulatorMode: string;
+}
 
 /** A choice of a select row. */
 export interface Choice {
@@ -27,8 +32,8 @@ export interface SheetRow {
   step?: number;
   /** Typical range shown in the last column. */
   typical?: string;
-  /** When the field is not used by the set's current mode: a note saying when it is. */
-  unusedWhen?: (s: SetDraft) => string | null;
+  /** When the field is not used by the set's current modes: a note saying when it is. */
+  unusedWhen?: (s: SetModes) => string | null;
   /** A hint (title) explaining the field. */
   hint?: string;
 }
@@ -54,8 +59,8 @@ const regulatorModes: Choice[] = [
   { value: 'power-factor', label: 'power factor' },
 ];
 
-const govUnused = (used: string, ...modes: string[]) => (s: SetDraft) => (modes.includes(s.governor.mode) ? null : `used in ${used} mode`);
-const regUnused = (used: string, ...modes: string[]) => (s: SetDraft) => (modes.includes(s.regulator.mode) ? null : `used in ${used} mode`);
+const govUnused = (used: string, ...modes: string[]) => (s: SetModes) => (modes.includes(s.governorMode) ? null : `used in ${used} mode`);
+const regUnused = (used: string, ...modes: string[]) => (s: SetModes) => (modes.includes(s.regulatorMode) ? null : `used in ${used} mode`);
 
 /** The groups of the set sheet, top to bottom. */
 export const SET_GROUPS: readonly SheetGroup[] = [
