@@ -66,6 +66,19 @@ describe('ScenarioEditor validation', () => {
     expect(w.find('[data-test="scenario-issues"]').exists()).toBe(false);
   });
 
+  it('switches one of the plant\'s loads instead of adding a block', async () => {
+    const store = useTransientsStore();
+    const w = mount(ScenarioEditor);
+    await w.get('[data-test="event-loadId"]').setValue('L2');
+    expect(store.selected!.events[0]).toEqual({ atS: 1, type: 'load-step', loadId: 'L2', online: true });
+    expect(w.find('[data-test="event-kW"]').exists()).toBe(false);
+    await w.get('[data-test="event-online"]').setValue('off');
+    expect(store.selected!.events[0]).toMatchObject({ loadId: 'L2', online: false });
+    expect(store.issues).toEqual([]);
+    await w.get('[data-test="event-loadId"]').setValue('');
+    expect(store.selected!.events[0]).toEqual({ atS: 1, type: 'load-step', kW: 100, kVAR: 75 });
+  });
+
   it('checks every event type', () => {
     const plant = demoPlant();
     const issues = scenarioIssues(

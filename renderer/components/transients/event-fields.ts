@@ -6,18 +6,24 @@ export interface EventField {
   key: string;
   label: string;
   unit: string;
-  kind: 'number' | 'set' | 'load';
+  kind: 'number' | 'set' | 'load' | 'on-off';
   /** Optional numbers may be left blank (the engine then uses the set's present state). */
   optional?: boolean;
   step?: number;
   hint?: string;
+  /** Shown only when this holds for the event (e.g. kW only for a new block, not a plant load). */
+  when?: (event: Record<string, unknown>) => boolean;
 }
+
+const newBlock = (e: Record<string, unknown>) => e['loadId'] === undefined;
 
 /** Fields per event type, in the order shown (time is always first and not listed here). */
 export const EVENT_FIELDS: Readonly<Record<ScenarioEventType, readonly EventField[]>> = {
   'load-step': [
-    { key: 'kW', label: 'Active', unit: 'kW', kind: 'number', hint: 'negative sheds load' },
-    { key: 'kVAR', label: 'Reactive', unit: 'kVAR', kind: 'number' },
+    { key: 'loadId', label: 'Load', unit: '', kind: 'load', optional: true, hint: 'a new block, or one of the plant\'s loads switched on or off' },
+    { key: 'kW', label: 'Active', unit: 'kW', kind: 'number', hint: 'negative sheds load', when: newBlock },
+    { key: 'kVAR', label: 'Reactive', unit: 'kVAR', kind: 'number', when: newBlock },
+    { key: 'online', label: 'Switch', unit: '', kind: 'on-off', when: (e) => !newBlock(e) },
   ],
   trip: [{ key: 'setId', label: 'Set', unit: '', kind: 'set' }],
   close: [
