@@ -1,9 +1,11 @@
 /**
- * Closed-form stress of a synchronizing close on the incoming set: subtransient surge
- * current, its peak, and the synchronizing power and torque step (DESIGN.md,
- * "Sync-check case and closing surge").
+ * Closed-form stress of a synchronizing close on the trainer's incoming set: subtransient
+ * surge current, its peak, and the synchronizing power and torque step (DESIGN.md,
+ * "Sync-check case and closing surge"), computed by the synchronizing engine's
+ * `closingSurge` on the trainer's circuit (incoming X''d plus the running bus).
  */
 import type { TrainerBus, TrainerMachine } from '../../../shared-types';
+import { closingSurge } from '../sync/closing-surge';
 
 /** Stress of one close, per unit on the incoming set's base. */
 export interface ContactStress {
@@ -41,26 +43,31 @@ export function contactStress(
   speedPU = 1,
   busVoltagePU = 1,
 ): ContactStress {
-  const rad = (angleDeg * Math.PI) / 180;
-  const k = voltageRatio;
-  const xTotal = machine.xddpPU + busReactanceOnMachineBasePU(machine, bus);
-  const deltaVPU = busVoltagePU * Math.sqrt(Math.max(0, 1 + k * k - 2 * k * Math.cos(rad)));
-  const surgeCurrentPU = deltaVPU / xTotal;
-  const ratedCurrentA = (machine.ratedKVA * 1000) / (Math.sqrt(3) * machine.ratedVoltageV);
-  const rOverX = machine.raPU / xTotal;
-  const peakFactor = 1.02 + 0.98 * Math.exp(-3 * rOverX);
-  const powerStepPU = (k * busVoltagePU * busVoltagePU * Math.sin(rad)) / xTotal;
-  const torqueStepPU = powerStepPU / speedPU;
+  const loopXPU = machine.xddpPU + busReactanceOnMachineBasePU(machine, bus);
   // Base torque = rated kVA / mechanical speed; mechanical speed = 2π f / (poles / 2).
   const omegaMechRad = (2 * Math.PI * machine.ratedFrequencyHz) / (machine.poles / 2);
+  // The synchronizing engine's closing-surge formulas, on the trainer's circuit.
+  const r = closingSurge(
+    {
+      busVoltagePU,
+      incomingVoltagePU: busVoltagePU * voltageRatio,
+      loopXPU,
+      rOverX: machine.raPU / loopXPU,
+      baseCurrentA: (machine.ratedKVA * 1000) / (Math.sqrt(3) * machine.ratedVoltageV),
+      incomingKVA: machine.ratedKVA,
+      torqueBaseKNm: machine.ratedKVA / omegaMechRad,
+      speedPU,
+    },
+    angleDeg,
+  );
   return {
-    deltaVPU,
-    surgeCurrentPU,
-    surgeCurrentA: surgeCurrentPU * ratedCurrentA,
-    peakFactor,
-    peakCurrentA: peakFactor * Math.SQRT2 * surgeCurrentPU * ratedCurrentA,
-    powerStepPU,
-    torqueStepPU,
-    torqueStepKNm: (torqueStepPU * machine.ratedKVA) / omegaMechRad,
+    deltaVPU: r.deltaVPU,
+    surgeCurrentPU: r.surgeCurrentPU,
+    surgeCurrentA: r.surgeCurrentA,
+    peakFactor: r.peakFactor,
+    peakCurrentA: r.peakCurrentA,
+    powerStepPU: r.powerStepPU,
+    torqueStepPU: r.torqueStepPU,
+    torqueStepKNm: r.torqueStepKNm,
   };
 }
