@@ -28,8 +28,11 @@ export interface OperatingPoint {
 
 const SQRT3 = Math.sqrt(3);
 
-/** Steady-state frequency band beyond which a warning is given, % of rated [practice]. */
-export const FREQUENCY_WARN_PCT = 2.5;
+/**
+ * Frequency deviation beyond which a warning is given, % of rated [practice]: wide enough
+ * that sets in the usual 3–5 % droop at light load stay quiet.
+ */
+export const FREQUENCY_WARN_PCT = 5;
 /** Voltage band beyond which a warning is given, % of rated (ISO 8528-5 class G1 steady-state voltage deviation ±5 %). */
 export const VOLTAGE_WARN_PCT = 5;
 

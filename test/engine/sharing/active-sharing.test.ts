@@ -238,6 +238,18 @@ describe('solveSharing: isochronous, base load, offline', () => {
   });
 });
 
+describe('solveSharing: bus warnings', () => {
+  it('warns when frequency or voltage sits more than 5 % from rated, not inside the usual droop band', () => {
+    // Closed form: 10 % droop from 55 Hz at no load → 55 Hz (+10 %); 4 % droop from 52 Hz → 52 Hz (+4 %, quiet).
+    const wide = solveSharing(makePlant([droopSet('A', 1000, 10, 55)], load(0)));
+    expect(wide.warnings).toContain('Bus frequency 55.00 Hz is 10.0 % from rated (more than ±5 %).');
+    expect(solveSharing(makePlant([droopSet('A', 1000, 4, 52)], load(0))).warnings).toEqual([]);
+    // Reactive droop 4 % from 440 V (+10 %) at no reactive load.
+    const hi = solveSharing(makePlant([droopSet('A', 1000, 4, 52, { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 440 } })], load(100)));
+    expect(hi.warnings).toContain('Bus voltage 440 V is 10.0 % from rated (more than ±5 %).');
+  });
+});
+
 describe('solveSharing: no steady state', () => {
   const noSS = (fn: () => unknown, re: RegExp) => {
     let err: unknown;
