@@ -124,6 +124,8 @@ describe('SynchronizingView with the engine', () => {
     expect(sync.map!.anglesDeg).toHaveLength(37);
     expect(w.find('[data-test="closing-map"]').exists()).toBe(true);
     expect(w.get('[data-test="map-hover"]').text()).toContain('Point at the map');
+    await sync.computeMap(3, 19, 11);
+    expect(sync.map!.voltageDifferencePct).toBe(3);
     w.unmount();
   });
 
