@@ -6,7 +6,7 @@
  * each edit, and offers to restore that copy after a crash.
  */
 import { defineStore } from 'pinia';
-import { computed, ref, shallowRef, watch } from 'vue';
+import { computed, onScopeDispose, ref, shallowRef, watch } from 'vue';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { HostCommand, Project, RecentFile, RecoveryCopy } from '../../shared-types';
 import newPlant from '../demo/new-project.plant.json';
@@ -359,6 +359,10 @@ export const useProjectStore = defineStore('project', () => {
   watch(dirty, () => void pushDocumentState());
   watch(title, (t) => {
     if (typeof document !== 'undefined') document.title = t;
+  });
+
+  onScopeDispose(() => {
+    if (autosaveTimer) clearTimeout(autosaveTimer);
   });
 
   /** Writes the pending recovery copy at once (tests; before the page goes away). */

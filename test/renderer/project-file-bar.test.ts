@@ -55,7 +55,10 @@ describe('project file bar and dialogs', () => {
     setActivePinia(createPinia());
     setEngineClient(directClient());
   });
-  afterEach(() => setHostClient(undefined));
+  afterEach(() => {
+    useProjectStore().$dispose();
+    setHostClient(undefined);
+  });
 
   it('shows the project name and its state in words, and renames the project', async () => {
     setHostClient(memoryHost({ recovery: null, recent: [] }));

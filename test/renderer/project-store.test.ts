@@ -50,6 +50,8 @@ const { setupFiles } = await import('../../electron/files/setup-files');
 
 let dir: string;
 const me = {};
+/** Every store of the test, disposed after it so no watcher or autosave timer outlives the test. */
+let sessions: ReturnType<typeof useProjectStore>[] = [];
 
 /** A fresh app session: new stores, a new main-side service over the same folders. */
 function session(): ReturnType<typeof useProjectStore> {
@@ -67,7 +69,9 @@ function session(): ReturnType<typeof useProjectStore> {
   setActivePinia(createPinia());
   setEngineClient(directClient());
   setHostClient(createElectronHost(bridge));
-  return useProjectStore();
+  const project = useProjectStore();
+  sessions.push(project);
+  return project;
 }
 
 /** An accepted change to the plant (as the plant editor makes one). */
@@ -91,6 +95,8 @@ beforeEach(() => {
   h.win.closed = 0;
 });
 afterEach(() => {
+  for (const s of sessions) s.$dispose();
+  sessions = [];
   setHostClient(undefined);
   rmSync(dir, { recursive: true, force: true });
 });
@@ -165,7 +171,7 @@ describe('project store', () => {
     writeFileSync(file, projectText());
     const project = session();
     await project.start();
-    await project.openPath(file);
+    expect(await project.openPath(file), project.notice?.text).toBe(true);
     expect(useTransientsStore().scenarios.map((s) => s.name)).toEqual(['Pump start at 2 s']);
     expect(useTrainerStore().attempts).toHaveLength(1);
     useSyncStore().setBreakerClosingMs(95);
