@@ -79,6 +79,14 @@ describe('transients and report in the browser preview', () => {
     await expect.poll(() => page.getByTestId('run-status').textContent(), { timeout: 30_000 }).toContain('Run 2');
     await page.getByTestId('metrics-head-B').waitFor();
     await tall(page, 'transients-compare.png');
+    await page.emulateMedia({ colorScheme: 'dark' });
+    await tall(page, 'transients-compare-dark.png');
+    await page.emulateMedia({ colorScheme: 'light' });
+    // A blank required field is named with its rule, and Run turns off.
+    await page.getByTestId('event-kW').fill('');
+    expect(await page.getByTestId('scenario-issues').textContent()).toContain('events[0].kW: must be a number');
+    expect(await page.getByTestId('run').isDisabled()).toBe(true);
+    await page.getByTestId('scenario-editor').screenshot({ path: join(ARTIFACTS, 'transients-editor-invalid.png') });
     expect(errors).toEqual([]);
   });
 
