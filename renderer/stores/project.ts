@@ -176,8 +176,10 @@ export const useProjectStore = defineStore('project', () => {
       backupOffer.value = origin.backupPath ?? null;
       return false;
     }
-    // Older project files save back in place; a plant, scenario or case file becomes a new project (Save As).
-    const keepPath = parsed.migratedFrom === null || parsed.migratedFrom.startsWith('a project file');
+    // Older project files save back in place; a plant, scenario or case file becomes a new project (Save As),
+    // and so does a backup (saving over the .bak would lose the copy the user came back for).
+    const isBackup = origin.path?.toLowerCase().endsWith('.bak') ?? false;
+    const keepPath = !isBackup && (parsed.migratedFrom === null || parsed.migratedFrom.startsWith('a project file'));
     if (!(await install(parsed.project, origin, keepPath))) return false;
     notice.value = parsed.notes.length
       ? { tone: 'info', text: `Opened "${label}". ${parsed.notes.join(' ')}` }
@@ -238,7 +240,11 @@ export const useProjectStore = defineStore('project', () => {
   function savedNotice(file: { fileName: string; savedAt: string; backupFileName: string | null }, downloaded: boolean): void {
     const at = new Date(file.savedAt).toLocaleTimeString();
     const where = downloaded ? `Downloaded "${file.fileName}"` : `Saved "${file.fileName}" at ${at}`;
-    notice.value = { tone: 'ok', text: file.backupFileName ? `${where}; the previous version is kept as "${file.backupFileName}".` : `${where}.` };
+    const kept = file.backupFileName ? `${where}; the previous version is kept as "${file.backupFileName}".` : `${where}.`;
+    // The plant editor may hold a draft with problems: the file has the last valid plant, and says so.
+    notice.value = plantStore.draftInvalid
+      ? { tone: 'info', text: `${kept} The plant editor has problems still to fix; the file holds the last valid plant.` }
+      : { tone: 'ok', text: kept };
   }
 
   async function afterSave(savedContent: string | null, file: { path: string | null; fileName: string }): Promise<void> {

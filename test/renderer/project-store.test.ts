@@ -219,6 +219,8 @@ describe('project store', () => {
     expect(project.backupOffer).toBe(`${file}.bak`);
     expect(await project.openPath(project.backupOffer!)).toBe(true);
     expect(project.name).toBe('Backed up');
+    // A backup opens as a new project: Save must not write over the .bak.
+    expect(project.path).toBeNull();
   });
 
   it('refuses a file from a newer version, saying so', async () => {
