@@ -7,6 +7,7 @@
  * and isochronous sharing), as implemented by the sharing solver.
  */
 import { describe, it } from 'vitest';
+import fc from 'fast-check';
 import { simulate, solveSharing } from '../../../electron/engine';
 import type { Plant, ScenarioEvent } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
@@ -75,5 +76,43 @@ describe('simulation run to rest agrees with solveSharing', () => {
   it('loads that follow frequency (frequencySensitivity)', () => {
     const plant = makePlant([rawSet('A'), rawSet('B')], [{ id: 'L', kW: 900, kVAR: 400, frequencySensitivity: 2 }]);
     settlesOnSolver(plant, 14);
+  });
+});
+
+describe('property: any droop plant comes to rest where solveSharing puts it', () => {
+  it('holds for random sizes, droops, setpoints, feeders and load steps', () => {
+    const setArb = fc.record({
+      kva: fc.integer({ min: 300, max: 2000 }),
+      droop: fc.double({ min: 2.5, max: 6, noNaN: true }),
+      dfHz: fc.double({ min: -0.3, max: 0.3, noNaN: true }),
+      qDroop: fc.double({ min: 3, max: 6, noNaN: true }),
+      dV: fc.double({ min: -4, max: 4, noNaN: true }),
+      xOhm: fc.double({ min: 0, max: 0.01, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(fc.array(setArb, { minLength: 2, maxLength: 4 }), fc.double({ min: 0.2, max: 0.5, noNaN: true }), fc.double({ min: -0.15, max: 0.2, noNaN: true }), (sets, loadFraction, stepFraction) => {
+        const raw = sets.map((x, i) =>
+          rawSet(`G${i + 1}`, {
+            ratedKVA: x.kva,
+            ratedKW: 0.8 * x.kva,
+            governor: { mode: 'droop', droopPct: x.droop, noLoadHz: 50 * (1 + x.droop / 100) + x.dfHz },
+            regulator: { mode: 'reactive-droop', droopPct: x.qDroop, noLoadV: 400 * (1 + x.qDroop / 100) + x.dV },
+            feeder: { rOhm: x.xOhm / 2, xOhm: x.xOhm },
+          }),
+        );
+        const ratedKW = sets.reduce((sum, x) => sum + 0.8 * x.kva, 0);
+        const plant = makePlant(raw, [load(loadFraction * ratedKW, 0.5 * loadFraction * ratedKW)]);
+        const stepKW = stepFraction * ratedKW;
+        const r = simulate({ plant, durationS: 14, stepMs: 5, outputPoints: 20, events: [{ atS: 0.5, type: 'load-step', kW: stepKW, kVAR: stepKW / 3 }] });
+        const ss = solveSharing({ ...plant, loads: [...plant.loads, { ...block, kW: stepKW, kVAR: stepKW / 3 }] });
+        expectClose(r.metrics.final.frequencyHz, ss.bus.frequencyHz, { abs: 0.003 }, 'bus frequency, Hz');
+        expectClose(r.metrics.final.voltageV, ss.bus.voltageV, { abs: 0.3 }, 'bus voltage, V');
+        ss.sets.forEach((x, i) => {
+          expectClose(r.metrics.final.sets[i]!.kW, x.kW, { abs: 1.5 }, `${x.id} kW`);
+          expectClose(r.metrics.final.sets[i]!.kVAR, x.kVAR, { abs: 1.5 }, `${x.id} kVAR`);
+        });
+      }),
+      { numRuns: 8, seed: 20261202 },
+    );
   });
 });
