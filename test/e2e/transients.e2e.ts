@@ -36,6 +36,16 @@ describe('transients and report in the browser preview', () => {
     await page.getByTestId('scenario-editor').waitFor();
     // A shorter run keeps the test quick: 6 s of the starter block-load step.
     await page.getByTestId('scenario-duration').fill('6');
+    // Drag the event's mark to the middle of the time line (3 s), then back to 1 s by typing.
+    const track = (await page.locator('[data-test="event-timeline"] .track').boundingBox())!;
+    const mark = (await page.getByTestId('timeline-mark-0').boundingBox())!;
+    await page.mouse.move(mark.x + mark.width / 2, mark.y + mark.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(track.x + track.width * 0.3, mark.y + mark.height / 2, { steps: 4 });
+    await page.mouse.move(track.x + track.width * 0.5, mark.y + mark.height / 2, { steps: 4 });
+    await page.mouse.up();
+    expect(Number(await page.getByTestId('event-at').inputValue())).toBeCloseTo(3, 1);
+    await page.getByTestId('event-at').fill('1');
     await page.getByTestId('run').click();
     await page.getByTestId('plot-frequency').waitFor({ timeout: 30_000 });
     await page.getByTestId('metrics-table').waitFor();

@@ -79,6 +79,18 @@ describe('ScenarioEditor validation', () => {
     expect(store.selected!.events[0]).toEqual({ atS: 1, type: 'load-step', kW: 100, kVAR: 75 });
   });
 
+  it('moves an event along the time line with the arrow keys and keeps events in time order', async () => {
+    const store = useTransientsStore();
+    const w = mount(ScenarioEditor);
+    store.addEvent('trip');
+    await flushPromises();
+    expect(store.selected!.events.map((e) => e.atS)).toEqual([1, 2]);
+    // Each arrow press moves 1 % of the 12 s run: 0.12 s.
+    for (let k = 0; k < 9; k++) await w.get('[data-test="timeline-mark-0"]').trigger('keydown', { key: 'ArrowRight' });
+    expect(store.selected!.events.map((e) => e.type)).toEqual(['trip', 'load-step']);
+    expect(store.selected!.events[1]!.atS).toBeCloseTo(2.08, 9);
+  });
+
   it('checks every event type', () => {
     const plant = demoPlant();
     const issues = scenarioIssues(
