@@ -1,6 +1,8 @@
 /** The `simulate` handler: the scenario schema's messages, progress and cancelling. */
 import { describe, expect, it } from 'vitest';
+import { simulate } from '../../electron/engine';
 import { dispatch } from '../../electron/handlers';
+import { scenarioSchema } from '../../electron/handlers/simulation-handlers';
 import { demoPlantJson } from '../helpers/plants';
 
 const scenario = (over: Record<string, unknown> = {}) => ({
@@ -29,6 +31,16 @@ describe('simulate handler', () => {
     expect(r.value.steps).toBe(2000);
     expect(r.value.series.setIds).toEqual(['G1', 'G2', 'G3']);
     expect(r.value.metrics.frequencyNadirHz).toBeLessThan(r.value.metrics.initial.frequencyHz);
+  });
+
+  it('gives the same result in chunks as the engine in one go', async () => {
+    const payload = scenario({ durationS: 3, outputPoints: 40 });
+    const r = await dispatch('simulate', payload);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const direct = simulate(scenarioSchema.parse(payload));
+    expect(r.value.metrics).toEqual(direct.metrics);
+    expect(r.value.series).toEqual(direct.series);
   });
 
   it.each([
