@@ -236,6 +236,21 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
     expect(r.sets[0]!.terminalAngleDeg).toBeGreaterThan(0);
   });
 
+  it('never mutates the plant (deep-frozen input solves the same)', () => {
+    const freeze = <T>(o: T): T => {
+      if (o && typeof o === 'object') {
+        Object.values(o).forEach(freeze);
+        Object.freeze(o);
+      }
+      return o;
+    };
+    const plant = makePlant([rawSet('A', { feeder: fA }), rawSet('B', { feeder: fB, governor: { mode: 'isochronous' } })], [{ id: 'L', kW: 900, kVAR: 400 }]);
+    const before = JSON.stringify(plant);
+    const r = solveSharing(freeze(plant));
+    expect(JSON.stringify(plant)).toBe(before);
+    expect(r.bus.frequencyHz).toBe(50);
+  });
+
   it('load plus losses beyond capability is no steady state', () => {
     const plant = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 1200, kVAR: 300 }]);
     expect(() => solveSharing(plant)).toThrow(NoSteadyState);
