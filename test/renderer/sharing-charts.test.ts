@@ -106,6 +106,20 @@ describe('share and sweep charts', () => {
     expect(d[2]!.data.map((p) => p.y)).toEqual(sweep.points.map((p) => p.setKW[1] ?? null));
   });
 
+  it('hatches each run of sweep points without an operating point', () => {
+    const plant = demoPlant();
+    const sweep = sweepLoad({ plant, steps: 12, fromPct: 0, toPct: 100 });
+    // Points blanked by hand: the first two and the last one.
+    const blank = (k: number) => k < 2 || k === 11;
+    const gappy = { ...sweep, points: sweep.points.map((p, k) => (blank(k) ? { ...p, frequencyHz: null } : p)) };
+    const c = sweepChart(plant, gappy, theme, null);
+    const boxes = (c.options?.plugins as { annotation: { annotations: Record<string, { xMin: number; xMax: number }> } }).annotation.annotations;
+    const x = sweep.points.map((p) => p.loadKW);
+    expect(boxes.none0).toMatchObject({ xMin: x[0], xMax: (x[1]! + x[2]!) / 2 });
+    expect(boxes.none1).toMatchObject({ xMin: (x[10]! + x[11]!) / 2, xMax: x[11] });
+    expect(Object.keys(boxes)).toHaveLength(2);
+  });
+
   it('rounds axis ranges outward to half powers of ten', () => {
     expect(niceRange([48.93, 51.38])).toEqual([48.5, 51.5]);
     expect(niceRange([391.2, 416.6])).toEqual([390, 420]);

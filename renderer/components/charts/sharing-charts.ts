@@ -267,7 +267,7 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
 /**
  * The load sweep: bus frequency (left axis) and each set's kW (right axis) against the
  * total load, with the load being shown marked. Points without a steady state are gaps,
- * and the range beyond the last operating point is hatched and labelled.
+ * hatched and labelled.
  */
 export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTheme, markKW: number | null): ChartConfiguration {
   const points = sweep?.points ?? [];
@@ -303,9 +303,18 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
     });
   });
   const fs = points.map((p) => p.frequencyHz).filter((v): v is number => v !== null);
-  // Where the sweep first finds no operating point (beyond capacity), shaded to the end.
-  const firstNone = points.findIndex((p, k) => p.frequencyHz === null && k > 0 && points[k - 1]?.frequencyHz !== null);
-  const noSteadyFromKW = firstNone > 0 ? (points[firstNone - 1]!.loadKW + points[firstNone]!.loadKW) / 2 : null;
+  // Each run of points without an operating point (beyond capacity, or below a base load
+  // the others cannot absorb) is hatched, from midway to its neighbours.
+  const gaps: { from: number; to: number }[] = [];
+  for (let k = 0; k < points.length; k++) {
+    if (points[k]!.frequencyHz !== null) continue;
+    let e = k;
+    while (e + 1 < points.length && points[e + 1]!.frequencyHz === null) e++;
+    const from = k > 0 ? (points[k - 1]!.loadKW + points[k]!.loadKW) / 2 : points[k]!.loadKW;
+    const to = e + 1 < points.length ? (points[e]!.loadKW + points[e + 1]!.loadKW) / 2 : points[e]!.loadKW;
+    gaps.push({ from, to });
+    k = e;
+  }
   const [fLo, fHi] = niceRange(paddedRange([...fs, plant.ratedFrequencyHz], 0.04, 0.5));
   return {
     type: 'scatter',
@@ -332,20 +341,21 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
         },
         annotation: {
           annotations: {
-            ...(noSteadyFromKW === null
-              ? {}
-              : {
-                  none: {
-                    type: 'box',
-                    xMin: noSteadyFromKW,
-                    xMax: points[points.length - 1]?.loadKW ?? noSteadyFromKW,
-                    xScaleID: 'x',
-                    yScaleID: 'f',
-                    backgroundColor: hatch(withAlpha(theme.bad, 0.45), 'transparent', 8),
-                    borderWidth: 0,
-                    label: { display: true, content: ['no steady', 'state'], position: { x: 'center', y: 'start' }, color: theme.bad, font: { size: 11 } },
-                  },
-                }),
+            ...Object.fromEntries(
+              gaps.map((g, k) => [
+                `none${k}`,
+                {
+                  type: 'box',
+                  xMin: g.from,
+                  xMax: g.to,
+                  xScaleID: 'x',
+                  yScaleID: 'f',
+                  backgroundColor: hatch(withAlpha(theme.bad, 0.45), 'transparent', 8),
+                  borderWidth: 0,
+                  label: { display: true, content: ['no steady', 'state'], position: { x: 'center', y: 'start' }, color: theme.bad, font: { size: 11 } },
+                },
+              ]),
+            ),
             ...(markKW === null
               ? {}
               : {
