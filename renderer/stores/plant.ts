@@ -51,6 +51,7 @@ export const usePlantStore = defineStore('plant', () => {
   const draftInvalid = computed(() => draftIssues.value.length > 0);
 
   async function describe(valid: Plant): Promise<void> {
+    if (plant.value !== valid) return; // a newer plant is on its way
     try {
       const d = await engine().call('describePlant', { plant: valid });
       if (plant.value === valid) description.value = d;
@@ -90,6 +91,8 @@ export const usePlantStore = defineStore('plant', () => {
     return load(structuredClone(demoPlant), 'demo plant');
   }
 
+  const describer = latestOnly(describe);
+
   // Validation of the draft: one request at a time, always for the newest draft.
   const validator = latestOnly(async (candidate: PlantDraft) => {
     if (candidate !== draft.value) return; // an older draft: a newer one is queued or done
@@ -106,7 +109,8 @@ export const usePlantStore = defineStore('plant', () => {
       error.value = null;
       revision.value++;
       dirty.value = true;
-      await describe(valid);
+      // Rated figures follow on their own queue, so the next edit's check need not wait.
+      void describer.push(valid);
     } catch (e) {
       if (candidate !== draft.value) return;
       const found = e instanceof EngineCallError ? e.issues : [];
@@ -200,8 +204,9 @@ export const usePlantStore = defineStore('plant', () => {
   }
 
   /** Resolves when the draft's validation (and the rated figures) are up to date. */
-  function settled(): Promise<void> {
-    return validator.settled();
+  async function settled(): Promise<void> {
+    await validator.settled();
+    await describer.settled();
   }
 
   return {
