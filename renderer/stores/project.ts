@@ -6,20 +6,20 @@
  * each edit, and offers to restore that copy after a crash.
  */
 import { defineStore } from 'pinia';
-import { computed, onScopeDispose, ref, shallowRef, watch } from 'vue';
+import { computed, ref, shallowRef, watch } from 'vue';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { HostCommand, Project, RecentFile, RecoveryCopy } from '../../shared-types';
 import newPlant from '../demo/new-project.plant.json';
 import { host } from '../host';
 import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
+import { useAutosave } from './project-autosave';
 import { projectParts } from './project-parts';
 import type { PartKey } from './project-parts';
 import { VIEWS, useUiStore } from './ui';
 import type { ViewId } from './ui';
 
-/** Wait after the last edit before the recovery copy is written, ms. */
-export const AUTOSAVE_DELAY_MS = 1500;
+export { AUTOSAVE_DELAY_MS } from './project-autosave';
 /** Name of a project that has none yet. */
 export const UNTITLED = 'Untitled project';
 
@@ -66,7 +66,6 @@ export const useProjectStore = defineStore('project', () => {
   const recovery = shallowRef<RecoveryCopy | null>(null);
   const recent = ref<RecentFile[]>([]);
   const question = shallowRef<UnsavedQuestion | null>(null);
-  const lastAutosaveAt = ref<string | null>(null);
   /** The recovery question is answered (or there was none): autosave may now replace the copy. */
   const recoveryResolved = ref(false);
   let started = false;
@@ -341,43 +340,21 @@ export const useProjectStore = defineStore('project', () => {
     }
   }
 
-  // Autosave: a moment after each edit, the recovery copy is replaced; once the project is
-  // clean again (saved, or edits undone) the copy goes.
-  let autosaveTimer: ReturnType<typeof setTimeout> | null = null;
-  async function writeRecoveryNow(): Promise<void> {
-    autosaveTimer = null;
-    const t = text();
-    if (!dirty.value || t === null) return;
-    try {
-      const r = await host().call('recoveryWrite', { projectName: name.value, path: path.value, fileName: fileName.value, text: t });
-      lastAutosaveAt.value = r.savedAt;
-    } catch (e) {
-      notice.value = { tone: 'error', text: `The recovery copy could not be kept: ${messageOf(e)}` };
-    }
-  }
-  watch([content, recoveryResolved], ([, resolved], [before]) => {
-    if (!resolved || !started) return;
-    if (autosaveTimer) clearTimeout(autosaveTimer);
-    autosaveTimer = null;
-    if (dirty.value) autosaveTimer = setTimeout(() => void writeRecoveryNow(), AUTOSAVE_DELAY_MS);
-    else if (before !== undefined && baseline.value !== null) void host().call('recoveryDiscard', {}).catch(() => null);
+  const { lastAutosaveAt, flushAutosave } = useAutosave({
+    content,
+    dirty,
+    enabled: recoveryResolved,
+    settled: () => started && baseline.value !== null,
+    copy: () => {
+      const t = text();
+      return t === null ? null : { projectName: name.value, path: path.value, fileName: fileName.value, text: t };
+    },
+    onError: (message) => (notice.value = { tone: 'error', text: message }),
   });
   watch(dirty, () => void pushDocumentState());
   watch(title, (t) => {
     if (typeof document !== 'undefined') document.title = t;
   });
-
-  onScopeDispose(() => {
-    if (autosaveTimer) clearTimeout(autosaveTimer);
-  });
-
-  /** Writes the pending recovery copy at once (tests; before the page goes away). */
-  async function flushAutosave(): Promise<void> {
-    if (autosaveTimer) {
-      clearTimeout(autosaveTimer);
-      await writeRecoveryNow();
-    }
-  }
 
   /**
    * Starts the project side of the app: listens to menu commands, puts the demo plant in
