@@ -16,8 +16,6 @@ import { usePlantStore } from './plant';
 
 /** Longest wall time one step may cover, s (the engine refuses more than 0.25 s). */
 const MAX_STEP_S = 0.2;
-/** Attempts kept in the log. */
-export const MAX_ATTEMPTS = 500;
 
 const wrap = (a: number): number => {
   let x = a % 360;
@@ -176,7 +174,7 @@ export const useTrainerStore = defineStore('trainer', () => {
     const p = plantStore.plant;
     const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}) });
     verdict.value = v;
-    attempts.value = [{ at: new Date().toISOString(), ...v.attempt }, ...attempts.value].slice(0, MAX_ATTEMPTS);
+    attempts.value = [{ at: new Date().toISOString(), ...v.attempt }, ...attempts.value];
   }
 
   /** Called every animation frame: starts a step when none is in flight. */
@@ -213,9 +211,9 @@ export const useTrainerStore = defineStore('trainer', () => {
     return attempts.value.map((a) => ({ ...a }));
   }
 
-  /** Restores the log from a project. */
+  /** Restores the log from a project (every attempt: the log is the user's record, never trimmed). */
   function restore(list: TrainerAttempt[]): void {
-    attempts.value = list.slice(0, MAX_ATTEMPTS).map((a) => ({ ...a }));
+    attempts.value = list.map((a) => ({ ...a }));
   }
 
   return {

@@ -173,4 +173,11 @@ describe('TrainerView driven by key presses', () => {
     expect(trainer.attempts[0]!.score).toBe(90);
     expect(trainer.summary).toEqual({ count: 1, best: 90, mean: 90 });
   });
+
+  it('never trims a long log: every attempt opened is saved again', () => {
+    const trainer = useTrainerStore();
+    const many: TrainerAttempt[] = Array.from({ length: 1200 }, (_, i) => ({ at: '2026-01-01T00:00:00.000Z', seed: i, level: 'steady', angleAtContactDeg: 2, slipAtContactHz: 0.05, voltageDifferencePct: 0.5, surgeCurrentPU: 0.2, torqueStepPU: 0.2, score: 50, verdict: 'Acceptable close.' }));
+    trainer.restore(many);
+    expect(trainer.snapshot().map((a) => a.seed)).toEqual(many.map((a) => a.seed));
+  });
 });
