@@ -8,7 +8,7 @@ const CAUTION =
   'Planning and training only: verify against makers\' data, protection studies, local codes and licensed practice.';
 
 function usage(): string {
-  const lines = commands.map((c) => `  ${c.usage.padEnd(52)} ${c.summary}`);
+  const lines = commands.map((c) => `  ${c.usage}\n      ${c.summary}`);
   return `droopline — paralleling and synchronizing generating sets\n\nusage:\n${lines.join('\n')}\n\nexit codes: 0 result, 2 invalid input, 3 no steady state\n${CAUTION}\n`;
 }
 
