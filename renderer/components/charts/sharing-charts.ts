@@ -3,10 +3,10 @@
  * and the chart theme. Pure: the same inputs give the same configuration (tests read the
  * datasets back). Every set keeps its colour, dash and point shape in every chart.
  */
-import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, TooltipItem } from 'chart.js';
 import type { LoadSweep, Plant, SharingResult } from '../../../shared-types';
 import { characteristicPoints, kVARBase, niceRange, paddedRange, reactiveDroopLine, speedDroopLine } from './droop-lines';
-import type { XY } from './droop-lines';
+import type { Characteristic, XY } from './droop-lines';
 import { hatch, seriesStyle, withAlpha } from './series-style';
 import type { ChartTheme } from './theme';
 
@@ -62,6 +62,75 @@ function hLine(y: number, color: string, text: string, theme: ChartTheme, dash: 
 }
 
 /**
+ * One set's characteristic line clipped to `yLo`–`yHi` and, when known, its operating
+ * point, in the set's colour, dash and point shape.
+ */
+function setDatasets(setId: string, what: string, styleIndex: number, c: Characteristic, yLo: number, yHi: number, point: XY | null, theme: ChartTheme): Scatter[] {
+  const st = seriesStyle(styleIndex, theme);
+  const datasets: Scatter[] = [
+    {
+      label: `${setId} ${what}`,
+      data: characteristicPoints(c, yLo, yHi),
+      showLine: true,
+      borderColor: st.color,
+      backgroundColor: st.color,
+      borderDash: st.dash,
+      borderWidth: 2,
+      pointRadius: 0,
+      pointStyle: st.pointStyle,
+    },
+  ];
+  if (point) {
+    datasets.push({
+      label: `${setId} operating point`,
+      data: [point],
+      borderColor: st.color,
+      backgroundColor: st.color,
+      pointStyle: st.pointStyle,
+      pointRadius: 6,
+      pointHoverRadius: 8,
+    });
+  }
+  return datasets;
+}
+
+/**
+ * A droop chart: the datasets on linear axes titled `xTitle` and `yTitle` (y fixed to
+ * `yLo`–`yHi`), tooltips from `tooltipLabel`, and the bus line when `bus` is given.
+ */
+function droopScatter(
+  theme: ChartTheme,
+  datasets: Scatter[],
+  axes: { xTitle: string; yTitle: string; yLo: number; yHi: number },
+  tooltipLabel: (ctx: TooltipItem<'scatter'>) => string,
+  bus: { y: number; text: string } | undefined,
+): ChartConfiguration {
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      scales: {
+        x: axis(theme, axes.xTitle),
+        y: axis(theme, axes.yTitle, { min: axes.yLo, max: axes.yHi }),
+      },
+      plugins: {
+        ...basePlugins(theme),
+        tooltip: {
+          animation: false,
+          callbacks: { label: tooltipLabel },
+        },
+        annotation: {
+          annotations: bus === undefined ? {} : { bus: hLine(bus.y, theme.fg, bus.text, theme) },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}
+
+/**
  * Speed-droop lines: frequency against kW for each online set, its operating point on
  * the line, and the common bus frequency drawn across.
  */
@@ -75,56 +144,19 @@ export function speedDroopChart(plant: Plant, result: SharingResult | null, them
   const [yLo, yHi] = niceRange(paddedRange(ys, 0.04, 0.5));
   const datasets: Scatter[] = [];
   online.forEach(({ s, i }, k) => {
-    const st = seriesStyle(i, theme);
     const c = lines[k];
     if (!c) return;
-    datasets.push({
-      label: `${s.id} ${s.governor.mode === 'droop' ? `droop ${s.governor.droopPct} %` : s.governor.mode === 'isochronous' ? 'isochronous' : 'base load'}`,
-      data: characteristicPoints(c, yLo, yHi),
-      showLine: true,
-      borderColor: st.color,
-      backgroundColor: st.color,
-      borderDash: st.dash,
-      borderWidth: 2,
-      pointRadius: 0,
-      pointStyle: st.pointStyle,
-    });
+    const what = s.governor.mode === 'droop' ? `droop ${s.governor.droopPct} %` : s.governor.mode === 'isochronous' ? 'isochronous' : 'base load';
     const r = result?.sets.find((x) => x.id === s.id);
-    if (r && busHz !== undefined) {
-      datasets.push({
-        label: `${s.id} operating point`,
-        data: [{ x: r.kW, y: busHz }],
-        borderColor: st.color,
-        backgroundColor: st.color,
-        pointStyle: st.pointStyle,
-        pointRadius: 6,
-        pointHoverRadius: 8,
-      });
-    }
+    datasets.push(...setDatasets(s.id, what, i, c, yLo, yHi, r && busHz !== undefined ? { x: r.kW, y: busHz } : null, theme));
   });
-  return {
-    type: 'scatter',
-    data: { datasets },
-    options: {
-      responsive: true,
-      maintainAspectRatio: false,
-      animation: false,
-      scales: {
-        x: axis(theme, 'Output (kW)'),
-        y: axis(theme, 'Frequency (Hz)', { min: yLo, max: yHi }),
-      },
-      plugins: {
-        ...basePlugins(theme),
-        tooltip: {
-          animation: false,
-          callbacks: { label: (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kW at ${fix(ctx.parsed.y ?? NaN, 3)} Hz` },
-        },
-        annotation: {
-          annotations: busHz === undefined ? {} : { bus: hLine(busHz, theme.fg, `bus ${fix(busHz, 3)} Hz`, theme) },
-        },
-      },
-    },
-  } as ChartConfiguration;
+  return droopScatter(
+    theme,
+    datasets,
+    { xTitle: 'Output (kW)', yTitle: 'Frequency (Hz)', yLo, yHi },
+    (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kW at ${fix(ctx.parsed.y ?? NaN, 3)} Hz`,
+    busHz === undefined ? undefined : { y: busHz, text: `bus ${fix(busHz, 3)} Hz` },
+  );
 }
 
 /**
@@ -150,56 +182,18 @@ export function reactiveDroopChart(plant: Plant, result: SharingResult | null, t
   const [yLo, yHi] = niceRange(paddedRange(ys, 0.04, 4));
   const datasets: Scatter[] = [];
   for (const { s, i, r, c } of prepared) {
-    const st = seriesStyle(i, theme);
     const mode = s.regulator.mode;
     const what =
       mode === 'reactive-droop' ? `reactive droop ${s.regulator.droopPct} %` : mode === 'cross-current' ? 'cross-current' : mode === 'voltage' ? 'voltage control' : `PF ${s.regulator.pf}`;
-    datasets.push({
-      label: `${s.id} ${what}`,
-      data: characteristicPoints(c, yLo, yHi),
-      showLine: true,
-      borderColor: st.color,
-      backgroundColor: st.color,
-      borderDash: st.dash,
-      borderWidth: 2,
-      pointRadius: 0,
-      pointStyle: st.pointStyle,
-    });
-    if (r) {
-      datasets.push({
-        label: `${s.id} operating point`,
-        data: [{ x: r.kVAR, y: r.terminalV }],
-        borderColor: st.color,
-        backgroundColor: st.color,
-        pointStyle: st.pointStyle,
-        pointRadius: 6,
-        pointHoverRadius: 8,
-      });
-    }
+    datasets.push(...setDatasets(s.id, what, i, c, yLo, yHi, r ? { x: r.kVAR, y: r.terminalV } : null, theme));
   }
-  return {
-    type: 'scatter',
-    data: { datasets },
-    options: {
-      responsive: true,
-      maintainAspectRatio: false,
-      animation: false,
-      scales: {
-        x: axis(theme, 'Reactive output (kVAR, + lagging)'),
-        y: axis(theme, 'Terminal voltage (V, line-to-line)', { min: yLo, max: yHi }),
-      },
-      plugins: {
-        ...basePlugins(theme),
-        tooltip: {
-          animation: false,
-          callbacks: { label: (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kVAR at ${fix(ctx.parsed.y ?? NaN, 1)} V` },
-        },
-        annotation: {
-          annotations: busV === undefined ? {} : { bus: hLine(busV, theme.fg, `bus ${fix(busV, 1)} V`, theme) },
-        },
-      },
-    },
-  } as ChartConfiguration;
+  return droopScatter(
+    theme,
+    datasets,
+    { xTitle: 'Reactive output (kVAR, + lagging)', yTitle: 'Terminal voltage (V, line-to-line)', yLo, yHi },
+    (ctx) => `${ctx.dataset.label ?? ''}: ${fix(ctx.parsed.x ?? NaN, 0)} kVAR at ${fix(ctx.parsed.y ?? NaN, 1)} V`,
+    busV === undefined ? undefined : { y: busV, text: `bus ${fix(busV, 1)} V` },
+  );
 }
 
 /**
