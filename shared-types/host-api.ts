@@ -86,6 +86,11 @@ export interface HostApi {
   documentState: Method<DocumentState, null>;
   /** The renderer finished a "save and close" (or the user chose not to save): close now. */
   windowClose: Method<Record<string, never>, null>;
+  /**
+   * Print a report page (self-contained HTML, no scripts) to PDF and save it where the user
+   * chooses; `null` when the user cancels. Electron only (Chromium's print to PDF).
+   */
+  reportSavePdf: Method<{ html: string; suggestedName: string }, SavedFile | null>;
 }
 
 export type HostMethod = keyof HostApi;
@@ -105,6 +110,7 @@ export const HOST_METHODS = [
   'recoveryDiscard',
   'documentState',
   'windowClose',
+  'reportSavePdf',
 ] as const satisfies readonly HostMethod[];
 
 /** Why a host call failed. */

@@ -99,7 +99,7 @@ export interface AtomicWriteOptions {
  * @returns the backup's path, or null when there was no previous file (or `backup` is false).
  * @throws the file system's error; the target and its backup are then as they were.
  */
-export async function writeFileAtomic(path: string, text: string, options: AtomicWriteOptions = {}): Promise<{ backupPath: string | null }> {
+export async function writeFileAtomic(path: string, text: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<{ backupPath: string | null }> {
   const steps = options.steps ?? nodeSaveSteps;
   const dir = dirname(path);
   const token = `${process.pid}-${randomBytes(4).toString('hex')}`;

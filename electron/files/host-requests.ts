@@ -22,4 +22,5 @@ export const hostRequestSchemas: { [K in HostMethod]: z.ZodType<HostRequest<K>> 
   recoveryDiscard: empty,
   documentState: z.object({ projectName: name, fileName: name.nullable(), path: path.nullable(), dirty: z.boolean({ error: 'must be true or false' }) }).strict(),
   windowClose: empty,
+  reportSavePdf: z.object({ html: text, suggestedName: name }).strict(),
 };

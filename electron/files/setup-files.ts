@@ -16,6 +16,7 @@ import { parseProject } from '../project';
 import { backupPathOf, nodeSaveSteps, writeFileAtomic } from './atomic-write';
 import type { SaveSteps } from './atomic-write';
 import { HostFailure, hostErrorOf } from './host-error';
+import { printHtmlToPdf } from './print-pdf';
 import { hostRequestSchemas } from './host-requests';
 import { addRecent, clearRecent, listRecent } from './recent-files';
 import { discardRecovery, readRecovery, writeRecovery } from './recovery-store';
@@ -45,6 +46,8 @@ export interface FilesOptions {
   steps?: SaveSteps;
   /** Clock (tests). */
   now?(): Date;
+  /** Renders report HTML to PDF bytes (tests replace Chromium's print engine). */
+  printPdf?(html: string): Promise<Uint8Array>;
 }
 
 /** What `main.ts` composes with the menu, the command line and the window. */
@@ -90,6 +93,7 @@ const TASK: Record<HostMethod, string> = {
   recoveryDiscard: 'remove the recovery copy',
   documentState: 'update the window',
   windowClose: 'close the window',
+  reportSavePdf: 'save the report as PDF',
 };
 
 type Runner = { [K in HostMethod]: (request: HostRequest<K>, sender: WebContents) => Promise<HostResponse<K>> };
@@ -212,6 +216,23 @@ export function setupFiles(options: FilesOptions): FilesService {
       }
       return null;
     }),
+    async reportSavePdf({ html, suggestedName }) {
+      const win = options.window();
+      const stem = suggestedName.replace(/[\\/:*?"<>|]+/g, '-').trim() || 'report';
+      const defaultPath = join(lastDir ?? (doc.path ? dirname(doc.path) : options.documentsDir), /\.pdf$/i.test(stem) ? stem : `${stem}.pdf`);
+      const dialogOptions = { title: 'Save report as PDF', defaultPath, filters: [{ name: 'PDF (*.pdf)', extensions: ['pdf'] }] };
+      const r = win ? await dialog.showSaveDialog(win, dialogOptions) : await dialog.showSaveDialog(dialogOptions);
+      if (r.canceled || !r.filePath) return null;
+      const path = /\.pdf$/i.test(r.filePath) ? r.filePath : `${r.filePath}.pdf`;
+      const pdf = await (options.printPdf ?? printHtmlToPdf)(html);
+      try {
+        await writeFileAtomic(path, pdf, { steps, backup: false });
+      } catch (e) {
+        throw hostErrorOf(e, 'save', path);
+      }
+      lastDir = dirname(path);
+      return { path, fileName: basename(path), savedAt: now().toISOString(), backupFileName: null };
+    },
     async windowClose() {
       const win = options.window();
       allowClose = true;

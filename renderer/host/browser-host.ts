@@ -230,6 +230,8 @@ export function createBrowserHost(win: Window & typeof globalThis = window): Hos
     },
     // A page cannot close its own tab; the store's "save and close" ends after the save.
     windowClose: async () => null,
+    reportSavePdf: async () =>
+      fail('UNAVAILABLE', 'The browser preview makes a PDF through Print… (choose "Save as PDF" in the print dialog).'),
   };
 
   return {

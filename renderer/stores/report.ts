@@ -6,6 +6,7 @@
 import { defineStore, getActivePinia } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import type { BuildReportRequest, ReportResult } from '../../shared-types';
+import { host } from '../host';
 import { EngineCallError, engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
 import { useSyncStore } from './sync';
@@ -116,5 +117,25 @@ export const useReportStore = defineStore('report', () => {
     controller?.abort();
   }
 
-  return { projectName, date, loadsText, loadPF, useScenarios, building, progress, progressLabel, error, result, loads, problems, canBuild, request, build, cancel };
+  /** Where the last PDF went, or why it could not be made. */
+  const pdfNote = ref<string | null>(null);
+  /** Electron prints to PDF itself; the browser preview goes through its print dialog. */
+  const canSavePdf = computed(() => host().kind === 'electron');
+
+  /** Prints the last report to PDF (Electron) and saves it where the user chooses. */
+  async function savePdf(): Promise<boolean> {
+    const r = result.value;
+    if (!r) return false;
+    pdfNote.value = null;
+    try {
+      const saved = await host().call('reportSavePdf', { html: r.html, suggestedName: r.fileStem });
+      if (saved) pdfNote.value = `Saved ${saved.fileName}.`;
+      return saved !== null;
+    } catch (e) {
+      pdfNote.value = e instanceof Error ? e.message : String(e);
+      return false;
+    }
+  }
+
+  return { projectName, date, loadsText, loadPF, useScenarios, building, progress, progressLabel, error, result, loads, problems, canBuild, request, build, cancel, pdfNote, canSavePdf, savePdf };
 });

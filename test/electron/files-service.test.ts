@@ -46,6 +46,8 @@ let win: InstanceType<typeof h.FakeWindow>;
 let service: Service;
 const me = { id: 'our window' };
 const recentSeen: unknown[] = [];
+/** Report pages handed to the (fake) print engine. */
+const printed: string[] = [];
 
 function start(): Service {
   h.handles.clear();
@@ -56,6 +58,10 @@ function start(): Service {
     window: () => win as never,
     onRecentChanged: (files) => recentSeen.push(files),
     now: () => new Date('2026-12-02T03:00:00.000Z'),
+    printPdf: (html) => {
+      printed.push(html);
+      return Promise.resolve(new TextEncoder().encode('%PDF-1.7 test'));
+    },
   });
 }
 
@@ -73,6 +79,7 @@ beforeEach(() => {
   userData = join(dir, 'user-data');
   win = new h.FakeWindow();
   recentSeen.length = 0;
+  printed.length = 0;
   vi.clearAllMocks();
   service = start();
 });
@@ -149,6 +156,22 @@ describe('file service (Electron main)', () => {
     expect((await call('fileSave', { path: saved.path, text: projectText() })).ok).toBe(true);
     h.dialog.showSaveDialog.mockResolvedValue({ canceled: true, filePath: '' });
     expect(await value('fileSaveAs', { suggestedName: 'x', text: projectText() })).toBeNull();
+  });
+
+  it('saves a report as PDF where the user chooses, adding .pdf, and returns null on cancel', async () => {
+    h.dialog.showSaveDialog.mockResolvedValue({ canceled: false, filePath: join(dir, 'works report') });
+    const saved = await value<{ path: string; backupFileName: string | null }>('reportSavePdf', { html: '<h1>Report</h1>', suggestedName: 'works: report' });
+    expect(saved.path).toBe(join(dir, 'works report.pdf'));
+    expect(saved.backupFileName).toBeNull();
+    expect(readFileSync(saved.path, 'utf8')).toBe('%PDF-1.7 test');
+    expect(printed).toEqual(['<h1>Report</h1>']);
+    expect(h.dialog.showSaveDialog.mock.calls[0]![1].defaultPath).toBe(join(dir, 'works- report.pdf'));
+    h.dialog.showSaveDialog.mockResolvedValue({ canceled: true, filePath: '' });
+    expect(await value('reportSavePdf', { html: '<p></p>', suggestedName: 'x' })).toBeNull();
+    expect(printed).toHaveLength(1);
+    const bad = await call('reportSavePdf', { html: 5, suggestedName: 'x' });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.error.message).toBe('html: must be text');
   });
 
   it('reports a full disk in words and keeps the file', async () => {
