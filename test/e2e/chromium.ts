@@ -1,7 +1,9 @@
 /** Launches Debian's Chromium for the e2e tests (flags that work as root, offline). */
+import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { chromium, selectors } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
@@ -23,6 +25,25 @@ export async function launch(): Promise<Browser> {
       '--disable-sync',
     ],
   });
+}
+
+/**
+ * Registers the suite's hooks: before its tests, makes the artefact folder and launches
+ * Chromium; after them, closes it. Returns the running browser (throws before launch).
+ */
+export function useBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error('Chromium is not running: useBrowser() launches it in beforeAll.');
+    return browser;
+  };
 }
 
 /** Opens a page and collects page errors so a test can assert there were none. */

@@ -3,12 +3,12 @@
  * an edit marks the title, the autosaved copy survives a reload and is restored, and Save
  * As downloads a file that opens again with the same content.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync, readFileSync } from 'node:fs';
+import { describe, expect, inject, it } from 'vitest';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { parseProject } from '../../electron/project';
-import { ARTIFACTS, launch, openPage } from './chromium';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
 import { projectText } from '../helpers/projects';
 
 /** Drops a file on the window as a user would drag one from the file manager. */
@@ -26,17 +26,10 @@ async function dropFile(page: Page, fileName: string, text: string): Promise<voi
 }
 
 describe('project files in the browser preview', () => {
-  let browser: Browser;
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await launch();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('opens a dropped project, marks unsaved changes, restores them after a reload and downloads Save As', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     // Save As downloads here (no save picker), as in browsers without the File System Access API.
     await page.addInitScript(() => {
       delete (window as unknown as Record<string, unknown>).showSaveFilePicker;

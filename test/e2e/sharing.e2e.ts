@@ -4,11 +4,11 @@
  * the load slider recomputes, a refused field keeps the last valid results; screenshots of
  * both views (light and dark) and the edit-to-result latency go to out/test-output/.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { describe, expect, inject, it } from 'vitest';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { ARTIFACTS, launch, openPage } from './chromium';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
 import { demoPlant } from '../helpers/plants';
 
 const num = async (page: Page, testId: string): Promise<number> => parseFloat((await page.getByTestId(testId).first().textContent()) ?? 'NaN');
@@ -30,17 +30,10 @@ function droopBusHz(sets: { ratedKW: number; droopPct: number; noLoadHz: number 
 }
 
 describe('Plant and Sharing views in the browser preview', () => {
-  let browser: Browser;
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await launch();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('moves the bus frequency by what the droop lines predict when a droop % is edited', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.getByTestId('set-sheet').waitFor();
     await expect.poll(() => page.getByTestId('plant-bus').textContent()).toContain('Hz');
 
@@ -87,7 +80,7 @@ describe('Plant and Sharing views in the browser preview', () => {
   });
 
   it('recomputes while the load slider moves and keeps the last valid results for a refused field', async () => {
-    const { page, errors } = await openPage(browser, `${inject('previewUrl')}#/sharing`);
+    const { page, errors } = await openPage(browser(), `${inject('previewUrl')}#/sharing`);
     await page.getByTestId('sharing-table').waitFor();
     const f0 = await num(page, 'bus-frequency');
     const slider = page.getByTestId('load-slider');
@@ -117,7 +110,7 @@ describe('Plant and Sharing views in the browser preview', () => {
   });
 
   it('screenshots the plant editor and the dark theme, and measures edit-to-result time', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.setViewportSize({ width: 1360, height: 2250 });
     await page.getByTestId('set-sheet').waitFor();
     await expect.poll(() => page.getByTestId('plant-bus').textContent()).toContain('Hz');

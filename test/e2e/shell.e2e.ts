@@ -1,21 +1,12 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, inject, it } from 'vitest';
 import { join } from 'node:path';
-import type { Browser } from 'playwright-core';
-import { ARTIFACTS, launch, openPage } from './chromium';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
 
 describe('browser preview shell', () => {
-  let browser: Browser;
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await launch();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('loads the demo plant, shows engine figures and the caution, switches views', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.getByTestId('rated-table').waitFor();
     // 1250 kVA at 400 V: I = S / (√3 V) = 1804.2 A (closed form), computed by the engine in the Web Worker.
     await expect.poll(() => page.locator('[data-test="rated-row-G1"] [data-test="rated-current"]').textContent()).toBe('1804.2');

@@ -4,11 +4,11 @@
  * both views, and the frame times of the live scopes (printed, not asserted: speed is a
  * measurement, not a test).
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { ARTIFACTS, launch, openPage } from './chromium';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
 
 interface FrameRecord {
   workMs: number[];
@@ -53,24 +53,19 @@ async function measureFrames(page: Page, name: string, seconds: number): Promise
 }
 
 describe('Synchronizing and Trainer in the browser preview', () => {
-  let browser: Browser;
+  const browser = useBrowser();
   const figures: string[] = [];
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await launch();
-  });
-  afterAll(async () => {
+  afterAll(() => {
     if (figures.length) {
       const text = `Live scope frame times, headless Chromium (${new Date().toISOString()}):\n${figures.join('\n')}\n`;
       writeFileSync(join(ARTIFACTS, 'live-scope-frames.txt'), text);
       console.log(text);
     }
-    await browser?.close();
   });
 
   it('turns the scope, shows the permissive state, computes and hovers the closing map', async () => {
     const base = inject('previewUrl');
-    const { page, errors } = await openPage(browser, `${base}?measure-frames#/synchronizing`);
+    const { page, errors } = await openPage(browser(), `${base}?measure-frames#/synchronizing`);
     await page.getByTestId('synchronizing-view').waitFor();
     await expect.poll(() => page.getByTestId('permissive').textContent()).toMatch(/Permissive|Blocked/);
     const a1 = await page.getByTestId('readout-angle').locator('[data-test="readout-value"]').textContent();
@@ -98,7 +93,7 @@ describe('Synchronizing and Trainer in the browser preview', () => {
 
   it('runs a trainer exercise from the keyboard to a close and shows the verdict and the log', async () => {
     const base = inject('previewUrl');
-    const { page, errors } = await openPage(browser, `${base}?measure-frames#/trainer`);
+    const { page, errors } = await openPage(browser(), `${base}?measure-frames#/trainer`);
     await page.getByTestId('trainer-view').waitFor();
     await expect.poll(() => page.getByTestId('trainer-state').textContent()).toMatch(/window/);
     expect(await page.getByTestId('trainer-caution').textContent()).toContain('not an authorisation to operate');

@@ -1,8 +1,8 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { mkdirSync, readFileSync } from 'node:fs';
+import { describe, expect, inject, it } from 'vitest';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { ARTIFACTS, launch, openPage } from './chromium';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
 
 async function download(page: Page, testId: string): Promise<{ name: string; text: string }> {
   const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testId).click()]);
@@ -20,17 +20,10 @@ async function tall(page: Page, name: string): Promise<void> {
 }
 
 describe('transients and report in the browser preview', () => {
-  let browser: Browser;
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    browser = await launch();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('runs a scenario, plots it, zooms, reads the cursor and exports CSV', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.getByTestId('rated-table').waitFor();
     await page.getByTestId('nav-transients').click();
     await page.getByTestId('scenario-editor').waitFor();
@@ -101,7 +94,7 @@ describe('transients and report in the browser preview', () => {
   });
 
   it('builds the report, shows every section and exports a table as CSV', async () => {
-    const { page, errors } = await openPage(browser, inject('previewUrl'));
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.getByTestId('rated-table').waitFor();
     await page.getByTestId('nav-report').click();
     await page.getByTestId('report-use-scenarios').uncheck();
