@@ -5,7 +5,7 @@
  * that all derivatives are zero. Off-line sets start unloaded at their own no-load
  * speed and voltage (or de-excited, when asked).
  */
-import type { Plant } from '../../../shared-types';
+import type { Plant, SharingResult } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { ACTUATOR, AVR_INT, DELTA, ED2, EFD, EQ1, EQ2, GOV_INT, OMEGA, PMECH, STATES_PER_SET, VAR_TRIM } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from './codes';
@@ -37,14 +37,20 @@ export function initialiseOffline(m: SimModel, i: number, y: Float64Array, deExc
  * Sets listed in `deExcited` (off-line) start with no field flux.
  * @throws NoSteadyState (from the sharing solver) when the on-line plant has no operating point.
  */
-export function initialiseAtRest(m: SimModel, plant: Plant, y: Float64Array, deExcited: ReadonlySet<string>): { busPU: number; frequencyPU: number } {
+export function initialiseAtRest(
+  m: SimModel,
+  plant: Plant,
+  y: Float64Array,
+  deExcited: ReadonlySet<string>,
+  atRest?: SharingResult,
+): { busPU: number; frequencyPU: number } {
   let anyOnline = false;
   for (let i = 0; i < m.n; i++) {
     if (m.online[i]) anyOnline = true;
     else initialiseOffline(m, i, y, deExcited.has(m.ids[i]!));
   }
   if (!anyOnline) return { busPU: 0, frequencyPU: 1 };
-  const op = solveSharing(plant);
+  const op = atRest ?? solveSharing(plant);
   const vb = op.bus.voltageV / m.ratedVoltageV;
   const w = op.bus.frequencyHz / m.ratedFrequencyHz;
   const byId = new Map(op.sets.map((s) => [s.id, s]));

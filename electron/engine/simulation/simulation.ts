@@ -5,7 +5,7 @@
  * results recorded and decimated. Used by `simulate` for whole runs and by live views
  * (the operator trainer) a frame at a time.
  */
-import type { Scenario, ScenarioEvent, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
+import type { Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_DROOP } from './codes';
@@ -84,7 +84,10 @@ class Run implements Simulation {
   private lastV = 0;
   private collapsed = false;
 
-  constructor(private readonly scenario: Scenario) {
+  constructor(
+    private readonly scenario: Scenario,
+    atRest?: SharingResult,
+  ) {
     const stepMs = scenario.stepMs ?? DEFAULT_STEP_MS;
     if (!(stepMs > 0 && stepMs <= MAX_STEP_MS)) throw new InvalidInput(`stepMs: must be greater than 0 and at most ${MAX_STEP_MS} ms.`);
     if (!(scenario.durationS > 0 && Number.isFinite(scenario.durationS))) throw new InvalidInput('durationS: must be greater than 0.');
@@ -104,7 +107,7 @@ class Run implements Simulation {
       if (i < 0) throw new InvalidInput(`startDeExcited: there is no set "${id}" in the plant.`);
       if (m.online[i]) throw new InvalidInput(`startDeExcited: set "${id}" is on line; only an off-line set can start de-excited.`);
     }
-    const init = initialiseAtRest(m, plant, this.y, deExcited);
+    const init = initialiseAtRest(m, plant, this.y, deExcited, atRest);
     out.bus.re = init.busPU;
     out.bus.im = 0;
     this.events = [...scenario.events].sort((a, b) => a.atS - b.atS);
@@ -363,8 +366,10 @@ export interface SteppedSimulation extends Simulation {
  * Starts a simulation of `scenario` at rest (the on-line plant at its steady state,
  * from `solveSharing`). The scenario is copied where it matters; it is never mutated.
  * @throws InvalidInput for a step out of range or unknown set ids.
+ * @param atRest `solveSharing(scenario.plant)` when the caller already has it (many runs of one
+ *   plant, e.g. a time-domain closing map); it must be the solution of this very plant.
  * @throws NoSteadyState when the on-line plant has no operating point to start from.
  */
-export function createSimulation(scenario: Scenario): SteppedSimulation {
-  return new Run(scenario);
+export function createSimulation(scenario: Scenario, atRest?: SharingResult): SteppedSimulation {
+  return new Run(scenario, atRest);
 }

@@ -7,6 +7,7 @@
  */
 import type { ClosingMapRequest, Plant, Scenario } from '../../../shared-types';
 import { InvalidInput } from '../errors';
+import { solveSharing } from '../sharing';
 import { createSimulation } from '../simulation';
 import { iecPeakFactor } from './closing-surge';
 import { inWindow, setUpClosingMap } from './closing-map-grid';
@@ -46,8 +47,10 @@ export function timeDomainClosingMapJob(req: ClosingMapRequest): ClosingMapJob {
     outputPoints: Math.ceil((durationS * 1000) / TIME_DOMAIN_STEP_MS) + 4,
     events,
   });
+  // Every cell starts from the same steady state: solve it once, not once per cell.
+  const atRest = solveSharing(plant);
   // The bus as the simulator finds it at rest: slip and voltage difference are taken from there.
-  const rest = createSimulation(scenario([], 1)).snapshot();
+  const rest = createSimulation(scenario([], 1), atRest).snapshot();
   const busHz = rest.frequencyHz;
   const cycleS = 1 / busHz;
   const incomingV = rest.voltageV + (map.voltageDifferencePct / 100) * c.plant.ratedVoltageV;
@@ -69,6 +72,7 @@ export function timeDomainClosingMapJob(req: ClosingMapRequest): ClosingMapJob {
           const contactDeg = wrapAngleDeg(a + 360 * s * shiftS);
           const sim = createSimulation(
             scenario([{ atS: 0, type: 'close', setId, frequencyHz: busHz + s, voltageV: incomingV, angleDeg: contactDeg }], cycleS),
+            atRest,
           );
           sim.advance(cycleS);
           const series = sim.result().series;
