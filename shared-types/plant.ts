@@ -9,6 +9,26 @@ export const PLANT_FORMAT = 'droopline.plant' as const;
 /** Current plant file version. */
 export const PLANT_VERSION = 1 as const;
 
+/**
+ * Defaults of the per-set figures the plant file may leave out; the schema, the Plant view's
+ * new set and the engine all take them from here (one home).
+ */
+export const SET_DEFAULTS = {
+  /**
+   * Overload allowance of a prime-rated set: 110 % of rated kW for one hour in twelve
+   * (ISO 8528-1, prime power rating; value from memory — verify against the maker's rating).
+   */
+  overloadPct: 110,
+  /**
+   * Motoring power of a four-stroke diesel engine, % of rating: 25 % (IEEE C37.102, table of
+   * typical motoring power by prime mover; value from memory). A well run-in engine may draw
+   * much less; verify with the engine maker.
+   */
+  motoringPct: 25,
+  /** Reverse-power (32) delay, s: common practice 2–10 s for engine sets (value from memory). */
+  reversePowerDelayS: 3,
+} as const;
+
 /** How a set's governor controls speed. */
 export type GovernorMode = 'droop' | 'isochronous' | 'baseload';
 /** How a set's voltage regulator controls terminal voltage. */
@@ -102,6 +122,18 @@ export interface GenSet {
   minKW: number;
   /** Reverse-power trip setting (device 32), % of `ratedKW`. */
   reversePowerTripPct: number;
+  /** Reverse-power (device 32) time delay, s. Default `SET_DEFAULTS.reversePowerDelayS`. */
+  reversePowerDelayS: number;
+  /**
+   * Overload capability, % of `ratedKW`: the governor's fuel limit in every mode. Between
+   * `ratedKW` and this the set carries the `overload-kW` flag. Default `SET_DEFAULTS.overloadPct`.
+   */
+  overloadPct: number;
+  /**
+   * Motoring power, % of `ratedKW`: what the set draws from the bus at zero fuel (friction,
+   * pumping). The steady state and the simulator use this one figure. Default `SET_DEFAULTS.motoringPct`.
+   */
+  motoringPct: number;
   /** Under-excitation (leading kVAR) warning limit, % of `ratedKVA`. */
   leadingKVARLimitPct: number;
   governor: Governor;

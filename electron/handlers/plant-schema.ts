@@ -3,7 +3,7 @@
  * "field: rule" message. Optional simulator fields get documented defaults.
  */
 import { z } from 'zod';
-import { PLANT_FORMAT, PLANT_VERSION } from '../../shared-types';
+import { PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
 import type { Plant } from '../../shared-types';
 
 const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0');
@@ -67,6 +67,9 @@ const setSchema = z
     poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').multipleOf(2, 'must be even').default(4),
     minKW: finite('kW').default(0),
     reversePowerTripPct: nonNegative('%').lte(50, 'must be 50 % or less').default(10),
+    reversePowerDelayS: nonNegative('s').lte(60, 'must be 60 s or less').default(SET_DEFAULTS.reversePowerDelayS),
+    overloadPct: z.number({ error: 'must be a number (%)' }).gte(100, 'must be 100 % or more').lte(150, 'must be 150 % or less').default(SET_DEFAULTS.overloadPct),
+    motoringPct: nonNegative('%').lte(100, 'must be 100 % or less').default(SET_DEFAULTS.motoringPct),
     leadingKVARLimitPct: nonNegative('%').lte(100, 'must be 100 % or less').default(30),
     governor: governorSchema,
     regulator: regulatorSchema,

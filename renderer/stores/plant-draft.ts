@@ -4,6 +4,7 @@
  * so the undo history can keep old drafts by reference.
  */
 import type { GenSet, Load, Plant } from '../../shared-types';
+import { SET_DEFAULTS } from '../../shared-types';
 
 /** `T` with every number allowed to be `null` (an emptied field). */
 export type Editable<T> = T extends number
@@ -102,6 +103,9 @@ export function newSet(draft: PlantDraft): SetDraft {
     poles: 4,
     minKW: 0,
     reversePowerTripPct: 10,
+    reversePowerDelayS: SET_DEFAULTS.reversePowerDelayS,
+    overloadPct: SET_DEFAULTS.overloadPct,
+    motoringPct: SET_DEFAULTS.motoringPct,
     leadingKVARLimitPct: 30,
     governor: { mode: 'droop', droopPct: 4, noLoadHz: f * 1.04, setpointHz: f, baseKW: 0, loadSharingLink: true, actuatorLagS: 0.05, engineLagS: 0.3, isoResetS: 2 },
     regulator: {

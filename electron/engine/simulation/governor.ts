@@ -26,16 +26,6 @@ import type { Outputs } from './plant-dynamics';
  */
 export const ISO_GAIN_PU = 20;
 
-/**
- * Motoring power of a stopped-fuel engine (friction, pumping), pu of ratedKW: what a set
- * draws when its fuel is cut, and what decelerates a shut-down set. 8 % lies in the
- * 5–15 % range that reverse-power settings of diesels are chosen against (REFERENCES.md §4).
- */
-export const MOTORING_PU = 0.08;
-
-/** Reverse-power (device 32) time delay, s: inside the 2–10 s of REFERENCES.md §4 (common practice). */
-export const REVERSE_POWER_DELAY_S = 3;
-
 /** Base-load reference of set `i` at time `t`, pu of ratedKW, following a ramp if one runs. */
 export function baseReference(m: SimModel, i: number, t: number): number {
   const t0 = m.rampT0[i]!;
@@ -59,12 +49,12 @@ export function governorDerivatives(m: SimModel, i: number, o: number, y: Float6
   let demand: number;
   let dz = 0;
   if (m.shutdown[i]) {
-    demand = -MOTORING_PU * kw * (w > 0 ? Math.min(1, w) : 0);
+    demand = -m.motoringPU[i]! * kw * (w > 0 ? Math.min(1, w) : 0);
   } else {
     const mode = m.govMode[i]!;
     // Off line the governor may cut the fuel completely: the engine's own losses then
-    // slow it down (net output −MOTORING_PU). On line it keeps to minKW.
-    const lo = m.online[i] ? m.minPU[i]! : -MOTORING_PU;
+    // slow it down (net output −motoringPct of ratedKW, the plant's own figure). On line it keeps to minKW.
+    const lo = m.online[i] ? m.minPU[i]! : -m.motoringPU[i]!;
     const hi = m.maxPU[i]!;
     let u: number;
     if (mode === GOV_DROOP) {

@@ -80,6 +80,10 @@ export interface SimModel {
   rampFrom: Float64Array;
   rampTo: Float64Array;
   reverseTripPU: Float64Array;
+  /** Reverse-power (32) delay, s. */
+  reverseDelayS: Float64Array;
+  /** Motoring power at zero fuel, pu of ratedKW (the plant's `motoringPct`). */
+  motoringPU: Float64Array;
 
   // Regulator
   regMode: Int8Array;
@@ -128,7 +132,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     yRe: f(), yIm: f(), zfRe: f(), zfIm: f(),
     govMode: new Int8Array(n), isoLinked: new Uint8Array(n), droop: f(), noLoadPU: f(), setpointPU: f(),
     basePU: f(), minPU: f(), maxPU: f(), actuatorS: f(), engineS: f(), resetS: f(),
-    rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(),
+    rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(), reverseDelayS: f(), motoringPU: f(),
     regMode: new Int8Array(n), regDroop: f(), noLoadVPU: f(), setpointVPU: f(), tanPhi: f(),
     gainPU: f(), exciterS: f(), avrResetS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
     online: new Uint8Array(n), shutdown: new Uint8Array(n),
@@ -181,6 +185,8 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.rampT0[i] = Infinity;
     m.rampT1[i] = Infinity;
     m.reverseTripPU[i] = s.reversePowerTripPct / 100;
+    m.reverseDelayS[i] = s.reversePowerDelayS;
+    m.motoringPU[i] = s.motoringPct / 100;
 
     m.regMode[i] = r.mode === 'reactive-droop' ? REG_DROOP : r.mode === 'cross-current' ? REG_CROSS : r.mode === 'voltage' ? REG_VOLTAGE : REG_PF;
     m.regDroop[i] = r.droopPct / 100;

@@ -21,7 +21,6 @@ import type { EventTarget } from './events';
 import { Recorder } from './recorder';
 import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
-import { REVERSE_POWER_DELAY_S } from './governor';
 
 /** Default integration step, ms. */
 export const DEFAULT_STEP_MS = 1;
@@ -217,7 +216,7 @@ class Run implements Simulation {
       }
       if (this.out.pOwn[i]! < -limit) {
         this.reverseTimer[i] = this.reverseTimer[i]! + this.stepS;
-        if (this.reverseTimer[i]! >= REVERSE_POWER_DELAY_S - 1e-9) {
+        if (this.reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
           m.online[i] = 0;
           m.shutdown[i] = 1;
           this.reverseTimer[i] = 0;
@@ -225,7 +224,7 @@ class Run implements Simulation {
           const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
           this.logs.push({
             atS: t,
-            text: `${m.ids[i]} tripped on reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${REVERSE_POWER_DELAY_S} s`,
+            text: `${m.ids[i]} tripped on reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`,
           });
         }
       } else this.reverseTimer[i] = 0;

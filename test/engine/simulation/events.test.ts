@@ -1,6 +1,7 @@
 /** Scenario events and protection: trips, reverse power, ramps, motor starts, load switching, setpoints. */
 import { describe, expect, it } from 'vitest';
-import { createSimulation, InvalidInput, MOTORING_PU, REVERSE_POWER_DELAY_S, simulate, solveSharing, Cancelled } from '../../../electron/engine';
+import { createSimulation, InvalidInput, simulate, solveSharing, Cancelled } from '../../../electron/engine';
+import { SET_DEFAULTS } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 import { demoPlant, makePlant, rawSet } from '../../helpers/plants';
 
@@ -21,15 +22,16 @@ describe('simulation events', () => {
   });
 
   it('an engine trip with the breaker closed: the set motors until device 32 opens it', () => {
-    // B's engine stops; it then draws its motoring power (8 % of 1000 kW) from the bus, beyond
-    // its 5 % reverse-power setting, so the relay opens the breaker after its delay.
+    // B's engine stops; it then draws its motoring power (the default motoringPct of 1000 kW)
+    // from the bus, beyond its 5 % reverse-power setting, so the relay opens the breaker after
+    // its delay (the default reversePowerDelayS).
     const r = simulate({ plant: twoSets(), durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'trip', setId: 'B', openBreaker: false }] });
     const trip = r.log.find((l) => l.text.includes('reverse power'));
     expect(trip, 'reverse-power trip in the log').toBeDefined();
-    expect(trip!.atS).toBeGreaterThan(0.5 + REVERSE_POWER_DELAY_S);
-    expect(trip!.atS).toBeLessThan(0.5 + REVERSE_POWER_DELAY_S + 1);
+    expect(trip!.atS).toBeGreaterThan(0.5 + SET_DEFAULTS.reversePowerDelayS);
+    expect(trip!.atS).toBeLessThan(0.5 + SET_DEFAULTS.reversePowerDelayS + 1);
     expect(r.metrics.final.sets[1]!.online).toBe(false);
-    expect(MOTORING_PU * 100).toBeGreaterThan(5);
+    expect(SET_DEFAULTS.motoringPct).toBeGreaterThan(5);
     // While motoring, B drew power: its kW went below −5 % of rating.
     expect(Math.min(...r.series.setKW[1]!)).toBeLessThan(-50);
   });
