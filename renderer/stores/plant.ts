@@ -35,6 +35,10 @@ export const usePlantStore = defineStore('plant', () => {
   const draft = shallowRef<PlantDraft | null>(null);
   /** Field problems of the draft, for the editor to show beside each field. */
   const draftIssues = ref<FieldIssue[]>([]);
+  /** The last draft whose check has come back (accepted or refused). */
+  const checkedDraft = shallowRef<PlantDraft | null>(null);
+  /** True while the newest draft is still being checked (its results are on their way). */
+  const checking = computed(() => draft.value !== null && checkedDraft.value !== draft.value);
   /** Increments whenever `plant` changes (accepted edit, undo, redo or load). */
   const revision = ref(0);
   /** True after an accepted edit, undo or redo, until `load()` or `markSaved()`. */
@@ -66,6 +70,7 @@ export const usePlantStore = defineStore('plant', () => {
       const valid = await engine().call('validatePlant', { plant: candidate });
       plant.value = valid;
       draft.value = draftOf(valid);
+      checkedDraft.value = draft.value;
       source.value = from;
       issues.value = [];
       issuesFrom.value = null;
@@ -100,6 +105,7 @@ export const usePlantStore = defineStore('plant', () => {
       const valid = await engine().call('validatePlant', { plant: candidate });
       if (candidate !== draft.value) return;
       plant.value = valid;
+      checkedDraft.value = candidate;
       // Replaced only when there were some: every field watches this list.
       if (draftIssues.value.length) draftIssues.value = [];
       if (issuesFrom.value === 'edit') {
@@ -113,6 +119,7 @@ export const usePlantStore = defineStore('plant', () => {
       void describer.push(valid);
     } catch (e) {
       if (candidate !== draft.value) return;
+      checkedDraft.value = candidate;
       const found = e instanceof EngineCallError ? e.issues : [];
       draftIssues.value = found;
       issues.value = found;
@@ -219,6 +226,7 @@ export const usePlantStore = defineStore('plant', () => {
     draft,
     draftIssues,
     draftInvalid,
+    checking,
     revision,
     dirty,
     canUndo,

@@ -60,6 +60,8 @@ export const useSharingStore = defineStore('sharing', () => {
   const resultPlant = shallowRef<Plant | null>(null);
   /** The load override `result` was solved with (null: the plant's own loads). */
   const resultLoad = shallowRef<LoadOverride | null>(null);
+  /** The slider position `result` was solved for (null: the plant's own loads). */
+  const resultLoadPct = ref<number | null>(null);
   /** Why there is no operating point (no steady state, engine unavailable…). */
   const error = ref<string | null>(null);
 
@@ -88,6 +90,7 @@ export const useSharingStore = defineStore('sharing', () => {
     }
     resultPlant.value = plant;
     resultLoad.value = load ?? null;
+    resultLoadPct.value = pct;
     solves.value++;
   });
 
@@ -170,6 +173,15 @@ export const useSharingStore = defineStore('sharing', () => {
     return rated > 0 ? (100 * r.totals.kW) / rated : null;
   });
 
+  /**
+   * True when the shown result (or error) answers the current plant and slider position:
+   * no edit is being checked and no newer input is waiting. Views expose it (`data-state`) so tests and users can tell a
+   * settled figure from one on its way.
+   */
+  const upToDate = computed(
+    () => !plantStore.checking && resultPlant.value !== null && resultPlant.value === plantStore.plant && resultLoadPct.value === loadPct.value,
+  );
+
   /** Resolves when the solve and the sweep are up to date. */
   async function settled(): Promise<void> {
     await plantStore.settled();
@@ -180,6 +192,8 @@ export const useSharingStore = defineStore('sharing', () => {
     result,
     resultPlant,
     resultLoad,
+    resultLoadPct,
+    upToDate,
     error,
     sweep,
     sweepPlant,

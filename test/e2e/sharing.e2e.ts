@@ -14,6 +14,22 @@ import { demoPlant } from '../helpers/plants';
 const num = async (page: Page, testId: string): Promise<number> => parseFloat((await page.getByTestId(testId).first().textContent()) ?? 'NaN');
 
 /**
+ * Waits until the Sharing view shows the result for the current plant and `loadPct` (the
+ * slider position, or 'plant' for the plant's own loads) and nothing newer is on its way,
+ * then returns the bus frequency it shows. Results stream in while a slider moves or an edit
+ * lands, so a figure read on the first change may be an intermediate one; this reads the
+ * settled one (and checks that a second read agrees).
+ */
+async function settledBusHz(page: Page, loadPct: string = 'plant'): Promise<number> {
+  const view = page.locator(`[data-test="sharing-view"][data-state="settled"][data-load-pct="${loadPct}"]`);
+  await view.waitFor();
+  const first = await num(page, 'bus-frequency');
+  await expect.poll(() => num(page, 'bus-frequency')).toBe(first);
+  expect(await page.getByTestId('sharing-view').getAttribute('data-state')).toBe('settled');
+  return first;
+}
+
+/**
  * Bus frequency of droop sets sharing a total output P (closed form, DESIGN.md speed droop;
  * REFERENCES.md §3 "droop slope"): each set gives P_i = k_i (f_nl,i − f) with
  * k_i = ratedKW_i / (droop_i/100 × f_rated), and Σ P_i = P, so f = (Σ k_i f_nl,i − P) / Σ k_i.
@@ -39,7 +55,7 @@ describe('Plant and Sharing views in the browser preview', () => {
 
     await page.getByTestId('nav-sharing').click();
     await page.getByTestId('sharing-table').waitFor();
-    const f0 = await num(page, 'bus-frequency');
+    const f0 = await settledBusHz(page);
     const p0 = await num(page, 'total-kw');
 
     // Edit G1's speed droop from 4 % to 5 % in the set sheet.
@@ -48,8 +64,9 @@ describe('Plant and Sharing views in the browser preview', () => {
     await droop.fill('5');
     await droop.blur();
     await page.getByTestId('nav-sharing').click();
-    await expect.poll(() => num(page, 'bus-frequency')).not.toBe(f0);
-    const f1 = await num(page, 'bus-frequency');
+    // Wait for the result of the edited plant (checked and solved), not for the first change.
+    const f1 = await settledBusHz(page);
+    expect(f1).not.toBe(f0);
 
     const plant = demoPlant();
     const sets = plant.sets.map((s) => ({ ratedKW: s.ratedKW, droopPct: s.governor.droopPct, noLoadHz: s.governor.noLoadHz }));
@@ -82,13 +99,16 @@ describe('Plant and Sharing views in the browser preview', () => {
   it('recomputes while the load slider moves and keeps the last valid results for a refused field', async () => {
     const { page, errors } = await openPage(browser(), `${inject('previewUrl')}#/sharing`);
     await page.getByTestId('sharing-table').waitFor();
-    const f0 = await num(page, 'bus-frequency');
+    const f0 = await settledBusHz(page);
     const slider = page.getByTestId('load-slider');
     await slider.focus();
     for (let i = 0; i < 20; i++) await page.keyboard.press('ArrowRight');
-    await expect.poll(() => num(page, 'bus-frequency')).toBeLessThan(f0);
+    // Results stream in while the slider moves: wait for the one computed for the slider's
+    // final position, with nothing newer on its way.
+    const finalPct = String(Number(await slider.inputValue()));
+    const f1 = await settledBusHz(page, finalPct);
     // More load on droop sets: lower frequency (droop line).
-    const f1 = await num(page, 'bus-frequency');
+    expect(f1).toBeLessThan(f0);
     // Twenty 0.5 % steps up from the plant's own 57.4 %.
     expect(parseFloat((await page.getByTestId('load-readout').textContent()) ?? '')).toBeGreaterThan(66);
 
@@ -102,7 +122,8 @@ describe('Plant and Sharing views in the browser preview', () => {
     await page.setViewportSize({ width: 1360, height: 860 });
     await page.getByTestId('nav-sharing').click();
     expect(await page.getByTestId('stale-note').textContent()).toContain('last valid plant');
-    expect(await num(page, 'bus-frequency')).toBe(f1);
+    // The refused draft is checked and nothing was recomputed: the settled figure is the one before.
+    expect(await settledBusHz(page, finalPct)).toBe(f1);
     await page.getByTestId('nav-plant').click();
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.locator('[data-test="field-issue"]').count()).toBe(0);

@@ -56,6 +56,35 @@ describe('Sharing view', () => {
     expectClose(r.totals.kW, r.totals.loadKW + r.totals.feederLossKW, { rel: 1e-9 }, 'kW balance');
   });
 
+  it('says "computing" from an edit or a slider move until the result for it is shown, then "settled"', async () => {
+    const sharing = useSharingStore();
+    const plantStore = usePlantStore();
+    const view = () => w.get('[data-test="sharing-view"]');
+    expect(view().attributes('data-state')).toBe('settled');
+    expect(view().attributes('data-load-pct')).toBe('plant');
+
+    // A slider move: computing until the answer for 80 % is in, then settled at 80 %.
+    const moved = sharing.setLoadPct(80);
+    await w.vm.$nextTick();
+    expect(view().attributes('data-state')).toBe('computing');
+    await moved;
+    await settle();
+    expect(view().attributes('data-state')).toBe('settled');
+    expect(view().attributes('data-load-pct')).toBe('80');
+    expect(text(w, '[data-test="bus-frequency"]')).toBe(`${sharing.result!.bus.frequencyHz.toFixed(3)} Hz`);
+
+    // An edit: computing while the draft is checked and solved, settled after.
+    const edited = plantStore.edit('sets[0].governor.droopPct', 5);
+    await w.vm.$nextTick();
+    expect(plantStore.checking).toBe(true);
+    expect(view().attributes('data-state')).toBe('computing');
+    await edited;
+    await settle();
+    expect(plantStore.checking).toBe(false);
+    expect(view().attributes('data-state')).toBe('settled');
+    expect(sharing.resultPlant).toBe(plantStore.plant);
+  });
+
   it('recomputes at the slider’s load and shows flags as words beside icons', async () => {
     const sharing = useSharingStore();
     const slider = w.get('[data-test="load-slider"]');
