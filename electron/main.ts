@@ -17,11 +17,11 @@ let pendingFile: string | null = fileFromArgv(process.argv);
 // One instance, so one recovery copy and one recent list: a second launch (say, opening a
 // project from the file manager) hands its file to the running window and quits.
 if (!app.requestSingleInstanceLock()) app.quit();
-app.on('second-instance', (_e, argv) => {
+app.on('second-instance', (_e, argv, workingDirectory) => {
   if (!mainWindow) return;
   if (mainWindow.isMinimized()) mainWindow.restore();
   mainWindow.focus();
-  const file = fileFromArgv(argv);
+  const file = fileFromArgv(argv, workingDirectory);
   if (file) files?.openPath(file);
 });
 app.on('open-file', (event, path) => {

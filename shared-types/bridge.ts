@@ -5,7 +5,7 @@
 import type { EngineErrorShape } from './errors';
 import type { EngineMethod, EngineRequest, EngineResponse } from './engine-api';
 import type { ProgressEvent } from './progress';
-import type { HostCommand, HostMethod, HostOutcome, HostRequest, HostResponse } from './host-api';
+import type { HostCommand, HostMethod, HostOutcome, HostRequest, HostResponse, OpenedFile } from './host-api';
 
 /** A call's outcome as it crosses a process or worker boundary. */
 export type EngineOutcome<T> = { ok: true; value: T } | { ok: false; error: EngineErrorShape };
@@ -25,8 +25,12 @@ export interface HostBridge {
   invoke<K extends HostMethod>(method: K, request: HostRequest<K>): Promise<HostOutcome<HostResponse<K>>>;
   /** Subscribe to menu and window commands; returns the unsubscribe function. */
   onCommand(listener: (command: HostCommand) => void): () => void;
-  /** Full path of a dropped `File` ('' when it has none). Typed `object`: the contract has no DOM types. */
-  pathForFile(file: object): string;
+  /**
+   * Opens a dropped `File` by the path Electron knows for it (the page never names the path);
+   * null when the file has no path (e.g. dragged from a browser). Typed `object`: the
+   * contract has no DOM types.
+   */
+  openDropped(file: object): Promise<HostOutcome<OpenedFile> | null>;
 }
 
 /** Messages to the engine worker. */

@@ -68,7 +68,11 @@ export interface DocumentState {
 export interface HostApi {
   /** Show the open dialog; `null` when the user cancels. */
   fileOpenDialog: Method<Record<string, never>, OpenedFile | null>;
-  /** Open a file by path (recent list, drag-and-drop, command line). */
+  /**
+   * Open a file by path: only a path the host itself offered (the command line, the recent
+   * list, the backup beside an opened file); any other path is refused. Dropped files go
+   * through the preload's `openDropped`, never a path from the page.
+   */
   fileOpenPath: Method<{ path: string }, OpenedFile>;
   /** Save atomically to a path the user already chose; the old file becomes the backup. */
   fileSave: Method<{ path: string; text: string }, SavedFile>;
@@ -112,6 +116,18 @@ export const HOST_METHODS = [
   'windowClose',
   'reportSavePdf',
 ] as const satisfies readonly HostMethod[];
+
+/**
+ * Channels the preload calls itself and never forwards for the page: the page cannot name
+ * them (the preload refuses channel names outside `HOST_METHODS` and `ENGINE_METHODS`).
+ */
+export interface HostPrivateApi {
+  /** Open a dropped file by the path Electron gives for the dropped `File`. */
+  hostOpenDropped: Method<{ path: string }, OpenedFile>;
+}
+
+/** The drop channel's name (a key of `HostPrivateApi`). */
+export const HOST_OPEN_DROPPED = 'hostOpenDropped' as const satisfies keyof HostPrivateApi;
 
 /** Why a host call failed. */
 export type HostErrorCode = 'NOT_FOUND' | 'READ_FAILED' | 'WRITE_FAILED' | 'INVALID_INPUT' | 'REFUSED' | 'UNAVAILABLE';

@@ -9,6 +9,9 @@ const text = z.string({ error: 'must be text' }).max(MAX_TEXT, `must be at most 
 const path = z.string({ error: 'must be text' }).min(1, 'must not be empty').max(4096, 'must be at most 4096 characters');
 const name = z.string({ error: 'must be text' }).max(400, 'must be at most 400 characters');
 
+/** The preload's drop channel (`HOST_OPEN_DROPPED`). */
+export const dropRequestSchema = z.object({ path }).strict();
+
 /** The schema of every host method's request. */
 export const hostRequestSchemas: { [K in HostMethod]: z.ZodType<HostRequest<K>> } = {
   fileOpenDialog: empty,

@@ -8,8 +8,8 @@
 import type { BrowserWindow, IpcMainInvokeEvent, WebContents } from 'electron';
 import { dialog, ipcMain } from 'electron';
 import { readFile, stat } from 'node:fs/promises';
-import { basename, dirname, extname, join } from 'node:path';
-import { HOST_METHODS, PROJECT_FILE_SUFFIX } from '../../shared-types';
+import { basename, dirname, extname, join, resolve } from 'node:path';
+import { HOST_METHODS, HOST_OPEN_DROPPED, PROJECT_FILE_SUFFIX } from '../../shared-types';
 import type { DocumentState, HostCommand, HostEvents, HostMethod, HostOutcome, HostRequest, HostResponse, OpenedFile, RecentFile, SavedFile } from '../../shared-types';
 import { formatPath } from '../handlers/validate';
 import { parseProject } from '../project';
@@ -17,7 +17,7 @@ import { backupPathOf, nodeSaveSteps, writeFileAtomic } from './atomic-write';
 import type { SaveSteps } from './atomic-write';
 import { HostFailure, hostErrorOf } from './host-error';
 import { printHtmlToPdf } from './print-pdf';
-import { hostRequestSchemas } from './host-requests';
+import { dropRequestSchema, hostRequestSchemas } from './host-requests';
 import { addRecent, clearRecent, listRecent } from './recent-files';
 import { discardRecovery, readRecovery, writeRecovery } from './recovery-store';
 
@@ -54,18 +54,24 @@ export interface FilesOptions {
 export interface FilesService {
   /** Pushes a command (menu item) to the renderer. */
   command(command: HostCommand): void;
-  /** Asks the renderer to open a file given by path (command line, second instance). */
+  /** Asks the renderer to open a file given by path (command line, second instance); offers the path first. */
   openPath(path: string): void;
+  /** Marks a path as offered by the host (the page may then open it by path) without asking the renderer. */
+  offer(path: string): void;
   /** Asks before closing `win` while it has unsaved changes. */
   guardClose(win: BrowserWindow): void;
   /** The recent list (for the menu). */
   recent(): Promise<RecentFile[]>;
 }
 
-/** The project file given on a command line (`droopline plant.json`), if any. */
-export function fileFromArgv(argv: readonly string[]): string | null {
+/**
+ * The project file given on a command line (`droopline plant.json`), if any, as an absolute
+ * path resolved against `cwd` (the launching shell's folder; a second instance passes its own).
+ */
+export function fileFromArgv(argv: readonly string[], cwd: string = process.cwd()): string | null {
   const files = argv.slice(1).filter((a) => !a.startsWith('-') && OPENABLE.includes(extname(a).toLowerCase()));
-  return files.at(-1) ?? null;
+  const file = files.at(-1);
+  return file === undefined ? null : resolve(cwd, file);
 }
 
 /** Adds the project suffix when a chosen name has no `.json` extension. */
@@ -96,6 +102,12 @@ const TASK: Record<HostMethod, string> = {
   reportSavePdf: 'save the report as PDF',
 };
 
+function checkOpenable(path: string): void {
+  if (!OPENABLE.includes(extname(path).toLowerCase())) {
+    throw new HostFailure('REFUSED', `"${basename(path)}" is not a Droopline file: Droopline opens project and plant files (.json) and their backups (.bak).`);
+  }
+}
+
 type Runner = { [K in HostMethod]: (request: HostRequest<K>, sender: WebContents) => Promise<HostResponse<K>> };
 
 /** Registers the host channels and returns the service. */
@@ -104,6 +116,12 @@ export function setupFiles(options: FilesOptions): FilesService {
   const now = options.now ?? (() => new Date());
   /** Paths the user chose or opened: the only ones `fileSave` may write. */
   const granted = new Set<string>();
+  /**
+   * Paths the host itself offered for opening by path (command line, backups beside opened
+   * files); the recent list is read at the time of the call. A path from the page alone is
+   * never opened, so the page cannot read or gain write access to an arbitrary file.
+   */
+  const offered = new Set<string>();
   let doc: DocumentState = { projectName: '', fileName: null, path: null, dirty: false };
   let lastDir: string | null = null;
   let allowClose = false;
@@ -139,6 +157,7 @@ export function setupFiles(options: FilesOptions): FilesService {
     lastDir = dirname(path);
     const backup = backupPathOf(path);
     const backupPath = extname(path).toLowerCase() !== '.bak' && (await steps.exists(backup)) ? backup : null;
+    if (backupPath) offered.add(backupPath);
     return { path, fileName, text, backupPath };
   }
 
@@ -168,8 +187,10 @@ export function setupFiles(options: FilesOptions): FilesService {
       return r.canceled || !path ? null : readOpened(path);
     },
     async fileOpenPath({ path }) {
-      if (!OPENABLE.includes(extname(path).toLowerCase())) {
-        throw new HostFailure('REFUSED', `"${basename(path)}" is not a Droopline file: Droopline opens project and plant files (.json) and their backups (.bak).`);
+      checkOpenable(path);
+      const listed = offered.has(path) || granted.has(path) || (await serial(() => listRecent(options.userDataDir))).some((f) => f.path === path);
+      if (!listed) {
+        throw new HostFailure('REFUSED', `Droopline opens "${basename(path)}" only from the Open dialog, a dropped file, the recent list or the command line.`);
       }
       return readOpened(path);
     },
@@ -204,6 +225,11 @@ export function setupFiles(options: FilesOptions): FilesService {
     },
     documentState: (state) => serial(async () => {
       const before = doc;
+      // Only a file this service opened or saved may be named: the page cannot slip a path of
+      // its own into the recent list (and so into open-by-path).
+      if (state.path !== null && !granted.has(state.path)) {
+        throw new HostFailure('REFUSED', `"${basename(state.path)}" was not opened or saved in this window.`);
+      }
       doc = state;
       const win = options.window();
       if (win && !win.isDestroyed()) {
@@ -259,6 +285,20 @@ export function setupFiles(options: FilesOptions): FilesService {
     });
   }
 
+  // The drop channel: called by the preload only, with the path Electron gives for a dropped File.
+  ipcMain.handle(HOST_OPEN_DROPPED, async (event: IpcMainInvokeEvent, request: unknown): Promise<HostOutcome<unknown>> => {
+    if (!options.isTrusted(event.sender)) return { ok: false, error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' } };
+    const parsed = dropRequestSchema.safeParse(request);
+    if (!parsed.success) return { ok: false, error: { name: 'HostError', code: 'INVALID_INPUT', message: parsed.error.issues.map((i) => `${formatPath(i.path)}: ${i.message}`).join('\n') } };
+    try {
+      checkOpenable(parsed.data.path);
+      return { ok: true, value: await readOpened(parsed.data.path) };
+    } catch (e) {
+      const failure = e instanceof HostFailure ? e : new HostFailure('UNAVAILABLE', `Could not open the file: ${e instanceof Error ? e.message : String(e)}`);
+      return { ok: false, error: failure.shape() };
+    }
+  });
+
   function send(command: HostCommand): void {
     const win = options.window();
     if (win && !win.isDestroyed()) win.webContents.send(COMMAND, command);
@@ -266,7 +306,11 @@ export function setupFiles(options: FilesOptions): FilesService {
 
   return {
     command: send,
-    openPath: (path) => send({ command: 'open-path', path }),
+    openPath: (path) => {
+      offered.add(path);
+      send({ command: 'open-path', path });
+    },
+    offer: (path) => void offered.add(path),
     recent: () => serial(() => listRecent(options.userDataDir)),
     guardClose(win) {
       win.on('close', (event) => {

@@ -252,6 +252,6 @@ export function createBrowserHost(win: Window & typeof globalThis = window): Hos
       win.addEventListener('keydown', onKey);
       return () => win.removeEventListener('keydown', onKey);
     },
-    pathForFile: () => null,
+    openDropped: () => Promise.resolve(null),
   };
 }

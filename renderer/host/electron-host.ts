@@ -15,6 +15,11 @@ export function createElectronHost(bridge: HostBridge): HostClient {
       return outcome.value;
     },
     onCommand: (listener) => bridge.onCommand(listener),
-    pathForFile: (file) => bridge.pathForFile(file) || null,
+    async openDropped(file) {
+      const outcome = await bridge.openDropped(file);
+      if (outcome === null) return null;
+      if (!outcome.ok) throw new HostCallError(outcome.error);
+      return outcome.value;
+    },
   };
 }

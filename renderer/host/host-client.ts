@@ -3,7 +3,7 @@
  * Only the project store uses it. In Electron it goes through the preload bridge; in the
  * browser preview the same calls are served in the page (`browser-host.ts`).
  */
-import type { HostCommand, HostErrorCode, HostErrorShape, HostMethod, HostRequest, HostResponse } from '../../shared-types';
+import type { HostCommand, HostErrorCode, HostErrorShape, HostMethod, HostRequest, HostResponse, OpenedFile } from '../../shared-types';
 
 /** A host failure revived on the renderer side: a sentence for the user. */
 export class HostCallError extends Error {
@@ -24,6 +24,10 @@ export interface HostClient {
   call<K extends HostMethod>(method: K, request: HostRequest<K>): Promise<HostResponse<K>>;
   /** Menu and window commands; returns the unsubscribe function. */
   onCommand(listener: (command: HostCommand) => void): () => void;
-  /** Full path of a dropped file when the host can open it by path, else null. */
-  pathForFile(file: File): string | null;
+  /**
+   * Opens a dropped file through the host when it can read it from disk (Electron: by the
+   * path Electron knows for it, so it can be saved in place); null when the page should read
+   * the file's bytes itself (browser preview, or a file with no path).
+   */
+  openDropped(file: File): Promise<OpenedFile | null>;
 }

@@ -219,10 +219,11 @@ export const useProjectStore = defineStore('project', () => {
 
   /** Opens a file dropped on the window. */
   async function openDropped(file: File): Promise<boolean> {
-    const filePath = host().pathForFile(file);
-    if (filePath) return openPath(filePath);
     if (!(await mayReplace('open the dropped file'))) return false;
-    return guarded(async () => openText(await file.text(), { path: null, fileName: file.name }), false);
+    return guarded(async () => {
+      const opened = await host().openDropped(file);
+      return opened ? openText(opened.text, opened) : openText(await file.text(), { path: null, fileName: file.name });
+    }, false);
   }
 
   async function verified(): Promise<string | null> {

@@ -45,8 +45,23 @@ describe('preload host bridge', () => {
     expect(h.removed).toContain('hostCommand');
   });
 
-  it('gives the path of a dropped file', () => {
-    expect(bridge.host.pathForFile({ fakePath: '/plants/site.json' })).toBe('/plants/site.json');
+  it('opens a dropped file on its own channel with the path Electron gives, never a path from the page', async () => {
+    await bridge.host.openDropped({ fakePath: '/plants/site.json' });
+    expect(h.invoke).toHaveBeenLastCalledWith('hostOpenDropped', { path: '/plants/site.json' });
+    h.invoke.mockClear();
+    expect(await bridge.host.openDropped({ fakePath: '' })).toBeNull();
+    expect(h.invoke).not.toHaveBeenCalled();
+  });
+
+  it('refuses channel names outside the contract (the page cannot reach a private channel)', async () => {
+    h.invoke.mockClear();
+    const host = await bridge.host.invoke('hostOpenDropped' as never, { path: '/etc/passwd.json' } as never);
+    expect(host).toEqual({ ok: false, error: { name: 'HostError', code: 'REFUSED', message: '"hostOpenDropped" is not a Droopline method.' } });
+    const engine = await bridge.invoke('fileSave' as never, 1, {} as never);
+    expect(engine).toEqual({ ok: false, error: { name: 'EngineError', code: 'UNKNOWN_METHOD', message: '"fileSave" is not a Droopline method.' } });
+    expect(h.invoke).not.toHaveBeenCalled();
+    await bridge.invoke('solveSharing', 2, {} as never);
+    expect(h.invoke).toHaveBeenLastCalledWith('solveSharing', 2, {});
   });
 });
 

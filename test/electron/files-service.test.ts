@@ -1,9 +1,9 @@
 // @vitest-environment node
 import { describe, it, expect, vi, beforeEach, afterEach } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { HOST_METHODS } from '../../shared-types';
+import { HOST_METHODS, HOST_OPEN_DROPPED } from '../../shared-types';
 import type { HostMethod, HostOutcome } from '../../shared-types';
 import { projectText } from '../helpers/projects';
 
@@ -88,7 +88,7 @@ afterEach(() => rmSync(dir, { recursive: true, force: true }));
 describe('file service (Electron main)', () => {
   it('registers one handler per host method and refuses other senders', async () => {
     expect(allListed).toBe(true);
-    expect([...h.handles.keys()].sort()).toEqual([...HOST_METHODS].sort());
+    expect([...h.handles.keys()].sort()).toEqual([...HOST_METHODS, HOST_OPEN_DROPPED].sort());
     const r = await call('recentList', {}, { id: 'someone else' });
     expect(r).toEqual({ ok: false, error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' } });
   });
@@ -102,6 +102,7 @@ describe('file service (Electron main)', () => {
   it('opens a file by path with its text and notes a backup beside it', async () => {
     const file = join(dir, 'study.droopline.json');
     writeFileSync(file, projectText());
+    service.offer(file);
     const first = await value<{ text: string; backupPath: string | null; fileName: string }>('fileOpenPath', { path: file });
     expect(first.text).toBe(projectText());
     expect(first.fileName).toBe('study.droopline.json');
@@ -111,10 +112,64 @@ describe('file service (Electron main)', () => {
   });
 
   it('says clearly when a file is missing or is not a Droopline file', async () => {
+    service.offer(join(dir, 'gone.json'));
     const gone = await call('fileOpenPath', { path: join(dir, 'gone.json') });
     expect(!gone.ok && gone.error).toEqual({ name: 'HostError', code: 'NOT_FOUND', message: '"gone.json" was not found. It may have been moved or deleted.' });
     const text = await call('fileOpenPath', { path: join(dir, 'notes.txt') });
     expect(!text.ok && text.error.message).toBe('"notes.txt" is not a Droopline file: Droopline opens project and plant files (.json) and their backups (.bak).');
+  });
+
+  it('opens by path only what the host offered: never a path the page names on its own', async () => {
+    const secret = join(dir, 'elsewhere', 'secret.json');
+    mkdirSync(join(dir, 'elsewhere'));
+    writeFileSync(secret, '{"token": "do not show"}');
+    const r = await call('fileOpenPath', { path: secret });
+    expect(!r.ok && r.error).toEqual({
+      name: 'HostError',
+      code: 'REFUSED',
+      message: 'Droopline opens "secret.json" only from the Open dialog, a dropped file, the recent list or the command line.',
+    });
+    expect(JSON.stringify(r)).not.toContain('do not show');
+    // Relative paths are no way round it either.
+    expect((await call('fileOpenPath', { path: 'secret.json' })).ok).toBe(false);
+    // Nor is naming the file as the document: it never reaches the recent list.
+    const named = await call('documentState', { projectName: 'x', fileName: 'secret.json', path: secret, dirty: false });
+    expect(!named.ok && named.error.code).toBe('REFUSED');
+    expect(await value('recentList')).toEqual([]);
+    expect((await call('fileOpenPath', { path: secret })).ok).toBe(false);
+    // And a refused path gains no write access.
+    expect((await call('fileSave', { path: secret, text: projectText() })).ok).toBe(false);
+    expect(readFileSync(secret, 'utf8')).toBe('{"token": "do not show"}');
+  });
+
+  it('opens a path from the command line, the recent list or beside an opened file (its backup)', async () => {
+    const file = join(dir, 'site.droopline.json');
+    writeFileSync(file, projectText());
+    writeFileSync(`${file}.bak`, projectText({ name: 'Older' }));
+    service.openPath(file); // the command line
+    expect(win.webContents.send).toHaveBeenLastCalledWith('hostCommand', { command: 'open-path', path: file });
+    const opened = await value<{ backupPath: string }>('fileOpenPath', { path: file });
+    expect(opened.backupPath).toBe(`${file}.bak`);
+    expect((await value<{ text: string }>('fileOpenPath', { path: `${file}.bak` })).text).toBe(projectText({ name: 'Older' }));
+    await value('documentState', { projectName: 'Site', fileName: 'site.droopline.json', path: file, dirty: false });
+    // A new session (next start): the file is on the recent list, so it opens by path.
+    service = start();
+    expect((await value<{ text: string }>('fileOpenPath', { path: file })).text).toBe(projectText());
+  });
+
+  it('opens a dropped file through the preload\'s own channel, from our window only', async () => {
+    const file = join(dir, 'dropped.droopline.json');
+    writeFileSync(file, projectText());
+    const drop = (request: unknown, sender: unknown = me) => h.handles.get(HOST_OPEN_DROPPED)!({ sender }, request) as Promise<HostOutcome<{ text: string }>>;
+    const r = await drop({ path: file });
+    expect(r.ok && r.value.text).toBe(projectText());
+    // It may then be saved in place.
+    expect((await call('fileSave', { path: file, text: projectText({ name: 'Saved' }) })).ok).toBe(true);
+    expect(await drop({ path: file }, { id: 'someone else' })).toEqual({ ok: false, error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' } });
+    const txt = await drop({ path: join(dir, 'notes.txt') });
+    expect(!txt.ok && txt.error.code).toBe('REFUSED');
+    const bad = await drop({ path: 5 });
+    expect(!bad.ok && bad.error.message).toBe('path: must be text');
   });
 
   it('saves only to files the user opened or chose', async () => {
@@ -128,6 +183,7 @@ describe('file service (Electron main)', () => {
     const file = join(dir, 'study.droopline.json');
     const original = projectText({ name: 'First' });
     writeFileSync(file, original);
+    service.offer(file);
     await value('fileOpenPath', { path: file });
     const edited = projectText({ name: 'Second' });
     const saved = await value<{ backupFileName: string; savedAt: string }>('fileSave', { path: file, text: edited });
@@ -140,6 +196,7 @@ describe('file service (Electron main)', () => {
   it('refuses to write text that would not open again, leaving the file untouched', async () => {
     const file = join(dir, 'study.droopline.json');
     writeFileSync(file, projectText());
+    service.offer(file);
     await value('fileOpenPath', { path: file });
     const r = await call('fileSave', { path: file, text: projectText().slice(0, 200) });
     expect(!r.ok && r.error.code).toBe('INVALID_INPUT');
@@ -178,7 +235,7 @@ describe('file service (Electron main)', () => {
     const file = join(dir, 'study.droopline.json');
     writeFileSync(file, projectText({ name: 'Kept' }));
     h.handles.clear();
-    setupFiles({
+    const full = setupFiles({
       userDataDir: userData,
       documentsDir: dir,
       isTrusted: () => true,
@@ -190,6 +247,7 @@ describe('file service (Electron main)', () => {
         },
       },
     });
+    full.offer(file);
     await value('fileOpenPath', { path: file });
     const r = await call('fileSave', { path: file, text: projectText() });
     expect(!r.ok && r.error).toEqual({ name: 'HostError', code: 'WRITE_FAILED', message: 'The disk is full: "study.droopline.json" was not saved. The file on disk was not changed.' });
@@ -212,6 +270,11 @@ describe('file service (Electron main)', () => {
     const b = join(dir, 'b.json');
     writeFileSync(a, '{}');
     writeFileSync(b, '{}');
+    // Both were opened in this window (command line), so the window may name them.
+    for (const f of [a, b]) {
+      service.offer(f);
+      await value('fileOpenPath', { path: f });
+    }
     await value('documentState', { projectName: 'A', fileName: 'a.json', path: a, dirty: false });
     await value('documentState', { projectName: 'A', fileName: 'a.json', path: a, dirty: true });
     await value('documentState', { projectName: 'B', fileName: 'b.json', path: b, dirty: false });
@@ -276,6 +339,8 @@ describe('file service (Electron main)', () => {
   it('finds the file on a command line and makes safe file names', () => {
     expect(fileFromArgv(['/opt/Droopline/droopline', '--no-sandbox', '/home/u/site.droopline.json'])).toBe('/home/u/site.droopline.json');
     expect(fileFromArgv(['/opt/Droopline/droopline', '.'])).toBeNull();
+    // A relative name is the launching shell's file, made absolute against its folder.
+    expect(fileFromArgv(['/opt/Droopline/droopline', 'plants/site.json'], '/home/u')).toBe('/home/u/plants/site.json');
     expect(fileNameFor('  ')).toBe('Untitled project.droopline.json');
     expect(fileNameFor('Works: <north>')).toBe('Works north.droopline.json');
     expect(fileNameFor('site.json')).toBe('site.json');

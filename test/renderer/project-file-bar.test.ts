@@ -38,7 +38,7 @@ function memoryHost(state: { recovery: RecoveryCopy | null; recent: RecentFile[]
       return answer(request);
     },
     onCommand: () => () => undefined,
-    pathForFile: () => null,
+    openDropped: () => Promise.resolve(null),
   };
 }
 

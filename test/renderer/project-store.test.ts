@@ -52,19 +52,21 @@ let dir: string;
 const me = {};
 /** Every store of the test, disposed after it so no watcher or autosave timer outlives the test. */
 let sessions: ReturnType<typeof useProjectStore>[] = [];
+/** The main-side file service of the current session. */
+let files: ReturnType<typeof setupFiles>;
 
 /** A fresh app session: new stores, a new main-side service over the same folders. */
 function session(): ReturnType<typeof useProjectStore> {
   h.handles.clear();
   h.commandListeners.length = 0;
-  setupFiles({ userDataDir: join(dir, 'user-data'), documentsDir: dir, isTrusted: (s) => s === me, window: () => h.win as never });
+  files = setupFiles({ userDataDir: join(dir, 'user-data'), documentsDir: dir, isTrusted: (s) => s === me, window: () => h.win as never });
   const bridge: HostBridge = {
     invoke: (method, request) => h.handles.get(method)!({ sender: me }, JSON.parse(JSON.stringify(request))) as never,
     onCommand: (listener) => {
       h.commandListeners.push(listener as (c: unknown) => void);
       return () => undefined;
     },
-    pathForFile: () => '',
+    openDropped: () => Promise.resolve(null),
   };
   setActivePinia(createPinia());
   setEngineClient(directClient());
@@ -72,6 +74,12 @@ function session(): ReturnType<typeof useProjectStore> {
   const project = useProjectStore();
   sessions.push(project);
   return project;
+}
+
+/** Opens `file` by path as the recent list or the command line would (main offers the path first). */
+function openOffered(project: ReturnType<typeof useProjectStore>, file: string): Promise<boolean> {
+  files.offer(file);
+  return project.openPath(file);
 }
 
 /** An accepted change to the plant (as the plant editor makes one). */
@@ -154,7 +162,7 @@ describe('project store', () => {
     writeFileSync(file, projectText());
     const project = session();
     await project.start();
-    expect(await project.openPath(file)).toBe(true);
+    expect(await openOffered(project, file)).toBe(true);
     await editPlant((p) => (p.loads[0]!.kW += 10));
     await project.save();
     const again = parseProject(readFileSync(file, 'utf8')).project;
@@ -171,7 +179,7 @@ describe('project store', () => {
     writeFileSync(file, projectText());
     const project = session();
     await project.start();
-    expect(await project.openPath(file), project.notice?.text).toBe(true);
+    expect(await openOffered(project, file), project.notice?.text).toBe(true);
     expect(useTransientsStore().scenarios.map((s) => s.name)).toEqual(['Pump start at 2 s']);
     expect(useTrainerStore().attempts).toHaveLength(1);
     useSyncStore().setBreakerClosingMs(95);
@@ -192,7 +200,7 @@ describe('project store', () => {
     writeFileSync(plantFile, JSON.stringify(demoPlantJson()));
     const project = session();
     await project.start();
-    expect(await project.openPath(plantFile)).toBe(true);
+    expect(await openOffered(project, plantFile)).toBe(true);
     expect(project.path).toBeNull();
     expect(project.notice?.tone).toBe('info');
     expect(project.notice?.text).toContain('This was a plant file');
@@ -211,7 +219,7 @@ describe('project store', () => {
     const project = session();
     await project.start();
     const before = project.text();
-    expect(await project.openPath(file)).toBe(false);
+    expect(await openOffered(project, file)).toBe(false);
     expect(project.notice?.tone).toBe('error');
     expect(project.notice?.text).toMatch(/^Could not open "cut.droopline.json". The file stops in the middle of the project \(line \d+, column \d+/);
     expect(project.text()).toBe(before);
@@ -228,7 +236,7 @@ describe('project store', () => {
     writeFileSync(file, projectText({ version: 7 }));
     const project = session();
     await project.start();
-    expect(await project.openPath(file)).toBe(false);
+    expect(await openOffered(project, file)).toBe(false);
     expect(project.notice?.text).toBe(
       'Could not open "future.droopline.json". This project was saved by a newer version of Droopline (file version 7; this version reads up to 1). Open it with a newer Droopline. The file was not changed.',
     );
@@ -290,12 +298,12 @@ describe('project store', () => {
     const project = session();
     await project.start();
     await editPlant((p) => (p.sets[0]!.ratedKW = 990));
-    const cancelled = project.openPath(file);
+    const cancelled = openOffered(project, file);
     await vi.waitFor(() => expect(project.question?.action).toBe('open another project'));
     project.question!.answer('cancel');
     expect(await cancelled).toBe(false);
     expect(project.dirty).toBe(true);
-    const discarded = project.openPath(file);
+    const discarded = openOffered(project, file);
     await vi.waitFor(() => expect(project.question).not.toBeNull());
     project.question!.answer('discard');
     expect(await discarded).toBe(true);
@@ -308,7 +316,7 @@ describe('project store', () => {
     writeFileSync(file, projectText());
     const project = session();
     await project.start();
-    h.win.webContents.send('hostCommand', { command: 'open-path', path: file } satisfies HostCommand);
+    files.openPath(file); // a file named on the command line
     await vi.waitFor(() => expect(project.fileName).toBe('menu.droopline.json'));
     await editPlant((p) => (p.sets[0]!.ratedKW = 990));
     h.win.webContents.send('hostCommand', { command: 'save-and-close' } satisfies HostCommand);
