@@ -6,6 +6,9 @@ export default defineConfig({
   plugins: [vue()],
   test: {
     globals: true,
+    // Time limits guard against hangs, not speed (speed is `npm run bench`): generous enough for
+    // a busy 2-core machine, where a report or a spawned CLI can take several seconds.
+    testTimeout: 30_000,
     projects: [
       {
         extends: true,

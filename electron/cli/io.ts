@@ -2,8 +2,12 @@
 export interface CliIO {
   out(text: string): void;
   err(text: string): void;
+  /** Reads a text file; failures carry a `code` (`ENOENT`, `EISDIR`, … or those of `file-errors.ts`). */
   readFile(path: string): Promise<string>;
+  /** Writes a file atomically (the old file stays whole if the write fails). */
   writeFile(path: string, data: string | Uint8Array): Promise<void>;
+  /** Whether two paths name the same existing file (so an output never replaces an input). */
+  sameFile(a: string, b: string): Promise<boolean>;
 }
 
 /** Parsed command line: positional arguments and `--flag [value]` options. */

@@ -4,7 +4,7 @@
  * target in one step on every desktop file system). The previous file is first copied to
  * `<file>.bak` the same way. If the process dies at any point, the target is either the
  * complete old file or the complete new one; a leftover temporary file is removed by the
- * next save.
+ * next save, and at start and on open (`removeStaleTemps`).
  */
 import { randomBytes } from 'node:crypto';
 import { open, readdir, readFile, rename, rm, stat } from 'node:fs/promises';
@@ -125,7 +125,11 @@ export async function writeFileAtomic(path: string, text: string | Uint8Array, o
   return { backupPath };
 }
 
-async function removeStaleTemps(path: string, steps: SaveSteps): Promise<void> {
+/**
+ * Removes the temporary files that saves of `path` left behind when they died (older than
+ * ten minutes, so a save running in another window is never disturbed). Never throws.
+ */
+export async function removeStaleTemps(path: string, steps: SaveSteps = nodeSaveSteps): Promise<void> {
   const prefix = tempPrefix(path);
   try {
     for (const f of await steps.list(dirname(path))) {

@@ -13,13 +13,13 @@ import { HOST_METHODS, HOST_OPEN_DROPPED, PROJECT_FILE_SUFFIX } from '../../shar
 import type { DocumentState, HostCommand, HostEvents, HostMethod, HostOutcome, HostRequest, HostResponse, OpenedFile, RecentFile, SavedFile } from '../../shared-types';
 import { formatPath } from '../handlers/validate';
 import { parseProject } from '../project';
-import { backupPathOf, nodeSaveSteps, writeFileAtomic } from './atomic-write';
+import { backupPathOf, nodeSaveSteps, removeStaleTemps, writeFileAtomic } from './atomic-write';
 import type { SaveSteps } from './atomic-write';
 import { HostFailure, hostErrorOf } from './host-error';
 import { printHtmlToPdf } from './print-pdf';
 import { dropRequestSchema, hostRequestSchemas } from './host-requests';
 import { addRecent, clearRecent, listRecent } from './recent-files';
-import { discardRecovery, readRecovery, writeRecovery } from './recovery-store';
+import { discardRecovery, readRecovery, recoveryPathOf, writeRecovery } from './recovery-store';
 
 const COMMAND: keyof HostEvents = 'hostCommand';
 /** Largest file Droopline opens, bytes. */
@@ -62,6 +62,8 @@ export interface FilesService {
   guardClose(win: BrowserWindow): void;
   /** The recent list (for the menu). */
   recent(): Promise<RecentFile[]>;
+  /** Resolves when the start-up clean-up of stale temporary files has run. */
+  cleaned(): Promise<void>;
 }
 
 /**
@@ -155,6 +157,7 @@ export function setupFiles(options: FilesOptions): FilesService {
     }
     granted.add(path);
     lastDir = dirname(path);
+    void removeStaleTemps(path, steps);
     const backup = backupPathOf(path);
     const backupPath = extname(path).toLowerCase() !== '.bak' && (await steps.exists(backup)) ? backup : null;
     if (backupPath) offered.add(backupPath);
@@ -299,6 +302,12 @@ export function setupFiles(options: FilesOptions): FilesService {
     }
   });
 
+  // At start: leftovers of saves that died with the last session (recovery copy, recent files).
+  const cleaned: Promise<void> = (async () => {
+    await removeStaleTemps(recoveryPathOf(options.userDataDir), steps);
+    for (const f of await listRecent(options.userDataDir).catch(() => [])) await removeStaleTemps(f.path, steps);
+  })().catch(() => undefined);
+
   function send(command: HostCommand): void {
     const win = options.window();
     if (win && !win.isDestroyed()) win.webContents.send(COMMAND, command);
@@ -312,6 +321,7 @@ export function setupFiles(options: FilesOptions): FilesService {
     },
     offer: (path) => void offered.add(path),
     recent: () => serial(() => listRecent(options.userDataDir)),
+    cleaned: () => cleaned,
     guardClose(win) {
       win.on('close', (event) => {
         if (allowClose || !doc.dirty) return;

@@ -38,7 +38,7 @@ describe('droopline describe', () => {
   it('exits 2 for a missing file, bad JSON and an unknown command', async () => {
     const io = memoryIO({ 'bad.json': '{ "format": ' });
     expect(await runCli(['describe', 'nope.json'], io)).toBe(2);
-    expect(io.stderr()).toContain('nope.json: cannot read the file');
+    expect(io.stderr()).toContain('nope.json: no such file');
     expect(await runCli(['describe', 'bad.json'], io)).toBe(2);
     expect(io.stderr()).toContain('bad.json: not valid JSON');
     expect(await runCli(['frobnicate'], io)).toBe(2);

@@ -69,7 +69,7 @@ describe('droopline report', () => {
     expect(await runCli(['report', 'p.json', '--date', 'tuesday'], io)).toBe(2);
     expect(io.stderr()).toContain('--date: must be an ISO date');
     expect(await runCli(['report', 'missing.json'], io)).toBe(2);
-    expect(io.stderr()).toContain('missing.json: cannot read the file');
+    expect(io.stderr()).toContain('missing.json: no such file');
     expect(await runCli(['report', 'junk.json'], io)).toBe(2);
     expect(io.files.has('r.html')).toBe(false);
   });

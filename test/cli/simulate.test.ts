@@ -8,7 +8,7 @@ const scenario = (over: Record<string, unknown> = {}) =>
   JSON.stringify({
     format: 'droopline.scenario',
     version: 1,
-    plantFile: '../plants/works.plant.json',
+    plantFile: 'plants/works.plant.json',
     durationS: 3,
     stepMs: 2,
     outputPoints: 31,
@@ -16,7 +16,7 @@ const scenario = (over: Record<string, unknown> = {}) =>
     ...over,
   });
 
-const files = (scen: string) => ({ 'cases/step.json': scen, 'plants/works.plant.json': JSON.stringify(demoPlantJson()) });
+const files = (scen: string) => ({ 'cases/step.json': scen, 'cases/plants/works.plant.json': JSON.stringify(demoPlantJson()) });
 
 describe('droopline simulate', () => {
   it('reads plantFile relative to the scenario and prints the JSON result', async () => {
@@ -62,7 +62,7 @@ describe('droopline simulate', () => {
   it('exits 2 when the plant file is missing, or for --json with --csv', async () => {
     const io = memoryIO({ 'cases/step.json': scenario() });
     expect(await runCli(['simulate', 'cases/step.json'], io)).toBe(2);
-    expect(io.stderr()).toContain('plants/works.plant.json: cannot read the file');
+    expect(io.stderr()).toContain('cases/plants/works.plant.json: no such file');
     const io2 = memoryIO(files(scenario()));
     expect(await runCli(['simulate', 'cases/step.json', '--json', '--csv'], io2)).toBe(2);
     expect(io2.stderr()).toContain('--json and --csv: choose one');

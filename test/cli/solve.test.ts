@@ -60,7 +60,7 @@ describe('droopline solve', () => {
     expect(io.stderr()).toContain('load.kW: must be 0 or more');
     io = demoIO();
     expect(await runCli(['solve', 'missing.json'], io)).toBe(2);
-    expect(io.stderr()).toContain('missing.json: cannot read the file');
+    expect(io.stderr()).toContain('missing.json: no such file');
   });
 
   it('exits 3 with the reason when no steady state exists', async () => {

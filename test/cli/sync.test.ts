@@ -83,7 +83,7 @@ describe('droopline sync', () => {
     expect(await runCli(['sync', 'case.json', '--preset', 'loose'], io)).toBe(2);
     expect(io.stderr()).toContain('presetId: must be one of');
     expect(await runCli(['sync', 'nope.json'], io)).toBe(2);
-    expect(io.stderr()).toContain('nope.json: cannot read the file');
+    expect(io.stderr()).toContain('nope.json: no such file');
     expect(await runCli(['sync', 'broken.json'], io)).toBe(2);
     expect(io.stderr()).toContain('broken.json: not valid JSON');
     expect(await runCli(['sync'], io)).toBe(2);

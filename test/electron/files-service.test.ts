@@ -172,6 +172,34 @@ describe('file service (Electron main)', () => {
     expect(!bad.ok && bad.error.message).toBe('path: must be text');
   });
 
+  it('removes temporary files of saves that died, at start and on open; a fresh one (a save running) stays', async () => {
+    const { utimesSync, readdirSync } = await import('node:fs');
+    const file = join(dir, 'site.droopline.json');
+    writeFileSync(file, projectText());
+    service.offer(file);
+    await value('fileOpenPath', { path: file });
+    await value('documentState', { projectName: 'Site', fileName: 'site.droopline.json', path: file, dirty: false });
+    await value('recoveryWrite', { projectName: 'Site', path: null, fileName: null, text: projectText() });
+    // A crash left temporaries beside the project and beside the recovery copy.
+    const old = new Date(Date.now() - 60 * 60 * 1000);
+    const deadProject = join(dir, '.site.droopline.json.0a1b2c.tmp');
+    const deadRecovery = join(userData, 'recovery', '.recovery.json.3d4e5f.tmp');
+    const running = join(dir, '.site.droopline.json.777777.tmp');
+    for (const f of [deadProject, deadRecovery, running]) writeFileSync(f, 'partial');
+    utimesSync(deadProject, old, old);
+    utimesSync(deadRecovery, old, old);
+    service = start(); // the next start
+    await service.cleaned();
+    expect(readdirSync(dir)).not.toContain('.site.droopline.json.0a1b2c.tmp');
+    expect(readdirSync(join(userData, 'recovery'))).not.toContain('.recovery.json.3d4e5f.tmp');
+    expect(readdirSync(dir)).toContain('.site.droopline.json.777777.tmp');
+    // On open, too.
+    writeFileSync(deadProject, 'partial');
+    utimesSync(deadProject, old, old);
+    await value('fileOpenPath', { path: file });
+    await vi.waitFor(() => expect(readdirSync(dir)).not.toContain('.site.droopline.json.0a1b2c.tmp'));
+  });
+
   it('saves only to files the user opened or chose', async () => {
     const elsewhere = join(dir, 'elsewhere.json');
     const r = await call('fileSave', { path: elsewhere, text: projectText() });

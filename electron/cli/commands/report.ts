@@ -3,6 +3,7 @@ import type { CliCommand } from '../io';
 import { CliInputError } from '../io';
 import { numberFlag } from '../args';
 import { callEngine } from '../call';
+import { fileProblem, readTextOrExplain } from '../file-errors';
 
 /** Reads `--loads 25,50,75,100` as a list of numbers, or throws naming the flag. */
 function loadsFlag(value: string | true | undefined): number[] | undefined {
@@ -35,12 +36,12 @@ export const reportCommand: CliCommand = {
     }
     const path = args.positional[0];
     if (!path) throw new CliInputError('missing project or plant file argument');
-    let text: string;
-    try {
-      text = await io.readFile(path);
-    } catch {
-      throw new CliInputError(`${path}: cannot read the file (does it exist?)`);
+    const out = args.flags.get('out');
+    if (out === true) throw new CliInputError('--out: needs the path of the HTML file to write, e.g. --out report.html');
+    if (typeof out === 'string' && (out === path || (await io.sameFile(out, path)))) {
+      throw new CliInputError(`--out: ${out} is the input file; the report would replace it. Choose another name, e.g. --out report.html`);
     }
+    const text = await readTextOrExplain((p) => io.readFile(p), path);
     // parseProject reads project files and migrates plain plant, scenario and sync-check files.
     const parsed = await callEngine(io, 'parseProject', { text });
     if (!parsed.ok) return parsed.exitCode;
@@ -60,9 +61,12 @@ export const reportCommand: CliCommand = {
     };
     const r = await callEngine(io, 'buildReport', request);
     if (!r.ok) return r.exitCode;
-    const out = args.flags.get('out');
     if (typeof out === 'string') {
-      await io.writeFile(out, r.value.html);
+      try {
+        await io.writeFile(out, r.value.html);
+      } catch (e) {
+        throw new CliInputError(fileProblem(out, e, 'write'));
+      }
       io.out(`wrote ${out} (${r.value.tables.length} tables, ${r.value.charts.length} charts)\n`);
     } else io.out(r.value.html);
     const missing = r.value.sections.filter((s) => s.problem);

@@ -24,9 +24,17 @@ async function readScenario(io: CliIO, path: string | undefined): Promise<unknow
   const s = raw as Record<string, unknown>;
   if (s.plant !== undefined || s.plantFile === undefined) return raw;
   if (typeof s.plantFile !== 'string' || s.plantFile.length === 0) throw new CliInputError(`${path}: plantFile: must be the path of a plant file`);
+  // The plant must sit in the scenario's folder or below it: a scenario from elsewhere must not
+  // make the command read (and quote) any file it can reach.
+  const inside = posix.normalize(s.plantFile.replace(/\\/g, '/'));
+  if (isAbsolute(s.plantFile) || inside === '..' || inside.startsWith('../')) {
+    throw new CliInputError(`${path}: plantFile: must name a file in the scenario's folder or below it (a relative path without "..")`);
+  }
   const dir = path!.includes('/') || path!.includes('\\') ? path!.replace(/[/\\][^/\\]*$/, '') : '.';
-  const plantPath = isAbsolute(s.plantFile) ? s.plantFile : posix.normalize(`${dir}/${s.plantFile}`);
+  const plantPath = posix.normalize(`${dir}/${inside}`);
   const plant = await readJson(io, plantPath, 'plant');
+  const format = plant !== null && typeof plant === 'object' ? (plant as { format?: unknown }).format : undefined;
+  if (format !== 'droopline.plant') throw new CliInputError(`${plantPath}: plantFile: is not a Droopline plant file (it needs "format": "droopline.plant")`);
   const { plantFile: _drop, ...rest } = s;
   return { ...rest, plant };
 }
