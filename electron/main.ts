@@ -6,7 +6,7 @@ import { fileFromArgv, setupFiles } from './files/setup-files';
 import type { FilesService } from './files/setup-files';
 import { setupEngineIpc } from './ipc';
 import { setupMenu } from './menu';
-import { createMainWindow, setupSessionSecurity } from './window';
+import { createMainWindow, guardWebContents, setupSessionSecurity } from './window';
 
 const outDir = join(dirname(fileURLToPath(import.meta.url)), '..');
 let mainWindow: BrowserWindow | null = null;
@@ -30,10 +30,7 @@ app.on('open-file', (event, path) => {
   else pendingFile = path;
 });
 
-app.on('web-contents-created', (_e, contents) => {
-  contents.setWindowOpenHandler(() => ({ action: 'deny' }));
-  contents.on('will-navigate', (event) => event.preventDefault());
-});
+app.on('web-contents-created', (_e, contents) => guardWebContents(contents));
 
 void app.whenReady().then(async () => {
   setupSessionSecurity();

@@ -23,7 +23,21 @@ const h = vi.hoisted(() => {
     on() {}
     loadFile() { return Promise.resolve(); }
   }
-  return { handles, ons, created, BrowserWindow, FakeWebContents };
+  /** A session whose hooks the tests call as Electron would. */
+  function fakeSession() {
+    const hooks: Record<string, (...a: unknown[]) => unknown> = {};
+    return {
+      hooks,
+      webRequest: {
+        onHeadersReceived: (fn: (...a: unknown[]) => unknown) => (hooks.headers = fn),
+        onBeforeRequest: (fn: (...a: unknown[]) => unknown) => (hooks.request = fn),
+      },
+      setPermissionRequestHandler: (fn: (...a: unknown[]) => unknown) => (hooks.permission = fn),
+      setPermissionCheckHandler: (fn: (...a: unknown[]) => unknown) => (hooks.check = fn),
+    };
+  }
+  const defaultSession = fakeSession();
+  return { handles, ons, created, BrowserWindow, FakeWebContents, defaultSession, fakeSession };
 });
 
 vi.mock('electron', () => ({
@@ -32,12 +46,12 @@ vi.mock('electron', () => ({
     on: (ch: string, fn: (...a: unknown[]) => unknown) => h.ons.set(ch, fn),
   },
   BrowserWindow: h.BrowserWindow,
-  session: { defaultSession: { webRequest: { onHeadersReceived: vi.fn() }, setPermissionRequestHandler: vi.fn() } },
+  session: { defaultSession: h.defaultSession, fromPartition: () => h.fakeSession() },
   Menu: { setApplicationMenu: vi.fn(), buildFromTemplate: vi.fn((t: unknown) => t) },
 }));
 
 const { setupEngineIpc } = await import('../../electron/ipc');
-const { createMainWindow, CONTENT_SECURITY_POLICY } = await import('../../electron/window');
+const { createMainWindow, CONTENT_SECURITY_POLICY, guardWebContents, isLocalRequest, setupSessionSecurity } = await import('../../electron/window');
 const { demoPlantJson } = await import('../helpers/plants');
 
 describe('electron main', () => {
@@ -77,6 +91,58 @@ describe('electron main', () => {
     const prevent = vi.fn();
     (wc as unknown as { handlers: Record<string, (e: unknown) => void> }).handlers['will-navigate']!({ preventDefault: prevent });
     expect(prevent).toHaveBeenCalled();
+  });
+
+  it('installs the CSP on every response, refuses every permission and any request off the machine', () => {
+    setupSessionSecurity();
+    const hooks = h.defaultSession.hooks;
+    let headers: unknown;
+    hooks.headers!({ responseHeaders: { 'X-Kept': ['1'] } }, (r: unknown) => (headers = r));
+    expect(headers).toEqual({ responseHeaders: { 'X-Kept': ['1'], 'Content-Security-Policy': [CONTENT_SECURITY_POLICY] } });
+    const granted: boolean[] = [];
+    hooks.permission!({}, 'media', (ok: boolean) => granted.push(ok));
+    hooks.permission!({}, 'clipboard-read', (ok: boolean) => granted.push(ok));
+    expect(granted).toEqual([false, false]);
+    expect(hooks.check!({}, 'notifications')).toBe(false);
+    const decide = (url: string) => {
+      let r: { cancel: boolean } | undefined;
+      hooks.request!({ url }, (x: { cancel: boolean }) => (r = x));
+      return r!.cancel;
+    };
+    expect(decide('file:///opt/droopline/renderer/index.html')).toBe(false);
+    expect(decide('blob:file:///5b1e')).toBe(false);
+    expect(decide('https://example.invalid/x.js')).toBe(true);
+    expect(decide('ws://127.0.0.1:9229')).toBe(true);
+    expect(isLocalRequest('not a url')).toBe(false);
+  });
+
+  it('guards any web contents: no new window, navigation, redirect, frame navigation or webview', () => {
+    const wc = new h.FakeWebContents();
+    guardWebContents(wc as never);
+    expect(wc.windowOpen!({ url: 'https://example.invalid' })).toEqual({ action: 'deny' });
+    for (const ev of ['will-navigate', 'will-redirect', 'will-frame-navigate', 'will-attach-webview']) {
+      const prevent = vi.fn();
+      wc.handlers[ev]!({ preventDefault: prevent });
+      expect(prevent, ev).toHaveBeenCalled();
+    }
+  });
+
+  it('cancels a running job only for our own window', async () => {
+    const trusted = new h.FakeWebContents();
+    setupEngineIpc((s) => s === (trusted as unknown));
+    const run = h.handles.get('simulate')!;
+    const cancel = h.ons.get('engineCancel')!;
+    const scenario = { plant: demoPlantJson(), durationS: 4, stepMs: 1, events: [] };
+    // A stranger's cancel is ignored: the run completes.
+    const a = run({ sender: trusted }, 11, scenario) as Promise<{ ok: boolean }>;
+    cancel({ sender: new h.FakeWebContents() }, { id: 11 });
+    expect((await a).ok).toBe(true);
+    // Our window's cancel stops it.
+    const b = run({ sender: trusted }, 12, scenario) as Promise<{ ok: boolean; error?: { code: string } }>;
+    cancel({ sender: trusted }, { id: 12 });
+    const stopped = await b;
+    expect(stopped.ok).toBe(false);
+    expect(stopped.error?.code).toBe('CANCELLED');
   });
 
   it('has a strict content security policy with no remote sources', () => {

@@ -29,8 +29,29 @@ const h = vi.hoisted(() => {
   return { made, BrowserWindow };
 });
 
-vi.mock('electron', () => ({ BrowserWindow: h.BrowserWindow }));
-const { printHtmlToPdf } = await import('../../electron/files/print-pdf');
+const s = vi.hoisted(() => {
+  const hooks: Record<string, (...a: unknown[]) => unknown> = {};
+  const partitions: string[] = [];
+  const session = {
+    webRequest: {
+      onHeadersReceived: (fn: (...a: unknown[]) => unknown) => (hooks.headers = fn),
+      onBeforeRequest: (fn: (...a: unknown[]) => unknown) => (hooks.request = fn),
+    },
+    setPermissionRequestHandler: (fn: (...a: unknown[]) => unknown) => (hooks.permission = fn),
+    setPermissionCheckHandler: (fn: (...a: unknown[]) => unknown) => (hooks.check = fn),
+  };
+  return { hooks, partitions, session };
+});
+vi.mock('electron', () => ({
+  BrowserWindow: h.BrowserWindow,
+  session: {
+    fromPartition: (p: string) => {
+      s.partitions.push(p);
+      return s.session;
+    },
+  },
+}));
+const { printHtmlToPdf, PDF_CONTENT_SECURITY_POLICY } = await import('../../electron/files/print-pdf');
 
 describe('printHtmlToPdf', () => {
   it('prints the page in a hidden window that runs no script, then cleans up', async () => {
@@ -44,5 +65,19 @@ describe('printHtmlToPdf', () => {
     expect(w.pageText).toEqual(['<h1>Kestrel Ford report</h1>']);
     expect(existsSync(w.loaded[0]!)).toBe(false);
     expect(w.destroyed).toBe(1);
+  });
+
+  it('gives the PDF window\'s own session a CSP of its own and no network', async () => {
+    await printHtmlToPdf('<p>x</p>');
+    expect(s.partitions).toEqual(['droopline-report-pdf']); // set up once
+    let headers: { responseHeaders: Record<string, string[]> } | undefined;
+    s.hooks.headers!({ responseHeaders: {} }, (r: typeof headers) => (headers = r));
+    expect(headers!.responseHeaders['Content-Security-Policy']).toEqual([PDF_CONTENT_SECURITY_POLICY]);
+    expect(PDF_CONTENT_SECURITY_POLICY).toContain("default-src 'none'");
+    expect(PDF_CONTENT_SECURITY_POLICY).not.toMatch(/script-src|https?:/);
+    let r: { cancel: boolean } | undefined;
+    s.hooks.request!({ url: 'https://example.invalid/track.png' }, (x: typeof r) => (r = x));
+    expect(r).toEqual({ cancel: true });
+    expect(s.hooks.check!()).toBe(false);
   });
 });
