@@ -9,7 +9,7 @@ import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } 
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
 import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
-import type { ParsedProject } from './project';
+import type { ParsedProject, Project } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
 
 /** A method's request and response types. */
@@ -46,6 +46,8 @@ export interface EngineApi {
   trainerClose: Method<TrainerCloseRequest, TrainerVerdict>;
   /** Read a project file's text: migrate older files forward, validate, fill defaults. */
   parseProject: Method<{ text: string }, ParsedProject>;
+  /** The file text of a project (validated), ending with its content checksum. */
+  serializeProject: Method<{ project: Project }, { text: string }>;
   /** The printable plant report (HTML with inline SVG) and its tables and charts (long; progress). */
   buildReport: Method<BuildReportRequest, ReportResult>;
 }
@@ -70,6 +72,7 @@ export const ENGINE_METHODS = [
   'trainerStep',
   'trainerClose',
   'parseProject',
+  'serializeProject',
   'buildReport',
 ] as const satisfies readonly EngineMethod[];
 

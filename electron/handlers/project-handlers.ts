@@ -1,11 +1,16 @@
-/** Handlers for project files: reading a project's text (migration and validation). */
+/** Handlers for project files: reading a project's text (migration and validation) and writing it (with its checksum). */
 import { z } from 'zod';
-import { parseProject } from '../project';
+import { parseProject, serializeProject } from '../project';
+import { projectSchema } from './project-schema';
 import type { HandlerGroup } from './handler';
 
-export const projectHandlers: HandlerGroup<'parseProject'> = {
+export const projectHandlers: HandlerGroup<'parseProject' | 'serializeProject'> = {
   parseProject: {
     schema: z.object({ text: z.string({ error: 'must be text' }) }).strict(),
     run: ({ text }) => parseProject(text),
+  },
+  serializeProject: {
+    schema: z.object({ project: projectSchema }).strict(),
+    run: ({ project }) => ({ text: serializeProject(project) }),
   },
 };

@@ -7,6 +7,7 @@ import type { ParsedProject, Project } from '../../shared-types';
 import { z } from 'zod';
 import { projectSchema } from '../handlers/project-schema';
 import { parseOrThrow, ValidationError } from '../handlers/validate';
+import { checkAndStrip, contentChecksum, INTEGRITY_KEY } from './checksum';
 import { findJsonSyntaxProblem } from './json-syntax';
 import { migrateToCurrent } from './migrate-project';
 import { ProjectFileError } from './project-file-error';
@@ -66,14 +67,23 @@ function validate(raw: unknown): Project {
  */
 export function parseProject(text: string): ParsedProject {
   const json = jsonOf(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
-  const migrated = migrateToCurrent(json);
-  return { project: validate(migrated.raw), migratedFrom: migrated.migratedFrom, notes: migrated.notes };
+  const { content, check } = checkAndStrip(json);
+  const migrated = migrateToCurrent(content);
+  const notes = [...migrated.notes];
+  if (check === 'mismatch') notes.push(CHECKSUM_MISMATCH);
+  return { project: validate(migrated.raw), migratedFrom: migrated.migratedFrom, notes };
 }
 
+/** The note of a project whose content no longer matches the checksum it was saved with. */
+export const CHECKSUM_MISMATCH =
+  'Check the figures before relying on them: this file was changed after Droopline saved it (its content does not match its checksum) — by hand, by another program, or by damage on the disk. Saving it again writes a new checksum.';
+
 /**
- * The file text of a project: JSON with two-space indent and a final newline. Saving what
- * `parseProject` returned and reading it again gives an identical project.
+ * The file text of a project: JSON with two-space indent and a final newline, ending with
+ * its content checksum (`integrity.sha256`, see `checksum.ts`). Saving what `parseProject`
+ * returned and reading it again gives an identical project.
  */
 export function serializeProject(project: Project): string {
-  return `${JSON.stringify(project, null, 2)}\n`;
+  const { [INTEGRITY_KEY]: _old, ...content } = project as Project & { [INTEGRITY_KEY]?: unknown };
+  return `${JSON.stringify({ ...content, [INTEGRITY_KEY]: { sha256: contentChecksum(content) } }, null, 2)}\n`;
 }

@@ -93,7 +93,10 @@ export const useProjectStore = defineStore('project', () => {
     };
   }
 
-  /** The file text of the project now (JSON, two-space indent, final newline: as `serializeProject`). */
+  /**
+   * The project's text for the recovery copy (JSON, two-space indent, final newline). Saved
+   * files are written by the engine's `serializeProject`, which adds the content checksum.
+   */
   function text(): string | null {
     const p = current();
     return p ? `${JSON.stringify(p, null, 2)}\n` : null;
@@ -227,12 +230,14 @@ export const useProjectStore = defineStore('project', () => {
   }
 
   async function verified(): Promise<string | null> {
-    const t = text();
-    if (t === null) {
+    const p = current();
+    if (p === null) {
       notice.value = { tone: 'error', text: 'There is no valid plant to save yet.' };
       return null;
     }
-    // The file must open again: check it with the same reader before it reaches the disk.
+    // The engine writes the file text (with its checksum), and it must open again: check it
+    // with the same reader before it reaches the disk.
+    const { text: t } = await engine().call('serializeProject', { project: p });
     await engine().call('parseProject', { text: t });
     return t;
   }
