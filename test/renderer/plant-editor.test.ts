@@ -59,7 +59,8 @@ describe('Plant editor', () => {
     await field(w, 'sets[0].ratedKVA').setValue('900');
     await settle();
     // 1000 kW on 900 kVA breaks the cross-field rule of the plant schema.
-    expect(reasonBeside(w, 'sets[0].ratedKW')).toBe('must not exceed ratedKVA');
+    // The screens speak in words: the engine's "must not exceed ratedKVA" reads as below.
+    expect(reasonBeside(w, 'sets[0].ratedKW')).toBe('must not exceed rated apparent power');
   });
 
   it('shows the operating point the engine computes for each edit', async () => {

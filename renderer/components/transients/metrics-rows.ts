@@ -25,12 +25,8 @@ export const METRIC_ROWS: readonly MetricRow[] = [
   { key: 'finalV', label: 'Final voltage (V)', decimals: 1, read: (m) => m.final.voltageV },
 ];
 
-/** A number for a table cell: fixed decimals, never NaN ("—" for blanks). */
-export function fmt(v: number | null | undefined, decimals: number): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-  const s = v.toFixed(decimals);
-  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
-}
+/** A number for a table cell: fixed decimals, never NaN ("—" for blanks); the shared format. */
+export { formatNumber as fmt } from '../../../shared-types';
 
 /** A verdict in words with an icon (never colour alone). */
 export function verdict(pass: boolean | null): { icon: string; word: string; kind: 'meets' | 'fails' | 'none' } {
