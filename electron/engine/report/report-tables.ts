@@ -1,4 +1,5 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
+import { isoClassName } from '../../../shared-types/presentation';
 import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable } from '../../../shared-types';
 import type { ReportData, SyncPart } from './report-data';
 
@@ -180,7 +181,7 @@ function classTables(d: ReportData): ReportTable[] {
           {
             id: `transient-classes-${i + 1}`,
             title: `ISO 8528-5 performance classes — ${t.scenario.name}`,
-            columns: ['Quantity', 'Unit', 'Measured', 'G1 limit', 'G1', 'G2 limit', 'G2', 'G3 limit', 'G3', 'Limit source'],
+            columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
             decimals: [0, 0, 2, 2, 0, 2, 0, 2, 0, 0],
             rows: classRows(t.result.metrics.classes),
           },

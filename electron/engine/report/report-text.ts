@@ -18,7 +18,7 @@ export const DEFINITIONS: readonly Definition[] = [
   { term: 'Slip and phase angle', text: 'Slip s = f_incoming − f_bus (Hz); slip period 1/|s|; the phase angle of the incoming set advances 360 s degrees a second.' },
   { term: 'Advance angle and window', text: 'Advance angle for a breaker closing time t: 360 s t degrees. A window of ±A degrees stays open 2A / (360 |s|) seconds per slip cycle.' },
   { term: 'Closing surge', text: '|ΔV| = √(V1² + V2² − 2 V1 V2 cos θ); subtransient surge |ΔV| / (X″d incoming + X of the running bus); peak with DC offset from the IEC 60909 factor κ = 1.02 + 0.98 e^(−3R/X) times √2. Synchronizing power (V1 V2 / X) sin θ.' },
-  { term: 'Transient metrics', text: 'Frequency nadir and peak, transient deviation from rated (%), recovery time into the steady-state band, voltage dip and peak (% of rated), voltage recovery time; verdicts against the ISO 8528-5 performance classes G1–G3 with each limit\'s source named beside it.' },
+  { term: 'Transient metrics', text: 'Frequency nadir and peak, transient deviation from rated (%), recovery time into the steady-state band, voltage dip and peak (% of rated), voltage recovery time; verdicts against the ISO 8528-5 performance classes (class G1, class G2 and class G3) with each limit\'s source named beside it.' },
   { term: 'Sharing table loads', text: 'Percent points are of the online sets\' rated kW, at the stated load power factor, as one constant-power load replacing the plant\'s own loads; "connected load" uses the plant\'s own loads.' },
 ];
 

@@ -1,4 +1,5 @@
 /** The metrics and ISO 8528-5 class tables of runs as rows (shown, and exported as CSV). */
+import { isoClassName } from '../../../shared-types';
 import type { ClassCheck, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 
 export const CLASSES: readonly PerformanceClass[] = ['G1', 'G2', 'G3'];
@@ -37,7 +38,7 @@ export function verdict(pass: boolean | null): { icon: string; word: string; kin
 /** CSV rows of a class table: quantity, unit, measured, then limit and verdict per class, then the source. */
 export function classCsv(checks: readonly ClassCheck[]): { columns: string[]; rows: (string | number | null)[][] } {
   return {
-    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${k} limit`, `${k} verdict`]), 'Limit source'],
+    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
     rows: checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdict(c.pass[k]).word]), c.source]),
   };
 }
