@@ -99,4 +99,26 @@ describe('a newcomer at 1440 × 900', () => {
     await expect.poll(() => page.getByTestId('scenario-editor').textContent()).toMatch(/number/);
     expect(errors).toEqual([]);
   });
+
+  it('switches the theme (system, light, dark) and keeps the choice after a reload', async () => {
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
+    await page.emulateMedia({ colorScheme: 'light' });
+    await page.getByTestId('rated-table').waitFor();
+    const theme = () => page.evaluate(() => ({ mode: document.documentElement.dataset.theme, bg: getComputedStyle(document.body).backgroundColor }));
+    expect((await theme()).mode).toBe('light');
+    const lightBg = (await theme()).bg;
+    await page.getByTestId('theme-choice').selectOption('dark');
+    expect((await theme()).mode).toBe('dark');
+    expect((await theme()).bg).not.toBe(lightBg);
+    await page.reload();
+    await page.getByTestId('rated-table').waitFor();
+    expect((await theme()).mode).toBe('dark');
+    expect(await page.getByTestId('theme-choice').inputValue()).toBe('dark');
+    // System follows the system's setting.
+    await page.getByTestId('theme-choice').selectOption('system');
+    expect((await theme()).mode).toBe('light');
+    await page.emulateMedia({ colorScheme: 'dark' });
+    await expect.poll(async () => (await theme()).mode).toBe('dark');
+    expect(errors).toEqual([]);
+  });
 });
