@@ -51,7 +51,7 @@ describe('buildReport on the demo plant', () => {
     expect(report.html).toContain('Kestrel &lt;Ford&gt; &amp; works');
     expect(report.html).not.toContain('<Ford>');
     expect(report.html).toContain('Speed droop');
-    expect(report.html).toContain('Qbase = ratedKVA × √(1 − ratedPF²)');
+    expect(report.html).toContain('Q_base = S_r × √(1 − cos²φ_r)');
     expect(report.html).toContain('planning and training only');
     expect(report.html).toContain('Closing out of phase can damage machines and injure people');
     expect(report.html).toContain("makers' data, protection studies, local codes and licensed practice");
