@@ -125,7 +125,7 @@ describe('Plant editor', () => {
   });
 
   it('shows rated speed n = 120 f / poles from the engine', async () => {
-    // 4 poles at 50 Hz: 1500 rpm; 6 poles: 1000 rpm (REFERENCES.md §3, closed form).
+    // 4 poles at 50 Hz: 1500 rpm; 6 poles: 1000 rpm (closed form).
     expect(w.get('[data-test="speed-0"]').text()).toBe('1500');
     await field(w, 'sets[0].poles').setValue('6');
     await settle();
