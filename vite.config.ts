@@ -11,6 +11,8 @@ export default defineConfig({
     emptyOutDir: true,
     target: 'es2022',
     chunkSizeWarningLimit: 1500,
+    // No bundler timing table in a user's terminal (npm start, npm run preview, the e2e build).
+    rolldownOptions: { checks: { pluginTimings: false } },
   },
   worker: { format: 'es' },
   preview: { host: '127.0.0.1', port: 4178, strictPort: false },

@@ -12,3 +12,4 @@ export type * from './trainer';
 export * from './project';
 export type * from './report';
 export * from './host-api';
+export * from './presentation';

@@ -1,7 +1,7 @@
 /**
  * The plant model: generating sets, their governors and regulators, feeders and loads.
  * Field names carry their unit. Per-unit machine data is on the set's own base
- * (`ratedKVA`, `ratedVoltageV` of the plant). See DESIGN.md, "The plant file".
+ * (`ratedKVA`, `ratedVoltageV` of the plant). The plant file is described in the README and DEVELOPERS.md.
  */
 
 /** File format tag of a plant file. */

@@ -3,6 +3,10 @@
 // Usage: node build/scripts/preview.mjs [--port N] [--no-build]
 import { build, preview } from 'vite';
 
+// The shared caution (`CAUTION` in shared-types/presentation.ts; a unit test keeps the two equal).
+export const PREVIEW_CAUTION =
+  "Planning and training only. Verify against makers' data, protection studies, local codes and licensed practice. Closing out of phase can damage machines and injure people.";
+
 const args = process.argv.slice(2);
 const portArg = args.indexOf('--port');
 const port = portArg >= 0 ? Number(args[portArg + 1]) : 4178;
@@ -12,4 +16,6 @@ if (!args.includes('--no-build')) {
 }
 const server = await preview({ preview: { host: '127.0.0.1', port, strictPort: false, open: false }, logLevel: 'warn' });
 const url = server.resolvedUrls?.local[0] ?? `http://127.0.0.1:${port}/`;
-process.stdout.write(`Droopline browser preview: ${url}\n(Ctrl+C to stop. Planning and training only: verify against makers' data and licensed practice.)\n`);
+const used = Number(new URL(url).port);
+const busy = used !== port ? `Port ${port} is in use; serving on port ${used} instead.\n` : '';
+process.stdout.write(`${busy}Droopline browser preview: ${url}\n(Ctrl+C to stop.)\nCaution: ${PREVIEW_CAUTION.charAt(0).toLowerCase()}${PREVIEW_CAUTION.slice(1)}\n`);

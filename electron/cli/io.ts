@@ -21,6 +21,8 @@ export interface CliCommand {
   name: string;
   summary: string;
   usage: string;
+  /** An example input file shipped in the repository, named by `--help`. */
+  example?: string;
   /** Flags that take a value (others are booleans). */
   valueFlags?: string[];
   run(args: CliArgs, io: CliIO): Promise<number>;

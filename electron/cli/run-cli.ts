@@ -1,14 +1,13 @@
 /** The CLI's entry, independent of the process so tests can run it in-process. */
+import { CAUTION } from '../../shared-types';
 import { parseArgs } from './args';
 import { commands } from './commands';
 import { CliInputError } from './io';
 import type { CliIO } from './io';
 
-const CAUTION =
-  'Planning and training only: verify against makers\' data, protection studies, local codes and licensed practice.';
 
 function usage(): string {
-  const lines = commands.map((c) => `  ${c.usage}\n      ${c.summary}`);
+  const lines = commands.map((c) => `  ${c.usage}\n      ${c.summary}${c.example ? `\n      example: ${c.example}` : ''}`);
   return `droopline — paralleling and synchronizing generating sets\n\nusage:\n${lines.join('\n')}\n\nexit codes: 0 result, 2 invalid input, 3 no steady state\n${CAUTION}\n`;
 }
 
@@ -27,7 +26,7 @@ export async function runCli(argv: readonly string[], io: CliIO): Promise<number
   try {
     const args = parseArgs(rest, cmd.valueFlags);
     if (args.flags.has('help')) {
-      io.out(`usage: ${cmd.usage}\n`);
+      io.out(`usage: ${cmd.usage}\n${cmd.summary}\n${cmd.example ? `example: ${cmd.example}\n` : ''}\n${CAUTION}\n`);
       return 0;
     }
     return await cmd.run(args, io);

@@ -1,3 +1,4 @@
+import { formatNumber } from '../../shared-types';
 /** Plain-text tables for the CLI's readable output. */
 export function formatTable(header: string[], rows: (string | number)[][]): string {
   const cells = [header, ...rows.map((r) => r.map(String))];
@@ -6,7 +7,7 @@ export function formatTable(header: string[], rows: (string | number)[][]): stri
   return [line(cells[0]!), widths.map((w) => '-'.repeat(w)).join('  '), ...cells.slice(1).map(line)].join('\n') + '\n';
 }
 
-/** Fixed decimals, with "—" for missing values (never "NaN"). */
+/** Fixed decimals, with "—" for missing values (never "NaN", never "-0"): the shared format. */
 export function fmt(v: number | null | undefined, decimals = 1): string {
-  return v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(decimals);
+  return formatNumber(v, decimals);
 }

@@ -15,6 +15,7 @@ import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
 import { useAutosave } from './project-autosave';
 import { projectParts } from './project-parts';
+import { starterScenarios } from './transients-rules';
 import type { PartKey } from './project-parts';
 import { VIEWS, useUiStore } from './ui';
 import type { ViewId } from './ui';
@@ -296,7 +297,9 @@ export const useProjectStore = defineStore('project', () => {
   async function newProject(): Promise<boolean> {
     await ready;
     if (!(await mayReplace('start a new project'))) return false;
-    const project: Project = { format: PROJECT_FORMAT, version: PROJECT_VERSION, name: UNTITLED, plant: structuredClone(newPlant) as unknown as Project['plant'], ...EMPTY_PARTS };
+    const plant = structuredClone(newPlant) as unknown as Project['plant'];
+    // The starter scenarios are part of the new project from the start, so opening Transients changes nothing.
+    const project: Project = { format: PROJECT_FORMAT, version: PROJECT_VERSION, name: UNTITLED, plant, ...EMPTY_PARTS, scenarios: starterScenarios(plant) };
     const ok = await install(project, { path: null, fileName: null }, false);
     if (ok) {
       notice.value = { tone: 'info', text: 'New project with one set: edit the plant, then save.' };
@@ -379,6 +382,8 @@ export const useProjectStore = defineStore('project', () => {
     if (!plantStore.plant) await plantStore.loadDemo();
     if (plantStore.plant && baseline.value === null) {
       name.value = plantStore.plant.name;
+      // The demo project carries its starter scenarios from the start (opening a view never changes the project).
+      if (part('scenarios').length === 0) parts.scenarios?.restore(starterScenarios(plantStore.plant));
       markClean();
     }
     if (typeof document !== 'undefined') document.title = title.value;

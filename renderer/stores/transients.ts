@@ -73,9 +73,14 @@ export const useTransientsStore = defineStore('transients', () => {
   const compare = computed(() => (compareRunId.value === currentRunId.value ? null : (runs.value.find((r) => r.id === compareRunId.value) ?? null)));
   const canRun = computed(() => !running.value && !!selected.value && !!plantStore.plant && issues.value.length === 0);
 
-  /** Starter scenarios for the current plant when there are none yet. */
+  /** Starter scenarios for the current plant when there are none yet (an edit: the user asks for them). */
   function ensureScenarios(): void {
     if (scenarios.value.length === 0) scenarios.value = starterScenarios(plantStore.plant);
+    selectFirst();
+  }
+
+  /** Selects the first scenario when none is selected (a view setting, not a change of the project). */
+  function selectFirst(): void {
     if (!selected.value) selectedId.value = scenarios.value[0]?.id ?? null;
   }
 
@@ -264,6 +269,7 @@ export const useTransientsStore = defineStore('transients', () => {
     xWindow,
     cursorS,
     ensureScenarios,
+    selectFirst,
     addScenario,
     duplicateScenario,
     removeScenario,

@@ -24,7 +24,8 @@ describe('droopline describe', () => {
   it('prints a readable table without --json', async () => {
     const io = memoryIO({ 'plant.json': JSON.stringify(demoPlantJson()) });
     expect(await runCli(['describe', 'plant.json'], io)).toBe(0);
-    expect(io.stdout()).toMatch(/G1\s+yes\s+1000\s+1250\s+1500\s+1804\.2/);
+    // I = S / (√3 V) = 1 250 000 / (√3 × 400) = 1804.2 A (closed form), printed to the ampere.
+    expect(io.stdout()).toMatch(/G1\s+yes\s+1000\s+1250\s+1500\s+1804\n/);
   });
 
   it('exits 2 naming the field for invalid input', async () => {

@@ -35,7 +35,7 @@ describe('droopline sync', () => {
     for (const k of ['slipHz', 'slipPeriodS', 'advanceAngleDeg', 'windowOpenS', 'voltageDifferencePct', 'permissive', 'reasons', 'closeNow']) expect(out).toHaveProperty(k);
     for (const k of ['angleAtContactDeg', 'surgeCurrentPU', 'surgeCurrentA', 'peakCurrentA', 'torqueStepPU']) expect(out.closeNow).toHaveProperty(k);
     expectClose(out.slipPeriodS, 4, { rel: 1e-9 }, '1 / 0.25 Hz');
-    expectClose(out.advanceAngleDeg, 7.2, { rel: 1e-9 }, '0.25 Hz × 80 ms (REFERENCES.md §3)');
+    expectClose(out.advanceAngleDeg, 7.2, { rel: 1e-9 }, '0.25 Hz × 80 ms (closed form)');
     expectClose(out.windowOpenS, 20 / 90, { rel: 1e-9 }, '2 × 10° / (360 × 0.25)');
     expect(out.permissive).toBe(false);
     expect(out.reasons).toEqual(['Slip +0.250 Hz is beyond the ±0.2 Hz limit.', 'Phase angle +30.0° is outside the ±10° window.']);

@@ -4,8 +4,9 @@ import { join } from 'node:path';
 import { chromium, selectors } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
+import { CHROMIUM_PATH } from '../../build/scripts/ensure-chromium.mjs';
 
-export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export { CHROMIUM_PATH };
 
 /** Folder for screenshots and other e2e artefacts. */
 export const ARTIFACTS = join(process.cwd(), 'out', 'test-output');

@@ -2,11 +2,11 @@
  * Builds the browser preview once and serves it on 127.0.0.1 for the e2e files
  * (in-process through Vite's preview API, so no orphan server is left behind).
  */
-import { existsSync, rmSync } from 'node:fs';
+import { rmSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { build, preview } from 'vite';
 import type { TestProject } from 'vitest/node';
-import { CHROMIUM_PATH } from './chromium';
+import { ensureChromium } from '../../build/scripts/ensure-chromium.mjs';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -15,9 +15,7 @@ declare module 'vitest' {
 }
 
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
-  if (!existsSync(CHROMIUM_PATH)) {
-    throw new Error(`Chromium is missing at ${CHROMIUM_PATH}: install it with "sudo apt-get install -y chromium" (the e2e tests need it).`);
-  }
+  ensureChromium();
   // A folder of this run's own, so parallel runs never serve each other's half-built files.
   const outDir = resolve('out', `e2e-preview-${process.pid}`);
   await build({ logLevel: 'warn', build: { outDir, emptyOutDir: true } });
@@ -30,3 +28,4 @@ export default async function setup(project: TestProject): Promise<() => Promise
     rmSync(outDir, { recursive: true, force: true });
   };
 }
+

@@ -30,8 +30,8 @@ async function settledBusHz(page: Page, loadPct: string = 'plant'): Promise<numb
 }
 
 /**
- * Bus frequency of droop sets sharing a total output P (closed form, DESIGN.md speed droop;
- * REFERENCES.md §3 "droop slope"): each set gives P_i = k_i (f_nl,i − f) with
+ * Bus frequency of droop sets sharing a total output P (closed form, the README's speed-droop definition;
+ * droop slope k_i = P_r,i / (R_i × f_r)): each set gives P_i = k_i (f_nl,i − f) with
  * k_i = ratedKW_i / (droop_i/100 × f_rated), and Σ P_i = P, so f = (Σ k_i f_nl,i − P) / Σ k_i.
  */
 function droopBusHz(sets: { ratedKW: number; droopPct: number; noLoadHz: number }[], ratedHz: number, totalKW: number): number {

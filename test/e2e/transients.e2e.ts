@@ -87,7 +87,7 @@ describe('transients and report in the browser preview', () => {
     await page.emulateMedia({ colorScheme: 'light' });
     // A blank required field is named with its rule, and Run turns off.
     await page.getByTestId('event-kW').fill('');
-    await expect.poll(() => page.getByTestId('scenario-issues').textContent()).toContain('events[0].kW: must be a number');
+    await expect.poll(() => page.getByTestId('scenario-issues').textContent()).toContain('event 1, active power: must be a number');
     await expect.poll(() => page.getByTestId('run').isDisabled()).toBe(true);
     await page.getByTestId('scenario-editor').screenshot({ path: join(ARTIFACTS, 'transients-editor-invalid.png') });
     expect(errors).toEqual([]);

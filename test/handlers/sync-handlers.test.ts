@@ -28,7 +28,7 @@ describe('evaluateSync handler', () => {
     const r = await dispatch('evaluateSync', caseFile());
     expect(r.ok).toBe(true);
     const v = (r as { value: SyncResult }).value;
-    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms (REFERENCES.md §3)');
+    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms (closed form)');
     expect(v.permissive).toBe(true);
   });
 

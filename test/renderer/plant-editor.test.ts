@@ -59,7 +59,8 @@ describe('Plant editor', () => {
     await field(w, 'sets[0].ratedKVA').setValue('900');
     await settle();
     // 1000 kW on 900 kVA breaks the cross-field rule of the plant schema.
-    expect(reasonBeside(w, 'sets[0].ratedKW')).toBe('must not exceed ratedKVA');
+    // The screens speak in words: the engine's "must not exceed ratedKVA" reads as below.
+    expect(reasonBeside(w, 'sets[0].ratedKW')).toBe('must not exceed rated apparent power');
   });
 
   it('shows the operating point the engine computes for each edit', async () => {
@@ -124,7 +125,7 @@ describe('Plant editor', () => {
   });
 
   it('shows rated speed n = 120 f / poles from the engine', async () => {
-    // 4 poles at 50 Hz: 1500 rpm; 6 poles: 1000 rpm (REFERENCES.md §3, closed form).
+    // 4 poles at 50 Hz: 1500 rpm; 6 poles: 1000 rpm (closed form).
     expect(w.get('[data-test="speed-0"]').text()).toBe('1500');
     await field(w, 'sets[0].poles').setValue('6');
     await settle();

@@ -36,7 +36,7 @@ describe('PlantView with the demo plant', () => {
     expect(await store.load(bad, 'edited plant')).toBe(false);
     expect(store.plant?.sets[2]?.ratedKVA).toBe(500);
     const w = mount(PlantView);
-    expect(w.text()).toContain('sets[2].ratedKVA');
+    expect(w.text()).toContain('set 3, rated apparent power');
     expect(w.text()).toContain('must be greater than 0');
     const bar = mount(StatusBar);
     expect(bar.get('[data-test="status-plant"]').text()).toBe('Kestrel Ford Water Treatment Works (demo) · 50 Hz · 400 V');

@@ -29,7 +29,7 @@ describe('speed-droop chart', () => {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} droop`))!;
       const op = datasets(c).find((d) => d.label === `${s.id} operating point`)!;
       const [a, b] = line.data as [Pt, Pt];
-      // f at rated kW = noLoadHz − droop/100 × f_rated (DESIGN.md speed-droop definition).
+      // f at rated kW = noLoadHz − droop/100 × f_rated (speed-droop definition, README "Definitions").
       expectClose(b.y, s.governor.noLoadHz - (s.governor.droopPct / 100) * 50, { abs: 1e-12 }, `${s.id} f at rated kW`);
       expectClose(b.x, s.ratedKW, { abs: 1e-12 }, 'rated kW');
       expectClose(op.data[0]!.y, r.bus.frequencyHz, { abs: 1e-12 }, 'operating frequency');
@@ -68,7 +68,7 @@ describe('reactive-droop chart', () => {
     for (const s of plant.sets) {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} reactive droop`))!;
       const [a, b] = line.data as [Pt, Pt];
-      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (DESIGN.md reactive droop).
+      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (reactive-droop definition, README "Definitions").
       expectClose((a.y - b.y) / (b.x - a.x), ((s.regulator.droopPct / 100) * 400) / kVARBase(s), { rel: 1e-12 }, 'slope');
       const set = r.sets.find((x) => x.id === s.id)!;
       expectClose(lineAt(a, b, set.kVAR), set.terminalV, { abs: 1e-3 }, `${s.id} on its line`);

@@ -131,7 +131,7 @@ describe('Sharing view', () => {
   });
 
   it('says so when the plant has no operating point, without NaN', async () => {
-    // Two sets holding voltage with neither droop nor cross-current: no defined kVAR split (DESIGN.md).
+    // Two sets holding voltage with neither droop nor cross-current: no defined kVAR split (README "Definitions", cross-current).
     await usePlantStore().edit('sets[0].regulator.mode', 'voltage');
     await usePlantStore().edit('sets[1].regulator.mode', 'voltage');
     await settle();

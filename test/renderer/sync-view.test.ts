@@ -72,7 +72,7 @@ describe('SynchronizingView with the engine', () => {
     expect(w.get('[data-test="readout-angle"]').text()).toContain('-73.4 °');
     expect(w.get('[data-test="readout-angle"]').text()).toContain('✗ outside');
     expect(w.get('[data-test="readout-slip"]').text()).toContain('+0.100 Hz');
-    // 0.1 Hz slip with a 100 ms breaker: advance angle 360 × 0.1 × 0.1 = 3.6° (closed form, DESIGN.md).
+    // 0.1 Hz slip with a 100 ms breaker: advance angle 360 × 0.1 × 0.1 = 3.6° (closed form).
     expect(w.get('[data-test="readout-advance"]').text()).toContain('3.60 °');
 
     sync.setLive({ angleDeg: -2 }, 0);

@@ -37,14 +37,14 @@ describe('ScenarioEditor validation', () => {
     await w.get('[data-test="scenario-duration"]').setValue('');
     await w.get('[data-test="event-kW"]').setValue('');
     const text = w.get('[data-test="scenario-issues"]').text();
-    expect(text).toContain('durationS: must be a number');
-    expect(text).toContain('events[0].kW: must be a number');
+    expect(text).toContain('length: must be a number');
+    expect(text).toContain('event 1, active power: must be a number');
     expect(w.get('[data-test="run"]').attributes('disabled')).toBeDefined();
     await w.get('[data-test="scenario-duration"]').setValue('5');
     await w.get('[data-test="event-at"]').setValue('7');
-    expect(w.get('[data-test="scenario-issues"]').text()).toContain('events[0].atS: must be before the end of the run (5 s)');
+    expect(w.get('[data-test="scenario-issues"]').text()).toContain('event 1, time: must be before the end of the run (5 s)');
     await w.get('[data-test="scenario-step"]').setValue('50');
-    expect(w.get('[data-test="scenario-issues"]').text()).toContain('stepMs: must be at most 20 ms');
+    expect(w.get('[data-test="scenario-issues"]').text()).toContain('time step: must be at most 20 ms');
   });
 
   it('adds, retypes and removes events; checks set ids against the plant', async () => {
@@ -55,12 +55,12 @@ describe('ScenarioEditor validation', () => {
     expect(store.selected!.events.map((e) => e.type)).toEqual(['load-step', 'motor-start']);
     expect(w.findAll('[data-test="timeline-mark-1"]').length).toBe(1);
     await w.get('[data-test="event-pf"]').setValue('1.4');
-    expect(w.get('[data-test="scenario-issues"]').text()).toContain('events[1].pf: must be at most 1');
+    expect(w.get('[data-test="scenario-issues"]').text()).toContain('event 2, power factor: must be at most 1');
     await w.findAll('[data-test="event-type"]')[1]!.setValue('trip');
     expect(store.selected!.events[1]).toMatchObject({ type: 'trip', setId: 'G1' });
     store.updateEvent(1, { atS: 2, type: 'trip', setId: 'G9' });
     await flushPromises();
-    expect(w.get('[data-test="scenario-issues"]').text()).toContain('events[1].setId: "G9" is not a set of the plant');
+    expect(w.get('[data-test="scenario-issues"]').text()).toContain('event 2, set: "G9" is not a set of the plant');
     await w.findAll('[data-test="event-remove"]')[1]!.trigger('click');
     expect(store.selected!.events.length).toBe(1);
     expect(w.find('[data-test="scenario-issues"]').exists()).toBe(false);

@@ -25,6 +25,7 @@ export const reportCommand: CliCommand = {
   name: 'report',
   summary: 'printable HTML report: sets, settings, sharing, droop lines, sync-check, transients',
   usage: 'droopline report project.json --out report.html [--loads 25,50,75,100] [--pf 0.8] [--date YYYY-MM-DD] [--strict]',
+  example: 'renderer/demo/example.droopline.json (a project file; a plain plant file works too)',
   valueFlags: ['out', 'loads', 'pf', 'date'],
   async run(args, io) {
     if (args.flags.has('pdf')) {

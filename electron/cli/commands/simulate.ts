@@ -3,6 +3,7 @@
  * A scenario may name its plant with `plantFile`, a path relative to the scenario file.
  */
 import { posix, win32 } from 'node:path';
+import { CAUTION, CSV_CAUTION_LINE, isoClassName } from '../../../shared-types';
 import type { SimulationResult } from '../../../shared-types';
 import { callEngine } from '../call';
 import { CliInputError } from '../io';
@@ -10,8 +11,6 @@ import type { CliCommand, CliIO } from '../io';
 import { readJson } from '../read-json';
 import { fmt, formatTable } from '../table';
 
-const CAUTION =
-  "Planning and training only: verify against makers' data, protection studies, local codes and licensed practice.";
 
 function isAbsolute(p: string): boolean {
   return posix.isAbsolute(p) || win32.isAbsolute(p);
@@ -48,7 +47,8 @@ function csv(r: SimulationResult): string {
   const s = r.series;
   const head = ['t_s', 'frequency_Hz', 'voltage_V'];
   for (const id of s.setIds) head.push(`${id}_kW`, `${id}_kVAR`, `${id}_A`, `${id}_speed_Hz`, `${id}_terminal_V`);
-  const lines = [head.join(',')];
+  // The caution leads as a '#' comment line (pandas: comment='#'; R: comment.char='#'; spreadsheets show it as a first row).
+  const lines = [CSV_CAUTION_LINE, head.join(',')];
   for (let k = 0; k < s.t.length; k++) {
     const row = [s.t[k]!.toFixed(4), s.frequencyHz[k]!.toFixed(5), s.voltageV[k]!.toFixed(3)];
     for (let i = 0; i < s.setIds.length; i++)
@@ -75,7 +75,7 @@ function summary(r: SimulationResult): string {
     ),
     'ISO 8528-5 performance classes (the verdicts apply the class limits to the events simulated):',
     formatTable(
-      ['quantity', 'measured', 'G1', 'G2', 'G3'],
+      ['quantity', 'measured', isoClassName('G1'), isoClassName('G2'), isoClassName('G3')],
       m.classes.map((c) => {
         // Recovery times are measured into each class's own band: show each class's figure.
         const cell = (k: 'G1' | 'G2' | 'G3') =>
@@ -97,6 +97,7 @@ export const simulateCommand: CliCommand = {
   name: 'simulate',
   summary: 'time-domain run of a scenario: frequency and voltage, ISO 8528-5 classes',
   usage: 'droopline simulate scenario.json [--json | --csv]',
+  example: 'renderer/demo/example.scenario.json (a scenario; --csv starts with a "#" caution line)',
   async run(args, io) {
     if (args.flags.has('json') && args.flags.has('csv')) throw new CliInputError('--json and --csv: choose one');
     const scenario = await readScenario(io, args.positional[0]);

@@ -1,5 +1,6 @@
 /** `droopline solve plant.json [--json] [--load-kw N --load-kvar N]`: where the plant settles. */
-import type { SetFlag, SharingResult } from '../../../shared-types';
+import { CAUTION, flagWords } from '../../../shared-types';
+import type { SharingResult } from '../../../shared-types';
 import { numberFlag } from '../args';
 import { callEngine } from '../call';
 import { CliInputError } from '../io';
@@ -7,19 +8,6 @@ import type { CliCommand } from '../io';
 import { readJson } from '../read-json';
 import { fmt, formatTable } from '../table';
 
-const CAUTION =
-  "Planning and training only: verify against makers' data, protection studies, local codes and licensed practice.";
-
-/** Short words for the table's flag column. */
-const FLAG_WORDS: Record<SetFlag, string> = {
-  'overload-kW': 'OVERLOAD kW',
-  'overload-kVA': 'OVERLOAD kVA',
-  'reverse-power': 'REVERSE POWER',
-  'at-max-kW': 'at max kW',
-  'at-min-kW': 'at min kW',
-  'under-excited': 'UNDER-EXCITED',
-  offline: 'offline',
-};
 
 /** The JSON the command prints: the issue's fields first, then everything else the engine returns. */
 function toJson(r: SharingResult): unknown {
@@ -46,13 +34,13 @@ function table(r: SharingResult): string {
           fmt(s.kVAR, 1),
           fmt(s.kVA, 1),
           `${fmt(s.pf, 3)} ${s.kVAR >= 0 ? 'lag' : 'lead'}`,
-          fmt(s.currentA, 1),
+          fmt(s.currentA, 0),
           fmt(s.terminalV, 1),
           fmt(s.loadingPct, 1),
           fmt(s.loadingKVAPct, 1),
-          fmt(s.circulatingA, 1),
+          fmt(s.circulatingA, 0),
           fmt(s.feederLossKW, 2),
-          s.flags.map((f) => FLAG_WORDS[f]).join(', ') || 'ok',
+          s.flags.map((f) => flagWords(f).words).join(', ') || 'ok',
         ]
       : [s.id, '—', '—', '—', '—', '—', '—', '—', '—', '—', '—', 'offline'],
   );
@@ -70,6 +58,7 @@ export const solveCommand: CliCommand = {
   name: 'solve',
   summary: 'steady-state kW/kVAR sharing, bus frequency and voltage',
   usage: 'droopline solve plant.json [--json] [--load-kw N --load-kvar N]',
+  example: 'renderer/demo/water-works.plant.json (a plant file)',
   valueFlags: ['load-kw', 'load-kvar'],
   async run(args, io) {
     const plant = await readJson(io, args.positional[0], 'plant');

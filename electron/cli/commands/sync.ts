@@ -1,4 +1,5 @@
 /** `droopline sync case.json`: the sync-check verdict, window timing and closing surge of a case. */
+import { CAUTION } from '../../../shared-types';
 import type { SyncResult } from '../../../shared-types';
 import type { CliCommand, CliIO } from '../io';
 import { CliInputError } from '../io';
@@ -6,8 +7,6 @@ import { readJson } from '../read-json';
 import { callEngine } from '../call';
 import { fmt, formatTable } from '../table';
 
-const CAUTION =
-  'Planning and training only: verify against makers\' data, protection studies, local codes and licensed practice.';
 
 function signed(v: number | null, decimals: number): string {
   if (v === null || !Number.isFinite(v)) return '—';
@@ -33,6 +32,7 @@ function printPresets(io: CliIO, presets: { id: string; label: string; source: s
     ),
   );
   for (const p of presets) io.out(`\n${p.id}: ${p.source}.\n  ${p.note}\n`);
+  io.out(`\n${CAUTION}\n`);
 }
 
 function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
@@ -82,12 +82,13 @@ export const syncCommand: CliCommand = {
   name: 'sync',
   summary: 'sync-check verdict, advance angle and closing surge of a case',
   usage: 'droopline sync case.json [--json] [--preset id] | sync --presets [--json]',
+  example: 'renderer/demo/example.sync.json (a sync-check case)',
   valueFlags: ['preset'],
   async run(args, io) {
     if (args.flags.has('presets')) {
       const r = await callEngine(io, 'listSyncPresets', {});
       if (!r.ok) return r.exitCode;
-      if (args.flags.has('json')) io.out(JSON.stringify(r.value, null, 2) + '\n');
+      if (args.flags.has('json')) io.out(JSON.stringify({ presets: r.value, caution: CAUTION }, null, 2) + '\n');
       else printPresets(io, r.value);
       return 0;
     }
@@ -103,7 +104,7 @@ export const syncCommand: CliCommand = {
     const r = await callEngine(io, 'evaluateSync', request);
     if (!r.ok) return r.exitCode;
     if (args.flags.has('json')) {
-      io.out(JSON.stringify(r.value, null, 2) + '\n');
+      io.out(JSON.stringify({ ...r.value, caution: CAUTION }, null, 2) + '\n');
       return 0;
     }
     const name = (raw as { name?: unknown }).name;

@@ -22,7 +22,7 @@ export const DEFAULT_LOADS_PCT: readonly number[] = [25, 50, 75, 100];
 export const DEFAULT_LOAD_PF = 0.8;
 /**
  * Sync-check limits used when the project has none and the engine lists no preset: typical
- * settings between generating sets (common practice, see REFERENCES.md §1), not a standard.
+ * settings between generating sets (common practice), not a standard.
  */
 export const FALLBACK_SYNC_LIMITS = { slipHz: 0.2, angleDeg: 10, voltagePct: 5, incomingFaster: true, incomingHigher: false } as const;
 /** Breaker closing time used when the project has none, ms (LV air breakers 30–80 ms, common practice). */

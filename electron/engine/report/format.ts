@@ -5,13 +5,8 @@ export function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 }
 
-/** A number with fixed decimals; blank values and non-finite numbers print as an em dash. */
-export function formatNumber(value: number | null | undefined, decimals: number): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  const text = value.toFixed(decimals);
-  // "-0.0" reads as a sign error in a table.
-  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
-}
+/** A number with fixed decimals; blank values and non-finite numbers print as an em dash (the shared format). */
+export { formatNumber } from '../../../shared-types/presentation';
 
 /** A file-name-safe stem from free text: lower case, ASCII letters, digits and dashes. */
 export function slug(text: string): string {

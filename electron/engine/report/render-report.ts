@@ -3,6 +3,7 @@
  * scripts, no external resources) with print rules so the browser's print and Electron's
  * printToPDF give clean A4 pages.
  */
+import { CAUTION_AFTER_LABEL } from '../../../shared-types/presentation';
 import type { ReportChart, ReportSection, ReportTable } from '../../../shared-types';
 import { escapeHtml, formatNumber } from './format';
 import type { ReportData } from './report-data';
@@ -107,7 +108,7 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
     `<title>${escapeHtml(d.title)} — plant report</title><style>${STYLE}</style></head><body><main>`,
     `<header><h1>${escapeHtml(d.title)}</h1><p>Plant report · ${escapeHtml(p.name)} · ${p.ratedFrequencyHz} Hz, ${p.ratedVoltageV} V line-to-line</p>`,
     `<p>Date: <time datetime="${escapeHtml(d.date)}" data-report-date>${escapeHtml(d.date)}</time> · made with Droopline</p></header>`,
-    `<div class="caution" role="note"><strong>Caution:</strong> planning and training only. Verify against makers' data, protection studies, local codes and licensed practice. Closing out of phase can damage machines and injure people.</div>`,
+    `<div class="caution" role="note"><strong>Caution:</strong> ${CAUTION_AFTER_LABEL}</div>`,
     `<nav><strong>Contents</strong><ol>${sections.map((s) => `<li><a href="#${s.id}">${escapeHtml(s.title)}</a>${s.problem ? ' (not computed)' : ''}</li>`).join('')}</ol></nav>`,
   );
   out.push(`<section id="plant"><h2>1. ${escapeHtml(title.title)}</h2>`);

@@ -1,7 +1,7 @@
 /**
  * The report's charts as SVG: the speed-droop and reactive-droop lines of every set with the
  * operating points of the sharing table, the closing map, and each scenario's frequency and
- * voltage. Droop lines follow DESIGN.md's definitions.
+ * voltage. Droop lines follow the README's definitions.
  */
 import type { GenSet, Plant, ReportChart, SimulationResult } from '../../../shared-types';
 import { kVARBase } from '../describe-plant';

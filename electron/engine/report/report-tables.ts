@@ -1,4 +1,5 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
+import { flagWords, isoClassName } from '../../../shared-types/presentation';
 import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable } from '../../../shared-types';
 import type { ReportData, SyncPart } from './report-data';
 
@@ -19,7 +20,7 @@ function setsTable(d: ReportData): ReportTable {
     id: 'sets',
     title: 'Generating sets',
     columns: ['Set', 'Name', 'Online', 'Rated kW', 'Rated kVA', 'Rated PF', 'Poles', 'Speed (rpm)', 'Rated current (A)', "X''d (pu)", "X'd (pu)", 'Xd (pu)', 'H (s)'],
-    decimals: [0, 0, 0, 0, 0, 2, 0, 0, 1, 3, 3, 2, 2],
+    decimals: [0, 0, 0, 0, 0, 2, 0, 0, 0, 3, 3, 2, 2],
     rows: d.plant.sets.map((s, i) => {
       const r = d.description.sets[i]!;
       return [s.id, s.name, s.online ? 'yes' : 'no', s.ratedKW, s.ratedKVA, s.ratedPF, s.poles, r.ratedSpeedRpm, r.ratedCurrentA, s.machine.xddpPU, s.machine.xdpPU, s.machine.xdPU, s.machine.inertiaS];
@@ -88,14 +89,14 @@ function sharingSetsTable(d: ReportData): ReportTable {
   const rows: ReportCell[][] = [];
   for (const p of d.sharing) {
     for (const s of p.result?.sets ?? []) {
-      rows.push([p.label, s.id, s.kW, s.kVAR, s.loadingPct, s.loadingKVAPct, s.pf, s.pfLagging ? 'lagging' : 'leading', s.currentA, s.circulatingA, s.sharingErrorKWPct, s.flags.join(', ')]);
+      rows.push([p.label, s.id, s.kW, s.kVAR, s.loadingPct, s.loadingKVAPct, s.pf, s.pfLagging ? 'lagging' : 'leading', s.currentA, s.circulatingA, s.sharingErrorKWPct, s.flags.map((f) => flagWords(f).words).join(', ')]);
     }
   }
   return {
     id: 'sharing-sets',
     title: 'Sharing of kW and kVAR at each load',
     columns: ['Load', 'Set', 'kW', 'kVAR', 'kW (% rated)', 'kVA (% rated)', 'Power factor', 'Sense', 'Current (A)', 'Circulating (A)', 'kW sharing error (% rated)', 'Conditions'],
-    decimals: [0, 0, 1, 1, 1, 1, 3, 0, 1, 1, 2, 0],
+    decimals: [0, 0, 1, 1, 1, 1, 3, 0, 0, 0, 2, 0],
     rows,
   };
 }
@@ -180,7 +181,7 @@ function classTables(d: ReportData): ReportTable[] {
           {
             id: `transient-classes-${i + 1}`,
             title: `ISO 8528-5 performance classes — ${t.scenario.name}`,
-            columns: ['Quantity', 'Unit', 'Measured', 'G1 limit', 'G1', 'G2 limit', 'G2', 'G3 limit', 'G3', 'Limit source'],
+            columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
             decimals: [0, 0, 2, 2, 0, 2, 0, 2, 0, 0],
             rows: classRows(t.result.metrics.classes),
           },

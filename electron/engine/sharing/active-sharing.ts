@@ -2,7 +2,7 @@
  * Active-power sharing on a common bus without feeders (closed forms).
  *
  * Droop: `P = ratedKW (f_nl − f) / (droop · f_rated)` clamped to `[minKW, ratedKW]`
- * (DESIGN.md, "Speed droop"); base load: `baseKW`; the isochronous group holds its
+ * (speed-droop definition, README "Definitions"); base load: `baseKW`; the isochronous group holds its
  * setpoint and shares the remainder in proportion to `ratedKW` (a load-sharing link).
  * If the group cannot take the remainder it saturates at its limit and the droop
  * sets set the frequency. Σ P_i = P_load(f) is solved by bisection on the

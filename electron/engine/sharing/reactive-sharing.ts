@@ -2,7 +2,7 @@
  * Reactive-power sharing on a common bus without feeders (closed forms).
  *
  * Reactive droop: `V = V_nl − droop · V_rated · Q / Qbase`, so
- * `Q = Qbase (V_nl − V) / (droop · V_rated)` (DESIGN.md, "Reactive droop").
+ * `Q = Qbase (V_nl − V) / (droop · V_rated)` (reactive-droop definition, README "Definitions").
  * Power-factor control: `Q = P tan φ`. The voltage unit (one voltage-mode set, or the
  * cross-current group sharing in proportion to `ratedKVA`) holds its setpoint and takes
  * the remainder. Without a voltage unit the droop sets set the voltage: with loads of

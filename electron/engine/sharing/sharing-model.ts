@@ -38,7 +38,7 @@ export interface SharingModel {
   n: number;
   gov: Int8Array;
   reg: Int8Array;
-  /** Droop slope, kW per Hz: ratedKW / (droop · f_rated) (DESIGN.md, "Speed droop"). */
+  /** Droop slope, kW per Hz: ratedKW / (droop · f_rated) (speed-droop definition, README "Definitions"). */
   slopeKWPerHz: Float64Array;
   noLoadHz: Float64Array;
   minKW: Float64Array;
@@ -46,7 +46,7 @@ export interface SharingModel {
   baseKW: Float64Array;
   ratedKW: Float64Array;
   ratedKVA: Float64Array;
-  /** Reactive droop slope, kVAR per V: Qbase / (droop · V_rated) (DESIGN.md, "Reactive droop"). */
+  /** Reactive droop slope, kVAR per V: Qbase / (droop · V_rated) (reactive-droop definition, README "Definitions"). */
   slopeKVARPerV: Float64Array;
   noLoadV: Float64Array;
   /** tan φ of the power-factor setpoint (lagging). */

@@ -3,7 +3,7 @@
  * (load control, with ramps), acting through an actuator lag and an engine torque lag.
  *
  *   demand u (pu of ratedKW), clamped to [minKW, ratedKW] / ratedKW
- *     droop:        u = (f_nl − f) / (droop · f_rated)      (DESIGN.md, "Speed droop")
+ *     droop:        u = (f_nl − f) / (droop · f_rated)      (speed-droop definition, README "Definitions")
  *     isochronous:  u = K_p (e + z),  T_reset dz/dt = e + (p̄ − p) / K_p,  e = (f_set − f) / f_rated
  *                   p̄ = Σ P / Σ ratedKW of the linked isochronous sets (load-sharing link)
  *     base load:    u = baseKW / ratedKW (moving along a ramp when one runs)

@@ -1,6 +1,6 @@
 /**
  * ISO 8528-5 performance classes G1–G3 for generating sets: the limits Droopline checks
- * a run against, each with where its value comes from (REFERENCES.md §2). Values marked
+ * a run against, each with where its value comes from (ISO 8528-5). Values marked
  * "from memory" could not be confirmed against the standard's own table: verify them
  * against the edition you hold.
  */
@@ -34,7 +34,7 @@ export type ClassLimitKey =
 const G2_CONFIRMED = 'ISO 8528-5, class limits: G2 confirmed; G1 and G3 from memory — verify against the standard you hold';
 const ALL_CONFIRMED = 'ISO 8528-5, class limits (all three confirmed)';
 
-/** The class table (REFERENCES.md §2). */
+/** The class table (ISO 8528-5). */
 export const ISO_8528_5_LIMITS: readonly ClassLimit[] = [
   { key: 'frequencyDroop', quantity: 'frequency droop', unit: '%', kind: 'max', limits: { G1: 8, G2: 5, G3: 3 }, source: G2_CONFIRMED },
   { key: 'frequencyBand', quantity: 'steady-state frequency band', unit: '%', kind: 'max', limits: { G1: 2.5, G2: 1.5, G3: 0.5 }, source: ALL_CONFIRMED },

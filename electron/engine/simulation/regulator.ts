@@ -6,13 +6,13 @@
  * set sits exactly on its droop line in steady state, as engine-set AVRs do.
  *
  *   reference (pu of rated voltage)
- *     reactive droop:  V_ref = V_nl − droop · Q / Qbase         (DESIGN.md, "Reactive droop")
+ *     reactive droop:  V_ref = V_nl − droop · Q / Qbase         (reactive-droop definition, README "Definitions")
  *     voltage:         V_ref = V_set
  *     cross-current:   V_ref = V_set − k (q − q̄), q = Q / ratedKVA, q̄ over the cross-current
  *                      sets on line, k = droop / (Qbase/ratedKVA) (the CT loop's burden); the
  *                      group's regulators compare V_ref with the group's ratedKVA-weighted mean
  *                      terminal voltage, so in steady state the mean sits on V_set and kVAR is
- *                      exactly in proportion to ratedKVA (DESIGN.md's cross-current definition,
+ *                      exactly in proportion to ratedKVA (the README's cross-current definition,
  *                      as the sharing solver takes it, also with unequal feeders)
  *     power factor:    V_ref = V_set + trim,  T_pf d(trim)/dt = P tan φ − Q
  *   error e = V_ref − V_t;  u = K_A (e + z), T_I dz/dt = e;   T_E dE_fd/dt = u − E_fd

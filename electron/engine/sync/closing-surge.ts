@@ -1,7 +1,7 @@
 /**
  * Closing surge for a breaker closing at a given phase angle: the subtransient symmetrical current, its peak
  * with the IEC 60909 peak factor, and the synchronizing power and torque step on the incoming shaft.
- * DESIGN.md "Sync-check case and closing surge"; REFERENCES.md §3.
+ * Closed forms; peak factor κ from IEC 60909-0.
  */
 import type { BusEquivalent, ClosingSurge, SyncCase } from '../../../shared-types';
 import { busEquivalent, incomingBranch } from './bus-equivalent';

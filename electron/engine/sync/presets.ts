@@ -1,7 +1,7 @@
 /**
  * Sync-check limit presets from published standards and the trade's common practice. Every preset names its
  * standard and clause; values recalled but not confirmed against the standard's own table say so
- * ("verify against the standard you hold"). See REFERENCES.md §1.
+ * ("verify against the standard you hold"). Sources: IEEE Std 1547-2018 clause 4.10, Table 5 (value from memory); IEEE C50.12 / C50.13 (secondary copy); common practice between generating sets.
  */
 import type { SyncLimits, SyncPreset } from '../../../shared-types';
 import { InvalidInput } from '../errors';

@@ -1,6 +1,6 @@
 /**
  * Closed-form stress of a synchronizing close on the trainer's incoming set: subtransient
- * surge current, its peak, and the synchronizing power and torque step (DESIGN.md,
+ * surge current, its peak, and the synchronizing power and torque step (closed forms;
  * "Sync-check case and closing surge"), computed by the synchronizing engine's
  * `closingSurge` on the trainer's circuit (incoming X''d plus the running bus).
  */

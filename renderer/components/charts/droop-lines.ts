@@ -1,5 +1,5 @@
 /**
- * The droop characteristics of each set, as line segments to draw (DESIGN.md definitions):
+ * The droop characteristics of each set, as line segments to draw (README "Definitions"):
  * - speed droop: `f = noLoadHz − P · (droopPct/100) · f_rated / ratedKW` (the inverse of
  *   `P = ratedKW (noLoadHz − f) / (droopPct/100 · f_rated)`); isochronous: `f = setpointHz`;
  *   base load: `P = baseKW` at any frequency;

@@ -7,6 +7,7 @@ import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, Toolti
 import type { LoadSweep, Plant, SharingResult } from '../../../shared-types';
 import { characteristicPoints, kVARBase, niceRange, paddedRange, reactiveDroopLine, speedDroopLine } from './droop-lines';
 import type { Characteristic, XY } from './droop-lines';
+import { niceBounds, roundTicks } from './nice-scale';
 import { hatch, seriesStyle, withAlpha } from './series-style';
 import type { ChartTheme } from './theme';
 
@@ -318,7 +319,8 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: axis(theme, 'Total load (kW)', { min: 0, max: points.length ? points[points.length - 1]!.loadKW : undefined }),
+        // The load axis ends on a round value (2500 kW, not 2244) so the last tick and the "no steady state" label fit.
+        x: axis(theme, 'Total load (kW)', { min: 0, max: points.length ? niceBounds(0, points[points.length - 1]!.loadKW)[1] : undefined, afterBuildTicks: roundTicks(6) }),
         f: axis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
         p: axis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
       },

@@ -3,7 +3,8 @@
  * follow the light and dark themes. `useChartTheme()` re-reads them when the system
  * theme changes.
  */
-import { onBeforeUnmount, shallowRef } from 'vue';
+import { onBeforeUnmount, shallowRef, watch } from 'vue';
+import { themeInUse } from '../../theme-mode';
 import type { ShallowRef } from 'vue';
 
 /** The colours a chart needs. */
@@ -54,11 +55,10 @@ export function readChartTheme(): ChartTheme {
 /** The current chart theme, updated when the system switches between light and dark. */
 export function useChartTheme(): ShallowRef<ChartTheme> {
   const theme = shallowRef(readChartTheme());
-  const mq = typeof matchMedia === 'function' ? matchMedia('(prefers-color-scheme: dark)') : null;
-  const onChange = () => {
+  // Follows the theme in use (the switch, or the system's setting under "System").
+  const stop = watch(themeInUse, () => {
     theme.value = readChartTheme();
-  };
-  mq?.addEventListener?.('change', onChange);
-  onBeforeUnmount(() => mq?.removeEventListener?.('change', onChange));
+  }, { flush: 'post' });
+  onBeforeUnmount(stop);
   return theme;
 }

@@ -13,3 +13,8 @@ export function showNumber(v: unknown): string {
   if (typeof v !== 'number' || !Number.isFinite(v)) return '';
   return String(Number(v.toPrecision(10)));
 }
+
+/** True for text the user typed that is not a number (kept on screen with its reason, never wiped). */
+export function unreadable(text: string): boolean {
+  return text.trim() !== '' && parseNumber(text) === null;
+}

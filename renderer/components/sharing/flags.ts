@@ -2,6 +2,7 @@
  * Words, icons and weight of each per-set flag. Flags are shown as an icon and words
  * together (colour is only a third cue), so no state depends on seeing colour.
  */
+import { FLAG_WORDS, flagWords } from '../../../shared-types';
 import type { SetFlag } from '../../../shared-types';
 import type { IconName } from '../plant/icons';
 
@@ -17,17 +18,22 @@ export interface FlagInfo {
   level: 'bad' | 'warn' | 'info';
 }
 
-export const FLAGS: Readonly<Record<SetFlag, FlagInfo>> = {
-  'overload-kW': { icon: 'overload', words: 'kW overload', explain: 'Output above the set’s rated kW.', level: 'bad' },
-  'overload-kVA': { icon: 'overload', words: 'kVA overload', explain: 'Apparent power above the set’s rated kVA (alternator heating).', level: 'bad' },
-  'reverse-power': { icon: 'reverse', words: 'reverse power', explain: 'The set absorbs kW (motoring) beyond its reverse-power trip setting (device 32).', level: 'bad' },
-  'at-max-kW': { icon: 'max', words: 'at max kW', explain: 'The governor is at the set’s kW limit; it no longer follows its droop line.', level: 'warn' },
-  'at-min-kW': { icon: 'min', words: 'at min kW', explain: 'The governor is held at the set’s minimum kW.', level: 'warn' },
-  'under-excited': { icon: 'under', words: 'under-excited', explain: 'Leading kVAR beyond the set’s under-excitation limit.', level: 'warn' },
-  offline: { icon: 'offline', words: 'offline', explain: 'Breaker open: the set takes no share.', level: 'info' },
+/** The icon of each flag; the words are the shared vocabulary (`FLAG_WORDS`, also used by the CLI and report). */
+const FLAG_ICONS: Readonly<Record<SetFlag, IconName>> = {
+  'overload-kW': 'overload',
+  'overload-kVA': 'overload',
+  'reverse-power': 'reverse',
+  'at-max-kW': 'max',
+  'at-min-kW': 'min',
+  'under-excited': 'under',
+  offline: 'offline',
 };
+
+export const FLAGS: Readonly<Record<SetFlag, FlagInfo>> = Object.fromEntries(
+  (Object.keys(FLAG_ICONS) as SetFlag[]).map((f) => [f, { icon: FLAG_ICONS[f], ...FLAG_WORDS[f] }]),
+) as Record<SetFlag, FlagInfo>;
 
 /** The display info of `flag` (unknown flags from a newer engine are shown by name). */
 export function flagInfo(flag: string): FlagInfo {
-  return (FLAGS as Record<string, FlagInfo | undefined>)[flag] ?? { icon: 'warn', words: flag, explain: flag, level: 'warn' };
+  return (FLAGS as Record<string, FlagInfo | undefined>)[flag] ?? { icon: 'warn', ...flagWords(flag) };
 }

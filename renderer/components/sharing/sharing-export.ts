@@ -2,13 +2,13 @@
  * The sharing table as rows of text, and as aligned plain text (for the clipboard) or CSV
  * (for spreadsheets). Both carry the bus figures, the units and the caution.
  */
+import { CAUTION } from '../../../shared-types';
 import type { SharingResult } from '../../../shared-types';
 import { flagInfo } from './flags';
 import { fmt, fmtPF } from './format';
 
 /** The caution every export carries. */
-export const EXPORT_CAUTION =
-  'Planning and training only. Verify against makers’ data, protection studies, local codes and licensed practice.';
+export const EXPORT_CAUTION = CAUTION;
 
 /** Column headings with units, in table order. */
 export const SHARING_COLUMNS = [

@@ -1,4 +1,5 @@
 /** The metrics and ISO 8528-5 class tables of runs as rows (shown, and exported as CSV). */
+import { isoClassName } from '../../../shared-types';
 import type { ClassCheck, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 
 export const CLASSES: readonly PerformanceClass[] = ['G1', 'G2', 'G3'];
@@ -25,12 +26,8 @@ export const METRIC_ROWS: readonly MetricRow[] = [
   { key: 'finalV', label: 'Final voltage (V)', decimals: 1, read: (m) => m.final.voltageV },
 ];
 
-/** A number for a table cell: fixed decimals, never NaN ("—" for blanks). */
-export function fmt(v: number | null | undefined, decimals: number): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-  const s = v.toFixed(decimals);
-  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
-}
+/** A number for a table cell: fixed decimals, never NaN ("—" for blanks); the shared format. */
+export { formatNumber as fmt } from '../../../shared-types';
 
 /** A verdict in words with an icon (never colour alone). */
 export function verdict(pass: boolean | null): { icon: string; word: string; kind: 'meets' | 'fails' | 'none' } {
@@ -41,7 +38,7 @@ export function verdict(pass: boolean | null): { icon: string; word: string; kin
 /** CSV rows of a class table: quantity, unit, measured, then limit and verdict per class, then the source. */
 export function classCsv(checks: readonly ClassCheck[]): { columns: string[]; rows: (string | number | null)[][] } {
   return {
-    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${k} limit`, `${k} verdict`]), 'Limit source'],
+    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
     rows: checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdict(c.pass[k]).word]), c.source]),
   };
 }

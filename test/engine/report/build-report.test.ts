@@ -51,7 +51,7 @@ describe('buildReport on the demo plant', () => {
     expect(report.html).toContain('Kestrel &lt;Ford&gt; &amp; works');
     expect(report.html).not.toContain('<Ford>');
     expect(report.html).toContain('Speed droop');
-    expect(report.html).toContain('Qbase = ratedKVA × √(1 − ratedPF²)');
+    expect(report.html).toContain('Q_base = S_r × √(1 − cos²φ_r)');
     expect(report.html).toContain('planning and training only');
     expect(report.html).toContain('Closing out of phase can damage machines and injure people');
     expect(report.html).toContain("makers' data, protection studies, local codes and licensed practice");
@@ -99,7 +99,7 @@ describe('buildReport on the demo plant', () => {
     const edge = await call<{ advanceAngleDeg: number; closeNow: { surgeCurrentA: number; peakCurrentA: number } }>('evaluateSync', c);
     const t = table(report, 'sync-settings');
     const value = (label: string) => t.rows.find((r) => r[0] === label)![1];
-    // Advance angle 360 · s · t: 0.1998 Hz × 80 ms → 5.754° (closed form, DESIGN.md).
+    // Advance angle 360 · s · t: 0.1998 Hz × 80 ms → 5.754° (closed form).
     expectClose(value('Advance angle at the slip limit') as number, 360 * 0.999 * 0.2 * 0.08, { rel: 1e-6 }, 'advance angle');
     expect(value('Advance angle at the slip limit')).toBe(edge.advanceAngleDeg);
     expect(value('Surge closing at the window edge')).toBe(edge.closeNow.surgeCurrentA);

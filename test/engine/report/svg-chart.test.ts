@@ -24,14 +24,14 @@ describe('droop lines', () => {
   it('speed droop line falls by droopPct of rated frequency from no load to rated kW', () => {
     const g1 = demoPlant().sets[0]!;
     const line = speedDroopLine(g1, 50);
-    // 4 % droop on 50 Hz, no-load 51.2 Hz → 51.2 − 0.04 × 50 = 49.2 Hz at 1000 kW (DESIGN.md definition, closed form).
+    // 4 % droop on 50 Hz, no-load 51.2 Hz → 51.2 − 0.04 × 50 = 49.2 Hz at 1000 kW (README "Definitions", closed form).
     expect(line.kW).toEqual([0, 1000]);
     expectClose(line.hz[1]!, 49.2, { abs: 1e-12 }, 'full-load frequency');
   });
   it('reactive droop line drops droopPct of rated voltage at Qbase', () => {
     const g1 = demoPlant().sets[0]!;
     const line = reactiveDroopLine(g1, 400)!;
-    // Qbase = 1250 × √(1 − 0.8²) = 750 kVAR; 410 − 0.04 × 400 = 394 V at 750 kVAR (DESIGN.md definition, closed form).
+    // Qbase = 1250 × √(1 − 0.8²) = 750 kVAR; 410 − 0.04 × 400 = 394 V at 750 kVAR (README "Definitions", closed form).
     expectClose(line.kVAR[1]!, 750, { rel: 1e-12 }, 'Qbase');
     expectClose(line.v[1]!, 394, { abs: 1e-9 }, 'voltage at Qbase');
   });

@@ -32,21 +32,21 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expectClose(solveSharing(makePlant([droopSet('A', 1000, 4, 52), droopSet('B', 1000, 4, 52)], load(1800))).bus.frequencyHz, 50.2, { abs: 1e-9 });
   });
 
-  it('unequal sets with equal per-unit droop share in proportion to rating (REFERENCES.md §3, computed)', () => {
-    // REFERENCES.md §3 [computed]: 1000 + 500 kW, both 4 %, f_nl 62.4 Hz on 60 Hz, 1200 kW → 60.48 Hz, 800 / 400 kW.
+  it('unequal sets with equal per-unit droop share in proportion to rating (closed form, recomputed)', () => {
+    // Closed form: 1000 + 500 kW, both 4 %, f_nl 62.4 Hz on 60 Hz, 1200 kW → 60.48 Hz, 800 / 400 kW.
     const r = solveSharing(makePlant([droopSet('A', 1000, 4, 62.4), droopSet('B', 500, 4, 62.4)], load(1200), { ratedFrequencyHz: 60 }));
     const k1 = 1000 / (0.04 * 60);
     const k2 = 500 / (0.04 * 60);
     expectClose(r.bus.frequencyHz, 62.4 - 1200 / (k1 + k2), { abs: 1e-9 }, 'f (recomputed closed form)');
-    expectClose(r.bus.frequencyHz, 60.48, { abs: 1e-9 }, 'f (REFERENCES.md §3)');
-    expectClose(r.sets[0]!.kW, 800, { rel: 1e-12 }, 'A kW (REFERENCES.md §3)');
-    expectClose(r.sets[1]!.kW, 400, { rel: 1e-12 }, 'B kW (REFERENCES.md §3)');
+    expectClose(r.bus.frequencyHz, 60.48, { abs: 1e-9 }, 'f (closed form)');
+    expectClose(r.sets[0]!.kW, 800, { rel: 1e-12 }, 'A kW (closed form)');
+    expectClose(r.sets[1]!.kW, 400, { rel: 1e-12 }, 'B kW (closed form)');
     expectClose(r.sets[0]!.sharingErrorKWPct, 0, { abs: 1e-9 }, 'A sharing error');
     expectClose(r.sets[0]!.loadingPct, 80, { rel: 1e-12 }, 'A loading %');
   });
 
-  it('unequal droop: 3 % and 5 % with their own no-load settings (REFERENCES.md §3, computed)', () => {
-    // REFERENCES.md §3 [computed]: two 1000 kW sets, 3 % and 5 %, f_nl 61.8 and 63.0 Hz, 1500 kW → 60.5625 Hz, 687.5 / 812.5 kW.
+  it('unequal droop: 3 % and 5 % with their own no-load settings (closed form, recomputed)', () => {
+    // Closed form: two 1000 kW sets, 3 % and 5 %, f_nl 61.8 and 63.0 Hz, 1500 kW → 60.5625 Hz, 687.5 / 812.5 kW.
     const r = solveSharing(makePlant([droopSet('A', 1000, 3, 61.8), droopSet('B', 1000, 5, 63)], load(1500), { ratedFrequencyHz: 60 }));
     expectClose(r.bus.frequencyHz, 60.5625, { abs: 1e-9 }, 'f');
     expectClose(r.sets[0]!.kW, 687.5, { rel: 1e-12 }, 'A kW');
@@ -65,7 +65,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expectClose(r.sets[1]!.kW, 475, { rel: 1e-12 }, 'B kW');
   });
 
-  it('Chapman, parallel operation example (REFERENCES.md §6.2): 1 MW/Hz sets at 61.5 and 61.0 Hz', () => {
+  it('Chapman, Electric Machinery Fundamentals, parallel operation of generators (example): 1 MW/Hz sets at 61.5 and 61.0 Hz', () => {
     // Chapman, Electric Machinery Fundamentals, parallel operation: 2.5 MW → 60 Hz, 1.5 / 1.0 MW;
     // +1 MW → 59.5 Hz, 2.0 / 1.5 MW; G2 raised 0.5 Hz → 59.75 Hz, 1.75 / 1.75 MW.
     const d = droopFor(3000, 1000, 60); // 3000 kW sets, slope 1 MW/Hz
@@ -81,7 +81,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expect(kw(r).map((v) => +v.toFixed(6))).toEqual([1750, 1750]);
   });
 
-  it('Chapman, single set (REFERENCES.md §6.3): f_nl 61.0 Hz, 1 MW/Hz', () => {
+  it('Chapman, Electric Machinery Fundamentals, a single generator (example): f_nl 61.0 Hz, 1 MW/Hz', () => {
     const d = droopFor(3000, 1000, 60);
     const one = (fnl: number, kW: number) => solveSharing(makePlant([droopSet('G', 3000, d, fnl)], load(kW), { ratedFrequencyHz: 60 })).bus.frequencyHz;
     expectClose(one(61, 1000), 60, { abs: 1e-9 }, '1000 kW → 60 Hz (Chapman)');
@@ -89,8 +89,8 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expectClose(one(61.8, 1800), 60, { abs: 1e-9 }, 'f_nl 61.8 Hz restores 60 Hz (Chapman)');
   });
 
-  it('three sets P = 50(50 − f), 100(51 − f), 150(52 − f) MW, 700 MW (REFERENCES.md §6.4)', () => {
-    // REFERENCES.md §6.4: 49 Hz; 50 / 200 / 450 MW. 10 % droop keeps every set inside its rating.
+  it('three sets P = 50(50 − f), 100(51 − f), 150(52 − f) MW, 700 MW (textbook three-set example; closed form)', () => {
+    // Closed form: 49 Hz; 50 / 200 / 450 MW. 10 % droop keeps every set inside its rating.
     const sets = [
       droopSet('G1', 250_000, 10, 50),
       droopSet('G2', 500_000, 10, 51),
@@ -103,7 +103,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expectClose(r.sets[2]!.kW, 450_000, { rel: 1e-12 }, 'G3');
   });
 
-  it('Glover, Sarma & Overbye, Example 12.4 (REFERENCES.md §6.1): 200 MW step on 1000/750/500 MVA units, R = 0.05', () => {
+  it('Glover, Sarma & Overbye, Power System Analysis and Design, 5th ed., Example 12.4: 200 MW step on 1000/750/500 MVA units, R = 0.05', () => {
     // Δf = −0.2667 Hz; ΔPm 88.9 / 66.7 / 44.4 MW. Droop R = 0.05 pu on the unit's own base = 5 %.
     const plant = (kW: number) =>
       makePlant([droopSet('U1', 1_000_000, 5, 63), droopSet('U2', 750_000, 5, 63), droopSet('U3', 500_000, 5, 63)], load(kW), { ratedFrequencyHz: 60 });
@@ -115,7 +115,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expectClose(after.sets[2]!.kW - before.sets[2]!.kW, 44_400, { abs: 50 }, 'ΔP3 (Glover 12.4)');
   });
 
-  it('Theraja, two 2000 kVA sets drooping 50→48 and 50→47.5 Hz (REFERENCES.md §6.5)', () => {
+  it('Theraja, A Textbook of Electrical Technology, Vol. II (alternators): two 2000 kVA sets drooping 50→48 and 50→47.5 Hz', () => {
     // Theraja, A Textbook of Electrical Technology Vol. II: 3000 kW → 48.33 Hz, 1667 / 1333 kW; most load without overload 3600 kW.
     const s1 = rawSet('A', { ratedKW: 2000, ratedKVA: 2000, governor: { mode: 'droop', droopPct: 4, noLoadHz: 50 } });
     const s2 = rawSet('B', { ratedKW: 2000, ratedKVA: 2000, governor: { mode: 'droop', droopPct: 5, noLoadHz: 50 } });
@@ -130,7 +130,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
     expect(solveSharing(makePlant([s1, s2], load(3590))).sets[0]!.flags).not.toContain('at-max-kW');
   });
 
-  it('Chapman, three 10 MW sets with slopes 5, 5, 6 MW/Hz (REFERENCES.md §6.6)', () => {
+  it('Chapman, Electric Machinery Fundamentals, three 10 MW sets with slopes 5, 5, 6 MW/Hz', () => {
     // 16 MW at 60 Hz: 5 / 5 / 6 MW; G3 reaches its limit first at 59.33 Hz (8.33 / 8.33 / 10 MW);
     // f_nl 62.0 / 62.0 / 61.67 Hz gives rated output at 60 Hz.
     const d5 = droopFor(10_000, 5000, 60);
@@ -163,7 +163,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
 });
 
 describe('solveSharing: isochronous, base load, offline', () => {
-  it('isochronous + droop (REFERENCES.md §3, computed): the droop set sits on its line at the iso setpoint', () => {
+  it('isochronous + droop (closed form, recomputed): the droop set sits on its line at the iso setpoint', () => {
     // A isochronous 60 Hz, 1000 kW; B 500 kW, 5 %, f_nl 61.5 Hz → B 250 kW; load 900 kW → A 650 kW.
     const plant = (kW: number) => makePlant([isoSet('A', 1000, 60), droopSet('B', 500, 5, 61.5)], load(kW), { ratedFrequencyHz: 60 });
     const r = solveSharing(plant(900));
@@ -173,12 +173,12 @@ describe('solveSharing: isochronous, base load, offline', () => {
     expect(r.warnings).toEqual([]);
   });
 
-  it('isochronous saturation hands frequency to the droop set (REFERENCES.md §3, computed)', () => {
+  it('isochronous saturation hands frequency to the droop set (closed form, recomputed)', () => {
     // Load 1400 kW → A at 1000 kW, f = 61.5 − 400 / 166.7 = 59.10 Hz.
     const r = solveSharing(makePlant([isoSet('A', 1000, 60), droopSet('B', 500, 5, 61.5)], load(1400), { ratedFrequencyHz: 60 }));
     expectClose(r.sets[0]!.kW, 1000, { rel: 1e-12 }, 'A at max');
     expectClose(r.bus.frequencyHz, 61.5 - 400 / (500 / (0.05 * 60)), { abs: 1e-9 }, 'f (closed form)');
-    expectClose(r.bus.frequencyHz, 59.1, { abs: 0.005 }, 'f (REFERENCES.md §3)');
+    expectClose(r.bus.frequencyHz, 59.1, { abs: 0.005 }, 'f (closed form)');
     expect(r.sets[0]!.flags).toContain('at-max-kW');
     expect(r.warnings[0]).toMatch(/isochronous set\(s\) A are at full output: frequency is now set by the droop sets/);
   });

@@ -89,7 +89,7 @@ function solveIndependent(sets: IndepSet[], loadW: number, loadVAR: number, x0: 
   };
 }
 
-/** Reactive droop law: |V_t| = V0 − droop · V_r · Q / Qbase (DESIGN.md). */
+/** Reactive droop law: |V_t| = V0 − droop · V_r · Q / Qbase (README "Definitions"). */
 const droopQ = (v0: number, droopPct: number, qBaseKVAR: number, vr = 400) => (e: number, q: number) => e - (v0 - ((droopPct / 100) * vr * q) / 1e3 / qBaseKVAR);
 /** Speed droop law: P = ratedKW (f_nl − f) / (droop · f_r), in W. */
 const droopP = (ratedKW: number, droopPct: number, fnl: number, fr = 50) => (f: number) => ((ratedKW * (fnl - f)) / ((droopPct / 100) * fr)) * 1e3;

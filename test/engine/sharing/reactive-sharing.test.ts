@@ -8,8 +8,8 @@ const load = (kW: number, kVAR: number, over: Record<string, unknown> = {}) => [
 const reg = (r: Record<string, unknown>) => ({ regulator: r });
 
 describe('solveSharing: reactive sharing (closed forms)', () => {
-  it('reactive droop on unequal sets (REFERENCES.md §3, computed; converted to the kVAR base)', () => {
-    // REFERENCES.md §3 [computed]: 1000 and 500 kVA, 4 % on the kVA base, V0 1.01 and 1.00 pu, 600 kVAR
+  it('reactive droop on unequal sets (closed form, recomputed; converted to the kVAR base)', () => {
+    // Closed form: 1000 and 500 kVA, 4 % on the kVA base, V0 1.01 and 1.00 pu, 600 kVAR
     // → 483.3 / 116.7 kVAR, V = 0.9907 pu. Droopline's droop is on Qbase = kVA·√(1 − 0.8²) = 0.6 kVA, so
     // 4 % per kVA is 4 % × 0.6 = 2.4 % per Qbase.
     const a = rawSet('A', { ratedKVA: 1000, ratedKW: 800, ...reg({ mode: 'reactive-droop', droopPct: 2.4, noLoadV: 404 }) });
@@ -18,10 +18,10 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
     // Recomputed: 1.01 − 4e-5 Q1 = 1.00 − 8e-5 (600 − Q1) → Q1 = 0.058 / 1.2e-4.
     const q1 = 0.058 / 1.2e-4;
     expectClose(r.sets[0]!.kVAR, q1, { rel: 1e-12 }, 'A kVAR (recomputed)');
-    expectClose(r.sets[0]!.kVAR, 483.3, { abs: 0.05 }, 'A kVAR (REFERENCES.md §3)');
-    expectClose(r.sets[1]!.kVAR, 116.7, { abs: 0.05 }, 'B kVAR (REFERENCES.md §3)');
-    expectClose(r.bus.voltageV / 400, 0.9907, { abs: 5e-5 }, 'V pu (REFERENCES.md §3)');
-    // Equal no-load voltages → 400 / 200 kVAR (REFERENCES.md §3).
+    expectClose(r.sets[0]!.kVAR, 483.3, { abs: 0.05 }, 'A kVAR (closed form)');
+    expectClose(r.sets[1]!.kVAR, 116.7, { abs: 0.05 }, 'B kVAR (closed form)');
+    expectClose(r.bus.voltageV / 400, 0.9907, { abs: 5e-5 }, 'V pu (closed form)');
+    // Equal no-load voltages → 400 / 200 kVAR (closed form).
     const eq = solveSharing(makePlant([a, { ...b, regulator: { mode: 'reactive-droop', droopPct: 2.4, noLoadV: 404 } }], load(600, 600)));
     expectClose(eq.sets[0]!.kVAR, 400, { rel: 1e-12 }, 'A kVAR, equal V0');
     expectClose(eq.sets[1]!.kVAR, 200, { rel: 1e-12 }, 'B kVAR, equal V0');
@@ -69,7 +69,7 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
     expectClose(r.sets[0]!.kVAR, 150, { rel: 1e-12 }, 'A');
   });
 
-  it('Theraja (REFERENCES.md §6.5): 10 MW at 0.8 PF, A at 6000 kW and 0.92 lagging → B at 0.629 lagging', () => {
+  it('Theraja, A Textbook of Electrical Technology, Vol. II (alternators): 10 MW at 0.8 PF, A at 6000 kW and 0.92 lagging → B at 0.629 lagging', () => {
     // A: base load 6000 kW in power-factor control 0.92; B: droop governor, voltage control, takes the rest.
     const a = rawSet('A', { ratedKW: 8000, ratedKVA: 10_000, governor: { mode: 'baseload', baseKW: 6000 }, regulator: { mode: 'power-factor', pf: 0.92 } });
     const b = rawSet('B', { ratedKW: 8000, ratedKVA: 10_000, regulator: { mode: 'voltage', setpointV: 400 } });

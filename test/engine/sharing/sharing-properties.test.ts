@@ -5,7 +5,7 @@ import { plantSchema } from '../../../electron/handlers';
 import type { Plant, SharingResult } from '../../../shared-types';
 
 // Plants are generated raw and passed through the plant schema, so every plant tested is one a
-// user could load. Invariants (DESIGN.md): power balance, circulating currents summing to zero,
+// user could load. Invariants (README "Definitions"): power balance, circulating currents summing to zero,
 // order independence, droop frequency falling with load, and never a NaN.
 
 const set = (i: number, wide: boolean) =>

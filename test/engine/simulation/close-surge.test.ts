@@ -5,7 +5,7 @@ import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
 
 // Two 1000 kVA, 480 V, 60 Hz sets, X''d = 0.15 pu each, no feeders: the surge circuit is
-// X''d1 + X''d2 = 0.30 pu (REFERENCES.md §3, closed form):
+// X''d1 + X''d2 = 0.30 pu (closed form):
 //   |ΔV| = √(V1² + V2² − 2 V1 V2 cos θ), I'' = |ΔV| / 0.30; 20° → 1.158 pu, 1392 A.
 //   Power pulse (E1 E2 / X) sin θ: 30° → 1.667 pu.
 function pair() {
@@ -22,7 +22,7 @@ describe('breaker close of an incoming set out of phase', () => {
     const iBase = (1000 * 1000) / (Math.sqrt(3) * 480);
     const dv = Math.sqrt(2 - 2 * Math.cos((20 * Math.PI) / 180));
     const closedForm = (dv / 0.3) * iBase;
-    expectClose(closedForm, 1392, { abs: 1 }, 'closed-form surge, A (REFERENCES.md §3)');
+    expectClose(closedForm, 1392, { abs: 1 }, 'closed-form surge, A (closed form)');
     const first = sim.snapshot();
     expectClose(first.sets[1]!.currentA, closedForm, { rel: 0.01 }, 'surge at the instant of closing, A');
     expectClose(first.sets[0]!.currentA, closedForm, { rel: 0.01 }, 'the running set carries the same surge, A');
@@ -58,7 +58,7 @@ describe('breaker close of an incoming set out of phase', () => {
     const s = r.snapshot();
     expect(s.sets[1]!.online).toBe(true);
     expectClose(s.sets[0]!.speedHz, s.sets[1]!.speedHz, { abs: 1e-3 }, 'speeds after pull-in, Hz');
-    // Droop lines after the close (DESIGN.md): 333.3 kW/Hz each, no-load 60 and 58.3 Hz,
+    // Droop lines after the close (README "Definitions"): 333.3 kW/Hz each, no-load 60 and 58.3 Hz,
     // 600 kW → f = (60 + 58.3 − 600/333.3) / 2 = 58.25 Hz, the incoming set at 16.7 kW.
     const k = 800 / (0.04 * 60);
     const f = (60 + 58.3 - 600 / k) / 2;

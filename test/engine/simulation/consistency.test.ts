@@ -3,7 +3,7 @@
  * every set's kW and kVAR. One case per governor and regulator mode; each starts at
  * rest, takes a disturbance (so the end is not the start) and is compared with
  * `solveSharing` of the plant as it stands after the disturbance.
- * Reference: the definitions of DESIGN.md ("Speed droop", "Reactive droop", cross-current
+ * Reference: the README's definitions ("Speed droop", "Reactive droop", cross-current
  * and isochronous sharing), as implemented by the sharing solver.
  */
 import { describe, it } from 'vitest';

@@ -5,7 +5,7 @@ import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
 
 describe('load step on a set in droop', () => {
-  // DESIGN.md, "Speed droop": P = ratedKW (f_nl − f) / (droop · f_rated), so after a step to
+  // Speed-droop definition (README "Definitions"): P = ratedKW (f_nl − f) / (droop · f_rated), so after a step to
   // 700 kW a 1000 kW set at 4 % droop, f_nl 52 Hz, settles at 52 − 0.04 · 50 · 0.7 = 50.6 Hz.
   it('ends on the droop line', () => {
     const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 400, kVAR: 250 }]);
@@ -18,7 +18,7 @@ describe('load step on a set in droop', () => {
     expect(r.metrics.frequencyRecoveryS).not.toBeNull();
   });
 
-  // Chapman, Electric Machinery Fundamentals, parallel operation (REFERENCES.md §6, example 2):
+  // Chapman, Electric Machinery Fundamentals, parallel operation of generators (example):
   // G1 f_nl 61.5 Hz, G2 61.0 Hz, both 1 MW/Hz, load 2.5 MW → 60 Hz, 1.5 / 1.0 MW; add 1 MW →
   // 59.5 Hz, 2.0 / 1.5 MW; raise G2 by 0.5 Hz → 59.75 Hz, 1.75 / 1.75 MW.
   it('reproduces Chapman\'s two-set example through a load step and a speed raise', () => {

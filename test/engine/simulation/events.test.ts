@@ -15,7 +15,7 @@ describe('simulation events', () => {
     expect(b.online).toBe(false);
     expectClose(b.kW, 0, { abs: 1e-9 }, 'tripped set kW');
     expectClose(a.kW, 800, { abs: 0.5 }, 'remaining set kW');
-    // DESIGN.md droop line: 52 − 0.04 · 50 · 0.8 = 50.4 Hz.
+    // Droop line (README "Definitions"): 52 − 0.04 · 50 · 0.8 = 50.4 Hz.
     expectClose(r.metrics.final.frequencyHz, 50.4, { abs: 0.002 }, 'final frequency, Hz');
     expect(r.metrics.frequencyNadirHz).toBeLessThan(50.4);
     expect(r.log.map((l) => l.text)).toContain('B tripped and shut down');
@@ -78,7 +78,7 @@ describe('simulation events', () => {
   it('a voltage setpoint change moves the reactive-droop line', () => {
     const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 500, kVAR: 300 }]);
     const r = simulate({ plant, durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'A', voltageV: 420 }] });
-    // Reactive droop (DESIGN.md): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
+    // Reactive droop (README "Definitions"): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
     expectClose(r.metrics.final.voltageV, 420 - 0.04 * 400 * (300 / 750), { abs: 0.05 }, 'bus voltage, V');
   });
 

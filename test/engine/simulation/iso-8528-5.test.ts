@@ -9,7 +9,7 @@ import { makePlant, rawSet } from '../../helpers/plants';
 const row = (quantity: string) => ISO_8528_5_LIMITS.find((l) => l.quantity === quantity)!;
 
 describe('ISO 8528-5 performance classes', () => {
-  // REFERENCES.md §2 (G2 confirmed; G1 and G3 from memory unless marked confirmed).
+  // ISO 8528-5, performance classes (G2 confirmed; G1 and G3 from memory unless marked confirmed).
   it.each([
     ['frequency droop', 8, 5, 3, false],
     ['steady-state frequency band', 2.5, 1.5, 0.5, true],
@@ -20,7 +20,7 @@ describe('ISO 8528-5 performance classes', () => {
     ['transient voltage deviation, load off', 35, 25, 20, false],
     ['transient voltage deviation, load on', -25, -20, -15, false],
     ['voltage recovery time', 10, 6, 4, false],
-  ])('%s: G1 %d, G2 %d, G3 %d (REFERENCES.md §2)', (quantity, g1, g2, g3, allConfirmed) => {
+  ])('%s: G1 %d, G2 %d, G3 %d (ISO 8528-5)', (quantity, g1, g2, g3, allConfirmed) => {
     const r = row(quantity);
     expect(r.limits).toEqual({ G1: g1, G2: g2, G3: g3 });
     expect(r.source).toContain('ISO 8528-5');

@@ -12,7 +12,7 @@ function plant() {
 }
 
 describe('a simulation driven frame by frame', () => {
-  // DESIGN.md, "Sync-check case": the incoming set's phase angle advances 360 · slip degrees a second.
+  // Closed form: the incoming set's phase angle advances 360 · slip degrees a second.
   it('shows the phase angle of an off-line set advancing at 360 · slip degrees a second', () => {
     const sim = createSimulation({ plant: plant(), durationS: 60, events: [] });
     const s0 = sim.snapshot();

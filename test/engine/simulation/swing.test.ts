@@ -8,7 +8,7 @@ import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
 
 describe('small-signal swing frequency against a stiff bus', () => {
-  // Kundur, Power System Stability and Control (1994), Example 12.2 (REFERENCES.md §3):
+  // Kundur, Power System Stability and Control (1994), Example 12.2 (figures confirmed via a public reproduction of the example):
   // E' = 1.123, E_B = 0.995, X_T = X'd + X_E = 0.3 + 0.65 = 0.95, δ0 = 49.92°, H = 3.5 s, 60 Hz,
   // P = 0.9 → Ks = 0.757 pu/rad, ωn = 6.39 rad/s.
   function stiffBusCase(dampingPU: number) {
@@ -83,7 +83,7 @@ describe('small-signal swing frequency against a stiff bus', () => {
     expectClose((2 * Math.PI) / period, omegaN, { rel: 0.01 }, 'ωn, rad/s (Kundur Ex. 12.2: 6.39)');
   });
 
-  // Kundur 1994, Example 12.2 with K_D = 10: ζ = K_D / (2 sqrt(2H Ks ωs)) = 0.112 (REFERENCES.md §3).
+  // Kundur 1994, Example 12.2 with K_D = 10: ζ = K_D / (2 sqrt(2H Ks ωs)) = 0.112.
   // Measured from the logarithmic decrement of successive slip peaks, ln(x_k / x_k+1) = 2πζ / sqrt(1 − ζ²).
   it('recovers the damping ratio ζ = K_D / (2 sqrt(2H Ks ωs)) within 3 % with K_D = 10', () => {
     const { slip } = swing(10);
@@ -99,7 +99,7 @@ describe('small-signal swing frequency against a stiff bus', () => {
 });
 
 describe('the first instant of a load step', () => {
-  // Closed form: swing equation 2H dω/dt = Pm − Pe, so RoCoF = ΔP f0 / 2H (REFERENCES.md §3):
+  // Closed form: swing equation 2H dω/dt = Pm − Pe, so RoCoF = ΔP f0 / 2H:
   // 0.3 pu step, H = 1 s, 50 Hz → 7.5 Hz/s.
   it('falls at ΔP f0 / 2H', () => {
     const plant = makePlant([rawSet('A', { ratedKVA: 1000, ratedKW: 800, machine: { inertiaS: 1 } })], [{ id: 'L', kW: 400, kVAR: 200 }]);

@@ -53,7 +53,7 @@ describe('closingMap (closed form)', () => {
     const c = mapCase();
     const m = closingMap(request(c, { angleAxis: 'contact' }));
     const circuit = surgeCircuit(c);
-    // 10° at contact: 2 sin 5° / 0.30 = 0.581 pu (REFERENCES.md §3), on every slip row.
+    // 10° at contact: 2 sin 5° / 0.30 = 0.581 pu (closed form), on every slip row.
     const col = m.anglesDeg.indexOf(10);
     for (const row of [0, 50, 100]) expectClose(at(m, m.surgeCurrentPU, row, col), closingSurge(circuit, 10).surgeCurrentPU, { rel: 1e-12 });
     expectClose(at(m, m.surgeCurrentPU, 50, col), 0.581, { abs: 5e-4 });

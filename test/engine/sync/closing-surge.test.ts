@@ -5,7 +5,7 @@ import type { SurgeCircuit } from '../../../electron/engine';
 import type { SyncCase } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 
-/** Two 1000 kVA 480 V sets, X''d 0.15 each (REFERENCES.md §3): loop 0.30 pu, R/X given as 0. */
+/** Two 1000 kVA 480 V sets, X''d 0.15 each (closed form): loop 0.30 pu, R/X given as 0. */
 function twoSets(over: Partial<SyncCase['incoming']> = {}): SyncCase {
   return {
     bus: { frequencyHz: 60, voltageV: 480 },
@@ -19,12 +19,12 @@ function twoSets(over: Partial<SyncCase['incoming']> = {}): SyncCase {
 describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
   const circuit = surgeCircuit(twoSets());
 
-  it('has the 1202.8 A base and the 0.30 pu loop (REFERENCES.md §3, S/(√3 V))', () => {
+  it('has the 1202.8 A base and the 0.30 pu loop (closed form, S/(√3 V))', () => {
     expectClose(circuit.baseCurrentA, 1202.8, { abs: 0.05 });
     expectClose(circuit.loopXPU, 0.3, { rel: 1e-12 });
   });
 
-  // REFERENCES.md §3 [computed]: I'' = |ΔV| / 0.30; amperes × 1202.8 A.
+  // Closed form: I'' = |ΔV| / 0.30; amperes × 1202.8 A.
   it.each([
     [10, 0.581, 699],
     [20, 1.158, 1392],
@@ -32,11 +32,11 @@ describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
   ])('closing at %s° gives %s pu, %s A', (deg, pu, amps) => {
     const s = closingSurge(circuit, deg);
     expectClose(s.surgeCurrentPU, (2 * Math.sin((deg * Math.PI) / 360)) / 0.3, { rel: 1e-12 }, 'closed form 2 sin(θ/2) / X');
-    expectClose(s.surgeCurrentPU, pu, { abs: 0.006 }, 'REFERENCES.md §3 pu');
-    expectClose(s.surgeCurrentA, amps, { abs: 1.5 }, 'REFERENCES.md §3 A');
+    expectClose(s.surgeCurrentPU, pu, { abs: 0.006 }, 'closed form, pu');
+    expectClose(s.surgeCurrentA, amps, { abs: 1.5 }, 'closed form, A');
   });
 
-  it('gives a 1.667 pu synchronizing power step at 30° ((E1 E2 / X) sin θ, REFERENCES.md §3)', () => {
+  it('gives a 1.667 pu synchronizing power step at 30° ((E1 E2 / X) sin θ, closed form)', () => {
     const s = closingSurge(circuit, 30);
     expectClose(s.powerStepPU, 0.5 / 0.3, { rel: 1e-12 });
     expectClose(s.powerStepPU, 1.667, { abs: 5e-4 });

@@ -4,7 +4,7 @@ import type { SyncCase } from '../../../shared-types';
 import { demoPlant } from '../../helpers/plants';
 import { expectClose } from '../../helpers/expect-close';
 
-/** A 1000 kVA 480 V set coming onto a bus of the same size (REFERENCES.md §3's pair). */
+/** A 1000 kVA 480 V set coming onto a bus of the same size (a closed-form pair: I_base = S / (√3 V) = 1202.8 A). */
 function baseCase(over: Partial<SyncCase> = {}, inc: Partial<SyncCase['incoming']> = {}): SyncCase {
   return {
     format: 'droopline.sync',
@@ -19,7 +19,7 @@ function baseCase(over: Partial<SyncCase> = {}, inc: Partial<SyncCase['incoming'
 }
 
 describe('evaluateSync', () => {
-  it('computes slip, period, advance angle and window for 0.1 Hz and 100 ms (REFERENCES.md §3)', () => {
+  it('computes slip, period, advance angle and window for 0.1 Hz and 100 ms (closed form)', () => {
     const r = evaluateSync(baseCase());
     expect(r.slipHz).toBe(0.1); // 60.1 − 60 Hz, rounded to 1 nHz (no 0.10000000000000142 in the output)
     expectClose(r.slipPeriodS!, 10, { rel: 1e-9 });

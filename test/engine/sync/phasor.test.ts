@@ -8,7 +8,7 @@ describe('phasorDifference', () => {
     expectClose(phasorDifference(1, 1, 30).magnitude, 2 * Math.sin((15 * Math.PI) / 180), { rel: 1e-12 }, '|ΔV|');
   });
 
-  // REFERENCES.md §3, phasor difference table [computed]; recomputed here from the law of cosines.
+  // Phasor difference table (closed form), recomputed here from the law of cosines.
   it.each([
     [1, 1, 10, 0.1743],
     [1, 1, 20, 0.3473],
@@ -16,7 +16,7 @@ describe('phasorDifference', () => {
     [1, 1, 60, 1.0],
     [1, 1, 120, 1.732],
     [1, 1, 180, 2.0],
-  ])('V1 %s, V2 %s at %s° gives %s pu (REFERENCES.md §3)', (v1, v2, th, expected) => {
+  ])('V1 %s, V2 %s at %s° gives %s pu (closed form)', (v1, v2, th, expected) => {
     const cosine = Math.sqrt(v1 * v1 + v2 * v2 - 2 * v1 * v2 * Math.cos((th * Math.PI) / 180));
     expectClose(phasorDifference(v1, v2, th).magnitude, cosine, { rel: 1e-12 }, 'law of cosines');
     expectClose(phasorDifference(v1, v2, th).magnitude, expected, { abs: 5e-4 }, 'table value');

@@ -12,7 +12,7 @@ import {
 import { expectClose } from '../../helpers/expect-close';
 
 describe('advanceAngleDeg', () => {
-  // 360 × s × t (DESIGN.md; REFERENCES.md §3 [computed]).
+  // 360 × s × t (closed form).
   it.each([
     [0.1, 100, 3.6],
     [0.1, 60, 2.16],
@@ -31,14 +31,14 @@ describe('slip period and window', () => {
     expect(slipPeriodS(0)).toBeNull();
   });
 
-  // (2 Δφ / 360) / s: REFERENCES.md §3 [computed].
+  // (2 Δφ / 360) / s: closed form.
   it('a ±10° window at 0.1 Hz stays open 0.556 s every 10 s', () => {
     expectClose(windowOpenS(10, 0.1)!, 20 / 36, { rel: 1e-12 });
-    expectClose(windowOpenS(10, 0.1)!, 0.556, { abs: 5e-4 }, 'REFERENCES.md §3');
+    expectClose(windowOpenS(10, 0.1)!, 0.556, { abs: 5e-4 }, 'closed form');
   });
 
   it('a ±20° window at 0.3 Hz stays open 0.370 s', () => {
-    expectClose(windowOpenS(20, 0.3)!, 0.37, { abs: 5e-4 }, 'REFERENCES.md §3');
+    expectClose(windowOpenS(20, 0.3)!, 0.37, { abs: 5e-4 }, 'closed form');
     expectClose(windowOpenS(20, -0.3)!, 40 / 108, { rel: 1e-12 });
   });
 

@@ -1,0 +1,178 @@
+/**
+ * Words and numbers, one home for the renderer, the CLI and the report: the caution sentence,
+ * number formats, the flag vocabulary, field names in words and the ISO 8528-5 class names.
+ * Pure constants and tiny pure functions only (no DOM, no Node, no clock).
+ */
+import type { SetFlag } from './sharing';
+
+/** The caution every screen, report, export and CLI output carries. */
+export const CAUTION =
+  "Planning and training only. Verify against makers' data, protection studies, local codes and licensed practice. Closing out of phase can damage machines and injure people.";
+
+/** The caution after a bold "Caution:" label (first letter lower case). */
+export const CAUTION_AFTER_LABEL = CAUTION.charAt(0).toLowerCase() + CAUTION.slice(1);
+
+/** A `#` comment line carrying the caution, placed first in CSV files (common CSV readers skip it with a comment option). */
+export const CSV_CAUTION_LINE = `# Caution: ${CAUTION_AFTER_LABEL}`;
+
+/** `value` with `decimals` decimals; "—" for null, NaN or infinite (never "NaN"); "-0.0" prints as "0.0". */
+export function formatNumber(value: number | null | undefined, decimals = 0): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const text = value.toFixed(decimals);
+  // "-0" and "-0.0" read as a sign error: show zero.
+  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
+}
+
+/** A signed figure ("+1.2", "−0.4", "0.0") for errors and deviations (true minus sign). */
+export function formatSigned(value: number | null | undefined, decimals = 1): string {
+  const s = formatNumber(value, decimals);
+  if (s === '—' || Number(s) === 0) return s;
+  return s.startsWith('-') ? `−${s.slice(1)}` : `+${s}`;
+}
+
+/** A power factor with its sense: "0.85 lag", "0.97 lead", "1.00". */
+export function formatPF(pf: number | null | undefined, lagging: boolean): string {
+  const s = formatNumber(pf, 2);
+  if (s === '—' || s === '1.00') return s;
+  return `${s} ${lagging ? 'lag' : 'lead'}`;
+}
+
+/** A current to the ampere ("1057"), the resolution a setting or a meter is read to. */
+export function formatCurrentA(value: number | null | undefined): string {
+  return formatNumber(value, 0);
+}
+
+/** How a per-set flag reads: short words for tables, a sentence for tooltips, and its weight. */
+export interface FlagWords {
+  /** Short words for tables (screens, CLI, report). */
+  words: string;
+  /** A sentence explaining the flag. */
+  explain: string;
+  /** `bad`: act on it; `warn`: watch it; `info`: a state. */
+  level: 'bad' | 'warn' | 'info';
+}
+
+/** One vocabulary for the per-set flags, used by the screens, the CLI and the report. */
+export const FLAG_WORDS: Readonly<Record<SetFlag, FlagWords>> = {
+  'overload-kW': { words: 'kW overload', explain: 'Output above the set’s rated kW.', level: 'bad' },
+  'overload-kVA': { words: 'kVA overload', explain: 'Apparent power above the set’s rated kVA (alternator heating).', level: 'bad' },
+  'reverse-power': { words: 'reverse power', explain: 'The set absorbs kW (motoring) beyond its reverse-power trip setting (device 32).', level: 'bad' },
+  'at-max-kW': { words: 'at max kW', explain: 'The governor is at the set’s kW limit; it no longer follows its droop line.', level: 'warn' },
+  'at-min-kW': { words: 'at min kW', explain: 'The governor is held at the set’s minimum kW.', level: 'warn' },
+  'under-excited': { words: 'under-excited', explain: 'Leading kVAR beyond the set’s under-excitation limit.', level: 'warn' },
+  offline: { words: 'offline', explain: 'Breaker open: the set takes no share.', level: 'info' },
+};
+
+/** The words of `flag` (an unknown flag from a newer engine is shown by its name). */
+export function flagWords(flag: string): FlagWords {
+  return (FLAG_WORDS as Record<string, FlagWords | undefined>)[flag] ?? { words: flag, explain: flag, level: 'warn' };
+}
+
+/**
+ * Field names of the plant, scenario and sync-check files in words, as the screens speak them.
+ * The CLI and JSON keep the field paths (`sets[0].ratedKW`), which a file editor needs.
+ */
+export const FIELD_WORDS: Readonly<Record<string, string>> = {
+  name: 'name',
+  id: 'id',
+  online: 'breaker',
+  ratedFrequencyHz: 'rated frequency',
+  ratedVoltageV: 'rated voltage',
+  ratedKVA: 'rated apparent power',
+  ratedKW: 'rated active power',
+  ratedPF: 'rated power factor',
+  poles: 'number of poles',
+  minKW: 'minimum output',
+  reversePowerTripPct: 'reverse-power trip setting',
+  reversePowerDelayS: 'reverse-power trip delay',
+  overloadPct: 'overload capability',
+  motoringPct: 'motoring power',
+  leadingKVARLimitPct: 'leading kVAR limit',
+  governor: 'governor',
+  regulator: 'voltage regulator',
+  machine: 'machine data',
+  feeder: 'feeder',
+  mode: 'mode',
+  droopPct: 'droop',
+  noLoadHz: 'no-load frequency',
+  setpointHz: 'setpoint frequency',
+  baseKW: 'base load',
+  loadSharingLink: 'load-sharing link',
+  noLoadV: 'no-load voltage',
+  setpointV: 'setpoint voltage',
+  pf: 'power factor',
+  shuntExcited: 'shunt excitation',
+  residualPU: 'residual voltage',
+  xdPU: 'synchronous reactance Xd',
+  xdpPU: "transient reactance X'd",
+  xddpPU: "subtransient reactance X''d",
+  tdopS: "open-circuit time constant T'd0",
+  raPU: 'armature resistance Ra',
+  inertiaS: 'inertia constant H',
+  dampingPU: 'damping',
+  actuatorLagS: 'actuator lag',
+  engineLagS: 'engine lag',
+  isoResetS: 'isochronous reset time',
+  exciterLagS: 'exciter lag',
+  ceilingPU: 'exciter ceiling',
+  gainPU: 'regulator gain',
+  rOhm: 'resistance R',
+  xOhm: 'reactance X',
+  kW: 'active power',
+  kVAR: 'reactive power',
+  kVA: 'apparent power',
+  model: 'load model',
+  frequencySensitivity: 'frequency sensitivity',
+  durationS: 'length',
+  stepMs: 'time step',
+  atS: 'time',
+  setId: 'set',
+  loadId: 'load',
+  frequencyHz: 'frequency',
+  voltageV: 'voltage',
+  angleDeg: 'phase angle',
+  toKW: 'target output',
+  slipHz: 'slip',
+  voltagePct: 'voltage difference',
+  breakerClosingMs: 'breaker closing time',
+  livePct: 'live threshold',
+  deadPct: 'dead threshold',
+};
+
+/** What a list in a field path holds, for "set 2", "load 1", "event 3". */
+const LIST_WORDS: Readonly<Record<string, string>> = { sets: 'set', loads: 'load', events: 'event', scenarios: 'scenario' };
+
+/** A field path in words: `sets[1].governor.droopPct` → "set 2, governor droop". */
+export function pathInWords(path: string): string {
+  if (path === '' || path === '(file)') return 'the file';
+  const parts: string[] = [];
+  const words: string[] = [];
+  for (const piece of path.split('.')) {
+    const m = /^([A-Za-z]+)\[(\d+)\]$/.exec(piece);
+    if (m) {
+      if (words.length) parts.push(words.splice(0).join(' '));
+      parts.push(`${LIST_WORDS[m[1]!] ?? FIELD_WORDS[m[1]!] ?? m[1]!} ${Number(m[2]) + 1}`);
+    } else words.push(FIELD_WORDS[piece] ?? piece);
+  }
+  if (words.length) parts.push(words.join(' '));
+  return parts.join(', ');
+}
+
+/** A rule message in words: field names inside it ("must not exceed ratedKVA") become words. */
+export function messageInWords(message: string): string {
+  // Field names start with two lower-case letters (ratedKVA, minKW); units (kW, kVAR) are left alone.
+  return message.replace(/\b[a-z]{2,}(?:[A-Z][A-Za-z]*)+\b/g, (name) => FIELD_WORDS[name] ?? name);
+}
+
+/** A field problem as the screens say it: "set 2, governor droop: must be 20 % or less". */
+export function issueInWords(issue: { path: string; message: string }): string {
+  return `${pathInWords(issue.path)}: ${messageInWords(issue.message)}`;
+}
+
+/**
+ * The name of an ISO 8528-5 performance class ("class G1"): always with the word "class", so it
+ * never reads as a set id (the demo's sets are G1–G3 too).
+ */
+export function isoClassName(cls: string): string {
+  return `class ${cls}`;
+}
