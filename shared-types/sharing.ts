@@ -3,11 +3,21 @@ import type { Plant } from './plant';
 
 /** Per-set conditions, as words (shown with icons and text, never colour alone). */
 export type SetFlag =
+  /** Above rated kW (inside the overload allowance). */
   | 'overload-kW'
+  /** Above rated kVA (stator current). */
   | 'overload-kVA'
+  /** Absorbing kW from the bus (any amount). */
+  | 'motoring'
+  /** Absorbing more kW than the reverse-power (32) setting: the relay would trip the set. */
   | 'reverse-power'
+  /** At the governor's fuel limit (the overload limit). */
   | 'at-max-kW'
+  /** At the lowest output: zero fuel in droop, `minKW` in isochronous or base load. */
   | 'at-min-kW'
+  /** At (held) or beyond the field-heating limit. */
+  | 'field-limit'
+  /** At (held) or beyond the leading (under-excitation) limit. */
   | 'under-excited'
   | 'offline';
 
@@ -57,6 +67,8 @@ export interface SetResult {
   /** Reactive power absorbed by the feeder (X·I²), kVAR. */
   feederLossKVAR?: number;
   flags: SetFlag[];
+  /** One sentence per flag that needs attention (the set's limits and what follows), in words. */
+  notes: string[];
 }
 
 /** Where the plant settles. */

@@ -1,4 +1,5 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
+import { setCapability } from './capability';
 
 /** Rated speed `n = 120 f / poles`, rpm. */
 export function ratedSpeedRpm(frequencyHz: number, poles: number): number {
@@ -26,6 +27,7 @@ export function describePlant(plant: Plant): PlantDescription {
     ratedKW: s.ratedKW,
     ratedKVA: s.ratedKVA,
     kVARBase: kVARBase(s.ratedKVA, s.ratedPF),
+    capability: setCapability(s),
   }));
   const online = plant.sets.filter((s) => s.online);
   const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);

@@ -84,6 +84,6 @@ describe('droopline solve', () => {
     expect(await runCli(['solve', 'plant.json'], io)).toBe(0);
     expect(io.stdout()).toMatch(/\nB .*UNDER-EXCITED/);
     expect(io.stdout()).toMatch(/\nC\s+—.*offline/);
-    expect(io.stdout()).toContain('warnings:\n  - B is under-excited');
+    expect(io.stdout()).toContain('warnings:\n  - B is held at its under-excitation limit');
   });
 });
