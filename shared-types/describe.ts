@@ -70,4 +70,6 @@ export interface PlantDescription {
   /** Connected load at rated voltage and frequency, kW and kVAR. */
   loadKW: number;
   loadKVAR: number;
+  /** Set-points outside their usual range, one sentence each (warnings, not refusals). */
+  settingWarnings: string[];
 }

@@ -1,5 +1,6 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
 import { setCapability } from './capability';
+import { settingWarnings } from './setting-checks';
 
 /** Rated speed `n = 120 f / poles`, rpm. */
 export function ratedSpeedRpm(frequencyHz: number, poles: number): number {
@@ -43,5 +44,6 @@ export function describePlant(plant: Plant): PlantDescription {
     installedKVA: sum(plant.sets.map((s) => s.ratedKVA)),
     loadKW: sum(loads.map((l) => l.kW)),
     loadKVAR: sum(loads.map((l) => l.kVAR)),
+    settingWarnings: settingWarnings(plant),
   };
 }

@@ -5,6 +5,7 @@
  */
 import type { Plant, SetResult, SharingResult } from '../../../shared-types';
 import { flagSentences, setFlags } from './flags';
+import { settingWarnings } from '../setting-checks';
 import type { IsoState } from './active-sharing';
 import type { SharingModel } from './sharing-model';
 
@@ -65,7 +66,7 @@ function offlineResult(plant: Plant, idx: number): SetResult {
 
 /** Builds the full result of `op` for `plant` (offline sets are listed with zeros and the `offline` flag). */
 export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingPoint): SharingResult {
-  const warnings: string[] = [...m.notes];
+  const warnings: string[] = [...m.notes, ...settingWarnings(plant)];
   let totKW = 0;
   let totKVAR = 0;
   let ratedKWSum = 0;

@@ -42,3 +42,50 @@ function solveModel(m: SharingModel): OperatingPoint {
     isoState: closed.isoState,
   });
 }
+
+/** Bisection steps on the load scale when looking for the most the sets can carry (2⁻⁴⁰ of the load). */
+const MOST_STEPS = 40;
+
+/**
+ * Like `solveSharing` with a load override, but when that load is more than the sets can
+ * carry (no steady state), solves at the most they can carry instead — the same kVAR/kW,
+ * scaled down, found by bisection on the scale — and says so in the result (`capped` and
+ * the first warning). Control structures with no answer at any load still throw.
+ */
+export function solveSharingAtMost(plant: Plant, load: LoadOverride): SharingResult {
+  let firstError: unknown;
+  try {
+    return solveSharing(plant, load);
+  } catch (e) {
+    if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+    firstError = e;
+  }
+  let best: SharingResult;
+  try {
+    best = solveSharing(plant, { kW: 0, kVAR: 0 });
+  } catch {
+    throw firstError;
+  }
+  let lo = 0;
+  let hi = 1;
+  for (let k = 0; k < MOST_STEPS; k++) {
+    const mid = 0.5 * (lo + hi);
+    try {
+      best = solveSharing(plant, { kW: load.kW * mid, kVAR: load.kVAR * mid });
+      lo = mid;
+    } catch (e) {
+      if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+      hi = mid;
+    }
+  }
+  const carriedKW = load.kW * lo;
+  const reason = firstError instanceof Error ? firstError.message : '';
+  return {
+    ...best,
+    capped: { requestedKW: load.kW, requestedKVAR: load.kVAR, carriedKW, carriedKVAR: load.kVAR * lo, shortKW: load.kW - carriedKW, reason },
+    warnings: [
+      `The load asked for (${Math.round(load.kW)} kW) has no steady state: ${reason} Shown instead: the most the sets can carry at the same power factor, ${Math.round(carriedKW)} kW (${Math.round(load.kW - carriedKW)} kW less).`,
+      ...best.warnings,
+    ],
+  };
+}
