@@ -8,6 +8,7 @@
  * base (`ratedKVA`, plant `ratedVoltageV`); the network is solved on the system base
  * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
  */
+import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
 import type { Plant } from '../../../shared-types';
 import { REGULATOR_RESET_S } from './regulator';
 
@@ -177,8 +178,10 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.noLoadPU[i] = g.noLoadHz / fr;
     m.setpointPU[i] = g.setpointHz / fr;
     m.basePU[i] = g.baseKW / s.ratedKW;
-    m.minPU[i] = s.minKW / s.ratedKW;
-    m.maxPU[i] = 1;
+    // The steady state's limits (one home): the overload (fuel) limit above in every mode;
+    // below, zero fuel (−motoring power) for droop, the load controller's minKW otherwise.
+    m.minPU[i] = lowerLimitKW(s) / s.ratedKW;
+    m.maxPU[i] = overloadLimitKW(s) / s.ratedKW;
     m.actuatorS[i] = lag(g.actuatorLagS, `${s.id} governor.actuatorLagS`);
     m.engineS[i] = lag(g.engineLagS, `${s.id} governor.engineLagS`);
     m.resetS[i] = g.isoResetS;
