@@ -72,7 +72,7 @@ describe('reactive-droop chart', () => {
     for (const s of plant.sets) {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} reactive droop`))!;
       const [a, b] = line.data as [Pt, Pt];
-      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (DESIGN.md reactive droop).
+      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (the reactive-droop definition, closed form).
       expectClose((a.y - b.y) / (b.x - a.x), ((s.regulator.droopPct / 100) * 400) / kVARBase(s), { rel: 1e-12 }, 'slope');
       const set = r.sets.find((x) => x.id === s.id)!;
       expectClose(lineAt(a, b, set.kVAR), set.terminalV, { abs: 1e-3 }, `${s.id} on its line`);

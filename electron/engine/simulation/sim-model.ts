@@ -17,7 +17,7 @@ import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE
 /**
  * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no
  * field for it. 0.03 s sits inside the 0.01–0.05 s typical of sets of this size
- * (REFERENCES.md §4, from memory).
+ * (typical range, value from memory).
  */
 export const TDDO_S = 0.03;
 
@@ -45,7 +45,7 @@ export interface SimModel {
   ratedKVA: Float64Array;
   /** ratedKW / ratedKVA. */
   kwPU: Float64Array;
-  /** Qbase / ratedKVA = √(1 − ratedPF²) (DESIGN.md, "Reactive droop"). */
+  /** Qbase / ratedKVA = √(1 − ratedPF²) (the reactive-droop definition of the README). */
   qBasePU: Float64Array;
   inertiaS: Float64Array;
   dampingPU: Float64Array;

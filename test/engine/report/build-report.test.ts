@@ -103,7 +103,7 @@ describe('buildReport on the demo plant', () => {
     const edge = await call<{ advanceAngleDeg: number; closeNow: { surgeCurrentA: number; peakCurrentA: number } }>('evaluateSync', c);
     const t = table(report, 'sync-settings');
     const value = (label: string) => t.rows.find((r) => r[0] === label)![1];
-    // Advance angle 360 · s · t: 0.1998 Hz × 80 ms → 5.754° (closed form, DESIGN.md).
+    // Advance angle 360 · s · t: 0.1998 Hz × 80 ms → 5.754° (closed form).
     expectClose(value('Advance angle at the slip limit') as number, 360 * 0.999 * 0.2 * 0.08, { rel: 1e-6 }, 'advance angle');
     expect(value('Advance angle at the slip limit')).toBe(edge.advanceAngleDeg);
     expect(value('Surge closing at the window edge')).toBe(edge.closeNow.surgeCurrentA);

@@ -89,7 +89,7 @@ describe('simulation events', () => {
   it('a voltage setpoint change moves the reactive-droop line', () => {
     const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 500, kVAR: 300 }]);
     const r = simulate({ plant, durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'A', voltageV: 420 }] });
-    // Reactive droop (DESIGN.md): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
+    // Reactive droop (closed form): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
     expectClose(r.metrics.final.voltageV, 420 - 0.04 * 400 * (300 / 750), { abs: 0.05 }, 'bus voltage, V');
   });
 
