@@ -174,7 +174,8 @@ export const useSharingStore = defineStore('sharing', () => {
     const r = result.value;
     if (!r) return [];
     const inRows = new Set(r.sets.flatMap((s) => s.notes));
-    return r.warnings.filter((w) => !inRows.has(w));
+    // The capped-load sentence (the engine's first warning) is shown on its own above the table.
+    return r.warnings.filter((w, i) => !inRows.has(w) && !(r.capped && i === 0));
   });
   /** Total kW as % of the online kW rating of the plant the result is for. */
   const totalLoadingPct = computed(() => {

@@ -10,7 +10,7 @@ interface SolveJson {
   bus: { frequencyHz: number; voltageV: number };
   sets: { id: string; kW: number; kVAR: number; kVA: number; pf: number; currentA: number; terminalV: number; circulatingA: number; loadingPct: number; flags: string[] }[];
   warnings: string[];
-  totals: { loadKW: number; feederLossKW: number };
+  totals: { loadKW: number; loadKVAR: number; feederLossKW: number };
 }
 
 describe('droopline solve', () => {

@@ -112,8 +112,8 @@ function fmtKW(v: number): string {
 }
 
 /** The sentence for a load beyond every set's fuel limit, with the shortfall in kW. */
-export function overCapabilityMessage(loadKW: number, capabilityKW: number, what = 'The load'): string {
-  return `${what} (${fmtKW(loadKW)}) is more than the online sets can supply at their overload limits (${fmtKW(capabilityKW)}): ${fmtKW(loadKW - capabilityKW)} short, so there is no steady state. Bring another set online or shed load.`;
+export function overCapabilityMessage(loadKW: number, capabilityKW: number, afterFeederLosses = false): string {
+  return `The load (${fmtKW(loadKW)}) is more than the online sets can supply at their overload limits (${fmtKW(capabilityKW)}${afterFeederLosses ? ' into the bus, after feeder losses' : ''}): ${fmtKW(loadKW - capabilityKW)} short, so there is no steady state. Bring another set online or shed load.`;
 }
 
 /** The sentence for a load below every set's lowest output, with the excess in kW. */

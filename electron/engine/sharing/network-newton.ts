@@ -280,5 +280,5 @@ function sumSentKW(w: Work): number {
 }
 
 function capabilityError(w: Work): NoSteadyState {
-  return new NoSteadyState(overCapabilityMessage(w.loadW / 1000, sumSentKW(w), 'The load plus feeder losses'));
+  return new NoSteadyState(overCapabilityMessage(w.loadW / 1000, sumSentKW(w), true));
 }

@@ -112,7 +112,7 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
           for (let i = 0; i < n; i++) atLimitKW += m.gov[i] === codes.GOV_ISO ? (lambda > hi ? m.maxKW[i]! : m.minKW[i]!) : w.pr[i]! / 1000;
           throw new NoSteadyState(
             lambda > hi
-              ? overCapabilityMessage(w.loadW / 1000, atLimitKW, 'The load plus feeder losses')
+              ? overCapabilityMessage(w.loadW / 1000, atLimitKW, true)
               : underMinimumMessage(w.loadW / 1000, atLimitKW),
           );
         }

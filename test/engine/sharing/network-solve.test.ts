@@ -260,6 +260,6 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
     expect(() => solveSharing(plant)).toThrow(NoSteadyState);
     // Just inside the overload limit (1100 kW) without feeders, over it with the losses.
     const edge = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 1095, kVAR: 300 }]);
-    expect(() => solveSharing(edge)).toThrow(/^The load plus feeder losses \(\d+ kW\) is more than the online sets can supply at their overload limits \(\d+ kW\): \d+ kW short/);
+    expect(() => solveSharing(edge)).toThrow(/^The load \(1095 kW\) is more than the online sets can supply at their overload limits \(\d+ kW into the bus, after feeder losses\): \d+ kW short/);
   });
 });
