@@ -7,7 +7,7 @@
  *   `E = |V + j Xd I|`, `I = (P − jQ) / V`, so `E_rated = √((1 + Xd sin φ)² + (Xd cos φ)²)`
  *   and the limit is the circle `(1 + Xd Q)² + (Xd P)² = E_rated²` (pu on ratedKVA): centre
  *   (0, −1/Xd), radius `E_rated / Xd` (closed form; the construction of every generator
- *   capability chart, e.g. Kundur, Power System Stability and Control, §5.4);
+ *   capability chart, e.g. Kundur, Power System Stability and Control, §5.4, section number from memory);
  * - under-excitation: the leading limit `−leadingKVARLimitPct / 100 · ratedKVA`;
  * - the engine: the overload (fuel) limit, with `ratedKW` the continuous rating, and on the
  *   left zero fuel (−motoring power) and the reverse-power (32) setting.
