@@ -13,6 +13,44 @@ export interface SetDescription {
   ratedKVA: number;
   /** Reactive base `Qbase = ratedKVA * sqrt(1 - ratedPF^2)`, kVAR. */
   kVARBase: number;
+  /** The set's capability chart (limit curves in kW and kVAR). */
+  capability: SetCapability;
+}
+
+/** A point of a capability curve, kW and kVAR (generator convention, kVAR > 0 lagging). */
+export interface CapabilityPoint {
+  kW: number;
+  kVAR: number;
+}
+
+/**
+ * A set's capability chart: stator-current circle (rated kVA), field-heating limit (the field
+ * at rated kVA and rated PF), leading (under-excitation) limit, engine limits. Curves are
+ * point lists; straight limits are single numbers.
+ */
+export interface SetCapability {
+  id: string;
+  ratedKW: number;
+  ratedKVA: number;
+  /** The governor's fuel limit (overload limit), kW. */
+  overloadKW: number;
+  /** Power absorbed at zero fuel (motoring power), kW, positive. */
+  motoringKW: number;
+  /** Reverse power at the 32 setting, kW, positive. */
+  reverseTripKW: number;
+  /** Leading (under-excitation) limit, kVAR, negative. */
+  leadingKVAR: number;
+  /** Field EMF at rated kVA and rated PF, pu (one-axis, round rotor, rated voltage). */
+  fieldEmfPU: number;
+  /** kVAR at rated kVA and rated PF (the rated point lies on both the stator and the field curve). */
+  ratedKVAR: number;
+  /** The chart's kW range. */
+  minChartKW: number;
+  maxChartKW: number;
+  /** Stator-current limit: the rated-kVA half circle from full leading to full lagging. */
+  stator: CapabilityPoint[];
+  /** Field-heating limit over the chart's kW range. */
+  field: CapabilityPoint[];
 }
 
 /** Plant totals and each set's rated figures. */
@@ -32,4 +70,6 @@ export interface PlantDescription {
   /** Connected load at rated voltage and frequency, kW and kVAR. */
   loadKW: number;
   loadKVAR: number;
+  /** Set-points outside their usual range, one sentence each (warnings, not refusals). */
+  settingWarnings: string[];
 }

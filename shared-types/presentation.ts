@@ -54,12 +54,18 @@ export interface FlagWords {
 
 /** One vocabulary for the per-set flags, used by the screens, the CLI and the report. */
 export const FLAG_WORDS: Readonly<Record<SetFlag, FlagWords>> = {
-  'overload-kW': { words: 'kW overload', explain: 'Output above the set’s rated kW.', level: 'bad' },
-  'overload-kVA': { words: 'kVA overload', explain: 'Apparent power above the set’s rated kVA (alternator heating).', level: 'bad' },
-  'reverse-power': { words: 'reverse power', explain: 'The set absorbs kW (motoring) beyond its reverse-power trip setting (device 32).', level: 'bad' },
-  'at-max-kW': { words: 'at max kW', explain: 'The governor is at the set’s kW limit; it no longer follows its droop line.', level: 'warn' },
-  'at-min-kW': { words: 'at min kW', explain: 'The governor is held at the set’s minimum kW.', level: 'warn' },
-  'under-excited': { words: 'under-excited', explain: 'Leading kVAR beyond the set’s under-excitation limit.', level: 'warn' },
+  'overload-kW': {
+    words: 'kW overload',
+    explain: 'Output above the set’s rated kW, inside its overload allowance (a prime-rated set: 110 % for one hour in twelve, ISO 8528-1, value from memory).',
+    level: 'bad',
+  },
+  'overload-kVA': { words: 'kVA overload', explain: 'Apparent power above the set’s rated kVA: stator current above rating (alternator heating).', level: 'bad' },
+  motoring: { words: 'motoring', explain: 'The set absorbs kW from the bus: its engine is turned by the alternator.', level: 'warn' },
+  'reverse-power': { words: 'reverse power: 32 trips', explain: 'The set absorbs more kW than its reverse-power setting (device 32): the relay would trip it after its delay.', level: 'bad' },
+  'at-max-kW': { words: 'at fuel limit', explain: 'The governor is at the set’s fuel limit (its overload limit); it no longer follows its droop line.', level: 'warn' },
+  'at-min-kW': { words: 'at min kW', explain: 'The governor is at the set’s lowest output: zero fuel in droop, the minimum output in isochronous or base load.', level: 'warn' },
+  'field-limit': { words: 'field limit', explain: 'Lagging kVAR at (held by the regulator) or beyond the set’s field-heating limit.', level: 'warn' },
+  'under-excited': { words: 'under-excited', explain: 'Leading kVAR at (held by the regulator) or beyond the set’s under-excitation limit.', level: 'warn' },
   offline: { words: 'offline', explain: 'Breaker open: the set takes no share.', level: 'info' },
 };
 

@@ -25,7 +25,10 @@ export interface BuildReportRequest {
    * clock, so the caller supplies it.
    */
   date: string;
-  /** Total loads for the sharing table, % of the online sets' rated kW (default 25, 50, 75, 100). */
+  /**
+   * Total loads for the sharing table, % of the online sets' rated kW (default 25, 50, 75, 100); the
+   * overload point (every online set at its overload limit) is always added.
+   */
   loadsPct?: number[];
   /** Power factor of the load at those points, lagging (default 0.8). */
   loadPF?: number;

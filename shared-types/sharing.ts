@@ -3,11 +3,21 @@ import type { Plant } from './plant';
 
 /** Per-set conditions, as words (shown with icons and text, never colour alone). */
 export type SetFlag =
+  /** Above rated kW (inside the overload allowance). */
   | 'overload-kW'
+  /** Above rated kVA (stator current). */
   | 'overload-kVA'
+  /** Absorbing kW from the bus (any amount). */
+  | 'motoring'
+  /** Absorbing more kW than the reverse-power (32) setting: the relay would trip the set. */
   | 'reverse-power'
+  /** At the governor's fuel limit (the overload limit). */
   | 'at-max-kW'
+  /** At the lowest output: zero fuel in droop, `minKW` in isochronous or base load. */
   | 'at-min-kW'
+  /** At (held) or beyond the field-heating limit. */
+  | 'field-limit'
+  /** At (held) or beyond the leading (under-excitation) limit. */
   | 'under-excited'
   | 'offline';
 
@@ -22,6 +32,24 @@ export interface SolveSharingRequest {
   plant: Plant;
   /** Replace the plant's loads by one constant-power load. */
   load?: LoadOverride;
+  /**
+   * With `load`: when it is more than the sets can carry, solve at the most they can carry
+   * (same kVAR/kW) and say so in `capped`, instead of failing. Default false.
+   */
+  atMost?: boolean;
+}
+
+/** A load the sets could not carry, and what was solved instead (`SolveSharingRequest.atMost`). */
+export interface CappedLoad {
+  requestedKW: number;
+  requestedKVAR: number;
+  /** The most the sets can carry at the same kVAR/kW, kW and kVAR (the result is for this load). */
+  carriedKW: number;
+  carriedKVAR: number;
+  /** requestedKW − carriedKW. */
+  shortKW: number;
+  /** Why the requested load has no steady state (the engine's sentence). */
+  reason: string;
 }
 
 /** One set at the operating point. Generator convention: Q > 0 lagging. */
@@ -57,6 +85,8 @@ export interface SetResult {
   /** Reactive power absorbed by the feeder (X·I²), kVAR. */
   feederLossKVAR?: number;
   flags: SetFlag[];
+  /** One sentence per flag that needs attention (the set's limits and what follows), in words. */
+  notes: string[];
 }
 
 /** Where the plant settles. */
@@ -74,6 +104,8 @@ export interface SharingResult {
   };
   /** Plain-language notes (e.g. isochronous set saturated, frequency outside band). */
   warnings: string[];
+  /** Set when the requested load could not be carried and the most the sets can carry was solved instead. */
+  capped?: CappedLoad;
   /** Which method solved it: closed forms or the network Newton–Raphson. */
   method: 'closed-form' | 'newton-raphson';
   iterations: number;

@@ -1,4 +1,6 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
+import { setCapability } from './capability';
+import { settingWarnings } from './setting-checks';
 
 /** Rated speed `n = 120 f / poles`, rpm. */
 export function ratedSpeedRpm(frequencyHz: number, poles: number): number {
@@ -26,6 +28,7 @@ export function describePlant(plant: Plant): PlantDescription {
     ratedKW: s.ratedKW,
     ratedKVA: s.ratedKVA,
     kVARBase: kVARBase(s.ratedKVA, s.ratedPF),
+    capability: setCapability(s),
   }));
   const online = plant.sets.filter((s) => s.online);
   const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
@@ -41,5 +44,6 @@ export function describePlant(plant: Plant): PlantDescription {
     installedKVA: sum(plant.sets.map((s) => s.ratedKVA)),
     loadKW: sum(loads.map((l) => l.kW)),
     loadKVAR: sum(loads.map((l) => l.kVAR)),
+    settingWarnings: settingWarnings(plant),
   };
 }

@@ -1,6 +1,10 @@
 /** The engine's public face: pure computations over plain data. */
 export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
-export { solveSharing, sweepLoad } from './sharing';
+export { solveSharing, solveSharingAtMost, sweepLoad, impliedPowerFactor } from './sharing';
+export type { ImpliedPowerFactor } from './sharing';
+export { settingWarnings, SETPOINT_BAND_PCT, DROOP_USUAL_MIN_PCT, DROOP_USUAL_MAX_PCT } from './setting-checks';
+export { setCapability, fieldLimitKVAR, leadingLimitKVAR, ratedFieldEmfPU } from './capability';
+export { overloadLimitKW, motoringKW, reverseTripKW, lowerLimitKW } from './sharing/set-limits';
 export * from './sync';
 export * from './simulation';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';

@@ -116,8 +116,10 @@ export const plantSchema = z
       if (g.mode === 'droop' && !(g.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'governor', 'droopPct'], message: 'must be greater than 0 in droop mode' });
       if (s.minKW > s.ratedKW) ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not exceed ratedKW' });
-      if (s.minKW < (-s.reversePowerTripPct / 100) * s.ratedKW)
-        ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not be below the reverse-power trip setting' });
+      // minKW is the load controller's lower limit (isochronous and base load); below zero fuel
+      // (−motoring power) no governor can go.
+      if (s.minKW < (-s.motoringPct / 100) * s.ratedKW)
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)' });
       const r = s.regulator;
       if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });

@@ -1,6 +1,6 @@
 /** Handlers for steady-state sharing: the operating point and the load sweep. */
 import { z } from 'zod';
-import { solveSharing, sweepLoad } from '../engine';
+import { solveSharing, solveSharingAtMost, sweepLoad } from '../engine';
 import { plantSchema } from './plant-schema';
 import type { HandlerGroup } from './handler';
 
@@ -15,7 +15,12 @@ export const loadOverrideSchema = z
   .strict();
 
 /** Request of `solveSharing`. */
-export const solveSharingSchema = z.object({ plant: plantSchema, load: loadOverrideSchema.optional() }).strict();
+export const solveSharingSchema = z
+  .object({ plant: plantSchema, load: loadOverrideSchema.optional(), atMost: z.boolean({ error: 'must be true or false' }).optional() })
+  .strict()
+  .superRefine((r, ctx) => {
+    if (r.atMost && !r.load) ctx.addIssue({ code: 'custom', path: ['atMost'], message: 'needs a load (atMost applies to a load override)' });
+  });
 
 /** Request of `sweepLoad`. */
 export const sweepLoadSchema = z
@@ -34,7 +39,7 @@ export const sweepLoadSchema = z
 export const sharingHandlers: HandlerGroup<'solveSharing' | 'sweepLoad'> = {
   solveSharing: {
     schema: solveSharingSchema,
-    run: ({ plant, load }) => solveSharing(plant, load),
+    run: ({ plant, load, atMost }) => (atMost && load ? solveSharingAtMost(plant, load) : solveSharing(plant, load)),
   },
   sweepLoad: {
     schema: sweepLoadSchema,

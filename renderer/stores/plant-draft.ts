@@ -84,15 +84,20 @@ export function nextId(prefix: string, used: readonly string[]): string {
 }
 
 /**
- * A new set with every field given (so the draft equals its validated form): 500 kVA,
+ * A new set. When the plant has sets, a copy of the last one's settings (ratings, governor,
+ * regulator, machine, feeder, limits; online), so the new set shares kW and kVAR in
+ * proportion at once: the same per-unit droop lines from the same no-load set-points.
+ * Otherwise a set with every field given (so the draft equals its validated form): 500 kVA,
  * 0.8 PF, 4 poles, 4 % speed and reactive droop with the plant schema's default
  * no-load setpoints (rated output at rated frequency and voltage), typical machine data
- * for an engine set (typical data of 100 kVA – 3 MVA engine sets, value from memory; verify with the maker's data).
+ * for an engine set (ranges from memory; verify with the maker's data).
  */
 export function newSet(draft: PlantDraft): SetDraft {
   const f = draft.ratedFrequencyHz ?? 50;
   const v = draft.ratedVoltageV ?? 400;
   const id = nextId('G', draft.sets.map((s) => s.id));
+  const last = draft.sets[draft.sets.length - 1];
+  if (last) return { ...clonePlain(last), id, name: `Set ${id}`, online: true };
   return {
     id,
     name: `Set ${id}`,
@@ -127,7 +132,7 @@ export function newSet(draft: PlantDraft): SetDraft {
 
 /**
  * Typical machine data of a 100 kVA – 3 MVA engine set, per unit on its own base
- * (typical ranges of engine sets, value from memory: X d 1.5–3.5, X'd 0.15–0.35, X''d 0.10–0.20,
+ * (ranges from memory, common practice: X d 1.5–3.5, X'd 0.15–0.35, X''d 0.10–0.20,
  * T'd0 1–3 s LV, H 0.5–1.5 s). Mid-range values; typical, verify with the maker's data.
  */
 export const TYPICAL_MACHINE = { xdPU: 2.5, xdpPU: 0.25, xddpPU: 0.15, tdopS: 2.5, inertiaS: 1 } as const;

@@ -15,6 +15,8 @@ import { usePlantStore } from './plant';
 export const SWEEP_STEPS = 45;
 /** The slider's range, % of the online sets' kW rating. */
 export const LOAD_PCT_MAX = 110;
+/** Below this total kVA, % of the online kVA rating, the total PF is shown as "—". */
+export const PF_SHOWN_ABOVE_PCT = 0.5;
 /** kVAR per kW of the swept load when the plant has no load to take it from (PF 0.8 lagging). */
 const DEFAULT_Q_PER_P = 0.75;
 
@@ -81,7 +83,9 @@ export const useSharingStore = defineStore('sharing', () => {
   const solver = latestOnly(async ({ plant, loadPct: pct }: SolveInput) => {
     const load = pct === null ? undefined : loadAtPct(plant, pct);
     try {
-      const r = await engine().call('solveSharing', load ? { plant, load } : { plant });
+      // The slider goes up to the overload limit; a load the sets cannot carry (feeder losses on top, a
+      // set that saturates early) is answered at the most they can carry, and the result says so.
+      const r = await engine().call('solveSharing', load ? { plant, load, atMost: true } : { plant });
       result.value = r;
       error.value = null;
     } catch (e) {
@@ -159,10 +163,22 @@ export const useSharingStore = defineStore('sharing', () => {
   /** The load the result is for (override or the plant's own), kW and kVAR. */
   const shownLoad = computed<LoadOverride>(() => resultLoad.value ?? (resultPlant.value ? connectedLoad(resultPlant.value) : ownLoad.value));
 
-  /** Power factor of the sets' total output, or null with no output. */
+  /** Power factor of the sets' total output, or null at (near) zero output, where it means nothing. */
   const totalPF = computed(() => {
     const t = result.value?.totals;
-    return t && t.kVA > 0 ? t.kW / t.kVA : null;
+    const p = resultPlant.value;
+    if (!t || !p) return null;
+    let kva = 0;
+    for (const s of p.sets) if (s.online) kva += s.ratedKVA;
+    return t.kVA > (PF_SHOWN_ABOVE_PCT / 100) * kva ? Math.abs(t.kW) / t.kVA : null;
+  });
+  /** The plant warnings not already said in a set's row of the table. */
+  const plantWarnings = computed(() => {
+    const r = result.value;
+    if (!r) return [];
+    const inRows = new Set(r.sets.flatMap((s) => s.notes));
+    // The capped-load sentence (the engine's first warning) is shown on its own above the table.
+    return r.warnings.filter((w, i) => !inRows.has(w) && !(r.capped && i === 0));
   });
   /** Total kW as % of the online kW rating of the plant the result is for. */
   const totalLoadingPct = computed(() => {
@@ -206,6 +222,7 @@ export const useSharingStore = defineStore('sharing', () => {
     shownLoadPct,
     shownLoad,
     totalPF,
+    plantWarnings,
     totalLoadingPct,
     setLoadPct,
     solveNow,

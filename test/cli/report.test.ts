@@ -74,6 +74,12 @@ describe('droopline report', () => {
     expect(io.files.has('r.html')).toBe(false);
   });
 
+  it('--strict exits 0 for the demo plant: every section, every sharing row computed', async () => {
+    const io = memoryIO({ 'p.json': projectJson() });
+    expect(await runCli(['report', 'p.json', '--out', 'r.html', '--strict', '--date', '2026-12-02'], io)).toBe(0);
+    expect(io.stderr()).not.toContain('not computed');
+  });
+
   it('--strict exits 3 when a section could not be computed', async () => {
     const project = JSON.parse(projectJson()) as { sync: { incomingSetId: string } };
     project.sync.incomingSetId = 'G7';

@@ -3,13 +3,14 @@ import { runCli } from '../../electron/cli/run-cli';
 import { demoPlantJson, rawPlant, rawSet } from '../helpers/plants';
 import { memoryIO } from '../helpers/memory-io';
 
+const expectCloseKVAR = (a: number, b: number) => expect(Math.abs(a - b)).toBeLessThan(1e-6 * Math.abs(b));
 const demoIO = (plant: unknown = demoPlantJson()) => memoryIO({ 'plant.json': JSON.stringify(plant) });
 
 interface SolveJson {
   bus: { frequencyHz: number; voltageV: number };
   sets: { id: string; kW: number; kVAR: number; kVA: number; pf: number; currentA: number; terminalV: number; circulatingA: number; loadingPct: number; flags: string[] }[];
   warnings: string[];
-  totals: { loadKW: number; feederLossKW: number };
+  totals: { loadKW: number; loadKVAR: number; feederLossKW: number };
 }
 
 describe('droopline solve', () => {
@@ -43,6 +44,34 @@ describe('droopline solve', () => {
     expect(out.totals.loadKW).toBe(900);
   });
 
+  it('the demo plant near full load answers (98 % of rated kW), flags in words', async () => {
+    const io = demoIO();
+    expect(await runCli(['solve', 'plant.json', '--load-kw', '2000', '--load-kvar', '1500'], io)).toBe(0);
+    expect(io.stdout()).toMatch(/kVA overload/); // the shared flag words
+    expect(io.stdout()).not.toContain('NaN');
+  });
+
+  it('--load-kw alone takes the plant loads power factor and says so', async () => {
+    // Demo loads: 820 + 260 + 90 = 1170 kW, 560 + 150 + 10 = 720 kVAR → PF 1170 / √(1170² + 720²) = 0.852 lagging;
+    // 1000 kW → 1000 × 720 / 1170 = 615.4 kVAR (closed form).
+    const io = demoIO();
+    expect(await runCli(['solve', 'plant.json', '--load-kw', '1000'], io)).toBe(0);
+    const pf = 1170 / Math.hypot(1170, 720);
+    expect(io.stdout()).toContain(`load: 1000.0 kW at PF ${pf.toFixed(3)} lagging (the plant loads; give --load-kvar to choose): ${((1000 * 720) / 1170).toFixed(1)} kVAR`);
+    const json = demoIO();
+    expect(await runCli(['solve', 'plant.json', '--json', '--load-kw', '1000'], json)).toBe(0);
+    expectCloseKVAR((JSON.parse(json.stdout()) as SolveJson).totals.loadKVAR, (1000 * 720) / 1170);
+  });
+
+  it('total PF at zero load prints "—"', async () => {
+    const io = demoIO();
+    expect(await runCli(['solve', 'plant.json', '--load-kw', '0'], io)).toBe(0);
+    expect(io.stdout()).toMatch(/PF —; load/);
+    const loaded = demoIO();
+    expect(await runCli(['solve', 'plant.json'], loaded)).toBe(0);
+    expect(loaded.stdout()).toMatch(/PF 0\.\d{3} lag; load/);
+  });
+
   it('exits 2 naming the field for invalid input, and for bad flags', async () => {
     const plant = demoPlantJson() as { sets: { regulator: { droopPct: number } }[] };
     plant.sets[2]!.regulator.droopPct = 0;
@@ -67,7 +96,7 @@ describe('droopline solve', () => {
     let io = demoIO();
     expect(await runCli(['solve', 'plant.json', '--load-kw', '5000'], io)).toBe(3);
     expect(io.stderr()).toContain('no steady state');
-    expect(io.stderr()).toContain('more than the online sets can supply');
+    expect(io.stderr()).toMatch(/more than the online sets can supply at their overload limits \(\d+ kW\): \d+ kW short/);
     expect(io.stdout()).toBe('');
     io = demoIO(rawPlant([rawSet('A', { governor: { mode: 'isochronous', loadSharingLink: false } }), rawSet('B', { governor: { mode: 'isochronous', loadSharingLink: false } })], [{ id: 'L', kW: 100, kVAR: 0 }]));
     expect(await runCli(['solve', 'plant.json', '--json'], io)).toBe(3);
@@ -84,6 +113,6 @@ describe('droopline solve', () => {
     expect(await runCli(['solve', 'plant.json'], io)).toBe(0);
     expect(io.stdout()).toMatch(/\nB .*under-excited/);
     expect(io.stdout()).toMatch(/\nC\s+—.*offline/);
-    expect(io.stdout()).toContain('warnings:\n  - B is under-excited');
+    expect(io.stdout()).toContain('warnings:\n  - B is held at its under-excitation limit');
   });
 });

@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { ARTIFACTS, openPage, useBrowser } from './chromium';
 import { demoPlant } from '../helpers/plants';
+import { solveSharingAtMost } from '../../electron/engine';
 
 const num = async (page: Page, testId: string): Promise<number> => parseFloat((await page.getByTestId(testId).first().textContent()) ?? 'NaN');
 
@@ -30,8 +31,8 @@ async function settledBusHz(page: Page, loadPct: string = 'plant'): Promise<numb
 }
 
 /**
- * Bus frequency of droop sets sharing a total output P (closed form, the README's speed-droop definition;
- * droop slope k_i = P_r,i / (R_i × f_r)): each set gives P_i = k_i (f_nl,i − f) with
+ * Bus frequency of droop sets sharing a total output P (closed form, the speed-droop
+ * definition): each set gives P_i = k_i (f_nl,i − f) with
  * k_i = ratedKW_i / (droop_i/100 × f_rated), and Σ P_i = P, so f = (Σ k_i f_nl,i − P) / Σ k_i.
  */
 function droopBusHz(sets: { ratedKW: number; droopPct: number; noLoadHz: number }[], ratedHz: number, totalKW: number): number {
@@ -93,6 +94,43 @@ describe('Plant and Sharing views in the browser preview', () => {
     expect(parseFloat(busLine[1]!).toFixed(3)).toBe(f1.toFixed(3));
     await page.getByTestId('copy-text').click();
     await expect.poll(() => page.getByTestId('export-note').textContent()).toMatch(/copied as text|clipboard is not available/);
+    expect(errors).toEqual([]);
+  });
+
+  it('the load slider at 100 % and 110 % shows a table: full load, and the most the sets can carry beyond it, said in words', async () => {
+    const { page, errors } = await openPage(browser(), `${inject('previewUrl')}#/sharing`);
+    await page.getByTestId('sharing-table').waitFor();
+    const plant = demoPlant();
+    const ratedKW = plant.sets.reduce((a, s) => a + (s.online ? s.ratedKW : 0), 0);
+    const setSlider = (pct: number) =>
+      page.getByTestId('load-slider').evaluate((el, v) => {
+        const input = el as HTMLInputElement;
+        input.value = String(v);
+        input.dispatchEvent(new Event('input', { bubbles: true }));
+      }, pct);
+    // The expected figures, from the engine itself (the same plant, the slider's load at the plant loads' kVAR/kW).
+    const qPerP = plant.loads.reduce((a, l) => a + l.kVAR, 0) / plant.loads.reduce((a, l) => a + l.kW, 0);
+    const at = (pct: number) => solveSharingAtMost(plant, { kW: (ratedKW * pct) / 100, kVAR: ((ratedKW * pct) / 100) * qPerP });
+
+    await setSlider(100);
+    const full = at(100);
+    expect(full.capped).toBeUndefined();
+    // Settled when the readout says 100 % and the table shows that load.
+    await expect.poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('100.0 %'), await page.getByTestId('total-load-kw').textContent()]).toEqual([true, full.totals.loadKW.toFixed(1)]);
+    expect(await page.getByTestId('share-row-G1').getByTestId('share-kw').textContent()).toBe(full.sets[0]!.kW.toFixed(1));
+    await expect(page.getByTestId('sharing-error').count()).resolves.toBe(0);
+
+    await setSlider(110);
+    const over = at(110);
+    expect(over.capped).toBeDefined();
+    await expect.poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('110.0 %'), await page.getByTestId('total-load-kw').textContent()]).toEqual([true, over.totals.loadKW.toFixed(1)]);
+    const capped = (await page.getByTestId('sharing-capped').textContent()) ?? '';
+    expect(capped).toContain(`The load asked for (${(ratedKW * 1.1).toFixed(0)} kW) has no steady state`);
+    expect(capped).toContain(`${over.capped!.carriedKW.toFixed(0)} kW`);
+    for (const s of over.sets) expect(await page.getByTestId(`share-row-${s.id}`).getByTestId('share-kw').textContent()).toBe(s.kW.toFixed(1));
+    await page.setViewportSize({ width: 1360, height: 1500 });
+    await page.screenshot({ path: join(ARTIFACTS, 'sharing-view-110pct.png') });
+    await page.setViewportSize({ width: 1360, height: 860 });
     expect(errors).toEqual([]);
   });
 

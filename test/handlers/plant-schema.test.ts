@@ -38,7 +38,7 @@ describe('plant schema', () => {
     ['odd poles', withSet({ poles: 5 }), 'sets[1].poles: must be even'],
     ['rated PF 1', withSet({ ratedPF: 1 }), 'sets[1].ratedPF: must be less than 1'],
     ['duplicate id', rawPlant([rawSet('G1'), rawSet('G1')]), 'sets[1].id: must be unique ("G1" is used twice)'],
-    ['min kW below reverse trip', withSet({ minKW: -200, reversePowerTripPct: 10 }), 'sets[1].minKW: must not be below the reverse-power trip setting'],
+    ['min kW below zero fuel', withSet({ minKW: -300, motoringPct: 25 }), 'sets[1].minKW: must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)'],
     ['negative feeder R', withSet({ feeder: { rOhm: -1, xOhm: 0 } }), 'sets[1].feeder.rOhm: must be 0 or more'],
     ['negative X d', withSet({ machine: { xdPU: -2 } }), 'sets[1].machine.xdPU: must be greater than 0'],
     ['unknown field', withSet({ colour: 'red' }), 'sets[1]: unknown field(s): colour'],

@@ -57,7 +57,7 @@ describe('solveSharing handler', () => {
     ['power factor above 1', (p) => ((p.sets[0]!.regulator as Raw).pf = 1.2), 'sets[0].regulator.pf: must be 1 or less'],
     ['ratedKW above ratedKVA', (p) => (p.sets[0]!.ratedKW = 2000), 'sets[0].ratedKW: must not exceed ratedKVA'],
     ['minKW above ratedKW', (p) => (p.sets[0]!.minKW = 1500), 'sets[0].minKW: must not exceed ratedKW'],
-    ['minKW below the reverse-power trip', (p) => (p.sets[0]!.minKW = -200), 'sets[0].minKW: must not be below the reverse-power trip setting'],
+    ['minKW below zero fuel', (p) => (p.sets[0]!.minKW = -300), 'sets[0].minKW: must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)'],
     ['negative feeder resistance', (p) => ((p.sets[0]!.feeder as Raw).rOhm = -0.01), 'sets[0].feeder.rOhm: must be 0 or more'],
     ['leading kVAR limit above 100 %', (p) => (p.sets[0]!.leadingKVARLimitPct = 150), 'sets[0].leadingKVARLimitPct: must be 100 % or less'],
     ['duplicate set id', (p) => (p.sets[1]!.id = 'G1'), 'sets[1].id: must be unique ("G1" is used twice)'],

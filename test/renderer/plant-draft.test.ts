@@ -37,16 +37,32 @@ describe('setIn', () => {
 });
 
 describe('set and load list edits', () => {
-  it('adds a set that the plant schema accepts unchanged (every field given)', () => {
+  it('adds a set with the last set’s settings, which the plant schema accepts unchanged, and it shares in proportion at once', async () => {
+    const { solveSharing } = await import('../../electron/engine');
     const d = addItem(draftOf(demoPlant()), 'sets');
     expect(d.sets).toHaveLength(4);
-    const added = d.sets[3];
-    expect(added?.id).toBe('G4');
+    const added = d.sets[3]!;
+    expect(added.id).toBe('G4');
+    expect(added.name).toBe('Set G4');
+    expect({ ...added, id: 'G3', name: d.sets[2]!.name }).toEqual(d.sets[2]);
+    expect(added.governor).not.toBe(d.sets[2]!.governor);
     const valid = plantSchema.parse(d);
     // The schema fills nothing in: the draft equals its validated form.
     expect(valid.sets[3]).toEqual(added);
+    // Same droop line as G3: both carry the same kW and kVAR (closed form: identical sets on one bus, identical feeders).
+    const r = solveSharing(valid);
+    expectClose(r.sets[3]!.kW, r.sets[2]!.kW, { rel: 1e-9 }, 'G4 kW = G3 kW');
+    expectClose(r.sets[3]!.kVAR, r.sets[2]!.kVAR, { rel: 1e-9 }, 'G4 kVAR = G3 kVAR');
+  });
+
+  it('adds a first set with every field given when the plant has none', () => {
+    const empty = { ...draftOf(demoPlant()), sets: [] };
+    const added = addItem(empty, 'sets').sets[0]!;
+    expect(added.id).toBe('G1');
+    const valid = plantSchema.parse({ ...addItem(empty, 'sets') });
+    expect(valid.sets[0]).toEqual(added);
     // Default no-load setpoint: f_rated (1 + droop) = 50 × 1.04 = 52 Hz (plant-schema default rule).
-    expectClose(added?.governor.noLoadHz ?? NaN, 52, { abs: 1e-12 }, 'noLoadHz');
+    expectClose(added.governor.noLoadHz ?? NaN, 52, { abs: 1e-12 }, 'noLoadHz');
   });
 
   it('duplicates a set after itself with a fresh id and "(copy)" in the name', () => {

@@ -47,7 +47,7 @@ describe('ReportView', () => {
     if (!direct.ok) throw new Error(direct.error.message);
     expect(got.html).toBe((direct.value as ReportResult).html);
     expect(got.html).toContain('Quick step');
-    expect(got.tables.find((t) => t.id === 'sharing-bus')!.rows.map((r) => r[0])).toEqual(['connected load', '40 %', '80 %']);
+    expect(got.tables.find((t) => t.id === 'sharing-bus')!.rows.map((r) => r[0])).toEqual(['connected load', '40 %', '80 %', 'overload limit (110 %)']);
     const list = w.get('[data-test="report-sections"]').text();
     expect(list).toContain('Transient metrics and ISO 8528-5 classes');
     expect(w.findAll('[data-test^="report-csv-"]').length).toBe(got.tables.length);

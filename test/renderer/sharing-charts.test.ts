@@ -29,9 +29,11 @@ describe('speed-droop chart', () => {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} droop`))!;
       const op = datasets(c).find((d) => d.label === `${s.id} operating point`)!;
       const [a, b] = line.data as [Pt, Pt];
-      // f at rated kW = noLoadHz − droop/100 × f_rated (speed-droop definition, README "Definitions").
-      expectClose(b.y, s.governor.noLoadHz - (s.governor.droopPct / 100) * 50, { abs: 1e-12 }, `${s.id} f at rated kW`);
-      expectClose(b.x, s.ratedKW, { abs: 1e-12 }, 'rated kW');
+      // The line ends at the overload (fuel) limit, 110 % of rated kW: f there = noLoadHz − 1.1 × droop/100 × f_rated
+      // (the speed-droop definition, closed form); it starts at zero fuel, −25 % (motoring power).
+      expectClose(b.y, s.governor.noLoadHz - 1.1 * (s.governor.droopPct / 100) * 50, { abs: 1e-12 }, `${s.id} f at the overload limit`);
+      expectClose(b.x, 1.1 * s.ratedKW, { abs: 1e-9 }, 'overload limit kW');
+      expectClose(a.x, -0.25 * s.ratedKW, { abs: 1e-9 }, 'zero fuel kW');
       expectClose(op.data[0]!.y, r.bus.frequencyHz, { abs: 1e-12 }, 'operating frequency');
       expectClose(lineAt(a, b, op.data[0]!.x), r.bus.frequencyHz, { abs: 1e-6 }, `${s.id} point on its line`);
     }
@@ -45,7 +47,9 @@ describe('speed-droop chart', () => {
       rawSet('B', { governor: { mode: 'baseload', baseKW: 300 } }),
       rawSet('C'),
     ]);
-    expect(speedDroopLine(plant.sets[0]!, plant)).toEqual({ kind: 'segment', points: [{ x: 0, y: 50 }, { x: 1000, y: 50 }] });
+    // From minKW (0) to the overload limit (110 % of 1000 kW).
+    const iso = speedDroopLine(plant.sets[0]!, plant);
+    expect(iso.kind === 'segment' && iso.points.map((p) => [+p.x.toFixed(9), p.y])).toEqual([[0, 50], [1100, 50]]);
     expect(speedDroopLine(plant.sets[1]!, plant)).toEqual({ kind: 'vertical', x: 300 });
   });
 
@@ -68,7 +72,7 @@ describe('reactive-droop chart', () => {
     for (const s of plant.sets) {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} reactive droop`))!;
       const [a, b] = line.data as [Pt, Pt];
-      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (reactive-droop definition, README "Definitions").
+      // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (the reactive-droop definition, closed form).
       expectClose((a.y - b.y) / (b.x - a.x), ((s.regulator.droopPct / 100) * 400) / kVARBase(s), { rel: 1e-12 }, 'slope');
       const set = r.sets.find((x) => x.id === s.id)!;
       expectClose(lineAt(a, b, set.kVAR), set.terminalV, { abs: 1e-3 }, `${s.id} on its line`);

@@ -97,11 +97,18 @@ export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: st
   };
 }
 
+const formatPct = (v: number) => (Math.abs(v - Math.round(v)) < 0.05 ? String(Math.round(v)) : v.toFixed(1));
+
 async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, loadPF: number): Promise<SharingPoint[]> {
   const plant = req.project.plant;
   const onlineKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + s.ratedKW, 0);
   const connected = plant.loads.filter((l) => l.online);
   const tanPhi = Math.tan(Math.acos(loadPF));
+  // The overload point: every online set at its overload (fuel) limit, as % of the online rating.
+  const overloadKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + (s.ratedKW * s.overloadPct) / 100, 0);
+  const overloadPct = onlineKW > 0 ? (100 * overloadKW) / onlineKW : 0;
+  const pcts = (req.loadsPct ?? DEFAULT_LOADS_PCT).map((pct) => ({ pct, label: `${pct} %` }));
+  if (onlineKW > 0 && !pcts.some((x) => Math.abs(x.pct - overloadPct) < 1e-9)) pcts.push({ pct: overloadPct, label: `overload limit (${formatPct(overloadPct)} %)` });
   const wanted: { label: string; loadPct: number | null; kW: number; kVAR: number; override: boolean }[] = [
     {
       label: 'connected load',
@@ -110,8 +117,8 @@ async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, load
       kVAR: connected.reduce((a, l) => a + l.kVAR, 0),
       override: false,
     },
-    ...(req.loadsPct ?? DEFAULT_LOADS_PCT).map((pct) => ({
-      label: `${pct} %`,
+    ...pcts.map(({ pct, label }) => ({
+      label,
       loadPct: pct,
       kW: (onlineKW * pct) / 100,
       kVAR: ((onlineKW * pct) / 100) * tanPhi,
@@ -122,9 +129,14 @@ async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, load
   for (const [i, w] of wanted.entries()) {
     checkCancel(engine);
     engine.progress((0.3 * i) / wanted.length, `sharing at ${w.label}`);
-    const point: SharingPoint = { label: w.label, loadPct: w.loadPct, loadKW: w.kW, loadKVAR: w.kVAR, result: null, problem: null };
+    const point: SharingPoint = { label: w.label, loadPct: w.loadPct, loadKW: w.kW, loadKVAR: w.kVAR, result: null, problem: null, note: null };
     try {
-      point.result = await engine.solveSharing(w.override ? { plant, load: { kW: w.kW, kVAR: w.kVAR } } : { plant });
+      // A % point the sets cannot carry (feeder losses on top of the overload limit, a set that
+      // saturates early) is answered at the most they can carry, and the row says so.
+      point.result = await engine.solveSharing(w.override ? { plant, load: { kW: w.kW, kVAR: w.kVAR }, atMost: true } : { plant });
+      const cap = point.result.capped;
+      if (cap)
+        point.note = `${Math.round(cap.requestedKW)} kW cannot be carried (${Math.round(cap.shortKW)} kW short); shown: the most the sets carry, ${Math.round(cap.carriedKW)} kW${onlineKW > 0 ? ` (${formatPct((100 * cap.carriedKW) / onlineKW)} % of rating)` : ''}.`;
     } catch (err) {
       point.problem = problemOf(err);
     }

@@ -75,7 +75,9 @@ const problemHtml = (text: string) => `<p class="problem"><strong>Not computed:<
 
 /** The sections of a report and whether each was built. */
 export function reportSections(d: ReportData): ReportSection[] {
-  const sharingProblem = d.sharing.every((p) => p.problem) ? (d.sharing[0]?.problem ?? 'no load points') : null;
+  // Any load point without an answer makes the section incomplete (so `report --strict` fails).
+  const failedPoints = d.sharing.filter((p) => p.problem);
+  const sharingProblem = d.sharing.length === 0 ? 'no load points' : failedPoints.length ? failedPoints.map((p) => `${p.label}: ${p.problem}`).join(' ') : null;
   const syncProblem = isSyncPart(d.sync) ? d.sync.problem : d.sync.problem;
   const failed = d.transients.filter((t) => t.problem);
   const transientProblem = d.transients.length === 0 ? 'The project has no transient scenarios.' : failed.length === d.transients.length ? failed[0]!.problem : null;

@@ -22,6 +22,11 @@ export interface SharingPoint {
   result: SharingResult | null;
   /** Why this point has no result (the solver's sentence). */
   problem: string | null;
+  /**
+   * When the load asked for is more than the sets can carry, the result is for the most they
+   * can carry (`result.capped`) and this says so in words; else null.
+   */
+  note: string | null;
 }
 
 /** The sync-check part: settings, the verdict at the window's edge and the closing map. */

@@ -80,7 +80,7 @@ function sharingBusTable(d: ReportData): ReportTable {
       p.loadKVAR,
       p.result?.bus.frequencyHz ?? null,
       p.result?.bus.voltageV ?? null,
-      p.problem ?? (p.result?.warnings.join(' ') || ''),
+      p.problem ?? ([p.note, ...(p.result?.warnings.filter((w) => !p.result?.capped || !w.startsWith('The load asked for')) ?? [])].filter(Boolean).join(' ') || ''),
     ]),
   };
 }
@@ -89,7 +89,7 @@ function sharingSetsTable(d: ReportData): ReportTable {
   const rows: ReportCell[][] = [];
   for (const p of d.sharing) {
     for (const s of p.result?.sets ?? []) {
-      rows.push([p.label, s.id, s.kW, s.kVAR, s.loadingPct, s.loadingKVAPct, s.pf, s.pfLagging ? 'lagging' : 'leading', s.currentA, s.circulatingA, s.sharingErrorKWPct, s.flags.map((f) => flagWords(f).words).join(', ')]);
+      rows.push([p.result?.capped ? `${p.label}, at most carried` : p.label, s.id, s.kW, s.kVAR, s.loadingPct, s.loadingKVAPct, s.pf, s.pfLagging ? 'lagging' : 'leading', s.currentA, s.circulatingA, s.sharingErrorKWPct, s.flags.map((f) => flagWords(f).words).join(', ')]);
     }
   }
   return {

@@ -1,8 +1,9 @@
 /**
  * Active-power sharing on a common bus without feeders (closed forms).
  *
- * Droop: `P = ratedKW (f_nl − f) / (droop · f_rated)` clamped to `[minKW, ratedKW]`
- * (speed-droop definition, README "Definitions"); base load: `baseKW`; the isochronous group holds its
+ * Droop: `P = ratedKW (f_nl − f) / (droop · f_rated)` (the speed-droop definition) clamped
+ * to [−motoring power, overload limit] (`set-limits.ts`: zero fuel below, the fuel limit
+ * above); base load: `baseKW`; the isochronous group holds its
  * setpoint and shares the remainder in proportion to `ratedKW` (a load-sharing link).
  * If the group cannot take the remainder it saturates at its limit and the droop
  * sets set the frequency. Σ P_i = P_load(f) is solved by bisection on the
@@ -110,6 +111,16 @@ function fmtKW(v: number): string {
   return `${Math.round(v)} kW`;
 }
 
+/** The sentence for a load beyond every set's fuel limit, with the shortfall in kW. */
+export function overCapabilityMessage(loadKW: number, capabilityKW: number, afterFeederLosses = false): string {
+  return `The load (${fmtKW(loadKW)}) is more than the online sets can supply at their overload limits (${fmtKW(capabilityKW)}${afterFeederLosses ? ' into the bus, after feeder losses' : ''}): ${fmtKW(loadKW - capabilityKW)} short, so there is no steady state. Bring another set online or shed load.`;
+}
+
+/** The sentence for a load below every set's lowest output, with the excess in kW. */
+export function underMinimumMessage(loadKW: number, minimumKW: number): string {
+  return `The load (${fmtKW(loadKW)}) is less than the sets' lowest output (${fmtKW(minimumKW)}, ${fmtKW(minimumKW - loadKW)} too much): frequency would rise until a set trips. Take a set off line or lower the base-load or minimum-output settings.`;
+}
+
 /**
  * The exact balance frequency on the segment containing `f`: with the sets clamped as they
  * are at `f`, Σ k_i (f_nl,i − f) + C = a_L + b_L (f − f_r). NaN if the segment is flat.
@@ -151,16 +162,11 @@ function solveDroopFrequency(m: SharingModel, voltageV: number, isoLambda: numbe
   const { lo, hi } = droopBracket(m);
   const hLo = h(lo);
   if (hLo < 0) {
-    const cap = gen(lo);
-    throw new NoSteadyState(
-      `The load (${fmtKW(busLoadKW(m.loads, voltageV, lo, vr, fr))}) is more than the online sets can supply (${fmtKW(cap)} at full output): there is no steady state. Bring another set online or shed load.`,
-    );
+    throw new NoSteadyState(overCapabilityMessage(busLoadKW(m.loads, voltageV, lo, vr, fr), gen(lo)));
   }
   const hHi = h(hi);
   if (hHi > 0) {
-    throw new NoSteadyState(
-      `The load (${fmtKW(busLoadKW(m.loads, voltageV, hi, vr, fr))}) is less than the sets' minimum output (${fmtKW(gen(hi))}): frequency would rise until a set trips. Take a set off line or lower the base-load settings.`,
-    );
+    throw new NoSteadyState(underMinimumMessage(busLoadKW(m.loads, voltageV, hi, vr, fr), gen(hi)));
   }
   // Fast path: walk the droop segments (each step solves the balance exactly with the
   // sets clamped where they are); usually settles in two or three steps.
@@ -216,12 +222,7 @@ export function solveActive(m: SharingModel, voltageV: number, p: Float64Array):
     let anyDroop = false;
     for (let i = 0; i < m.n; i++) if (m.gov[i] === GOV_DROOP) anyDroop = true;
     if (!anyDroop) {
-      const isoIds = m.isoGroup.map((i) => m.sets[i]!.id).join(', ');
-      throw new NoSteadyState(
-        high
-          ? `The load (${fmtKW(loadKW)}) is more than the online sets can supply (${fmtKW(others + isoTotal(m, hi))}): the isochronous set(s) ${isoIds} would run at full output and frequency would collapse. Bring another set online or shed load.`
-          : `The load (${fmtKW(loadKW)}) is less than the sets' minimum output (${fmtKW(others + isoTotal(m, lo))}): the isochronous set(s) ${isoIds} cannot back off further and frequency would rise until a set trips.`,
-      );
+      throw new NoSteadyState(high ? overCapabilityMessage(loadKW, others + isoTotal(m, hi)) : underMinimumMessage(loadKW, others + isoTotal(m, lo)));
     }
     const lambdaFixed = high ? hi : lo;
     const fd = solveDroopFrequency(m, voltageV, lambdaFixed, p);

@@ -1,3 +1,4 @@
 /** The steady-state sharing engine's public face. */
-export { solveSharing } from './solve-sharing';
-export { sweepLoad } from './load-sweep';
+export { solveSharing, solveSharingAtMost } from './solve-sharing';
+export { sweepLoad, impliedPowerFactor } from './load-sweep';
+export type { ImpliedPowerFactor } from './load-sweep';

@@ -12,8 +12,23 @@ import { solveSharing } from './solve-sharing';
 export const SWEEP_FROM_PCT = 0;
 export const SWEEP_TO_PCT = 110;
 
-/** Power factor of the swept load: the plant loads' own, else the online sets' rated PF (kW-weighted). */
-function sweepPowerFactor(plant: Plant): number {
+/** The power factor a load given only in kW takes, and where it came from. */
+export interface ImpliedPowerFactor {
+  /** Power factor magnitude (0..1]. */
+  pf: number;
+  /** kVAR per kW (negative when the plant's loads lead). */
+  kVARPerKW: number;
+  /** `plant loads`: the online loads' own kW and kVAR; `rated PF of the sets`: no load draws kW. */
+  source: 'plant loads' | 'rated PF of the sets';
+}
+
+/**
+ * The power factor of the plant's online loads (their sums at rated voltage), keeping a
+ * leading sense; with no load drawing kW, the online sets' rated PF (kW-weighted, lagging).
+ * The load sweep, the CLI's `--load-kw` alone and the report use it: a load given in kW is
+ * never silently taken at unity power factor.
+ */
+export function impliedPowerFactor(plant: Plant): ImpliedPowerFactor {
   let p = 0;
   let q = 0;
   for (const l of plant.loads) {
@@ -21,7 +36,7 @@ function sweepPowerFactor(plant: Plant): number {
     p += l.kW;
     q += l.kVAR;
   }
-  if (p > 0) return p / Math.hypot(p, q);
+  if (p > 0) return { pf: p / Math.hypot(p, q), kVARPerKW: q / p, source: 'plant loads' };
   let w = 0;
   let pf = 0;
   for (const s of plant.sets) {
@@ -29,7 +44,8 @@ function sweepPowerFactor(plant: Plant): number {
     w += s.ratedKW;
     pf += s.ratedKW * s.ratedPF;
   }
-  return w > 0 ? pf / w : 0.8;
+  const rated = w > 0 ? pf / w : 0.8;
+  return { pf: rated, kVARPerKW: Math.sqrt(1 - rated * rated) / rated, source: 'rated PF of the sets' };
 }
 
 /**
@@ -49,14 +65,7 @@ export function sweepLoad(req: SweepLoadRequest): LoadSweep {
   if (ratedKW === 0) throw new InvalidInput('sets: no set is online, so there is no kW rating to sweep over');
   // A control structure with no operating point fails every point: say so once, as an error.
   buildSharingModel(plant, { kW: 0, kVAR: 0 });
-  const pf = req.pf ?? sweepPowerFactor(plant);
-  let leading = false;
-  if (req.pf === undefined) {
-    let q = 0;
-    for (const l of plant.loads) if (l.online) q += l.kVAR;
-    leading = q < 0;
-  }
-  const tanPhi = (Math.sqrt(Math.max(0, 1 - pf * pf)) / pf) * (leading ? -1 : 1);
+  const tanPhi = req.pf === undefined ? impliedPowerFactor(plant).kVARPerKW : Math.sqrt(Math.max(0, 1 - req.pf * req.pf)) / req.pf;
   const setIds = plant.sets.map((s) => s.id);
   const points: SweepPoint[] = [];
   for (let k = 0; k < steps; k++) {

@@ -9,6 +9,7 @@ import { Diverged, EngineError, NoSteadyState } from '../errors';
 import * as codes from './sharing-model';
 import { busLoadKVAR, busLoadKVARdV, busLoadKW, busLoadKWdV, busLoadKWLinear } from './bus-loads';
 import { solveSet } from './feeder-solve';
+import { overCapabilityMessage, underMinimumMessage } from './active-sharing';
 import type { Work } from './network-work';
 
 // Module-local copy: hot loops compare against a plain constant, not a live import binding.
@@ -188,9 +189,7 @@ function escapePlateau(w: Work): boolean {
   }
   if (!Number.isFinite(target)) {
     if (short) throw capabilityError(w);
-    throw new NoSteadyState(
-      `The load (${Math.round(w.loadW / 1000)} kW) is less than the sets' minimum output: frequency would rise until a set trips. Take a set off line or lower the base-load settings.`,
-    );
+    throw new NoSteadyState(underMinimumMessage(w.loadW / 1000, sumSentKW(w)));
   }
   w.y[0] = target;
   return true;
@@ -273,8 +272,13 @@ function allDroopAtMax(w: Work): boolean {
   return true;
 }
 
+/** What the sets deliver into the bus now, kW (after feeder losses). */
+function sumSentKW(w: Work): number {
+  let s = 0;
+  for (let i = 0; i < w.m.n; i++) s += w.pr[i]! / 1000;
+  return s;
+}
+
 function capabilityError(w: Work): NoSteadyState {
-  return new NoSteadyState(
-    `The load (${Math.round(w.loadW / 1000)} kW) plus feeder losses is more than the online sets can supply at full output: there is no steady state. Bring another set online or shed load.`,
-  );
+  return new NoSteadyState(overCapabilityMessage(w.loadW / 1000, sumSentKW(w), true));
 }

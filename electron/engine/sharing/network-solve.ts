@@ -18,7 +18,7 @@
 import { Diverged, EngineError, NoSteadyState } from '../errors';
 import * as codes from './sharing-model';
 import type { SharingModel } from './sharing-model';
-import { isoLambdaRange } from './active-sharing';
+import { isoLambdaRange, overCapabilityMessage, underMinimumMessage } from './active-sharing';
 import type { IsoState } from './active-sharing';
 import { iterateWithContinuation } from './network-newton';
 import { createNetworkWork } from './network-work';
@@ -108,11 +108,12 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
         let anyDroop = false;
         for (let i = 0; i < n; i++) if (m.gov[i] === GOV_DROOP) anyDroop = true;
         if (!anyDroop) {
-          const ids = m.isoGroup.map((i) => m.sets[i]!.id).join(', ');
+          let atLimitKW = 0;
+          for (let i = 0; i < n; i++) atLimitKW += m.gov[i] === codes.GOV_ISO ? (lambda > hi ? m.maxKW[i]! : m.minKW[i]!) : w.pr[i]! / 1000;
           throw new NoSteadyState(
             lambda > hi
-              ? `The load (${Math.round(w.loadW / 1000)} kW) plus feeder losses is more than the online sets can supply: the isochronous set(s) ${ids} would run at full output and frequency would collapse. Bring another set online or shed load.`
-              : `The load (${Math.round(w.loadW / 1000)} kW) is less than the sets' minimum output: the isochronous set(s) ${ids} cannot back off further and frequency would rise until a set trips.`,
+              ? overCapabilityMessage(w.loadW / 1000, atLimitKW, true)
+              : underMinimumMessage(w.loadW / 1000, atLimitKW),
           );
         }
         next = lambda > hi ? 'at-max' : 'at-min';

@@ -5,6 +5,8 @@
  */
 import type { GenSet, LoadOverride, Plant } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
+import { leadingLimitKVAR } from '../capability';
+import { lowerLimitKW, overloadLimitKW } from './set-limits';
 
 /** Governor law of an online set, as a small integer code for the hot loops. */
 export const GOV_DROOP = 0;
@@ -38,19 +40,35 @@ export interface SharingModel {
   n: number;
   gov: Int8Array;
   reg: Int8Array;
-  /** Droop slope, kW per Hz: ratedKW / (droop · f_rated) (speed-droop definition, README "Definitions"). */
+  /** Droop slope, kW per Hz: ratedKW / (droop · f_rated) (the speed-droop definition of the README). */
   slopeKWPerHz: Float64Array;
   noLoadHz: Float64Array;
+  /** Lowest steady output, kW: −motoring power (zero fuel) in droop, else `minKW` (`set-limits.ts`). */
   minKW: Float64Array;
+  /** The governor's fuel limit, kW: the overload limit in every mode (`set-limits.ts`). */
   maxKW: Float64Array;
   baseKW: Float64Array;
   ratedKW: Float64Array;
   ratedKVA: Float64Array;
-  /** Reactive droop slope, kVAR per V: Qbase / (droop · V_rated) (reactive-droop definition, README "Definitions"). */
+  /** Reactive droop slope, kVAR per V: Qbase / (droop · V_rated) (the reactive-droop definition of the README). */
   slopeKVARPerV: Float64Array;
   noLoadV: Float64Array;
   /** tan φ of the power-factor setpoint (lagging). */
   tanPhi: Float64Array;
+  /** Leading (under-excitation) limit, kVAR (negative): a regulator in reactive droop or PF control holds it. */
+  leadKVAR: Float64Array;
+  /**
+   * Whether the set's regulator limiters hold its kVAR inside the field-heating and leading
+   * limits (reactive-droop and power-factor sets). The voltage-holding unit is not held: it
+   * is flagged when beyond a limit.
+   */
+  limited: Uint8Array;
+  /**
+   * Whether limited regulators hold the field-heating limit. `solveSharing` clears it and
+   * solves again when no operating point exists with every such set held (the reactive load
+   * is beyond the sets' field capability): the answer then shows them beyond the limit.
+   */
+  holdField: boolean;
   /** Feeder resistance and reactance per phase, Ω. */
   rOhm: Float64Array;
   xOhm: Float64Array;
@@ -108,6 +126,9 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
     slopeKVARPerV: new Float64Array(n),
     noLoadV: new Float64Array(n),
     tanPhi: new Float64Array(n),
+    leadKVAR: new Float64Array(n),
+    limited: new Uint8Array(n),
+    holdField: true,
     rOhm: new Float64Array(n),
     xOhm: new Float64Array(n),
     isoGroup: [],
@@ -127,10 +148,14 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
     const r = s.regulator;
     m.ratedKW[i] = s.ratedKW;
     m.ratedKVA[i] = s.ratedKVA;
-    m.maxKW[i] = s.ratedKW;
-    m.minKW[i] = s.minKW;
+    m.maxKW[i] = overloadLimitKW(s);
+    m.minKW[i] = lowerLimitKW(s);
     m.noLoadHz[i] = g.noLoadHz;
-    m.baseKW[i] = Math.min(s.ratedKW, Math.max(s.minKW, g.baseKW));
+    m.baseKW[i] = Math.min(m.maxKW[i]!, Math.max(m.minKW[i]!, g.baseKW));
+    if (g.mode === 'baseload' && m.baseKW[i] !== g.baseKW)
+      m.notes.push(
+        `${s.id}'s base-load setting (${g.baseKW} kW) is outside what its governor can give (${Math.round(m.minKW[i]!)} to ${Math.round(m.maxKW[i]!)} kW): it runs at ${Math.round(m.baseKW[i]!)} kW.`,
+      );
     if (g.mode === 'droop') {
       m.gov[i] = GOV_DROOP;
       m.slopeKWPerHz[i] = s.ratedKW / ((g.droopPct / 100) * fr);
@@ -142,6 +167,8 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
     const qBase = s.ratedKVA * Math.sqrt(1 - s.ratedPF * s.ratedPF);
     m.noLoadV[i] = r.noLoadV;
     m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    m.leadKVAR[i] = leadingLimitKVAR(s);
+    m.limited[i] = r.mode === 'reactive-droop' || r.mode === 'power-factor' ? 1 : 0;
     if (r.mode === 'reactive-droop') {
       m.reg[i] = REG_DROOP;
       m.slopeKVARPerV[i] = qBase / ((r.droopPct / 100) * vr);

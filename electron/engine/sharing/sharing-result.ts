@@ -4,7 +4,8 @@
  * split, circulating current, flags; totals and warnings.
  */
 import type { Plant, SetResult, SharingResult } from '../../../shared-types';
-import { flagWarnings, setFlags } from './flags';
+import { flagSentences, setFlags } from './flags';
+import { settingWarnings } from '../setting-checks';
 import type { IsoState } from './active-sharing';
 import type { SharingModel } from './sharing-model';
 
@@ -59,12 +60,13 @@ function offlineResult(plant: Plant, idx: number): SetResult {
     circulatingPct: 0,
     feederLossKW: 0,
     flags: ['offline'],
+    notes: [],
   };
 }
 
 /** Builds the full result of `op` for `plant` (offline sets are listed with zeros and the `offline` flag). */
 export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingPoint): SharingResult {
-  const warnings: string[] = [...m.notes];
+  const warnings: string[] = [...m.notes, ...settingWarnings(plant)];
   let totKW = 0;
   let totKVAR = 0;
   let ratedKWSum = 0;
@@ -83,6 +85,7 @@ export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingP
     if (vt > 0) iqSum += (op.kVAR[i]! * 1000) / (SQRT3 * vt);
   }
   const sets: SetResult[] = plant.sets.map((_, idx) => offlineResult(plant, idx));
+  let fieldBeyond = false;
   for (let i = 0; i < m.n; i++) {
     const s = m.sets[i]!;
     const kW = op.kW[i]!;
@@ -94,7 +97,11 @@ export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingP
     const circulatingA = iq - (iqSum * s.ratedKVA) / ratedKVASum;
     const ratedA = (s.ratedKVA * 1000) / (SQRT3 * m.ratedVoltageV);
     const flags = setFlags(s, { kW, kVAR, kVA });
-    warnings.push(...flagWarnings(s, { kW, kVAR, kVA }, flags));
+    const inUnit = m.voltageUnit.includes(i);
+    const held = m.limited[i] === 1 && !inUnit;
+    if (held && !m.holdField && flags.includes('field-limit')) fieldBeyond = true;
+    const notes = flagSentences(s, { kW, kVAR, kVA }, flags, held && (m.holdField || !flags.includes('field-limit')));
+    warnings.push(...notes);
     sets[m.plantIndex[i]!] = {
       id: s.id,
       name: s.name,
@@ -116,8 +123,13 @@ export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingP
       circulatingPct: (100 * circulatingA) / ratedA,
       feederLossKW: op.lossKW[i]!,
       flags,
+      notes,
     };
   }
+  if (fieldBeyond)
+    warnings.unshift(
+      'The sets cannot carry this reactive load inside their field-heating limits (with their regulators held at the limit the voltage would collapse): the figures show them beyond the limit, which the field can stand only for a short time.',
+    );
   const isoIds = m.isoGroup.map((i) => m.sets[i]!.id).join(', ');
   if (op.isoState === 'at-max')
     warnings.unshift(`The isochronous set(s) ${isoIds} are at full output: frequency is now set by the droop sets (${op.frequencyHz.toFixed(3)} Hz).`);

@@ -6,7 +6,10 @@ import type { LoadOverride, Plant, SharingResult } from '../../../shared-types';
 import { solveClosedForm } from './closed-form';
 import { solveNetwork } from './network-solve';
 import { buildSharingModel } from './sharing-model';
+import type { SharingModel } from './sharing-model';
 import { buildSharingResult } from './sharing-result';
+import type { OperatingPoint } from './sharing-result';
+import { Diverged, NoSteadyState } from '../errors';
 
 /**
  * Steady-state kW/kVAR split, bus frequency and voltage of `plant` (validated, defaults
@@ -17,14 +20,72 @@ import { buildSharingResult } from './sharing-result';
  */
 export function solveSharing(plant: Plant, load?: LoadOverride): SharingResult {
   const m = buildSharingModel(plant, load);
+  try {
+    return buildSharingResult(plant, m, solveModel(m));
+  } catch (e) {
+    if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+    // With every limited regulator held at its field-heating limit the reactive load may have
+    // no home; solve again with the field limits not held and say so in the result.
+    m.holdField = false;
+    return buildSharingResult(plant, m, solveModel(m));
+  }
+}
+
+function solveModel(m: SharingModel): OperatingPoint {
   const closed = solveClosedForm(m);
-  if (!m.hasFeeders) return buildSharingResult(plant, m, closed);
-  const op = solveNetwork(m, {
+  if (!m.hasFeeders) return closed;
+  return solveNetwork(m, {
     frequencyHz: closed.frequencyHz,
     voltageV: closed.busVoltageV,
     kW: closed.kW,
     kVAR: closed.kVAR,
     isoState: closed.isoState,
   });
-  return buildSharingResult(plant, m, op);
+}
+
+/** Bisection steps on the load scale when looking for the most the sets can carry (2⁻⁴⁰ of the load). */
+const MOST_STEPS = 40;
+
+/**
+ * Like `solveSharing` with a load override, but when that load is more than the sets can
+ * carry (no steady state), solves at the most they can carry instead — the same kVAR/kW,
+ * scaled down, found by bisection on the scale — and says so in the result (`capped` and
+ * the first warning). Control structures with no answer at any load still throw.
+ */
+export function solveSharingAtMost(plant: Plant, load: LoadOverride): SharingResult {
+  let firstError: unknown;
+  try {
+    return solveSharing(plant, load);
+  } catch (e) {
+    if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+    firstError = e;
+  }
+  let best: SharingResult;
+  try {
+    best = solveSharing(plant, { kW: 0, kVAR: 0 });
+  } catch {
+    throw firstError;
+  }
+  let lo = 0;
+  let hi = 1;
+  for (let k = 0; k < MOST_STEPS; k++) {
+    const mid = 0.5 * (lo + hi);
+    try {
+      best = solveSharing(plant, { kW: load.kW * mid, kVAR: load.kVAR * mid });
+      lo = mid;
+    } catch (e) {
+      if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+      hi = mid;
+    }
+  }
+  const carriedKW = load.kW * lo;
+  const reason = firstError instanceof Error ? firstError.message : '';
+  return {
+    ...best,
+    capped: { requestedKW: load.kW, requestedKVAR: load.kVAR, carriedKW, carriedKVAR: load.kVAR * lo, shortKW: load.kW - carriedKW, reason },
+    warnings: [
+      `The load asked for (${Math.round(load.kW)} kW) has no steady state: ${reason} Shown instead: the most the sets can carry at the same power factor, ${Math.round(carriedKW)} kW (${Math.round(load.kW - carriedKW)} kW less).`,
+      ...best.warnings,
+    ],
+  };
 }

@@ -2,8 +2,10 @@
  * The governor: speed droop, isochronous PI with a load-sharing link, or base load
  * (load control, with ramps), acting through an actuator lag and an engine torque lag.
  *
- *   demand u (pu of ratedKW), clamped to [minKW, ratedKW] / ratedKW
- *     droop:        u = (f_nl − f) / (droop · f_rated)      (speed-droop definition, README "Definitions")
+ *   demand u (pu of ratedKW), clamped to the steady state's limits (`sharing/set-limits.ts`):
+ *     above the overload (fuel) limit, below zero fuel (−motoring power) in droop or minKW
+ *     for isochronous and base load
+ *     droop:        u = (f_nl − f) / (droop · f_rated)      (the speed-droop definition of the README)
  *     isochronous:  u = K_p (e + z),  T_reset dz/dt = e + (p̄ − p) / K_p,  e = (f_set − f) / f_rated
  *                   p̄ = Σ P / Σ ratedKW of the linked isochronous sets (load-sharing link)
  *     base load:    u = baseKW / ratedKW (moving along a ramp when one runs)
@@ -53,7 +55,8 @@ export function governorDerivatives(m: SimModel, i: number, o: number, y: Float6
   } else {
     const mode = m.govMode[i]!;
     // Off line the governor may cut the fuel completely: the engine's own losses then
-    // slow it down (net output −motoringPct of ratedKW, the plant's own figure). On line it keeps to minKW.
+    // slow it down (net output −motoringPct of ratedKW, the plant's own figure). On line a droop
+    // set goes down to the same zero fuel (it motors); isochronous and base-load sets keep to minKW.
     const lo = m.online[i] ? m.minPU[i]! : -m.motoringPU[i]!;
     const hi = m.maxPU[i]!;
     let u: number;

@@ -8,6 +8,7 @@
  * base (`ratedKVA`, plant `ratedVoltageV`); the network is solved on the system base
  * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
  */
+import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
 import type { Plant } from '../../../shared-types';
 import { REGULATOR_RESET_S } from './regulator';
 
@@ -16,7 +17,7 @@ import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE
 /**
  * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no
  * field for it. 0.03 s sits inside the 0.01–0.05 s typical of sets of this size
- * (typical engine-set data, value from memory).
+ * (typical range, value from memory).
  */
 export const TDDO_S = 0.03;
 
@@ -44,7 +45,7 @@ export interface SimModel {
   ratedKVA: Float64Array;
   /** ratedKW / ratedKVA. */
   kwPU: Float64Array;
-  /** Qbase / ratedKVA = √(1 − ratedPF²) (reactive-droop definition, README "Definitions"). */
+  /** Qbase / ratedKVA = √(1 − ratedPF²) (the reactive-droop definition of the README). */
   qBasePU: Float64Array;
   inertiaS: Float64Array;
   dampingPU: Float64Array;
@@ -177,8 +178,10 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.noLoadPU[i] = g.noLoadHz / fr;
     m.setpointPU[i] = g.setpointHz / fr;
     m.basePU[i] = g.baseKW / s.ratedKW;
-    m.minPU[i] = s.minKW / s.ratedKW;
-    m.maxPU[i] = 1;
+    // The steady state's limits (one home): the overload (fuel) limit above in every mode;
+    // below, zero fuel (−motoring power) for droop, the load controller's minKW otherwise.
+    m.minPU[i] = lowerLimitKW(s) / s.ratedKW;
+    m.maxPU[i] = overloadLimitKW(s) / s.ratedKW;
     m.actuatorS[i] = lag(g.actuatorLagS, `${s.id} governor.actuatorLagS`);
     m.engineS[i] = lag(g.engineLagS, `${s.id} governor.engineLagS`);
     m.resetS[i] = g.isoResetS;

@@ -1,5 +1,5 @@
 /**
- * The droop characteristics of each set, as line segments to draw (README "Definitions"):
+ * The droop characteristics of each set, as line segments to draw (the README's definitions):
  * - speed droop: `f = noLoadHz − P · (droopPct/100) · f_rated / ratedKW` (the inverse of
  *   `P = ratedKW (noLoadHz − f) / (droopPct/100 · f_rated)`); isochronous: `f = setpointHz`;
  *   base load: `P = baseKW` at any frequency;
@@ -21,14 +21,18 @@ export type Characteristic = { kind: 'segment'; points: [XY, XY] } | { kind: 've
 /** The speed characteristic of `set` (frequency, Hz, against output, kW). */
 export function speedDroopLine(set: GenSet, plant: Plant): Characteristic {
   const g = set.governor;
-  const lowKW = Math.min(0, set.minKW);
+  // Drawn between the governor's limits as the engine applies them: up to the overload (fuel)
+  // limit; down to zero fuel (−motoring power) in droop, to minKW otherwise.
+  const highKW = (set.ratedKW * set.overloadPct) / 100;
+  const zeroFuelKW = (-set.ratedKW * set.motoringPct) / 100;
+  const lowKW = g.mode === 'droop' ? zeroFuelKW : Math.min(0, Math.max(zeroFuelKW, set.minKW));
   if (g.mode === 'baseload') return { kind: 'vertical', x: g.baseKW };
   if (g.mode === 'isochronous') {
-    return { kind: 'segment', points: [{ x: lowKW, y: g.setpointHz }, { x: set.ratedKW, y: g.setpointHz }] };
+    return { kind: 'segment', points: [{ x: lowKW, y: g.setpointHz }, { x: highKW, y: g.setpointHz }] };
   }
   const hzPerKW = ((g.droopPct / 100) * plant.ratedFrequencyHz) / set.ratedKW;
   const f = (kW: number) => g.noLoadHz - kW * hzPerKW;
-  return { kind: 'segment', points: [{ x: lowKW, y: f(lowKW) }, { x: set.ratedKW, y: f(set.ratedKW) }] };
+  return { kind: 'segment', points: [{ x: lowKW, y: f(lowKW) }, { x: highKW, y: f(highKW) }] };
 }
 
 /** Reactive base `Qbase = ratedKVA √(1 − ratedPF²)`, kVAR. */

@@ -22,9 +22,11 @@ export interface FlagInfo {
 const FLAG_ICONS: Readonly<Record<SetFlag, IconName>> = {
   'overload-kW': 'overload',
   'overload-kVA': 'overload',
+  motoring: 'reverse',
   'reverse-power': 'reverse',
   'at-max-kW': 'max',
   'at-min-kW': 'min',
+  'field-limit': 'max',
   'under-excited': 'under',
   offline: 'offline',
 };

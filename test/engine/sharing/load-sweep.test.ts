@@ -7,7 +7,7 @@ const twoSets = (loads: unknown[] = [{ id: 'L', kW: 800, kVAR: 600 }]) =>
   makePlant([rawSet('A'), rawSet('B', { ratedKW: 500, ratedKVA: 625 }), rawSet('C', { online: false })], loads);
 
 describe('sweepLoad', () => {
-  it('sweeps 0 to 110 % of the online kW rating; frequency follows the droop line; the last point is beyond capability', () => {
+  it('sweeps 0 to 110 % of the online kW rating; frequency follows the droop line up to the overload limit; beyond it, no steady state', () => {
     const s = sweepLoad({ plant: twoSets(), steps: 12 });
     expect(s.setIds).toEqual(['A', 'B', 'C']);
     expect(s.points).toHaveLength(12);
@@ -20,10 +20,14 @@ describe('sweepLoad', () => {
     const p = s.points[5]!;
     expectClose(p.setKW[0]! + p.setKW[1]!, p.loadKW, { rel: 1e-12 }, 'kW balance at a sweep point');
     expect(p.setKW[2]).toBeNull();
-    const last = s.points[11]!;
-    expect(last.frequencyHz).toBeNull();
-    expect(last.setKW).toEqual([null, null, null]);
-    expect(last.error).toMatch(/more than the online sets can supply/);
+    // 110 % is the overload limit of both sets (equal per-unit droop lines): an answer, each at 110 % (closed form).
+    const full = s.points[11]!;
+    expectClose(full.setKW[0]! / 1000, 1.1, { rel: 1e-9 }, 'A at 110 % at the last point');
+    expectClose(full.frequencyHz!, 52 - 1650 / 750, { abs: 1e-9 }, 'f at 110 % (closed form)');
+    const beyond = sweepLoad({ plant: twoSets(), steps: 2, fromPct: 0, toPct: 120 }).points[1]!;
+    expect(beyond.frequencyHz).toBeNull();
+    expect(beyond.setKW).toEqual([null, null, null]);
+    expect(beyond.error).toMatch(/more than the online sets can supply at their overload limits \(1650 kW\): 150 kW short/);
   });
 
   it('uses the plant loads power factor by default, or the given one', () => {

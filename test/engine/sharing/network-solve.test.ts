@@ -89,7 +89,7 @@ function solveIndependent(sets: IndepSet[], loadW: number, loadVAR: number, x0: 
   };
 }
 
-/** Reactive droop law: |V_t| = V0 − droop · V_r · Q / Qbase (README "Definitions"). */
+/** Reactive droop law: |V_t| = V0 − droop · V_r · Q / Qbase (the reactive-droop definition). */
 const droopQ = (v0: number, droopPct: number, qBaseKVAR: number, vr = 400) => (e: number, q: number) => e - (v0 - ((droopPct / 100) * vr * q) / 1e3 / qBaseKVAR);
 /** Speed droop law: P = ratedKW (f_nl − f) / (droop · f_r), in W. */
 const droopP = (ratedKW: number, droopPct: number, fnl: number, fr = 50) => (f: number) => ((ratedKW * (fnl - f)) / ((droopPct / 100) * fr)) * 1e3;
@@ -210,7 +210,8 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
     // the feeder losses push it over, so frequency falls below 50 Hz.
     const plant = makePlant(
       [
-        rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 }, governor: { mode: 'isochronous', setpointHz: 50 } }),
+        // A standby-rated set (no overload allowance) so that its limit is its rating.
+        rawSet('A', { overloadPct: 100, feeder: { rOhm: 0.01, xOhm: 0.01 }, governor: { mode: 'isochronous', setpointHz: 50 } }),
         rawSet('B', { ratedKW: 500, ratedKVA: 625, feeder: { rOhm: 0.01, xOhm: 0.01 }, governor: { mode: 'droop', droopPct: 4, noLoadHz: 51 } }),
       ],
       [{ id: 'L', kW: 1240, kVAR: 300 }],
@@ -257,8 +258,8 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
   it('load plus losses beyond capability is no steady state', () => {
     const plant = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 1200, kVAR: 300 }]);
     expect(() => solveSharing(plant)).toThrow(NoSteadyState);
-    // Just inside the rating without feeders, over it with the losses.
-    const edge = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 995, kVAR: 300 }]);
-    expect(() => solveSharing(edge)).toThrow(/plus feeder losses is more than the online sets can supply/);
+    // Just inside the overload limit (1100 kW) without feeders, over it with the losses.
+    const edge = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 1095, kVAR: 300 }]);
+    expect(() => solveSharing(edge)).toThrow(/^The load \(1095 kW\) is more than the online sets can supply at their overload limits \(\d+ kW into the bus, after feeder losses\): \d+ kW short/);
   });
 });

@@ -8,7 +8,7 @@ const load = (kW: number, kVAR: number, over: Record<string, unknown> = {}) => [
 const reg = (r: Record<string, unknown>) => ({ regulator: r });
 
 describe('solveSharing: reactive sharing (closed forms)', () => {
-  it('reactive droop on unequal sets (closed form, recomputed; converted to the kVAR base)', () => {
+  it('reactive droop on unequal sets (closed form, converted to the kVAR base)', () => {
     // Closed form: 1000 and 500 kVA, 4 % on the kVA base, V0 1.01 and 1.00 pu, 600 kVAR
     // → 483.3 / 116.7 kVAR, V = 0.9907 pu. Droopline's droop is on Qbase = kVA·√(1 − 0.8²) = 0.6 kVA, so
     // 4 % per kVA is 4 % × 0.6 = 2.4 % per Qbase.
@@ -69,7 +69,7 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
     expectClose(r.sets[0]!.kVAR, 150, { rel: 1e-12 }, 'A');
   });
 
-  it('Theraja, A Textbook of Electrical Technology, Vol. II (alternators): 10 MW at 0.8 PF, A at 6000 kW and 0.92 lagging → B at 0.629 lagging', () => {
+  it('Theraja, A Textbook of Electrical Technology Vol. II: 10 MW at 0.8 PF, A at 6000 kW and 0.92 lagging → B at 0.629 lagging', () => {
     // A: base load 6000 kW in power-factor control 0.92; B: droop governor, voltage control, takes the rest.
     const a = rawSet('A', { ratedKW: 8000, ratedKVA: 10_000, governor: { mode: 'baseload', baseKW: 6000 }, regulator: { mode: 'power-factor', pf: 0.92 } });
     const b = rawSet('B', { ratedKW: 8000, ratedKVA: 10_000, regulator: { mode: 'voltage', setpointV: 400 } });
@@ -101,17 +101,30 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
     expectClose(r.bus.voltageV, 416 - 250 / 46.875, { rel: 1e-12 }, 'V');
   });
 
-  it('flags under-excitation beyond leadingKVARLimitPct and kVA overload, with sentences', () => {
-    // Closed form: V0 416 and 380 V → V 398 V, Q = ±46.875 × 18 = ±843.75 kVAR; B leads by 67.5 % of 1250 kVA > 30 %.
+  it('a set whose no-load voltage is far below the other is held at its leading limit; the other takes the rest', () => {
+    // Closed form: Qbase = 1250 × 0.6 = 750 kVAR, slope 750 / (0.04 × 400) = 46.875 kVAR/V. V0 416 and 380 V at no
+    // reactive load would give ±46.875 × 18 = ±843.75 kVAR, but B's leading limit is 30 % of 1250 kVA = 375 kVAR:
+    // B is held at −375 kVAR, A gives +375 kVAR on its droop line, V = 416 − 375 / 46.875 = 408 V.
     const r = solveSharing(makePlant([rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 416 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 380 }))], load(1000, 0)));
-    expectClose(r.sets[1]!.kVAR, -843.75, { rel: 1e-12 }, 'B kVAR');
-    expect(r.sets[1]!.flags).toContain('under-excited');
-    expect(r.sets[0]!.flags).not.toContain('under-excited');
-    expect(r.warnings.join('\n')).toContain('B is under-excited: 844 kVAR leading, beyond its limit of 30 % of 1250 kVA.');
-    // Wider gap: ±46.875 × 28 = ±1312.5 kVAR > 1250 kVA on both.
-    const o = solveSharing(makePlant([rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 428 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 372 }))], load(0, 0)));
-    expect(o.sets[0]!.flags).toContain('overload-kVA');
-    expect(o.warnings.join('\n')).toMatch(/A is over its kVA rating: 131[23] kVA of 1250 kVA \(105 %\)/);
+    expectClose(r.sets[1]!.kVAR, -0.3 * 1250, { rel: 1e-12 }, 'B held at the leading limit');
+    expectClose(r.sets[0]!.kVAR, 375, { rel: 1e-12 }, 'A kVAR');
+    expectClose(r.bus.voltageV, 416 - 375 / 46.875, { abs: 1e-9 }, 'V (closed form)');
+    expect(r.sets[1]!.flags).toEqual(['under-excited']);
+    expect(r.sets[0]!.flags).toEqual([]);
+    expect(r.warnings.join('\n')).toContain('B is held at its under-excitation limit: 375 kVAR leading (30 % of 1250 kVA); it absorbs reactive power from the other sets.');
+  });
+
+  it('a voltage-holding set beyond its ratings is flagged (kVA and field heating), not held', () => {
+    // Closed form: B (reactive droop, V0 372 V) would absorb 46.875 × 28 = 1312.5 kVAR at 400 V; held at −375 kVAR.
+    // A holds 400 V and supplies load + 375 = 1375 kVAR at 0 kW: 110 % of 1250 kVA. Field limit at 0 kW (Xd 2.5,
+    // rated PF 0.8): E = √((1 + 2.5 × 0.6)² + (2.5 × 0.8)²) = 3.2016 pu, Q = 1250 (E − 1) / 2.5 = 1100.8 kVAR.
+    const o = solveSharing(makePlant([rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 372 }))], load(0, 1000)));
+    expectClose(o.sets[0]!.kVAR, 1375, { rel: 1e-12 }, 'A kVAR');
+    expect(o.sets[0]!.flags).toEqual(['overload-kVA', 'field-limit']);
+    const e = Math.hypot(1 + 2.5 * 0.6, 2.5 * 0.8);
+    expectClose(e, 3.2016, { abs: 1e-4 }, 'E at rated kVA and PF (closed form)');
+    expect(o.warnings.join('\n')).toContain('A is over its kVA rating: 1375 kVA of 1250 kVA (110 %)');
+    expect(o.warnings.join('\n')).toContain(`A is beyond its field-heating limit: 1375 kVAR lagging at 0 kW (the limit there is ${((1250 * (e - 1)) / 2.5).toFixed(0)} kVAR).`);
   });
 
   it('no steady state: two voltage holders, no voltage reference, voltage collapse', () => {

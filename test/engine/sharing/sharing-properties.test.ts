@@ -5,7 +5,7 @@ import { plantSchema } from '../../../electron/handlers';
 import type { Plant, SharingResult } from '../../../shared-types';
 
 // Plants are generated raw and passed through the plant schema, so every plant tested is one a
-// user could load. Invariants (README "Definitions"): power balance, circulating currents summing to zero,
+// user could load. Invariants (conservation laws and the definitions in the README): power balance, circulating currents summing to zero,
 // order independence, droop frequency falling with load, and never a NaN.
 
 const set = (i: number, wide: boolean) =>
@@ -146,6 +146,35 @@ describe('solveSharing invariants (fast-check)', () => {
         const b = attempt(droopOnly, { kW: hi * rated, kVAR: 0.5 * hi * rated });
         if (a instanceof EngineError || b instanceof EngineError) return;
         expect(b.bus.frequencyHz).toBeLessThanOrEqual(a.bus.frequencyHz + 1e-9);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('every load from 0 to the sets’ overload capability has an operating point (droop governors, no feeders); kW balance; no NaN', () => {
+    // Between zero (each droop set can go down to −motoring power) and Σ overload limits the droop lines
+    // always meet the load: "no steady state" there would be a solver fault.
+    fc.assert(
+      fc.property(plantArb(), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (plant, u, pfU) => {
+        const droop: Plant = {
+          ...plant,
+          // Droop governors and reactive-droop regulators: a control structure with an answer at every load.
+          sets: plant.sets.map((s) => ({
+            ...s,
+            feeder: { rOhm: 0, xOhm: 0 },
+            governor: { ...s.governor, mode: 'droop' as const, droopPct: Math.max(1, s.governor.droopPct), noLoadHz: Math.max(50.5, s.governor.noLoadHz) },
+            regulator: { ...s.regulator, mode: 'reactive-droop' as const, droopPct: Math.max(1, s.regulator.droopPct), noLoadV: Math.max(400, Math.min(440, s.regulator.noLoadV)) },
+          })),
+        };
+        let capability = 0;
+        for (const s of droop.sets) if (s.online) capability += (s.ratedKW * s.overloadPct) / 100;
+        if (capability === 0) return;
+        const kW = u * capability * (1 - 1e-9);
+        const kVAR = kW * 0.75 * pfU; // lagging, PF from 1 down to 0.8
+        const r = solveSharing(droop, { kW, kVAR });
+        expect(Math.abs(r.totals.kW - kW)).toBeLessThanOrEqual(1e-9 * Math.max(1, capability));
+        expect(allFinite(r)).toBe(true);
+        for (const s of r.sets) if (s.online) expect(s.kW).toBeLessThanOrEqual((capability + 1) * 1.000001);
       }),
       { numRuns: RUNS },
     );

@@ -3,10 +3,10 @@
  * every set's kW and kVAR. One case per governor and regulator mode; each starts at
  * rest, takes a disturbance (so the end is not the start) and is compared with
  * `solveSharing` of the plant as it stands after the disturbance.
- * Reference: the README's definitions ("Speed droop", "Reactive droop", cross-current
+ * Reference: the definitions of the README ("Speed droop", "Reactive droop", cross-current
  * and isochronous sharing), as implemented by the sharing solver.
  */
-import { describe, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { simulate, solveSharing } from '../../../electron/engine';
 import type { Plant, ScenarioEvent } from '../../../shared-types';
@@ -114,5 +114,61 @@ describe('property: any droop plant comes to rest where solveSharing puts it', (
       }),
       { numRuns: 8, seed: 20261202 },
     );
+  });
+});
+
+describe('simulation at the edges agrees with solveSharing', () => {
+  // A 1000 kW, 4 %, f_nl 52 Hz; B 500 kW, 4 %, f_nl 52 Hz at first; load 600 kW.
+  const edgePlant = (trip: number, delayS: number) =>
+    makePlant([rawSet('A'), rawSet('B', { ratedKVA: 625, ratedKW: 500, reversePowerTripPct: trip, reversePowerDelayS: delayS })], [load(600, 300)]);
+  const lowerB = (atS: number): ScenarioEvent => ({ atS, type: 'setpoint', setId: 'B', frequencyHz: 49 });
+  const withB49 = (p: Plant): Plant => ({ ...p, sets: p.sets.map((s) => (s.id === 'B' ? { ...s, governor: { ...s.governor, noLoadHz: 49 } } : s)) });
+
+  it('a droop set whose speed setting drops below the bus motors at −motoring power, as the steady state says', () => {
+    // Closed form (steady state): B at zero fuel gives −25 % × 500 = −125 kW (motoring power, IEEE C37.102 four-stroke
+    // diesel, value from memory); A carries 600 + 125 = 725 kW at 52 − 725/500 = 50.55 Hz. The 32 setting (30 %,
+    // 150 kW) is not reached, so B stays on.
+    const plant = edgePlant(30, 2);
+    const r = simulate({ plant, durationS: 15, stepMs: 5, events: [lowerB(0.5)], outputPoints: 50 });
+    const ss = solveSharing(withB49(plant));
+    expectClose(ss.sets[1]!.kW, -125, { rel: 1e-9 }, 'steady state: B at −motoring power (closed form)');
+    expectClose(ss.bus.frequencyHz, 50.55, { abs: 1e-6 }, 'steady state f (closed form, feeders none)');
+    const m = r.metrics.final;
+    expectClose(m.frequencyHz, ss.bus.frequencyHz, { abs: 0.002 }, 'bus frequency, Hz');
+    for (const s of ss.sets) {
+      const got = m.sets.find((x) => x.id === s.id)!;
+      expect(got.online).toBe(true);
+      expectClose(got.kW, s.kW, { abs: 1 }, `${s.id} kW`);
+      expectClose(got.kVAR, s.kVAR, { abs: 1 }, `${s.id} kVAR`);
+    }
+  });
+
+  it('beyond its 32 setting the motoring set trips after its delay, and A alone carries the load', () => {
+    // 32 at 10 % of 500 kW = 50 kW < 125 kW: the relay trips B after its 2 s delay; A then gives 600 kW at
+    // 52 − 600/500 = 50.8 Hz (closed form).
+    const plant = edgePlant(10, 2);
+    const r = simulate({ plant, durationS: 15, stepMs: 5, events: [lowerB(0.5)], outputPoints: 50 });
+    const trip = r.log.find((e) => /B tripped on reverse power \(device 32\)/.test(e.text));
+    expect(trip, 'B trips on 32').toBeDefined();
+    // It trips after the power has passed −50 kW and stayed there for 2 s: not before 0.5 + 2 s.
+    expect(trip!.atS).toBeGreaterThan(2.5);
+    expect(trip!.atS).toBeLessThan(6);
+    const m = r.metrics.final;
+    expect(m.sets.find((x) => x.id === 'B')!.online).toBe(false);
+    expectClose(m.frequencyHz, 50.8, { abs: 0.002 }, 'f with A alone (closed form)');
+    expectClose(m.sets.find((x) => x.id === 'A')!.kW, 600, { abs: 1 }, 'A kW');
+  });
+
+  it('a set at its overload limit holds it in the simulator too (the steady state’s fuel limit)', () => {
+    // Closed form: A 500 kW (f_nl 52.5, 250 kW/Hz) reaches 550 kW (110 %) at 50.3 Hz; B 1000 kW (52 Hz, 500 kW/Hz)
+    // takes the rest of 1500 kW: 950 kW at 50.1 Hz.
+    const plant = makePlant(
+      [rawSet('A', { ratedKVA: 625, ratedKW: 500, governor: { mode: 'droop', droopPct: 4, noLoadHz: 52.5 } }), rawSet('B')],
+      [load(1200, 500)],
+    );
+    const r = simulate({ plant, durationS: 14, stepMs: 5, events: [{ atS: 0.5, type: 'load-step', kW: 300, kVAR: 0 }], outputPoints: 50 });
+    const m = r.metrics.final;
+    expectClose(m.sets.find((x) => x.id === 'A')!.kW, 550, { abs: 1 }, 'A at its overload limit');
+    expectClose(m.frequencyHz, 50.1, { abs: 0.002 }, 'f (closed form)');
   });
 });

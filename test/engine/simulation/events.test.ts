@@ -15,7 +15,7 @@ describe('simulation events', () => {
     expect(b.online).toBe(false);
     expectClose(b.kW, 0, { abs: 1e-9 }, 'tripped set kW');
     expectClose(a.kW, 800, { abs: 0.5 }, 'remaining set kW');
-    // Droop line (README "Definitions"): 52 − 0.04 · 50 · 0.8 = 50.4 Hz.
+    // The droop line (closed form): 52 − 0.04 · 50 · 0.8 = 50.4 Hz.
     expectClose(r.metrics.final.frequencyHz, 50.4, { abs: 0.002 }, 'final frequency, Hz');
     expect(r.metrics.frequencyNadirHz).toBeLessThan(50.4);
     expect(r.log.map((l) => l.text)).toContain('B tripped and shut down');
@@ -36,8 +36,19 @@ describe('simulation events', () => {
     expect(Math.min(...r.series.setKW[1]!)).toBeLessThan(-50);
   });
 
-  it('a healthy governor asked for a low speed backs off to minKW and does not motor', () => {
+  it('a droop governor asked for a speed far below the bus goes to zero fuel and motors; beyond its 32 setting the relay opens it', () => {
+    // Zero fuel: B draws its motoring power, 25 % of 1000 kW (IEEE C37.102, four-stroke diesel, value from memory),
+    // beyond its 5 % setting, so device 32 opens it after its delay (the default reversePowerDelayS).
     const r = simulate({ plant: twoSets(), durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'B', frequencyHz: 45 }] });
+    const trip = r.log.find((l) => l.text.includes('reverse power'));
+    expect(trip, 'reverse-power trip in the log').toBeDefined();
+    expect(trip!.atS).toBeGreaterThan(0.5 + SET_DEFAULTS.reversePowerDelayS);
+    expect(Math.min(...r.series.setKW[1]!)).toBeLessThan(-200);
+  });
+
+  it('a base-load set asked for less than its minKW backs off to minKW and does not motor', () => {
+    const plant = makePlant([rawSet('A'), rawSet('B', { reversePowerTripPct: 5, governor: { mode: 'baseload', baseKW: 300 } })], [{ id: 'L', kW: 800, kVAR: 400 }]);
+    const r = simulate({ plant, durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'B', kW: -400 }] });
     expect(r.log.some((l) => l.text.includes('reverse power'))).toBe(false);
     expectClose(r.metrics.final.sets[1]!.kW, 0, { abs: 0.5 }, 'B at minKW = 0, kW');
   });
@@ -78,7 +89,7 @@ describe('simulation events', () => {
   it('a voltage setpoint change moves the reactive-droop line', () => {
     const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 500, kVAR: 300 }]);
     const r = simulate({ plant, durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'A', voltageV: 420 }] });
-    // Reactive droop (README "Definitions"): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
+    // Reactive droop (closed form): V = 420 − 0.04 · 400 · 300 / 750 = 413.6 V.
     expectClose(r.metrics.final.voltageV, 420 - 0.04 * 400 * (300 / 750), { abs: 0.05 }, 'bus voltage, V');
   });
 

@@ -1,0 +1,126 @@
+/**
+ * The capability chart of one set (kW across, kVAR up, lagging up), drawn from the engine's
+ * `SetCapability` curves, with the set's operating point from the sharing result. Each
+ * limit is a line of its own look and is named in words on the chart (the stator-current
+ * circle, the field-heating limit, the under-excitation limit, the engine's rating, overload
+ * limit, zero fuel and the reverse-power setting). Pure: the same inputs give the same
+ * configuration (tests read it back).
+ */
+import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import type { SetCapability, SetResult } from '../../../shared-types';
+import type { XY } from './droop-lines';
+import { withAlpha } from './series-style';
+import type { ChartTheme } from './theme';
+
+type Scatter = ChartDataset<'scatter', XY[]>;
+
+/** The words of each limit on the chart and in its legend. */
+export const CAPABILITY_WORDS = {
+  stator: 'stator current (rated kVA)',
+  field: 'field heating (field at rated kVA and PF)',
+  leading: 'under-excitation limit',
+  rated: 'rated kW (continuous)',
+  overload: 'overload limit (fuel limit)',
+  zeroFuel: 'zero fuel (motoring power)',
+  reverse: 'reverse-power setting (32)',
+  point: 'operating point',
+} as const;
+
+function vLine(x: number, color: string, text: string, theme: ChartTheme, dash: number[], position: 'start' | 'end') {
+  return {
+    type: 'line' as const,
+    xMin: x,
+    xMax: x,
+    xScaleID: 'x',
+    borderColor: color,
+    borderWidth: 1.5,
+    borderDash: dash,
+    label: { display: true, content: text, position, rotation: -90, backgroundColor: theme.panel, color: theme.fg, font: { size: 10 }, padding: 2 },
+  };
+}
+
+function hLine(y: number, color: string, text: string, theme: ChartTheme, dash: number[]) {
+  return {
+    type: 'line' as const,
+    yMin: y,
+    yMax: y,
+    yScaleID: 'y',
+    borderColor: color,
+    borderWidth: 1.5,
+    borderDash: dash,
+    label: { display: true, content: text, position: 'start' as const, backgroundColor: theme.panel, color: theme.fg, font: { size: 10 }, padding: 2 },
+  };
+}
+
+/** The kVAR range drawn: both halves of the stator circle, with a little room. */
+export function capabilityKVARRange(c: SetCapability): [number, number] {
+  const r = c.ratedKVA * 1.08;
+  return [-r, r];
+}
+
+/** Chart.js configuration of `c` with the set's operating point (null when offline or unsolved). */
+export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 'kVAR' | 'online'> | null, theme: ChartTheme): ChartConfiguration {
+  const [yLo, yHi] = capabilityKVARRange(c);
+  const xLo = Math.min(c.minChartKW, point && point.online ? point.kW * 1.1 : 0);
+  const xHi = Math.max(c.maxChartKW, point && point.online ? point.kW * 1.05 : 0);
+  const stator: Scatter = {
+    label: CAPABILITY_WORDS.stator,
+    data: c.stator.map((p) => ({ x: p.kW, y: p.kVAR })),
+    showLine: true,
+    borderColor: theme.fg,
+    backgroundColor: theme.fg,
+    borderWidth: 2,
+    pointRadius: 0,
+    pointStyle: 'line',
+  };
+  const field: Scatter = {
+    label: CAPABILITY_WORDS.field,
+    data: c.field.filter((p) => p.kVAR <= yHi).map((p) => ({ x: p.kW, y: p.kVAR })),
+    showLine: true,
+    borderColor: theme.bad,
+    backgroundColor: theme.bad,
+    borderWidth: 2,
+    borderDash: [8, 4],
+    pointRadius: 0,
+    pointStyle: 'line',
+  };
+  const datasets: Scatter[] = [stator, field];
+  if (point && point.online) {
+    datasets.push({
+      label: CAPABILITY_WORDS.point,
+      data: [{ x: point.kW, y: point.kVAR }],
+      showLine: false,
+      borderColor: theme.accent,
+      backgroundColor: withAlpha(theme.accent, 0.85),
+      pointRadius: 7,
+      pointHoverRadius: 8,
+      pointStyle: 'rectRot',
+    });
+  }
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      animation: false,
+      responsive: true,
+      maintainAspectRatio: false,
+      scales: {
+        x: { type: 'linear', min: xLo, max: xHi, title: { display: true, text: 'kW (motoring ← → generating)', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
+        y: { type: 'linear', min: yLo, max: yHi, title: { display: true, text: 'kVAR (leading ↓ ↑ lagging)', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
+      },
+      plugins: {
+        legend: { position: 'bottom', labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } },
+        tooltip: { animation: false },
+        annotation: {
+          annotations: {
+            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, [3, 3]),
+            rated: vLine(c.ratedKW, theme.muted, `${CAPABILITY_WORDS.rated} ${Math.round(c.ratedKW)} kW`, theme, [2, 4], 'end'),
+            overload: vLine(c.overloadKW, theme.bad, `${CAPABILITY_WORDS.overload} ${Math.round(c.overloadKW)} kW`, theme, [10, 3], 'start'),
+            zeroFuel: vLine(-c.motoringKW, theme.muted, `${CAPABILITY_WORDS.zeroFuel} −${Math.round(c.motoringKW)} kW`, theme, [4, 2], 'end'),
+            reverse: vLine(-c.reverseTripKW, theme.warn, `${CAPABILITY_WORDS.reverse} −${Math.round(c.reverseTripKW)} kW`, theme, [1, 3], 'start'),
+          },
+        },
+      },
+    },
+  } as ChartConfiguration;
+}
