@@ -1,7 +1,8 @@
 /**
  * The plant model: generating sets, their governors and regulators, feeders and loads.
  * Field names carry their unit. Per-unit machine data is on the set's own base
- * (`ratedKVA`, `ratedVoltageV` of the plant). See DESIGN.md, "The plant file".
+ * (`ratedKVA`, `ratedVoltageV` of the plant). `electron/handlers/plant-schema.ts` is the
+ * file's definition (rules and defaults).
  */
 
 /** File format tag of a plant file. */
@@ -27,6 +28,15 @@ export const SET_DEFAULTS = {
   motoringPct: 25,
   /** Reverse-power (32) delay, s: common practice 2–10 s for engine sets (value from memory). */
   reversePowerDelayS: 3,
+  /**
+   * Field ceiling when the plant file gives none, as a multiple of the field at rated load and
+   * rated power factor: 1.6 × (brushless engine-set exciters commonly reach 1.5–2 × the
+   * rated-load field; common practice, value from memory). With this margin a set accepts a
+   * rated load step at rated power factor.
+   */
+  fieldCeilingFactor: 1.6,
+  /** Below this margin of the ceiling over the rated-load field, % , a run and the Plant view warn. */
+  fieldCeilingMarginPct: 30,
 } as const;
 
 /** How a set's governor controls speed. */
@@ -75,8 +85,11 @@ export interface Regulator {
   exciterLagS: number;
   /** Regulator gain, pu field voltage per pu voltage error (simulator). */
   gainPU: number;
-  /** Field-voltage ceiling, pu (simulator). */
-  ceilingPU: number;
+  /**
+   * Field-voltage ceiling, pu (simulator). Left out, it is derived from the machine data:
+   * `SET_DEFAULTS.fieldCeilingFactor` × the field at rated load and rated power factor.
+   */
+  ceilingPU?: number;
   /** Shunt (self) excitation: the ceiling scales with terminal voltage (simulator). */
   shuntExcited: boolean;
   /** Residual-magnetism voltage, pu of rated, for shunt build-up (simulator). */

@@ -135,6 +135,8 @@ export interface ClassCheck {
   /** null where the run does not measure the quantity. */
   pass: Record<PerformanceClass, boolean | null>;
   source: string;
+  /** Why a row fails or what it shows (e.g. a run ending outside the steady-state band), one sentence. */
+  note?: string;
 }
 
 /** One set's final operating point. */
@@ -153,7 +155,10 @@ export interface SimulationMetrics {
   frequencyPeakHz: number;
   /** Larger of the dip and the rise from the initial frequency, signed, % of rated frequency. */
   frequencyDeviationPct: number;
-  /** Time from the first event until frequency stays inside ±`frequencyBandPct` of its final value; null if it never settles in the run. */
+  /**
+   * Time from the first event until frequency stays inside ±`frequencyBandPct` of the steady
+   * state of the final loads (`steadyState`); null if it never settles there in the run.
+   */
   frequencyRecoveryS: number | null;
   /** Band used for `frequencyRecoveryS`, ± % of rated frequency. */
   frequencyBandPct: number;
@@ -169,6 +174,20 @@ export interface SimulationMetrics {
     voltageV: number;
     sets: FinalSet[];
   };
+  /**
+   * The steady state the controls should reach for the final plant (the steady-state solver on
+   * the plant as the run leaves it); recovery times are measured into a band around it. null
+   * when there is none (`steadyStateNote` says why).
+   */
+  steadyState: { frequencyHz: number; voltageV: number } | null;
+  steadyStateNote: string | null;
+  /**
+   * Energy the constant-power loads did not get while the bus was below the low-voltage
+   * break (they then draw as constant impedance), kWh; 0 when the bus never went that low.
+   */
+  unservedKWh: number;
+  /** Largest constant-power load not served at one instant, kW. */
+  maxUnservedKW: number;
   classes: ClassCheck[];
 }
 

@@ -36,7 +36,7 @@ const regulatorSchema = z
     pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
     exciterLagS: nonNegative('s').default(0.1),
     gainPU: positive('pu').default(50),
-    ceilingPU: positive('pu').default(3),
+    ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').optional(),
     shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
     residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
   })

@@ -116,7 +116,6 @@ export function newSet(draft: PlantDraft): SetDraft {
       pf: 0.9,
       exciterLagS: 0.1,
       gainPU: 50,
-      ceilingPU: 3,
       shuntExcited: false,
       residualPU: 0.03,
     },

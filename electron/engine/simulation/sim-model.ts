@@ -10,6 +10,7 @@
  */
 import type { Plant } from '../../../shared-types';
 import { REGULATOR_RESET_S } from './regulator';
+import { fieldCeiling } from './excitation';
 
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
 
@@ -196,7 +197,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.gainPU[i] = r.gainPU;
     m.exciterS[i] = lag(r.exciterLagS, `${s.id} regulator.exciterLagS`);
     m.avrResetS[i] = REGULATOR_RESET_S;
-    m.ceilingPU[i] = r.ceilingPU;
+    m.ceilingPU[i] = fieldCeiling(s).ceilingPU;
     m.shunt[i] = r.shuntExcited ? 1 : 0;
     m.online[i] = s.online ? 1 : 0;
   });

@@ -21,6 +21,9 @@ import type { EventTarget } from './events';
 import { Recorder } from './recorder';
 import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
+import { POWER_LOAD_BREAK_PU } from './network';
+import { steadyTarget } from './steady-target';
+import { fieldCeiling } from './excitation';
 
 /** Default integration step, ms. */
 export const DEFAULT_STEP_MS = 1;
@@ -82,6 +85,13 @@ class Run implements Simulation {
   private lastF = 0;
   private lastV = 0;
   private collapsed = false;
+  /** Low-voltage episode of constant-power loads: start time (null when none runs), its worst kW, totals. */
+  private lowVStartS: number | null = null;
+  private lowVMaxKW = 0;
+  private lowVEpisodes = 0;
+  private unservedKWs = 0;
+  private maxUnservedKW = 0;
+  private lowVTotalS = 0;
 
   constructor(
     private readonly scenario: Scenario,
@@ -125,6 +135,10 @@ class Run implements Simulation {
         this.pending.sort((a, b) => a.atS - b.atS);
       },
     };
+    for (const s of plant.sets) {
+      const w = fieldCeiling(s).warning;
+      if (w) this.warnings.push(`${s.id}: ${w}`);
+    }
     if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
     this.rhs(0, this.y, this.rk.k1);
     this.initialF = this.frequencyHz();
@@ -188,6 +202,7 @@ class Run implements Simulation {
       if (v < this.vMin) this.vMin = v;
       if (v > this.vMax) this.vMax = v;
     }
+    this.watchLowVoltage(t);
     this.recorder.trace(this.k, t, f, v, force);
     if (!this.recorder.wants(this.k, force)) return;
     const m = this.m;
@@ -202,6 +217,40 @@ class Run implements Simulation {
       s.terminalV[i] = out.vt[i]! * m.ratedVoltageV;
     }
     this.recorder.record(this.k, t, f, v, s);
+  }
+
+  /**
+   * Constant-power loads turn into constant impedance below `POWER_LOAD_BREAK_PU` (the bus
+   * solve needs it): that load is not served, and the run says so (log lines, energy).
+   */
+  private watchLowVoltage(t: number): void {
+    const kw = this.out.unservedP * this.m.baseKVA;
+    if (kw > 1e-6 && this.out.anyOnline) {
+      if (this.lowVStartS === null) {
+        this.lowVStartS = t;
+        this.lowVMaxKW = 0;
+        this.lowVEpisodes++;
+        this.logs.push({
+          atS: t,
+          text: `bus below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage: constant-power loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
+        });
+      }
+      if (kw > this.lowVMaxKW) this.lowVMaxKW = kw;
+      if (kw > this.maxUnservedKW) this.maxUnservedKW = kw;
+      this.unservedKWs += kw * this.stepS;
+      this.lowVTotalS += this.stepS;
+    } else if (this.lowVStartS !== null) {
+      this.endLowVoltage(t);
+    }
+  }
+
+  private endLowVoltage(t: number): void {
+    if (this.lowVStartS === null) return;
+    this.logs.push({
+      atS: t,
+      text: `bus back above ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage: constant-power loads served in full again (up to ${this.lowVMaxKW.toFixed(0)} kW not served for ${(t - this.lowVStartS).toFixed(2)} s)`,
+    });
+    this.lowVStartS = null;
   }
 
   /** Reverse-power relay (device 32) of each on-line set; true when one tripped. */
@@ -334,6 +383,12 @@ class Run implements Simulation {
     const warnings = [...this.warnings];
     if (out.unconverged > 0) warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
     if (!out.anyOnline) warnings.push('No set is on line at the end of the run: the bus is dead.');
+    if (this.lowVEpisodes > 0) {
+      const still = this.lowVStartS !== null ? ` At the end of the run ${(out.unservedP * m.baseKVA).toFixed(0)} kW is still not served (since t = ${this.lowVStartS.toFixed(2)} s).` : '';
+      warnings.push(
+        `The bus fell below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage for ${this.lowVTotalS.toFixed(2)} s in all: constant-power loads then draw as constant impedance, so up to ${this.maxUnservedKW.toFixed(0)} kW (${(this.unservedKWs / 3600).toFixed(2)} kWh in all) was not served.${still}`,
+      );
+    }
     const metrics = computeMetrics({
       ratedFrequencyHz: m.ratedFrequencyHz,
       ratedVoltageV: m.ratedVoltageV,
@@ -348,6 +403,9 @@ class Run implements Simulation {
       voltage: { t: rec.traceT.data, x: rec.traceV.data, length: rec.traceT.length },
       finalSets: m.ids.map((id, i) => ({ id, online: m.online[i] === 1, kW: out.pOwn[i]! * m.ratedKVA[i]!, kVAR: out.qOwn[i]! * m.ratedKVA[i]! })),
       droopPct,
+      unservedKWh: this.unservedKWs / 3600,
+      maxUnservedKW: this.maxUnservedKW,
+      target: steadyTarget(m, this.scenario.plant),
     });
     return { metrics, series: rec.series(), log: [...this.logs], warnings, steps: this.k };
   }
