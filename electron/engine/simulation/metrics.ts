@@ -2,7 +2,8 @@
  * Figures read off a run: frequency nadir and peak, transient deviations, recovery
  * times into a band, voltage dip and rise, the final operating point, and the
  * ISO 8528-5 class verdicts. Deviations follow ISO 8528-5's form
- * `(f_extreme − f_initial) / f_rated × 100 %` (REFERENCES.md §2, from memory).
+ * `(f_extreme − f_initial) / f_rated × 100 %` (ISO 8528-5 definition of the transient
+ * frequency deviation; value from memory).
  */
 import type { ClassCheck, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
