@@ -139,6 +139,24 @@ export interface ClassCheck {
   note?: string;
 }
 
+/** A breaker close onto a live bus during a run, as it was at contact. */
+export interface CloseRecord {
+  setId: string;
+  atS: number;
+  /** Incoming set's phase angle ahead of the bus, degrees (−180..180). */
+  angleDeg: number;
+  /** Incoming speed minus bus frequency, Hz. */
+  slipHz: number;
+  /** (V_incoming − V_bus) / V_rated × 100. */
+  voltageDifferencePct: number;
+  /** Inside the sync-check window the run judges closes against (common practice between sets). */
+  insideWindow: boolean;
+  /** Why it was outside, one sentence per failed check. */
+  reasons: string[];
+  /** The close event gave the incoming state (angle, speed or voltage); false: the run's own phase. */
+  stateGiven: boolean;
+}
+
 /** One set's final operating point. */
 export interface FinalSet {
   id: string;
@@ -188,6 +206,8 @@ export interface SimulationMetrics {
   unservedKWh: number;
   /** Largest constant-power load not served at one instant, kW. */
   maxUnservedKW: number;
+  /** Breaker closes onto a live bus, with the state at contact and the sync-check verdict. */
+  closes: CloseRecord[];
   classes: ClassCheck[];
 }
 

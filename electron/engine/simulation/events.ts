@@ -3,7 +3,9 @@
  * setpoint changes, ramps and motor starts. Each changes the simulator's own model or
  * state at a step boundary, never the caller's data, and writes a line to the log.
  */
-import type { ScenarioEvent } from '../../../shared-types';
+import type { CloseRecord, ScenarioEvent } from '../../../shared-types';
+import { syncCheck } from '../sync/permissives';
+import { syncPreset } from '../sync/presets';
 import { InvalidInput } from '../errors';
 import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_DROOP } from './codes';
@@ -19,7 +21,17 @@ export interface EventTarget {
   log(atS: number, text: string): void;
   /** Schedules an internal follow-up (the end of a motor start). */
   later(atS: number, run: () => void): void;
+  /** Adds a sentence to the run's warnings. */
+  warn(text: string): void;
+  /** Records a breaker close onto a live bus (for the metrics). */
+  closed(record: CloseRecord): void;
 }
+
+/**
+ * The sync-check window a close in a run is judged against: the common-practice settings
+ * between generating sets (the sync engine's preset; no standard behind it).
+ */
+export const RUN_SYNC_PRESET_ID = 'practice-generating-sets';
 
 function setIndex(m: SimModel, id: string, what: string): number {
   const i = m.ids.indexOf(id);
@@ -97,6 +109,22 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
       }
       const rel = (((y[o + DELTA]! - busAngle) * 180) / Math.PI) % 360;
       const relDeg = rel > 180 ? rel - 360 : rel < -180 ? rel + 360 : rel;
+      if (out.anyOnline) {
+        // Off line the terminal voltage is E''; the bus voltage is the last bus solve.
+        const vIn = Math.hypot(y[o + ED2]!, y[o + EQ2]!);
+        const vBus = Math.hypot(out.bus.re, out.bus.im);
+        const slipHz = (y[o + OMEGA]! - out.omegaBus) * fr;
+        const dvPct = (vIn - vBus) * 100;
+        const preset = syncPreset(RUN_SYNC_PRESET_ID);
+        const check = syncCheck({ slipHz, angleDeg: relDeg, voltageDifferencePct: dvPct, busPct: vBus * 100, incomingPct: vIn * 100, limits: preset.limits });
+        const given = ev.angleDeg !== undefined || ev.frequencyHz !== undefined || ev.voltageV !== undefined;
+        target.closed({ setId: ev.setId, atS: t, angleDeg: relDeg, slipHz, voltageDifferencePct: dvPct, insideWindow: check.permissive, reasons: check.reasons, stateGiven: given });
+        const contact = `angle ${fmt(relDeg, 1)}°, slip ${fmt(slipHz, 3)} Hz, ΔV ${fmt(dvPct, 1)} % of rated at contact`;
+        if (!given) target.warn(`${ev.setId} closed at t = ${fmt(t, 3)} s as the run had it (no angle, slip or voltage given): ${contact}.`);
+        if (!check.permissive) {
+          target.warn(`${ev.setId} closed outside the sync-check window (${preset.label}: ±${preset.limits.angleDeg}°, ±${preset.limits.slipHz} Hz, ±${preset.limits.voltagePct} %) at t = ${fmt(t, 3)} s — ${check.reasons.join(' ')}`);
+        }
+      }
       m.online[i] = 1;
       target.log(
         t,

@@ -5,7 +5,7 @@
  * `(f_extreme − f_initial) / f_rated × 100 %` (ISO 8528-5 definition of the transient
  * frequency deviation; value from memory).
  */
-import type { ClassCheck, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
+import type { ClassCheck, CloseRecord, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
 import type { ClassLimitKey } from './iso-8528-5';
 import type { SteadyTarget } from './steady-target';
@@ -58,6 +58,7 @@ export interface MetricsInput {
   /** Constant-power load not served below the low-voltage break, kWh, and its largest value, kW. */
   unservedKWh: number;
   maxUnservedKW: number;
+  closes: CloseRecord[];
   /** Closed-form steady state of the final plant (recovery is measured into a band around it). */
   target: SteadyTarget;
 }
@@ -166,6 +167,7 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     steadyStateNote: target.note,
     unservedKWh: inp.unservedKWh,
     maxUnservedKW: inp.maxUnservedKW,
+    closes: inp.closes.map((c) => ({ ...c, reasons: [...c.reasons] })),
     classes,
   };
 }

@@ -5,7 +5,7 @@
  * results recorded and decimated. Used by `simulate` for whole runs and by live views
  * (the operator trainer) a frame at a time.
  */
-import type { Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
+import type { CloseRecord, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_DROOP } from './codes';
@@ -71,6 +71,7 @@ class Run implements Simulation {
   private readonly recorder: Recorder;
   private readonly logs: SimulationLogEntry[] = [];
   private readonly warnings: string[] = [];
+  private readonly closes: CloseRecord[] = [];
   private readonly target: EventTarget;
   private readonly sample: SetSample;
   private readonly reverseTimer: Float64Array;
@@ -130,6 +131,8 @@ class Run implements Simulation {
       y: this.y,
       out,
       log: (atS, text) => this.logs.push({ atS, text }),
+      warn: (text) => this.warnings.push(text),
+      closed: (record) => this.closes.push(record),
       later: (atS, run) => {
         this.pending.push({ atS, run });
         this.pending.sort((a, b) => a.atS - b.atS);
@@ -405,6 +408,7 @@ class Run implements Simulation {
       droopPct,
       unservedKWh: this.unservedKWs / 3600,
       maxUnservedKW: this.maxUnservedKW,
+      closes: this.closes,
       target: steadyTarget(m, this.scenario.plant),
     });
     return { metrics, series: rec.series(), log: [...this.logs], warnings, steps: this.k };
