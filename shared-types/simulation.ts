@@ -79,7 +79,9 @@ export interface RampEvent {
 /**
  * A motor starts direct on line: its locked-rotor impedance (`kVA` at rated voltage,
  * power factor `pf`) sits on the bus for `durationS`, then the running load
- * (`runningKW`, `runningKVAR`, constant power, default 0) replaces it.
+ * (`runningKW`, `runningKVAR`, constant power) replaces it. Left out, the running load is
+ * `kVA / 6` at 0.85 power factor (locked-rotor kVA about six times running kVA; common
+ * practice, values from memory), and the log says so.
  */
 export interface MotorStartEvent {
   atS: number;
@@ -137,6 +139,18 @@ export interface ClassCheck {
   source: string;
   /** Why a row fails or what it shows (e.g. a run ending outside the steady-state band), one sentence. */
   note?: string;
+}
+
+/** A protection operation during a run: a set tripped, or a load shed. */
+export interface ProtectionTrip {
+  atS: number;
+  /** Set or load id. */
+  id: string;
+  kind: 'set' | 'load';
+  /** IEEE C37.2 device number of the element that operated. */
+  device: '81U' | '81O' | '27' | '59' | '32';
+  /** The log line. */
+  text: string;
 }
 
 /** A breaker close onto a live bus during a run, as it was at contact. */
@@ -200,14 +214,17 @@ export interface SimulationMetrics {
   steadyState: { frequencyHz: number; voltageV: number } | null;
   steadyStateNote: string | null;
   /**
-   * Energy the constant-power loads did not get while the bus was below the low-voltage
-   * break (they then draw as constant impedance), kWh; 0 when the bus never went that low.
+   * Energy of load not served, kWh: constant-power loads while the bus was below the
+   * low-voltage break (they then draw as constant impedance), and every load while the bus was
+   * dead; 0 when neither happened.
    */
   unservedKWh: number;
-  /** Largest constant-power load not served at one instant, kW. */
+  /** Largest load not served at one instant, kW. */
   maxUnservedKW: number;
   /** Breaker closes onto a live bus, with the state at contact and the sync-check verdict. */
   closes: CloseRecord[];
+  /** Protection operations (set trips, load shedding), in order. */
+  trips: ProtectionTrip[];
   classes: ClassCheck[];
 }
 

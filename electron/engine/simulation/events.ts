@@ -28,6 +28,15 @@ export interface EventTarget {
 }
 
 /**
+ * A motor's locked-rotor kVA over its running kVA: 6 (direct-on-line induction motors draw
+ * 5–7 × their running current at start; common practice, value from memory). Used for the
+ * running load a motor start leaves when the event gives none.
+ */
+export const MOTOR_LOCKED_ROTOR_RATIO = 6;
+/** Running power factor of an induction motor near full load: 0.85 (common practice, value from memory). */
+export const MOTOR_RUNNING_PF = 0.85;
+
+/**
  * The sync-check window a close in a run is judged against: the common-practice settings
  * between generating sets (the sync engine's preset; no standard behind it).
  */
@@ -68,6 +77,9 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         qPU: (ev.kVAR ?? 0) / m.baseKVA,
         impedance: ev.model === 'constant-impedance',
         frequencySensitivity: 0,
+        shedPU: 0,
+        shedDelayS: 0,
+        shedTimer: 0,
       };
       m.loads.push(slot);
       target.log(t, `load step ${fmt(ev.kW ?? 0, 0)} kW, ${fmt(ev.kVAR ?? 0, 0)} kVAR (${ev.model ?? 'constant-power'})`);
@@ -184,17 +196,24 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         qPU: (ev.kVA * sin) / m.baseKVA,
         impedance: true,
         frequencySensitivity: 0,
+        shedPU: 0,
+        shedDelayS: 0,
+        shedTimer: 0,
       };
       m.loads.push(slot);
       target.log(t, `motor start: locked rotor ${fmt(ev.kVA, 0)} kVA at pf ${fmt(ev.pf, 2)} for ${fmt(ev.durationS, 2)} s`);
-      const runKW = ev.runningKW ?? 0;
-      const runKVAR = ev.runningKVAR ?? 0;
+      // Default running load: the locked-rotor kVA over the typical ratio, at the typical running power factor.
+      const runKVA = ev.kVA / MOTOR_LOCKED_ROTOR_RATIO;
+      const defaulted = ev.runningKW === undefined && ev.runningKVAR === undefined;
+      const runKW = ev.runningKW ?? (ev.runningKVAR === undefined ? runKVA * MOTOR_RUNNING_PF : 0);
+      const runKVAR = ev.runningKVAR ?? (ev.runningKW === undefined ? runKVA * Math.sqrt(1 - MOTOR_RUNNING_PF * MOTOR_RUNNING_PF) : 0);
       target.later(t + ev.durationS, () => {
         slot.on = false;
         if (runKW !== 0 || runKVAR !== 0) {
-          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0 });
+          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0, shedPU: 0, shedDelayS: 0, shedTimer: 0 });
         }
-        target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR`);
+        const how = defaulted ? ` (not given: locked-rotor ${fmt(ev.kVA, 0)} kVA / ${MOTOR_LOCKED_ROTOR_RATIO} at ${MOTOR_RUNNING_PF} power factor)` : '';
+        target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR${how}`);
       });
       return;
     }

@@ -5,7 +5,7 @@
  * `(f_extreme − f_initial) / f_rated × 100 %` (ISO 8528-5 definition of the transient
  * frequency deviation; value from memory).
  */
-import type { ClassCheck, CloseRecord, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
+import type { ClassCheck, CloseRecord, FinalSet, ProtectionTrip, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
 import type { ClassLimitKey } from './iso-8528-5';
 import type { SteadyTarget } from './steady-target';
@@ -59,6 +59,7 @@ export interface MetricsInput {
   unservedKWh: number;
   maxUnservedKW: number;
   closes: CloseRecord[];
+  trips: ProtectionTrip[];
   /** Closed-form steady state of the final plant (recovery is measured into a band around it). */
   target: SteadyTarget;
 }
@@ -168,6 +169,7 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     unservedKWh: inp.unservedKWh,
     maxUnservedKW: inp.maxUnservedKW,
     closes: inp.closes.map((c) => ({ ...c, reasons: [...c.reasons] })),
+    trips: inp.trips.map((x) => ({ ...x })),
     classes,
   };
 }

@@ -26,6 +26,7 @@ export const METRIC_ROWS: readonly MetricRow[] = [
   { key: 'targetHz', label: 'Steady state of the final load (Hz)', decimals: 3, read: (m) => m.steadyState?.frequencyHz ?? null },
   { key: 'targetV', label: 'Steady state of the final load (V)', decimals: 1, read: (m) => m.steadyState?.voltageV ?? null },
   { key: 'unservedKWh', label: 'Load not served at low voltage (kWh)', decimals: 3, read: (m) => m.unservedKWh ?? 0 },
+  { key: 'trips', label: 'Protection operations (set trips, loads shed)', decimals: 0, read: (m) => (m.trips ?? []).length },
   { key: 'badCloses', label: 'Closes outside the sync-check window', decimals: 0, read: (m) => (m.closes ?? []).filter((c) => !c.insideWindow).length },
   { key: 'unservedKW', label: 'Largest load not served at low voltage (kW)', decimals: 0, read: (m) => m.maxUnservedKW ?? 0 },
 ];

@@ -12,9 +12,9 @@ import type { Plant } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 import { makePlant } from '../../helpers/plants';
 
-function plant(regulator: Record<string, unknown> = {}): Plant {
+function plant(regulator: Record<string, unknown> = {}, protection: Record<string, unknown> = {}): Plant {
   return makePlant(
-    [{ id: 'G1', ratedKVA: 1000, ratedKW: 800, governor: { mode: 'droop' }, regulator: { mode: 'reactive-droop', ...regulator } }],
+    [{ id: 'G1', ratedKVA: 1000, ratedKW: 800, governor: { mode: 'droop' }, regulator: { mode: 'reactive-droop', ...regulator }, protection }],
     [{ id: 'L', kW: 400, kVAR: 300 }],
   );
 }
@@ -53,7 +53,11 @@ describe('field at rated load and the derived ceiling', () => {
 
 describe('rated 0.8 PF load step on default data', () => {
   it('ends within the regulator steady-state band at the full load, nothing unserved', () => {
-    const r = ratedStep(plant());
+    // The governor's fuel limit is rated kW here, so with a load of exactly rated kW and no
+    // frequency-sensitive load the speed has nothing to climb back with (P_m = P_e at any
+    // speed): the under-frequency element is switched off so this looks at the excitation,
+    // and the V/Hz roll-off (which acts below 48 Hz) is switched off for the first run.
+    const r = ratedStep(plant({ vhzSlopePctPerHz: 0 }, { underFrequencyPct: 0 }));
     // Reactive droop: V = V_nl − droop · V_r · Q / Qbase = 416 − 0.04 · 400 · 600 / 600 = 400 V (closed form).
     expectClose(r.metrics.final.voltageV, 400, { abs: 0.025 * 400 }, 'final voltage, V (ISO 8528-5 G2 band ±2.5 %)');
     expectClose(r.metrics.final.voltageV, 400, { abs: 0.5 }, 'final voltage, V');
@@ -67,17 +71,52 @@ describe('rated 0.8 PF load step on default data', () => {
     expect(rec.note).toBeUndefined();
   });
 
+  it('with the default V/Hz roll-off the voltage follows the knee and slope at the final speed', () => {
+    const r = ratedStep(plant({}, { underFrequencyPct: 0 }));
+    const f = r.metrics.final.frequencyHz;
+    expect(f).toBeLessThan(48);
+    // Roll-off: knee 50 − 2 = 48 Hz, 3 % of rated voltage per Hz below it, on top of the droop line:
+    // V = 400 · (1.04 − 0.04 · 600 / 600 − 0.03 · (48 − f)) (closed form).
+    expectClose(r.metrics.final.voltageV, 400 * (1 - 0.03 * (48 - f)), { abs: 0.5 }, 'final voltage, V (V/Hz roll-off)');
+    expectClose(r.metrics.final.sets[0]!.kW, 800, { abs: 1 }, 'final kW');
+    expect(r.metrics.unservedKWh).toBe(0);
+  });
+
   it('with a 3 pu ceiling the voltage stays down and the run says so', () => {
-    const r = ratedStep(plant({ ceilingPU: 3 }));
+    const r = ratedStep(plant({ ceilingPU: 3 }, { underFrequencyPct: 0, underVoltagePct: 0 }));
     expect(r.warnings.join(' ')).toMatch(/only 8 % above/);
     // More than 10 % low at the end.
     expect(r.metrics.final.voltageV).toBeLessThan(360);
     expect(r.metrics.unservedKWh).toBeGreaterThan(0);
     expect(r.metrics.maxUnservedKW).toBeGreaterThan(100);
-    expect(r.warnings.join(' ')).toMatch(/kW \(.* kWh in all\) was not served/);
+    expect(r.warnings.join(' ')).toMatch(/Load was not served .* kWh in all\. Load is still not served at the end/);
     expect(r.log.some((e) => /constant-power loads now draw as constant impedance/.test(e.text))).toBe(true);
     const rec = r.metrics.classes.find((c) => c.quantity === 'voltage recovery time')!;
     expect(rec.pass).toEqual({ G1: false, G2: false, G3: false });
     expect(rec.note).toMatch(/below the 400\.0 V steady state of the final loads/);
+  });
+
+  it('with a 3 pu ceiling and its undervoltage element on, the set trips on 27 after its delay', () => {
+    const r = ratedStep(plant({ ceilingPU: 3 }, { underFrequencyPct: 0 }));
+    const trip = r.metrics.trips.find((x) => x.device === '27')!;
+    expect(trip.id).toBe('G1');
+    // The voltage sinks below 80 % within a few seconds of the step at 1 s (the field flux decays
+    // with T'd0 = 2.5 s) and stays there; the 27 delay is 5 s.
+    const below = r.series.t.find((t, k) => t > 1 && r.series.voltageV[k]! < 320)!;
+    expect(trip.atS).toBeGreaterThan(1 + 5);
+    expectClose(trip.atS, below + 5, { abs: 0.05 }, 'trip time, s (first plotted point below 320 V + 5 s)');
+    expect(r.log.some((e) => /G1 tripped on undervoltage \(device 27\): below 320 V/.test(e.text))).toBe(true);
+    expect(r.log.some((e) => /bus dead: 800 kW of load not served/.test(e.text))).toBe(true);
+    const rec = r.metrics.classes.find((c) => c.quantity === 'voltage recovery time')!;
+    expect(rec.note).toMatch(/no steady state to recover to: no set is on line/);
+  });
+
+  it('the over-excitation limiter holds the field at its limit after its delay, and says so', () => {
+    // Limit 100 % of the 2.7757 pu rated-load field, 0.2 s: the field forcing after the step lasts longer.
+    const r = ratedStep(plant({ oelPct: 100, oelDelayS: 0.2, vhzSlopePctPerHz: 0 }, { underFrequencyPct: 0, underVoltagePct: 0 }));
+    const acts = r.log.find((l) => /G1 over-excitation limiter acts: field held at 2\.78 pu after 0\.2 s above it/.test(l.text));
+    expect(acts).toBeDefined();
+    expect(acts!.atS).toBeGreaterThan(1.2);
+    expect(r.warnings.join(' ')).toMatch(/over-excitation limiter held the field at 2\.78 pu/);
   });
 });
