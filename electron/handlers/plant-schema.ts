@@ -36,7 +36,8 @@ const regulatorSchema = z
     pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
     exciterLagS: nonNegative('s').default(0.1),
     gainPU: positive('pu').default(50),
-    ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').optional(),
+    // Empty (null) or left out: derived from the machine data (`fieldCeiling`).
+    ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').nullish(),
     shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
     residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
     vhzKneeBelowHz: nonNegative('Hz').lte(10, 'must be 10 Hz or less').default(SET_DEFAULTS.vhzKneeBelowHz),
@@ -113,6 +114,12 @@ const loadSchema = z
   })
   .strict();
 
+/** The regulator without a `ceilingPU` of null (an emptied field: the ceiling is derived). */
+function withoutNullCeiling<T extends { ceilingPU?: number | null }>(r: T): Omit<T, 'ceilingPU'> & { ceilingPU?: number } {
+  const { ceilingPU, ...rest } = r;
+  return ceilingPU === null || ceilingPU === undefined ? rest : { ...rest, ceilingPU };
+}
+
 /**
  * Zod schema of a plant file; parsing fills defaults and checks cross-field rules.
  * Defaults for setpoints: `noLoadHz = f_rated (1 + droop)` and `noLoadV = V_rated (1 + droop)`
@@ -162,7 +169,7 @@ export const plantSchema = z
         setpointHz: s.governor.setpointHz ?? p.ratedFrequencyHz,
       },
       regulator: {
-        ...s.regulator,
+        ...withoutNullCeiling(s.regulator),
         noLoadV: s.regulator.noLoadV ?? p.ratedVoltageV * (1 + s.regulator.droopPct / 100),
         setpointV: s.regulator.setpointV ?? p.ratedVoltageV,
       },
