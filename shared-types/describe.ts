@@ -13,6 +13,13 @@ export interface SetDescription {
   ratedKVA: number;
   /** Reactive base `Qbase = ratedKVA * sqrt(1 - ratedPF^2)`, kVAR. */
   kVARBase: number;
+  /** Field voltage at rated kVA and rated power factor, pu (the simulator's machine model). */
+  ratedFieldPU: number;
+  /** Field ceiling the simulator uses, pu, whether it was derived, why, and a low-margin warning. */
+  fieldCeilingPU: number;
+  fieldCeilingDerived: boolean;
+  fieldCeilingReason: string;
+  fieldCeilingWarning: string | null;
   /** The set's capability chart (limit curves in kW and kVAR). */
   capability: SetCapability;
 }

@@ -1,7 +1,8 @@
 /**
  * The plant model: generating sets, their governors and regulators, feeders and loads.
  * Field names carry their unit. Per-unit machine data is on the set's own base
- * (`ratedKVA`, `ratedVoltageV` of the plant). The plant file is described in the README and DEVELOPERS.md.
+ * (`ratedKVA`, `ratedVoltageV` of the plant). `electron/handlers/plant-schema.ts` is the
+ * file's definition (rules and defaults).
  */
 
 /** File format tag of a plant file. */
@@ -27,6 +28,48 @@ export const SET_DEFAULTS = {
   motoringPct: 25,
   /** Reverse-power (32) delay, s: common practice 2–10 s for engine sets (value from memory). */
   reversePowerDelayS: 3,
+  /**
+   * Field ceiling when the plant file gives none, as a multiple of the field at rated load and
+   * rated power factor: 1.6 × (brushless engine-set exciters commonly reach 1.5–2 × the
+   * rated-load field; common practice, value from memory). With this margin a set accepts a
+   * rated load step at rated power factor.
+   */
+  fieldCeilingFactor: 1.6,
+  /** Below this margin of the ceiling over the rated-load field, % , a run and the Plant view warn. */
+  fieldCeilingMarginPct: 30,
+  /**
+   * Generator protection settings (device numbers of IEEE C37.2: 81U/81O frequency, 27
+   * undervoltage, 59 overvoltage), pickup in % of rated and time delay in s. Common practice
+   * for engine sets, values from memory: verify against the protection study of the site.
+   * A pickup of 0 switches the element off.
+   */
+  protection: {
+    underFrequencyPct: 95,
+    underFrequencyDelayS: 5,
+    overFrequencyPct: 108,
+    overFrequencyDelayS: 5,
+    underVoltagePct: 80,
+    underVoltageDelayS: 5,
+    overVoltagePct: 115,
+    overVoltageDelayS: 3,
+  },
+  /**
+   * Under-frequency (V/Hz) roll-off of the voltage regulator: below `vhzKneeBelowHz` under rated
+   * frequency the voltage reference falls by `vhzSlopePctPerHz` % of rated voltage per Hz, so an
+   * engine pulled down by a load step is not also asked for full voltage. Common practice on
+   * engine sets: knee 1–2 Hz below rated, a few % per Hz (values from memory).
+   */
+  vhzKneeBelowHz: 2,
+  vhzSlopePctPerHz: 3,
+  /**
+   * Over-excitation limiter: when the field stays above `oelPct` % of the rated-load field for
+   * `oelDelayS`, the regulator holds it there until its demand falls back (field forcing allowed
+   * for about 10 s; common practice, values from memory).
+   */
+  oelPct: 110,
+  oelDelayS: 10,
+  /** Delay of an under-frequency load-shedding stage when a load gives none, s (common practice, value from memory). */
+  shedDelayS: 0.5,
 } as const;
 
 /** How a set's governor controls speed. */
@@ -75,12 +118,23 @@ export interface Regulator {
   exciterLagS: number;
   /** Regulator gain, pu field voltage per pu voltage error (simulator). */
   gainPU: number;
-  /** Field-voltage ceiling, pu (simulator). */
-  ceilingPU: number;
+  /**
+   * Field-voltage ceiling, pu (simulator). Left out, it is derived from the machine data:
+   * `SET_DEFAULTS.fieldCeilingFactor` × the field at rated load and rated power factor.
+   */
+  ceilingPU?: number;
   /** Shunt (self) excitation: the ceiling scales with terminal voltage (simulator). */
   shuntExcited: boolean;
   /** Residual-magnetism voltage, pu of rated, for shunt build-up (simulator). */
   residualPU: number;
+  /** V/Hz roll-off knee, Hz below rated frequency (simulator). Default `SET_DEFAULTS.vhzKneeBelowHz`. */
+  vhzKneeBelowHz?: number;
+  /** V/Hz roll-off slope, % of rated voltage per Hz below the knee; 0 = off. Default `SET_DEFAULTS.vhzSlopePctPerHz`. */
+  vhzSlopePctPerHz?: number;
+  /** Over-excitation limit, % of the field at rated load; 0 = off. Default `SET_DEFAULTS.oelPct`. */
+  oelPct?: number;
+  /** Time the field may stay above the over-excitation limit before it is held there, s. Default `SET_DEFAULTS.oelDelayS`. */
+  oelDelayS?: number;
 }
 
 /** Synchronous machine data, per unit on the set's base (`ratedKVA`, plant `ratedVoltageV`). */
@@ -99,6 +153,26 @@ export interface Machine {
   dampingPU: number;
   /** Armature resistance, pu (closing surge R/X, simulator). */
   raPU: number;
+}
+
+/**
+ * Generator protection of one set (IEEE C37.2 device numbers). Pickups in % of rated frequency
+ * or voltage, delays in s; a pickup of 0 switches that element off. Reverse power (32) is the
+ * set's `reversePowerTripPct` / `reversePowerDelayS`. Defaults: `SET_DEFAULTS.protection`.
+ */
+export interface Protection {
+  /** 81U under-frequency pickup, % of rated frequency (trips below). */
+  underFrequencyPct: number;
+  underFrequencyDelayS: number;
+  /** 81O over-frequency pickup, % of rated frequency (trips above). */
+  overFrequencyPct: number;
+  overFrequencyDelayS: number;
+  /** 27 undervoltage pickup, % of rated voltage (trips below). */
+  underVoltagePct: number;
+  underVoltageDelayS: number;
+  /** 59 overvoltage pickup, % of rated voltage (trips above). */
+  overVoltagePct: number;
+  overVoltageDelayS: number;
 }
 
 /** The cable or bus duct from a set's terminals to the common bus (per phase). */
@@ -140,6 +214,8 @@ export interface GenSet {
   regulator: Regulator;
   machine: Machine;
   feeder: Feeder;
+  /** Generator protection; the schema fills `SET_DEFAULTS.protection` where the file gives none. */
+  protection?: Protection;
 }
 
 /** One load on the common bus. */
@@ -154,6 +230,13 @@ export interface Load {
   model: LoadModel;
   /** Frequency sensitivity: % change of kW per % change of frequency (0 = none). */
   frequencySensitivity: number;
+  /**
+   * Under-frequency load shedding: the load is switched off when the bus frequency stays
+   * below this, % of rated frequency, for `shedDelayS`. Left out: never shed.
+   */
+  shedFrequencyPct?: number;
+  /** Delay of the load-shedding stage, s. Default `SET_DEFAULTS.shedDelayS`. */
+  shedDelayS?: number;
 }
 
 /** A whole plant: the sets and loads on one common bus. */

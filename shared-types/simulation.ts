@@ -79,7 +79,9 @@ export interface RampEvent {
 /**
  * A motor starts direct on line: its locked-rotor impedance (`kVA` at rated voltage,
  * power factor `pf`) sits on the bus for `durationS`, then the running load
- * (`runningKW`, `runningKVAR`, constant power, default 0) replaces it.
+ * (`runningKW`, `runningKVAR`, constant power) replaces it. Left out, the running load is
+ * `kVA / 6` at 0.85 power factor (locked-rotor kVA about six times running kVA; common
+ * practice, values from memory), and the log says so.
  */
 export interface MotorStartEvent {
   atS: number;
@@ -135,6 +137,38 @@ export interface ClassCheck {
   /** null where the run does not measure the quantity. */
   pass: Record<PerformanceClass, boolean | null>;
   source: string;
+  /** Why a row fails or what it shows (e.g. a run ending outside the steady-state band), one sentence. */
+  note?: string;
+}
+
+/** A protection operation during a run: a set tripped, or a load shed. */
+export interface ProtectionTrip {
+  atS: number;
+  /** Set or load id. */
+  id: string;
+  kind: 'set' | 'load';
+  /** IEEE C37.2 device number of the element that operated. */
+  device: '81U' | '81O' | '27' | '59' | '32';
+  /** The log line. */
+  text: string;
+}
+
+/** A breaker close onto a live bus during a run, as it was at contact. */
+export interface CloseRecord {
+  setId: string;
+  atS: number;
+  /** Incoming set's phase angle ahead of the bus, degrees (−180..180). */
+  angleDeg: number;
+  /** Incoming speed minus bus frequency, Hz. */
+  slipHz: number;
+  /** (V_incoming − V_bus) / V_rated × 100. */
+  voltageDifferencePct: number;
+  /** Inside the sync-check window the run judges closes against (common practice between sets). */
+  insideWindow: boolean;
+  /** Why it was outside, one sentence per failed check. */
+  reasons: string[];
+  /** The close event gave the incoming state (angle, speed or voltage); false: the run's own phase. */
+  stateGiven: boolean;
 }
 
 /** One set's final operating point. */
@@ -153,7 +187,10 @@ export interface SimulationMetrics {
   frequencyPeakHz: number;
   /** Larger of the dip and the rise from the initial frequency, signed, % of rated frequency. */
   frequencyDeviationPct: number;
-  /** Time from the first event until frequency stays inside ±`frequencyBandPct` of its final value; null if it never settles in the run. */
+  /**
+   * Time from the first event until frequency stays inside ±`frequencyBandPct` of the steady
+   * state of the final loads (`steadyState`); null if it never settles there in the run.
+   */
   frequencyRecoveryS: number | null;
   /** Band used for `frequencyRecoveryS`, ± % of rated frequency. */
   frequencyBandPct: number;
@@ -169,6 +206,25 @@ export interface SimulationMetrics {
     voltageV: number;
     sets: FinalSet[];
   };
+  /**
+   * The steady state the controls should reach for the final plant (the steady-state solver on
+   * the plant as the run leaves it); recovery times are measured into a band around it. null
+   * when there is none (`steadyStateNote` says why).
+   */
+  steadyState: { frequencyHz: number; voltageV: number } | null;
+  steadyStateNote: string | null;
+  /**
+   * Energy of load not served, kWh: constant-power loads while the bus was below the
+   * low-voltage break (they then draw as constant impedance), and every load while the bus was
+   * dead; 0 when neither happened.
+   */
+  unservedKWh: number;
+  /** Largest load not served at one instant, kW. */
+  maxUnservedKW: number;
+  /** Breaker closes onto a live bus, with the state at contact and the sync-check verdict. */
+  closes: CloseRecord[];
+  /** Protection operations (set trips, load shedding), in order. */
+  trips: ProtectionTrip[];
   classes: ClassCheck[];
 }
 

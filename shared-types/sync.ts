@@ -26,8 +26,11 @@ export interface SyncPreset {
   /** Note shown beside it, e.g. "verify against the standard you hold". */
   note: string;
   limits: SyncLimits;
-  /** How sure the values are: seen in a published copy, recalled from memory, or a rule of the trade. */
-  confidence?: 'confirmed' | 'memory' | 'practice';
+  /**
+   * How sure the values are: seen in a published copy of the standard, seen only in a
+   * secondary copy (clauses not confirmed), recalled from memory, or a rule of the trade.
+   */
+  confidence?: 'confirmed' | 'secondary' | 'memory' | 'practice';
   /** For rating-banded presets (IEEE 1547): the aggregate rating band it applies to, kVA (`maxKVA` null = no upper bound). */
   ratingBandKVA?: { minKVA: number; maxKVA: number | null };
 }

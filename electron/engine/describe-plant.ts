@@ -1,6 +1,7 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
 import { setCapability } from './capability';
 import { settingWarnings } from './setting-checks';
+import { fieldCeiling } from './simulation/excitation';
 
 /** Rated speed `n = 120 f / poles`, rpm. */
 export function ratedSpeedRpm(frequencyHz: number, poles: number): number {
@@ -19,17 +20,25 @@ export function kVARBase(ratedKVA: number, ratedPF: number): number {
 
 /** Rated figures of every set and the plant totals. Pure; does not touch `plant`. */
 export function describePlant(plant: Plant): PlantDescription {
-  const sets: SetDescription[] = plant.sets.map((s) => ({
-    id: s.id,
-    name: s.name,
-    online: s.online,
-    ratedSpeedRpm: ratedSpeedRpm(plant.ratedFrequencyHz, s.poles),
-    ratedCurrentA: ratedCurrentA(s.ratedKVA, plant.ratedVoltageV),
-    ratedKW: s.ratedKW,
-    ratedKVA: s.ratedKVA,
-    kVARBase: kVARBase(s.ratedKVA, s.ratedPF),
-    capability: setCapability(s),
-  }));
+  const sets: SetDescription[] = plant.sets.map((s) => {
+    const fc = fieldCeiling(s);
+    return {
+      id: s.id,
+      name: s.name,
+      online: s.online,
+      ratedSpeedRpm: ratedSpeedRpm(plant.ratedFrequencyHz, s.poles),
+      ratedCurrentA: ratedCurrentA(s.ratedKVA, plant.ratedVoltageV),
+      ratedKW: s.ratedKW,
+      ratedKVA: s.ratedKVA,
+      kVARBase: kVARBase(s.ratedKVA, s.ratedPF),
+      capability: setCapability(s),
+      ratedFieldPU: fc.ratedFieldPU,
+      fieldCeilingPU: fc.ceilingPU,
+      fieldCeilingDerived: fc.derived,
+      fieldCeilingReason: fc.reason,
+      fieldCeilingWarning: fc.warning,
+    };
+  });
   const online = plant.sets.filter((s) => s.online);
   const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
   const loads = plant.loads.filter((l) => l.online);

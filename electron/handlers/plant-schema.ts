@@ -36,9 +36,14 @@ const regulatorSchema = z
     pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
     exciterLagS: nonNegative('s').default(0.1),
     gainPU: positive('pu').default(50),
-    ceilingPU: positive('pu').default(3),
+    // Empty (null) or left out: derived from the machine data (`fieldCeiling`).
+    ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').nullish(),
     shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
     residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
+    vhzKneeBelowHz: nonNegative('Hz').lte(10, 'must be 10 Hz or less').default(SET_DEFAULTS.vhzKneeBelowHz),
+    vhzSlopePctPerHz: nonNegative('% per Hz').lte(20, 'must be 20 % per Hz or less').default(SET_DEFAULTS.vhzSlopePctPerHz),
+    oelPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
+    oelDelayS: nonNegative('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.oelDelayS),
   })
   .strict();
 
@@ -51,6 +56,22 @@ const machineSchema = z
     inertiaS: positive('s').default(1),
     dampingPU: nonNegative('pu').default(2),
     raPU: nonNegative('pu').default(0.01),
+  })
+  .strict();
+
+const P = SET_DEFAULTS.protection;
+const pickup = (lo: string, hi: number) => nonNegative('%').lte(hi, `must be ${hi} % or less (${lo})`);
+const delay = () => nonNegative('s').lte(600, 'must be 600 s or less');
+const protectionSchema = z
+  .object({
+    underFrequencyPct: pickup('0 switches it off', 100).default(P.underFrequencyPct),
+    underFrequencyDelayS: delay().default(P.underFrequencyDelayS),
+    overFrequencyPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 150), 'must be 0 (off) or from 100 to 150 %').default(P.overFrequencyPct),
+    overFrequencyDelayS: delay().default(P.overFrequencyDelayS),
+    underVoltagePct: pickup('0 switches it off', 100).default(P.underVoltagePct),
+    underVoltageDelayS: delay().default(P.underVoltageDelayS),
+    overVoltagePct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(P.overVoltagePct),
+    overVoltageDelayS: delay().default(P.overVoltageDelayS),
   })
   .strict();
 
@@ -75,6 +96,7 @@ const setSchema = z
     regulator: regulatorSchema,
     machine: machineSchema.prefault({}),
     feeder: feederSchema.prefault({}),
+    protection: protectionSchema.prefault({}),
   })
   .strict();
 
@@ -87,8 +109,16 @@ const loadSchema = z
     kVAR: finite('kVAR'),
     model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).default('constant-power'),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
+    shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').optional(),
+    shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').optional(),
   })
   .strict();
+
+/** The regulator without a `ceilingPU` of null (an emptied field: the ceiling is derived). */
+function withoutNullCeiling<T extends { ceilingPU?: number | null }>(r: T): Omit<T, 'ceilingPU'> & { ceilingPU?: number } {
+  const { ceilingPU, ...rest } = r;
+  return ceilingPU === null || ceilingPU === undefined ? rest : { ...rest, ceilingPU };
+}
 
 /**
  * Zod schema of a plant file; parsing fills defaults and checks cross-field rules.
@@ -141,7 +171,7 @@ export const plantSchema = z
         setpointHz: s.governor.setpointHz ?? p.ratedFrequencyHz,
       },
       regulator: {
-        ...s.regulator,
+        ...withoutNullCeiling(s.regulator),
         noLoadV: s.regulator.noLoadV ?? p.ratedVoltageV * (1 + s.regulator.droopPct / 100),
         setpointV: s.regulator.setpointV ?? p.ratedVoltageV,
       },

@@ -90,7 +90,7 @@ export function nextId(prefix: string, used: readonly string[]): string {
  * Otherwise a set with every field given (so the draft equals its validated form): 500 kVA,
  * 0.8 PF, 4 poles, 4 % speed and reactive droop with the plant schema's default
  * no-load setpoints (rated output at rated frequency and voltage), typical machine data
- * for an engine set (ranges from memory; verify with the maker's data).
+ * for an engine set (typical data of engine-set alternators, from memory; verify with the maker's data).
  */
 export function newSet(draft: PlantDraft): SetDraft {
   const f = draft.ratedFrequencyHz ?? 50;
@@ -121,18 +121,22 @@ export function newSet(draft: PlantDraft): SetDraft {
       pf: 0.9,
       exciterLagS: 0.1,
       gainPU: 50,
-      ceilingPU: 3,
       shuntExcited: false,
       residualPU: 0.03,
+      vhzKneeBelowHz: SET_DEFAULTS.vhzKneeBelowHz,
+      vhzSlopePctPerHz: SET_DEFAULTS.vhzSlopePctPerHz,
+      oelPct: SET_DEFAULTS.oelPct,
+      oelDelayS: SET_DEFAULTS.oelDelayS,
     },
     machine: { ...TYPICAL_MACHINE, dampingPU: 2, raPU: 0.01 },
     feeder: { rOhm: 0, xOhm: 0 },
+    protection: { ...SET_DEFAULTS.protection },
   };
 }
 
 /**
  * Typical machine data of a 100 kVA – 3 MVA engine set, per unit on its own base
- * (ranges from memory, common practice: X d 1.5–3.5, X'd 0.15–0.35, X''d 0.10–0.20,
+ * (typical data of engine-set alternators, ranges from memory: X d 1.5–3.5, X'd 0.15–0.35, X''d 0.10–0.20,
  * T'd0 1–3 s LV, H 0.5–1.5 s). Mid-range values; typical, verify with the maker's data.
  */
 export const TYPICAL_MACHINE = { xdPU: 2.5, xdpPU: 0.25, xddpPU: 0.15, tdopS: 2.5, inertiaS: 1 } as const;

@@ -67,7 +67,8 @@ function summary(r: SimulationResult): string {
   const lines = [
     `frequency: initial ${fmt(m.initial.frequencyHz, 3)} Hz, nadir ${fmt(m.frequencyNadirHz, 3)} Hz, peak ${fmt(m.frequencyPeakHz, 3)} Hz, deviation ${fmt(m.frequencyDeviationPct, 2)} %, recovery into ±${m.frequencyBandPct} % ${m.frequencyRecoveryS === null ? 'not within the run' : `${fmt(m.frequencyRecoveryS, 2)} s`}`,
     `voltage:   initial ${fmt(m.initial.voltageV, 1)} V, dip ${fmt(m.voltageDipPct, 2)} %, rise ${fmt(m.voltagePeakPct, 2)} %, recovery into ±${m.voltageBandPct} % ${m.voltageRecoveryS === null ? 'not within the run' : `${fmt(m.voltageRecoveryS, 2)} s`}`,
-    `final:     ${fmt(m.final.frequencyHz, 3)} Hz, ${fmt(m.final.voltageV, 1)} V`,
+    `final:     ${fmt(m.final.frequencyHz, 3)} Hz, ${fmt(m.final.voltageV, 1)} V; steady state of the final load ${m.steadyState ? `${fmt(m.steadyState.frequencyHz, 3)} Hz, ${fmt(m.steadyState.voltageV, 1)} V` : `none (${m.steadyStateNote ?? ''})`}`,
+    `load not served: ${fmt(m.unservedKWh, 3)} kWh (largest ${fmt(m.maxUnservedKW, 0)} kW); protection operations ${m.trips.length}; closes outside the sync-check window ${m.closes.filter((c) => !c.insideWindow).length}`,
     '',
     formatTable(
       ['set', 'on line', 'kW', 'kVAR'],
@@ -83,6 +84,7 @@ function summary(r: SimulationResult): string {
         return [`${c.quantity} (${c.unit})`, c.measuredByClass ? 'per class:' : fmt(c.measured, 2), cell('G1'), cell('G2'), cell('G3')];
       }),
     ),
+    ...m.classes.filter((c) => c.note).map((c) => `${c.quantity}: ${c.note}`),
     `limits: ${[...new Set(m.classes.map((c) => c.source))].join('; ')}`,
     '',
     'log:',

@@ -1,6 +1,7 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
 import { flagWords, isoClassName } from '../../../shared-types/presentation';
-import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable } from '../../../shared-types';
+import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
+import { POWER_LOAD_BREAK_PU } from '../simulation/network';
 import type { ReportData, SyncPart } from './report-data';
 
 /** True when the sync section was built (it may still carry a problem of its own). */
@@ -163,15 +164,22 @@ function metricsTable(d: ReportData): ReportTable {
         m?.voltageRecoveryS ?? null,
         m?.final.frequencyHz ?? null,
         m?.final.voltageV ?? null,
-        t.problem ?? (m && (m.frequencyRecoveryS === null || m.voltageRecoveryS === null) ? 'did not recover into the band within the run' : ''),
+        t.problem ?? (m ? transientNotes(m) : ''),
       ];
     }),
   };
 }
 
+function transientNotes(m: SimulationMetrics): string {
+  const notes: string[] = [];
+  if (m.frequencyRecoveryS === null || m.voltageRecoveryS === null) notes.push('did not recover into the band around the steady state of the final load within the run');
+  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of constant-power load not served below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage`);
+  return notes.join('; ');
+}
+
 /** Rows of an ISO 8528-5 class table: limit and verdict word per class, and the limit's source. */
 export function classRows(checks: readonly ClassCheck[]): ReportCell[][] {
-  return checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdictWord(c.pass[k])]), c.source]);
+  return checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdictWord(c.pass[k])]), c.source, c.note ?? '']);
 }
 
 function classTables(d: ReportData): ReportTable[] {
@@ -181,8 +189,8 @@ function classTables(d: ReportData): ReportTable[] {
           {
             id: `transient-classes-${i + 1}`,
             title: `ISO 8528-5 performance classes — ${t.scenario.name}`,
-            columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
-            decimals: [0, 0, 2, 2, 0, 2, 0, 2, 0, 0],
+            columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source', 'Note'],
+            decimals: [0, 0, 2, 2, 0, 2, 0, 2, 0, 0, 0],
             rows: classRows(t.result.metrics.classes),
           },
         ]

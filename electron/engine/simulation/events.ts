@@ -3,7 +3,9 @@
  * setpoint changes, ramps and motor starts. Each changes the simulator's own model or
  * state at a step boundary, never the caller's data, and writes a line to the log.
  */
-import type { ScenarioEvent } from '../../../shared-types';
+import type { CloseRecord, ScenarioEvent } from '../../../shared-types';
+import { syncCheck } from '../sync/permissives';
+import { syncPreset } from '../sync/presets';
 import { InvalidInput } from '../errors';
 import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_DROOP } from './codes';
@@ -19,7 +21,26 @@ export interface EventTarget {
   log(atS: number, text: string): void;
   /** Schedules an internal follow-up (the end of a motor start). */
   later(atS: number, run: () => void): void;
+  /** Adds a sentence to the run's warnings. */
+  warn(text: string): void;
+  /** Records a breaker close onto a live bus (for the metrics). */
+  closed(record: CloseRecord): void;
 }
+
+/**
+ * A motor's locked-rotor kVA over its running kVA: 6 (direct-on-line induction motors draw
+ * 5–7 × their running current at start; common practice, value from memory). Used for the
+ * running load a motor start leaves when the event gives none.
+ */
+export const MOTOR_LOCKED_ROTOR_RATIO = 6;
+/** Running power factor of an induction motor near full load: 0.85 (common practice, value from memory). */
+export const MOTOR_RUNNING_PF = 0.85;
+
+/**
+ * The sync-check window a close in a run is judged against: the common-practice settings
+ * between generating sets (the sync engine's preset; no standard behind it).
+ */
+export const RUN_SYNC_PRESET_ID = 'practice-generating-sets';
 
 function setIndex(m: SimModel, id: string, what: string): number {
   const i = m.ids.indexOf(id);
@@ -56,6 +77,9 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         qPU: (ev.kVAR ?? 0) / m.baseKVA,
         impedance: ev.model === 'constant-impedance',
         frequencySensitivity: 0,
+        shedPU: 0,
+        shedDelayS: 0,
+        shedTimer: 0,
       };
       m.loads.push(slot);
       target.log(t, `load step ${fmt(ev.kW ?? 0, 0)} kW, ${fmt(ev.kVAR ?? 0, 0)} kVAR (${ev.model ?? 'constant-power'})`);
@@ -97,6 +121,22 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
       }
       const rel = (((y[o + DELTA]! - busAngle) * 180) / Math.PI) % 360;
       const relDeg = rel > 180 ? rel - 360 : rel < -180 ? rel + 360 : rel;
+      if (out.anyOnline) {
+        // Off line the terminal voltage is E''; the bus voltage is the last bus solve.
+        const vIn = Math.hypot(y[o + ED2]!, y[o + EQ2]!);
+        const vBus = Math.hypot(out.bus.re, out.bus.im);
+        const slipHz = (y[o + OMEGA]! - out.omegaBus) * fr;
+        const dvPct = (vIn - vBus) * 100;
+        const preset = syncPreset(RUN_SYNC_PRESET_ID);
+        const check = syncCheck({ slipHz, angleDeg: relDeg, voltageDifferencePct: dvPct, busPct: vBus * 100, incomingPct: vIn * 100, limits: preset.limits });
+        const given = ev.angleDeg !== undefined || ev.frequencyHz !== undefined || ev.voltageV !== undefined;
+        target.closed({ setId: ev.setId, atS: t, angleDeg: relDeg, slipHz, voltageDifferencePct: dvPct, insideWindow: check.permissive, reasons: check.reasons, stateGiven: given });
+        const contact = `angle ${fmt(relDeg, 1)}°, slip ${fmt(slipHz, 3)} Hz, ΔV ${fmt(dvPct, 1)} % of rated at contact`;
+        if (!given) target.warn(`${ev.setId} closed at t = ${fmt(t, 3)} s as the run had it (no angle, slip or voltage given): ${contact}.`);
+        if (!check.permissive) {
+          target.warn(`${ev.setId} closed outside the sync-check window (${preset.label}: ±${preset.limits.angleDeg}°, ±${preset.limits.slipHz} Hz, ±${preset.limits.voltagePct} %) at t = ${fmt(t, 3)} s — ${check.reasons.join(' ')}`);
+        }
+      }
       m.online[i] = 1;
       target.log(
         t,
@@ -156,17 +196,24 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         qPU: (ev.kVA * sin) / m.baseKVA,
         impedance: true,
         frequencySensitivity: 0,
+        shedPU: 0,
+        shedDelayS: 0,
+        shedTimer: 0,
       };
       m.loads.push(slot);
       target.log(t, `motor start: locked rotor ${fmt(ev.kVA, 0)} kVA at pf ${fmt(ev.pf, 2)} for ${fmt(ev.durationS, 2)} s`);
-      const runKW = ev.runningKW ?? 0;
-      const runKVAR = ev.runningKVAR ?? 0;
+      // Default running load: the locked-rotor kVA over the typical ratio, at the typical running power factor.
+      const runKVA = ev.kVA / MOTOR_LOCKED_ROTOR_RATIO;
+      const defaulted = ev.runningKW === undefined && ev.runningKVAR === undefined;
+      const runKW = ev.runningKW ?? (ev.runningKVAR === undefined ? runKVA * MOTOR_RUNNING_PF : 0);
+      const runKVAR = ev.runningKVAR ?? (ev.runningKW === undefined ? runKVA * Math.sqrt(1 - MOTOR_RUNNING_PF * MOTOR_RUNNING_PF) : 0);
       target.later(t + ev.durationS, () => {
         slot.on = false;
         if (runKW !== 0 || runKVAR !== 0) {
-          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0 });
+          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0, shedPU: 0, shedDelayS: 0, shedTimer: 0 });
         }
-        target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR`);
+        const how = defaulted ? ` (not given: locked-rotor ${fmt(ev.kVA, 0)} kVA / ${MOTOR_LOCKED_ROTOR_RATIO} at ${MOTOR_RUNNING_PF} power factor)` : '';
+        target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR${how}`);
       });
       return;
     }

@@ -9,7 +9,9 @@ export { ISO_GAIN_PU } from './governor';
 export { REGULATOR_RESET_S, PF_TRIM_S } from './regulator';
 export { TDDO_S } from './sim-model';
 export { POWER_LOAD_BREAK_PU } from './network';
+export { fieldCeiling, ratedLoadFieldPU } from './excitation';
+export type { FieldCeiling } from './excitation';
 
-import { recoveryTime } from './metrics';
+import { computeMetrics, recoveryTime } from './metrics';
 /** Internals for tests only. */
-export const simulationTesting = { recoveryTime };
+export const simulationTesting = { recoveryTime, computeMetrics };

@@ -3,7 +3,7 @@
  * (`solveSharing`: bus frequency and voltage, each set's kW and kVAR); every dynamic
  * state is then back-computed from the machine, governor and regulator equations so
  * that all derivatives are zero. Off-line sets start unloaded at their own no-load
- * speed and voltage (or de-excited, when asked).
+ * speed and voltage (or de-excited, when asked: at their residual voltage).
  */
 import type { Plant, SharingResult } from '../../../shared-types';
 import { solveSharing } from '../sharing';
@@ -17,7 +17,9 @@ import type { SimModel } from './sim-model';
 export function initialiseOffline(m: SimModel, i: number, y: Float64Array, deExcited: boolean, angleRad = 0): void {
   const o = i * STATES_PER_SET;
   const speed = m.govMode[i] === GOV_DROOP ? m.noLoadPU[i]! : m.setpointPU[i]!;
-  const v = deExcited ? 0 : m.regMode[i] === REG_DROOP ? m.noLoadVPU[i]! : m.setpointVPU[i]!;
+  // De-excited: no field voltage, so the open-circuit EMF is the residual voltage alone
+  // (the steady state of the field equation with E_fd = 0: E'q = E_res).
+  const v = deExcited ? m.residualPU[i]! : m.regMode[i] === REG_DROOP ? m.noLoadVPU[i]! : m.setpointVPU[i]!;
   y[o + DELTA] = angleRad;
   y[o + OMEGA] = speed;
   y[o + EQ1] = v;
@@ -34,7 +36,7 @@ export function initialiseOffline(m: SimModel, i: number, y: Float64Array, deExc
 
 /**
  * Fills `y` with the plant at rest and returns the bus voltage phasor (pu, angle 0).
- * Sets listed in `deExcited` (off-line) start with no field flux.
+ * Sets listed in `deExcited` (off-line) start with no field voltage, at their residual voltage.
  * @throws NoSteadyState (from the sharing solver) when the on-line plant has no operating point.
  */
 export function initialiseAtRest(

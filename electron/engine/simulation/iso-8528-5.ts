@@ -1,8 +1,20 @@
 /**
  * ISO 8528-5 performance classes G1–G3 for generating sets: the limits Droopline checks
- * a run against, each with where its value comes from (ISO 8528-5). Values marked
- * "from memory" could not be confirmed against the standard's own table: verify them
- * against the edition you hold.
+ * a run against, each with where its value comes from. The limits are those of the
+ * standard's table of operating limit values for the classes (ISO 8528-5:2013, Table 4;
+ * the table number is a value from memory). G2 and the two steady-state rows were seen in a
+ * published copy; the G1 and G3 values of the other rows are values from memory: verify
+ * them against the edition you hold.
+ *
+ * How each quantity is measured (ISO 8528-5 definitions, our reading):
+ * - transient deviations are taken from the value just before the first event, as % of
+ *   the rated value: δf = (f_extreme − f_initial) / f_r × 100 %, likewise for voltage;
+ *   some editions widen the load-on frequency limit by the set's droop (value from memory);
+ * - recovery times run from the event until the quantity stays inside the tolerance band
+ *   around the steady state the governor and regulator should reach for the new load;
+ *   Droopline takes that steady state from the steady-state solver (closed form of the
+ *   final plant), and a run that ends outside the band fails with the reason;
+ * - frequency droop is the setting of the sets in droop, not a measurement.
  */
 import type { PerformanceClass } from '../../../shared-types';
 
@@ -31,14 +43,15 @@ export type ClassLimitKey =
   | 'voltageDip'
   | 'voltageRecovery';
 
-const G2_CONFIRMED = 'ISO 8528-5, class limits: G2 confirmed; G1 and G3 from memory — verify against the standard you hold';
-const ALL_CONFIRMED = 'ISO 8528-5, class limits (all three confirmed)';
+const TABLE = 'ISO 8528-5:2013, operating limit values of the performance classes (Table 4, table number from memory)';
+const G2_CONFIRMED = `${TABLE}: G2 confirmed; G1 and G3 values from memory — verify against the standard you hold`;
+const ALL_CONFIRMED = `${TABLE}: all three classes confirmed`;
 
-/** The class table (ISO 8528-5). */
+/** The class table. */
 export const ISO_8528_5_LIMITS: readonly ClassLimit[] = [
-  { key: 'frequencyDroop', quantity: 'frequency droop', unit: '%', kind: 'max', limits: { G1: 8, G2: 5, G3: 3 }, source: G2_CONFIRMED },
+  { key: 'frequencyDroop', quantity: 'frequency droop (setting)', unit: '%', kind: 'max', limits: { G1: 8, G2: 5, G3: 3 }, source: G2_CONFIRMED },
   { key: 'frequencyBand', quantity: 'steady-state frequency band', unit: '%', kind: 'max', limits: { G1: 2.5, G2: 1.5, G3: 0.5 }, source: ALL_CONFIRMED },
-  { key: 'frequencyDip', quantity: 'transient frequency deviation, load on', unit: '%', kind: 'min', limits: { G1: -15, G2: -10, G3: -7 }, source: G2_CONFIRMED },
+  { key: 'frequencyDip', quantity: 'transient frequency deviation, load on', unit: '%', kind: 'min', limits: { G1: -15, G2: -10, G3: -7 }, source: `${G2_CONFIRMED}; some editions widen the load-on limit by the droop (value from memory)` },
   { key: 'frequencyRise', quantity: 'transient frequency deviation, load off', unit: '%', kind: 'max', limits: { G1: 18, G2: 12, G3: 10 }, source: G2_CONFIRMED },
   { key: 'frequencyRecovery', quantity: 'frequency recovery time', unit: 's', kind: 'max', limits: { G1: 10, G2: 5, G3: 3 }, source: G2_CONFIRMED },
   { key: 'voltageDeviation', quantity: 'steady-state voltage deviation', unit: '±%', kind: 'max', limits: { G1: 5, G2: 2.5, G3: 1 }, source: ALL_CONFIRMED },
@@ -54,8 +67,9 @@ export function classLimit(key: ClassLimitKey): ClassLimit {
 
 /**
  * Recovery bands: frequency within half the class's steady-state frequency band,
- * voltage within the class's steady-state voltage deviation, both around the final
- * value (our reading of the recovery-time definitions; the widths are the table's).
+ * voltage within the class's steady-state voltage deviation, both around the steady
+ * state of the final load (our reading of ISO 8528-5's recovery-time definitions; the
+ * widths are the table's).
  */
 export function recoveryBandPct(quantity: 'frequency' | 'voltage', c: PerformanceClass): number {
   return quantity === 'frequency' ? classLimit('frequencyBand').limits[c] / 2 : classLimit('voltageDeviation').limits[c];

@@ -2,11 +2,13 @@
  * Figures read off a run: frequency nadir and peak, transient deviations, recovery
  * times into a band, voltage dip and rise, the final operating point, and the
  * ISO 8528-5 class verdicts. Deviations follow ISO 8528-5's form
- * `(f_extreme − f_initial) / f_rated × 100 %` (ISO 8528-5 definition, value from memory).
+ * `(f_extreme − f_initial) / f_rated × 100 %` (ISO 8528-5 definition of the transient
+ * frequency deviation; value from memory).
  */
-import type { ClassCheck, FinalSet, PerformanceClass, SimulationMetrics } from '../../../shared-types';
+import type { ClassCheck, CloseRecord, FinalSet, ProtectionTrip, PerformanceClass, SimulationMetrics } from '../../../shared-types';
 import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
 import type { ClassLimitKey } from './iso-8528-5';
+import type { SteadyTarget } from './steady-target';
 
 /** A trace of (t, x) samples in typed arrays. */
 export interface Trace {
@@ -53,6 +55,13 @@ export interface MetricsInput {
   finalSets: FinalSet[];
   /** Largest speed droop of the sets on line at the end, % (0 if none is in droop). */
   droopPct: number;
+  /** Constant-power load not served below the low-voltage break, kWh, and its largest value, kW. */
+  unservedKWh: number;
+  maxUnservedKW: number;
+  closes: CloseRecord[];
+  trips: ProtectionTrip[];
+  /** Closed-form steady state of the final plant (recovery is measured into a band around it). */
+  target: SteadyTarget;
 }
 
 function band(tr: Trace, from: number): number {
@@ -83,8 +92,16 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
   const riseF = ((inp.peakHz - inp.initialFrequencyHz) / fr) * 100;
   const dipV = ((inp.minVoltageV - inp.initialVoltageV) / vr) * 100;
   const riseV = ((inp.maxVoltageV - inp.initialVoltageV) / vr) * 100;
-  const recF = (c: PerformanceClass) => recoveryTime(fTr, t0, finalF, (recoveryBandPct('frequency', c) / 100) * fr);
-  const recV = (c: PerformanceClass) => recoveryTime(vTr, t0, finalV, (recoveryBandPct('voltage', c) / 100) * vr);
+  // Recovery (ISO 8528-5, frequency and voltage recovery time): into the class's band around
+  // the steady state the controls should reach for the final load, not around the run's end.
+  const target = inp.target;
+  const offTarget = (x: number, ref: number | null, bandAbs: number) => ref !== null && Math.abs(x - ref) > bandAbs;
+  const bandF = (c: PerformanceClass) => (recoveryBandPct('frequency', c) / 100) * fr;
+  const bandV = (c: PerformanceClass) => (recoveryBandPct('voltage', c) / 100) * vr;
+  const recF = (c: PerformanceClass) =>
+    target.frequencyHz === null || offTarget(finalF, target.frequencyHz, bandF(c)) ? null : recoveryTime(fTr, t0, target.frequencyHz, bandF(c));
+  const recV = (c: PerformanceClass) =>
+    target.voltageV === null || offTarget(finalV, target.voltageV, bandV(c)) ? null : recoveryTime(vTr, t0, target.voltageV, bandV(c));
   const perClass = (fn: (c: PerformanceClass) => number | null) => ({ G1: fn('G1'), G2: fn('G2'), G3: fn('G3') });
   const settleFrom = tEnd - 0.1 * (tEnd - t0);
   const measured: Record<ClassLimitKey, number | null> = {
@@ -98,6 +115,25 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     voltageRise: Math.max(0, riseV),
     voltageRecovery: recV('G2'),
   };
+  const notes: Partial<Record<ClassLimitKey, string>> = {
+    frequencyDroop: 'the droop setting of the sets in droop (largest), not measured from the run',
+  };
+  const endNote = (x: number, ref: number, unit: string, digits: number, ratedX: number, bandPct: (c: PerformanceClass) => number) => {
+    const off = ((x - ref) / ratedX) * 100;
+    const failing = PERFORMANCE_CLASSES.filter((c) => Math.abs(off) > bandPct(c));
+    if (failing.length === 0) return undefined;
+    return `the run ends at ${x.toFixed(digits)} ${unit}, ${Math.abs(off).toFixed(2)} % ${off < 0 ? 'below' : 'above'} the ${ref.toFixed(digits)} ${unit} steady state of the final loads (closed form): outside the band of ${failing.join(', ')}`;
+  };
+  if (target.frequencyHz === null) notes.frequencyRecovery = `no steady state to recover to: ${target.note}`;
+  else {
+    const n = endNote(finalF, target.frequencyHz, 'Hz', 2, fr, (c) => recoveryBandPct('frequency', c));
+    if (n) notes.frequencyRecovery = n;
+  }
+  if (target.voltageV === null) notes.voltageRecovery = `no steady state to recover to: ${target.note}`;
+  else {
+    const n = endNote(finalV, target.voltageV, 'V', 1, vr, (c) => recoveryBandPct('voltage', c));
+    if (n) notes.voltageRecovery = n;
+  }
   const byClass: Partial<Record<ClassLimitKey, Record<PerformanceClass, number | null>>> = {
     frequencyRecovery: perClass(recF),
     voltageRecovery: perClass(recV),
@@ -112,6 +148,8 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     }
     const row: ClassCheck = { quantity: l.quantity, unit: l.unit, measured: measured[l.key], limits: { ...l.limits }, pass, source: l.source };
     if (mbc) row.measuredByClass = mbc;
+    const note = notes[l.key];
+    if (note) row.note = note;
     return row;
   });
   return {
@@ -126,6 +164,12 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     voltageRecoveryS: measured.voltageRecovery,
     voltageBandPct: recoveryBandPct('voltage', 'G2'),
     final: { frequencyHz: finalF, voltageV: finalV, sets: inp.finalSets },
+    steadyState: target.frequencyHz === null ? null : { frequencyHz: target.frequencyHz, voltageV: target.voltageV },
+    steadyStateNote: target.note,
+    unservedKWh: inp.unservedKWh,
+    maxUnservedKW: inp.maxUnservedKW,
+    closes: inp.closes.map((c) => ({ ...c, reasons: [...c.reasons] })),
+    trips: inp.trips.map((x) => ({ ...x })),
     classes,
   };
 }

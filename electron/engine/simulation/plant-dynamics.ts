@@ -9,7 +9,9 @@ import { GOV_ISO, REG_CROSS } from './codes';
 import { machineDerivatives } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
-import { NET_A_IM, NET_A_RE, NET_IN_IM, NET_IN_RE, NET_P, NET_Q, solveBus } from './network';
+import { NET_A_IM, NET_A_RE, NET_IN_IM, NET_IN_RE, NET_P, NET_Q, POWER_LOAD_BREAK_PU, solveBus } from './network';
+
+const BREAK2 = POWER_LOAD_BREAK_PU * POWER_LOAD_BREAK_PU;
 import type { BusVoltage } from './network';
 import type { SimModel } from './sim-model';
 
@@ -51,6 +53,12 @@ export interface Outputs {
   loadP: number;
   loadQ: number;
   feederLossP: number;
+  /**
+   * Constant-power load the bus does not serve because the voltage is below
+   * `POWER_LOAD_BREAK_PU` (those loads then behave as constant impedance), pu.
+   */
+  unservedP: number;
+  unservedQ: number;
   /** Evaluations whose bus solve did not converge. */
   unconverged: number;
 }
@@ -72,6 +80,8 @@ export function createOutputs(n: number): Outputs {
     loadP: 0,
     loadQ: 0,
     feederLossP: 0,
+    unservedP: 0,
+    unservedQ: 0,
     unconverged: 0,
   };
 }
@@ -162,9 +172,11 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   const vr = bus.re;
   const vi = bus.im;
   const v2 = vr * vr + vi * vi;
-  const pScale = v2 >= 0.49 ? 1 : v2 / 0.49;
+  const pScale = v2 >= BREAK2 ? 1 : v2 / BREAK2;
   out.loadP = pZ * v2 + pP * pScale;
   out.loadQ = qZ * v2 + qP * pScale;
+  out.unservedP = pP * (1 - pScale);
+  out.unservedQ = qP * (1 - pScale);
 
   // Pass 2: currents, terminal voltages, powers; group sums for the sharing links.
   let isoKW = 0;

@@ -9,15 +9,17 @@
  * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
  */
 import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
+import { SET_DEFAULTS } from '../../../shared-types';
 import type { Plant } from '../../../shared-types';
 import { REGULATOR_RESET_S } from './regulator';
+import { fieldCeiling } from './excitation';
 
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
 
 /**
  * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no
  * field for it. 0.03 s sits inside the 0.01–0.05 s typical of sets of this size
- * (typical range, value from memory).
+ * (typical data of engine-set alternators; value from memory).
  */
 export const TDDO_S = 0.03;
 
@@ -29,7 +31,15 @@ export interface LoadSlot {
   qPU: number;
   impedance: boolean;
   frequencySensitivity: number;
+  /** Under-frequency shedding pickup, pu of rated frequency (0: never shed), and its delay, s. */
+  shedPU: number;
+  shedDelayS: number;
+  /** Time the bus frequency has been below `shedPU`, s. */
+  shedTimer: number;
 }
+
+/** Protection elements of a set, in the order checked (IEEE C37.2 device numbers). */
+export const PROTECTION_DEVICES = ['81U', '81O', '27', '59'] as const;
 
 /** The simulator's working model of a plant. */
 export interface SimModel {
@@ -45,7 +55,7 @@ export interface SimModel {
   ratedKVA: Float64Array;
   /** ratedKW / ratedKVA. */
   kwPU: Float64Array;
-  /** Qbase / ratedKVA = √(1 − ratedPF²) (the reactive-droop definition of the README). */
+  /** Qbase / ratedKVA = √(1 − ratedPF²): the kVAR at rated current and rated power factor, the reactive-droop base. */
   qBasePU: Float64Array;
   inertiaS: Float64Array;
   dampingPU: Float64Array;
@@ -85,6 +95,12 @@ export interface SimModel {
   reverseDelayS: Float64Array;
   /** Motoring power at zero fuel, pu of ratedKW (the plant's `motoringPct`). */
   motoringPU: Float64Array;
+  /**
+   * Protection pickups (pu of rated frequency or voltage; 0 = off) and delays (s), one row
+   * of `n` per element of `PROTECTION_DEVICES`: index `d * n + i`.
+   */
+  protPickupPU: Float64Array;
+  protDelayS: Float64Array;
 
   // Regulator
   regMode: Int8Array;
@@ -98,6 +114,13 @@ export interface SimModel {
   avrResetS: Float64Array;
   ceilingPU: Float64Array;
   shunt: Uint8Array;
+  /** V/Hz roll-off knee (pu speed) and slope (pu voltage per pu speed below it); slope 0 = off. */
+  vhzKneePU: Float64Array;
+  vhzSlopePU: Float64Array;
+  /** Over-excitation limit, pu field (0 = off), its delay (s), and whether it holds the field now. */
+  oelPU: Float64Array;
+  oelDelayS: Float64Array;
+  oelActive: Uint8Array;
 
   // Breaker and engine status
   online: Uint8Array;
@@ -136,7 +159,9 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(), reverseDelayS: f(), motoringPU: f(),
     regMode: new Int8Array(n), regDroop: f(), noLoadVPU: f(), setpointVPU: f(), tanPhi: f(),
     gainPU: f(), exciterS: f(), avrResetS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
+    vhzKneePU: f(), vhzSlopePU: f(), oelPU: f(), oelDelayS: f(), oelActive: new Uint8Array(n),
     online: new Uint8Array(n), shutdown: new Uint8Array(n),
+    protPickupPU: new Float64Array(4 * n), protDelayS: new Float64Array(4 * n),
     loads: [],
     raised: [],
   };
@@ -190,6 +215,13 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.reverseTripPU[i] = s.reversePowerTripPct / 100;
     m.reverseDelayS[i] = s.reversePowerDelayS;
     m.motoringPU[i] = s.motoringPct / 100;
+    const pr = { ...SET_DEFAULTS.protection, ...s.protection };
+    const pick = [pr.underFrequencyPct, pr.overFrequencyPct, pr.underVoltagePct, pr.overVoltagePct];
+    const del = [pr.underFrequencyDelayS, pr.overFrequencyDelayS, pr.underVoltageDelayS, pr.overVoltageDelayS];
+    for (let d = 0; d < 4; d++) {
+      m.protPickupPU[d * n + i] = pick[d]! / 100;
+      m.protDelayS[d * n + i] = del[d]!;
+    }
 
     m.regMode[i] = r.mode === 'reactive-droop' ? REG_DROOP : r.mode === 'cross-current' ? REG_CROSS : r.mode === 'voltage' ? REG_VOLTAGE : REG_PF;
     m.regDroop[i] = r.droopPct / 100;
@@ -199,7 +231,12 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.gainPU[i] = r.gainPU;
     m.exciterS[i] = lag(r.exciterLagS, `${s.id} regulator.exciterLagS`);
     m.avrResetS[i] = REGULATOR_RESET_S;
-    m.ceilingPU[i] = r.ceilingPU;
+    const fc = fieldCeiling(s);
+    m.ceilingPU[i] = fc.ceilingPU;
+    m.vhzKneePU[i] = 1 - (r.vhzKneeBelowHz ?? SET_DEFAULTS.vhzKneeBelowHz) / fr;
+    m.vhzSlopePU[i] = ((r.vhzSlopePctPerHz ?? SET_DEFAULTS.vhzSlopePctPerHz) / 100) * fr;
+    m.oelPU[i] = ((r.oelPct ?? SET_DEFAULTS.oelPct) / 100) * fc.ratedFieldPU;
+    m.oelDelayS[i] = r.oelDelayS ?? SET_DEFAULTS.oelDelayS;
     m.shunt[i] = r.shuntExcited ? 1 : 0;
     m.online[i] = s.online ? 1 : 0;
   });
@@ -211,6 +248,9 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
       qPU: l.kVAR / baseKVA,
       impedance: l.model === 'constant-impedance',
       frequencySensitivity: l.frequencySensitivity,
+      shedPU: (l.shedFrequencyPct ?? 0) / 100,
+      shedDelayS: l.shedDelayS ?? SET_DEFAULTS.shedDelayS,
+      shedTimer: 0,
     });
   }
   return m;

@@ -5,11 +5,11 @@
  * results recorded and decimated. Used by `simulate` for whole runs and by live views
  * (the operator trainer) a frame at a time.
  */
-import type { Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
+import type { CloseRecord, ProtectionTrip, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_DROOP } from './codes';
-import { buildSimModel } from './sim-model';
+import { PROTECTION_DEVICES, buildSimModel } from './sim-model';
 import type { SimModel } from './sim-model';
 import { createOutputs, evaluatePlant } from './plant-dynamics';
 import type { Outputs } from './plant-dynamics';
@@ -21,6 +21,9 @@ import type { EventTarget } from './events';
 import { Recorder } from './recorder';
 import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
+import { POWER_LOAD_BREAK_PU } from './network';
+import { steadyTarget } from './steady-target';
+import { fieldCeiling } from './excitation';
 
 /** Default integration step, ms. */
 export const DEFAULT_STEP_MS = 1;
@@ -68,9 +71,13 @@ class Run implements Simulation {
   private readonly recorder: Recorder;
   private readonly logs: SimulationLogEntry[] = [];
   private readonly warnings: string[] = [];
+  private readonly closes: CloseRecord[] = [];
   private readonly target: EventTarget;
   private readonly sample: SetSample;
   private readonly reverseTimer: Float64Array;
+  private readonly protTimer: Float64Array;
+  private readonly oelTimer: Float64Array;
+  private readonly trips: ProtectionTrip[] = [];
   private readonly currentScaleA: number;
   private disturbanceS: number | null = null;
   private initialF = 0;
@@ -82,6 +89,14 @@ class Run implements Simulation {
   private lastF = 0;
   private lastV = 0;
   private collapsed = false;
+  /** Low-voltage episode of constant-power loads: start time (null when none runs), its worst kW, totals. */
+  private lowVStartS: number | null = null;
+  private lowVKind: 'low' | 'dead' | null = null;
+  private lowVMaxKW = 0;
+  private lowVEpisodes = 0;
+  private unservedKWs = 0;
+  private maxUnservedKW = 0;
+  private lowVTotalS = 0;
 
   constructor(
     private readonly scenario: Scenario,
@@ -114,17 +129,25 @@ class Run implements Simulation {
     this.recorder = new Recorder(m.ids, totalSteps, scenario.outputPoints ?? DEFAULT_OUTPUT_POINTS);
     this.sample = { kW: new Float64Array(n), kVAR: new Float64Array(n), currentA: new Float64Array(n), speedHz: new Float64Array(n), terminalV: new Float64Array(n) };
     this.reverseTimer = new Float64Array(n);
+    this.protTimer = new Float64Array(PROTECTION_DEVICES.length * n);
+    this.oelTimer = new Float64Array(n);
     this.currentScaleA = (m.baseKVA * 1000) / (Math.sqrt(3) * m.ratedVoltageV);
     this.target = {
       m,
       y: this.y,
       out,
       log: (atS, text) => this.logs.push({ atS, text }),
+      warn: (text) => this.warnings.push(text),
+      closed: (record) => this.closes.push(record),
       later: (atS, run) => {
         this.pending.push({ atS, run });
         this.pending.sort((a, b) => a.atS - b.atS);
       },
     };
+    for (const s of plant.sets) {
+      const w = fieldCeiling(s).warning;
+      if (w) this.warnings.push(`${s.id}: ${w}`);
+    }
     if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
     this.rhs(0, this.y, this.rk.k1);
     this.initialF = this.frequencyHz();
@@ -178,7 +201,7 @@ class Run implements Simulation {
     if (!this.collapsed && this.out.anyOnline && f < 0.9 * this.m.ratedFrequencyHz) {
       this.collapsed = true;
       this.warnings.push(
-        `Frequency fell below 90 % of rated (${(0.9 * this.m.ratedFrequencyHz).toFixed(1)} Hz) at t = ${t.toFixed(2)} s: the sets on line cannot carry the load. A real plant would shed load or trip on underfrequency (device 81) here.`,
+        `Frequency fell below 90 % of rated (${(0.9 * this.m.ratedFrequencyHz).toFixed(1)} Hz) at t = ${t.toFixed(2)} s: the sets on line cannot carry the load.`,
       );
     }
     // A dead bus has no frequency: extremes are taken while some set is on line.
@@ -188,6 +211,7 @@ class Run implements Simulation {
       if (v < this.vMin) this.vMin = v;
       if (v > this.vMax) this.vMax = v;
     }
+    this.watchLowVoltage(t);
     this.recorder.trace(this.k, t, f, v, force);
     if (!this.recorder.wants(this.k, force)) return;
     const m = this.m;
@@ -204,32 +228,158 @@ class Run implements Simulation {
     this.recorder.record(this.k, t, f, v, s);
   }
 
-  /** Reverse-power relay (device 32) of each on-line set; true when one tripped. */
+  /**
+   * Load the bus does not serve, said in the run: constant-power loads turn into constant
+   * impedance below `POWER_LOAD_BREAK_PU` (the bus solve needs it), and a dead bus serves
+   * nothing (log lines, warning, energy).
+   */
+  private watchLowVoltage(t: number): void {
+    const dead = !this.out.anyOnline;
+    let kw = 0;
+    if (dead) {
+      for (const l of this.m.loads) if (l.on) kw += l.pPU;
+      kw *= this.m.baseKVA;
+    } else kw = this.out.unservedP * this.m.baseKVA;
+    const kind = kw > 1e-6 ? (dead ? 'dead' : 'low') : null;
+    if (kind !== this.lowVKind && this.lowVStartS !== null) this.endLowVoltage(t);
+    if (kind === null) return;
+    if (this.lowVStartS === null) {
+      this.lowVStartS = t;
+      this.lowVKind = kind;
+      this.lowVMaxKW = 0;
+      this.lowVEpisodes++;
+      this.logs.push({
+        atS: t,
+        text:
+          kind === 'dead'
+            ? `bus dead: ${kw.toFixed(0)} kW of load not served`
+            : `bus below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage: constant-power loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
+      });
+    }
+    if (kw > this.lowVMaxKW) this.lowVMaxKW = kw;
+    if (kw > this.maxUnservedKW) this.maxUnservedKW = kw;
+    this.unservedKWs += kw * this.stepS;
+    this.lowVTotalS += this.stepS;
+  }
+
+  private endLowVoltage(t: number): void {
+    if (this.lowVStartS === null) return;
+    const span = `up to ${this.lowVMaxKW.toFixed(0)} kW not served for ${(t - this.lowVStartS).toFixed(2)} s`;
+    this.logs.push({
+      atS: t,
+      text:
+        this.lowVKind === 'dead'
+          ? `bus live again (${span})`
+          : `bus no longer below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage with constant-power loads drawing as impedance (${span})`,
+    });
+    this.lowVStartS = null;
+    this.lowVKind = null;
+  }
+
+  /**
+   * Over-excitation limiter of each set: after the field has stayed above its limit for the
+   * delay, the regulator holds it at the limit for the rest of the run (a latching limiter;
+   * real limiters reset after a cool-down the model does not follow, and the run says so).
+   */
+  private limitExcitation(t: number): void {
+    const m = this.m;
+    for (let i = 0; i < m.n; i++) {
+      const lim = m.oelPU[i]!;
+      if (!(lim > 0) || m.shutdown[i]) continue;
+      const o = i * STATES_PER_SET;
+      if (m.oelActive[i]) continue;
+      if (this.y[o + EFD]! > lim) {
+        this.oelTimer[i] = this.oelTimer[i]! + this.stepS;
+        if (this.oelTimer[i]! >= m.oelDelayS[i]! - 1e-9) {
+          m.oelActive[i] = 1;
+          this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter acts: field held at ${lim.toFixed(2)} pu after ${m.oelDelayS[i]} s above it` });
+          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting (the limiter latches for the rest of the run).`);
+        }
+      } else this.oelTimer[i] = 0;
+    }
+  }
+
+  private trip(i: number, t: number, device: ProtectionTrip['device'], text: string): void {
+    const m = this.m;
+    m.online[i] = 0;
+    m.shutdown[i] = 1;
+    this.reverseTimer[i] = 0;
+    for (let d = 0; d < PROTECTION_DEVICES.length; d++) this.protTimer[d * m.n + i] = 0;
+    const line = `${m.ids[i]} tripped on ${text}`;
+    this.logs.push({ atS: t, text: line });
+    this.trips.push({ atS: t, id: m.ids[i]!, kind: 'set', device, text: line });
+  }
+
+  /**
+   * Protection of each on-line set (reverse power 32, frequency 81U/81O, voltage 27/59; a trip
+   * opens the breaker and stops the engine) and the loads' under-frequency shedding stages;
+   * true when anything operated.
+   */
   private protect(t: number): boolean {
     const m = this.m;
-    let tripped = false;
-    for (let i = 0; i < m.n; i++) {
-      const limit = m.reverseTripPU[i]! * m.kwPU[i]!;
-      if (!m.online[i] || limit <= 0) {
+    const n = m.n;
+    const h = this.stepS;
+    const fr = m.ratedFrequencyHz;
+    const vr = m.ratedVoltageV;
+    let operated = false;
+    for (let i = 0; i < n; i++) {
+      if (!m.online[i]) {
         this.reverseTimer[i] = 0;
+        for (let d = 0; d < 4; d++) this.protTimer[d * n + i] = 0;
         continue;
       }
-      if (this.out.pOwn[i]! < -limit) {
-        this.reverseTimer[i] = this.reverseTimer[i]! + this.stepS;
+      const limit = m.reverseTripPU[i]! * m.kwPU[i]!;
+      if (limit > 0 && this.out.pOwn[i]! < -limit) {
+        this.reverseTimer[i] = this.reverseTimer[i]! + h;
         if (this.reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
-          m.online[i] = 0;
-          m.shutdown[i] = 1;
-          this.reverseTimer[i] = 0;
-          tripped = true;
           const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
-          this.logs.push({
-            atS: t,
-            text: `${m.ids[i]} tripped on reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`,
-          });
+          this.trip(i, t, '32', `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`);
+          operated = true;
+          continue;
         }
       } else this.reverseTimer[i] = 0;
+      const f = this.y[i * STATES_PER_SET + OMEGA]!;
+      const v = this.out.vt[i]!;
+      for (let d = 0; d < 4; d++) {
+        const k = d * n + i;
+        const p = m.protPickupPU[k]!;
+        const x = d < 2 ? f : v;
+        const picked = p > 0 && (d % 2 === 0 ? x < p : x > p);
+        if (!picked) {
+          this.protTimer[k] = 0;
+          continue;
+        }
+        this.protTimer[k] = this.protTimer[k]! + h;
+        if (this.protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
+          const dev = PROTECTION_DEVICES[d]!;
+          const what = ['under-frequency', 'over-frequency', 'undervoltage', 'overvoltage'][d]!;
+          const pick = d < 2 ? `${(p * fr).toFixed(2)} Hz` : `${(p * vr).toFixed(0)} V`;
+          this.trip(i, t, dev, `${what} (device ${dev}): ${d % 2 === 0 ? 'below' : 'above'} ${pick} (${(p * 100).toFixed(1)} % of rated) for ${m.protDelayS[k]} s`);
+          operated = true;
+          break;
+        }
+      }
     }
-    return tripped;
+    this.limitExcitation(t);
+    // Under-frequency load shedding on the bus frequency.
+    if (this.out.anyOnline) {
+      const fb = this.out.omegaBus;
+      for (const l of m.loads) {
+        if (!l.on || l.shedPU <= 0) continue;
+        if (fb < l.shedPU) {
+          l.shedTimer += h;
+          if (l.shedTimer >= l.shedDelayS - 1e-9) {
+            l.on = false;
+            l.shedTimer = 0;
+            const line = `load ${l.id} shed on under-frequency (device 81U, load shedding): below ${(l.shedPU * fr).toFixed(2)} Hz for ${l.shedDelayS} s (${(l.pPU * m.baseKVA).toFixed(0)} kW)`;
+            this.logs.push({ atS: t, text: line });
+            this.trips.push({ atS: t, id: l.id, kind: 'load', device: '81U', text: line });
+            operated = true;
+          }
+        } else l.shedTimer = 0;
+      }
+    }
+    return operated;
   }
 
   private checkFinite(t: number): void {
@@ -334,6 +484,12 @@ class Run implements Simulation {
     const warnings = [...this.warnings];
     if (out.unconverged > 0) warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
     if (!out.anyOnline) warnings.push('No set is on line at the end of the run: the bus is dead.');
+    if (this.lowVEpisodes > 0) {
+      const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${this.lowVStartS.toFixed(2)} s).` : '';
+      warnings.push(
+        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage where constant-power loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
+      );
+    }
     const metrics = computeMetrics({
       ratedFrequencyHz: m.ratedFrequencyHz,
       ratedVoltageV: m.ratedVoltageV,
@@ -348,6 +504,11 @@ class Run implements Simulation {
       voltage: { t: rec.traceT.data, x: rec.traceV.data, length: rec.traceT.length },
       finalSets: m.ids.map((id, i) => ({ id, online: m.online[i] === 1, kW: out.pOwn[i]! * m.ratedKVA[i]!, kVAR: out.qOwn[i]! * m.ratedKVA[i]! })),
       droopPct,
+      unservedKWh: this.unservedKWs / 3600,
+      maxUnservedKW: this.maxUnservedKW,
+      closes: this.closes,
+      trips: this.trips,
+      target: steadyTarget(m, this.scenario.plant),
     });
     return { metrics, series: rec.series(), log: [...this.logs], warnings, steps: this.k };
   }

@@ -35,7 +35,7 @@ const PRESETS: readonly SyncPreset[] = [
     source: 'IEEE Std C50.12 (salient-pole) and IEEE Std C50.13 (cylindrical-rotor), synchronizing limits',
     note: `Angle ±10°, voltage 0 to +5 % (generator at or above the system), frequency ±0.067 Hz, from a secondary copy; the clause numbers were not confirmed. ${VERIFY}`,
     limits: { slipHz: 0.067, angleDeg: 10, voltagePct: 5, incomingHigher: true },
-    confidence: 'confirmed',
+    confidence: 'secondary',
   },
   {
     id: 'practice-generating-sets',

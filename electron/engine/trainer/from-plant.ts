@@ -1,6 +1,7 @@
 /** Builds the trainer's machine and bus from a plant: one set incoming, the other online sets as the bus. */
 import type { Plant, TrainerBus, TrainerMachine } from '../../../shared-types';
 import { InvalidInput } from '../errors';
+import { fieldCeiling } from '../simulation/excitation';
 
 /**
  * The incoming machine `setId` of `plant` and the running bus made of its other online sets
@@ -35,7 +36,7 @@ export function trainerMachineFromPlant(plant: Plant, setId: string): { machine:
       engineLagS: set.governor.engineLagS,
       regulatorGainPU: set.regulator.gainPU,
       exciterLagS: set.regulator.exciterLagS,
-      ceilingPU: set.regulator.ceilingPU,
+      ceilingPU: fieldCeiling(set).ceilingPU,
     },
     bus: { ratedKVA: busKVA, xPU: 1 / busAdmittance, inertiaS: busInertiaS },
   };

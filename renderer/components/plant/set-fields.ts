@@ -1,6 +1,6 @@
 /**
  * The rows of the set sheet, grouped as the trade thinks of a set: rating, limits,
- * governor, regulator, machine data, feeder. Each row names the field by its path inside
+ * governor, regulator, machine data, feeder, and the simulator's dynamics and protection. Each row names the field by its path inside
  * a set (the engine's issue path is `sets[i].` + this key) and shows its unit.
  */
 import { TYPICAL_RANGES } from '../../stores/plant-draft';
@@ -162,6 +162,43 @@ export const SET_GROUPS: readonly SheetGroup[] = [
     rows: [
       { key: 'feeder.rOhm', label: 'Resistance R', unit: 'Ω', kind: 'number', step: 0.0005 },
       { key: 'feeder.xOhm', label: 'Reactance X', unit: 'Ω', kind: 'number', step: 0.0005 },
+    ],
+  },
+  {
+    id: 'dynamics',
+    title: 'Advanced: dynamics',
+    note: 'used by the time-domain simulator; typical ranges are common practice for engine sets (values from memory) — verify with the makers’ data and the protection study',
+    rows: [
+      { key: 'governor.actuatorLagS', label: 'Governor actuator lag', unit: 's', kind: 'number', step: 0.01, typical: '0.02–0.1' },
+      { key: 'governor.engineLagS', label: 'Engine torque lag', unit: 's', kind: 'number', step: 0.05, typical: '0.1–0.5' },
+      { key: 'governor.isoResetS', label: 'Isochronous reset time', unit: 's', kind: 'number', step: 0.5, typical: '1–5', unusedWhen: govUnused('isochronous', 'isochronous') },
+      { key: 'regulator.gainPU', label: 'Regulator gain', unit: 'pu/pu', kind: 'number', step: 5, typical: '20–400' },
+      { key: 'regulator.exciterLagS', label: 'Exciter lag', unit: 's', kind: 'number', step: 0.01, typical: '0.02–0.2' },
+      {
+        key: 'regulator.ceilingPU',
+        label: 'Field ceiling (empty: derived)',
+        unit: 'pu',
+        kind: 'number',
+        step: 0.1,
+        typical: '1.5–2 × rated-load field',
+        hint: 'Leave empty to use 1.6 × the field at rated load and rated power factor, worked out from X d and X\'d',
+      },
+      { key: 'regulator.shuntExcited', label: 'Excitation supply', unit: '', kind: 'check', words: ['shunt (self)', 'separate'], hint: 'Shunt: the field ceiling follows the terminal voltage' },
+      { key: 'regulator.residualPU', label: 'Residual voltage', unit: 'pu', kind: 'number', step: 0.01, typical: '0.01–0.05' },
+      { key: 'regulator.vhzKneeBelowHz', label: 'V/Hz roll-off knee below rated', unit: 'Hz', kind: 'number', step: 0.5, typical: '1–2' },
+      { key: 'regulator.vhzSlopePctPerHz', label: 'V/Hz roll-off slope (0: off)', unit: '% V/Hz', kind: 'number', step: 0.5, typical: 'a few % per Hz' },
+      { key: 'regulator.oelPct', label: 'Over-excitation limit (0: off)', unit: '% field', kind: 'number', step: 5, typical: '105–120', hint: '% of the field at rated load' },
+      { key: 'regulator.oelDelayS', label: 'Over-excitation delay', unit: 's', kind: 'number', step: 1, typical: '5–20' },
+      { key: 'machine.dampingPU', label: 'Damping D', unit: 'pu', kind: 'number', step: 0.5, typical: '0–5' },
+      { key: 'machine.raPU', label: 'Armature resistance Ra', unit: 'pu', kind: 'number', step: 0.005, typical: '0.005–0.02' },
+      { key: 'protection.underFrequencyPct', label: 'Under-frequency 81U pickup (0: off)', unit: '% f', kind: 'number', step: 0.5, typical: '90–96' },
+      { key: 'protection.underFrequencyDelayS', label: 'Under-frequency 81U delay', unit: 's', kind: 'number', step: 0.5, typical: '2–10' },
+      { key: 'protection.overFrequencyPct', label: 'Over-frequency 81O pickup (0: off)', unit: '% f', kind: 'number', step: 0.5, typical: '104–110' },
+      { key: 'protection.overFrequencyDelayS', label: 'Over-frequency 81O delay', unit: 's', kind: 'number', step: 0.5, typical: '2–10' },
+      { key: 'protection.underVoltagePct', label: 'Undervoltage 27 pickup (0: off)', unit: '% V', kind: 'number', step: 1, typical: '75–90' },
+      { key: 'protection.underVoltageDelayS', label: 'Undervoltage 27 delay', unit: 's', kind: 'number', step: 0.5, typical: '2–10' },
+      { key: 'protection.overVoltagePct', label: 'Overvoltage 59 pickup (0: off)', unit: '% V', kind: 'number', step: 1, typical: '110–120' },
+      { key: 'protection.overVoltageDelayS', label: 'Overvoltage 59 delay', unit: 's', kind: 'number', step: 0.5, typical: '1–5' },
     ],
   },
 ];

@@ -24,6 +24,12 @@ export const METRIC_ROWS: readonly MetricRow[] = [
   { key: 'vRecS', label: 'Voltage recovery time (s)', decimals: 2, read: (m) => m.voltageRecoveryS },
   { key: 'finalHz', label: 'Final frequency (Hz)', decimals: 3, read: (m) => m.final.frequencyHz },
   { key: 'finalV', label: 'Final voltage (V)', decimals: 1, read: (m) => m.final.voltageV },
+  { key: 'targetHz', label: 'Steady state of the final load (Hz)', decimals: 3, read: (m) => m.steadyState?.frequencyHz ?? null },
+  { key: 'targetV', label: 'Steady state of the final load (V)', decimals: 1, read: (m) => m.steadyState?.voltageV ?? null },
+  { key: 'unservedKWh', label: 'Load not served at low voltage (kWh)', decimals: 3, read: (m) => m.unservedKWh ?? 0 },
+  { key: 'trips', label: 'Protection operations (set trips, loads shed)', decimals: 0, read: (m) => (m.trips ?? []).length },
+  { key: 'badCloses', label: 'Closes outside the sync-check window', decimals: 0, read: (m) => (m.closes ?? []).filter((c) => !c.insideWindow).length },
+  { key: 'unservedKW', label: 'Largest load not served at low voltage (kW)', decimals: 0, read: (m) => m.maxUnservedKW ?? 0 },
 ];
 
 /** A number for a table cell: fixed decimals, never NaN ("—" for blanks); the shared format. */
@@ -38,7 +44,7 @@ export function verdict(pass: boolean | null): { icon: string; word: string; kin
 /** CSV rows of a class table: quantity, unit, measured, then limit and verdict per class, then the source. */
 export function classCsv(checks: readonly ClassCheck[]): { columns: string[]; rows: (string | number | null)[][] } {
   return {
-    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source'],
-    rows: checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdict(c.pass[k]).word]), c.source]),
+    columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source', 'Note'],
+    rows: checks.map((c) => [c.quantity, c.unit, c.measured, ...CLASSES.flatMap((k) => [c.limits[k], verdict(c.pass[k]).word]), c.source, c.note ?? '']),
   };
 }

@@ -22,7 +22,8 @@ function scenario(residualPU: number, ceilingPU: number): Scenario {
 describe('shunt-excited build-up from residual magnetism', () => {
   it('builds up to the voltage setpoint with residual voltage', () => {
     const sim = createSimulation(scenario(0.03, 3));
-    expectClose(sim.snapshot().sets[1]!.terminalV, 0, { abs: 1e-9 }, 'terminal voltage at start, V');
+    // At t = 0 the open-circuit voltage is the residual voltage: 0.03 pu × 400 V = 12 V.
+    expectClose(sim.snapshot().sets[1]!.terminalV, 0.03 * 400, { abs: 1e-9 }, 'terminal voltage at start, V (residual)');
     sim.advance(0.5);
     expect(sim.snapshot().sets[1]!.terminalV).toBeGreaterThan(0.03 * 400 * 0.3);
     sim.advance(11.5);

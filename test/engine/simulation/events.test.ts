@@ -78,6 +78,18 @@ describe('simulation events', () => {
     expect(r.log.map((l) => l.text).join('\n')).toMatch(/motor up to speed/);
   });
 
+  it('a motor start without a running load leaves kVA / 6 at 0.85 PF running (common practice, stated in the log)', () => {
+    const plant = twoSets();
+    const r = simulate({ plant, durationS: 10, stepMs: 2, events: [{ atS: 1, type: 'motor-start', kVA: 1200, pf: 0.3, durationS: 2 }] });
+    // Running kVA = 1200 / 6 = 200 kVA: 170 kW and 200 · √(1 − 0.85²) = 105.4 kVAR.
+    const kW = 170;
+    const kVAR = 200 * Math.sqrt(1 - 0.85 * 0.85);
+    expect(r.log.map((l) => l.text).join('\n')).toMatch(/running load 170 kW, 105 kVAR \(not given: locked-rotor 1200 kVA \/ 6 at 0.85 power factor\)/);
+    const ss = solveSharing({ ...plant, loads: [...plant.loads, { id: 'M', name: 'M', online: true, kW, kVAR, model: 'constant-power' as const, frequencySensitivity: 0 }] });
+    expectClose(r.metrics.final.frequencyHz, ss.bus.frequencyHz, { abs: 0.002 }, 'final frequency with the running motor, Hz');
+    expectClose(r.metrics.steadyState!.frequencyHz, ss.bus.frequencyHz, { abs: 1e-6 }, 'run target = closed form with the running motor, Hz');
+  });
+
   it('switches a plant load off by id and back on', () => {
     const plant = demoPlant();
     const r = simulate({ plant, durationS: 14, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', loadId: 'L1', online: false }] });

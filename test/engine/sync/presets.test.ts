@@ -2,8 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { ieee1547PresetForRating, listSyncPresets, syncPreset } from '../../../electron/engine';
 
 describe('listSyncPresets', () => {
-  // IEEE Std 1547-2018 clause 4.10, Table 5 — values from memory (a secondary copy
-  // agrees for the first two bands). The presets must say so.
+  // IEEE Std 1547-2018 clause 4.10, Table 5 — values from memory (a secondary copy agrees for the first two
+  // bands). The presets must say so.
   it.each([
     ['ieee1547-2018-0-500', 0.3, 10, 20],
     ['ieee1547-2018-500-1500', 0.2, 5, 15],
@@ -17,14 +17,17 @@ describe('listSyncPresets', () => {
     expect(p.confidence).toBe('memory');
   });
 
-  it('holds IEEE C50.12 / C50.13: ±10°, 0 to +5 %, ±0.067 Hz (from a secondary copy of the standards; clause numbers not confirmed)', () => {
+  it('holds IEEE C50.12 / C50.13: ±10°, 0 to +5 %, ±0.067 Hz (IEEE Std C50.12 / C50.13, seen in a secondary copy; clause unconfirmed)', () => {
     const p = syncPreset('ieee-c50.12-c50.13');
+    // The label matches the note: a secondary copy, clauses not confirmed.
+    expect(p.confidence).toBe('secondary');
+    expect(p.note).toMatch(/secondary copy; the clause numbers were not confirmed/);
     expect(p.limits).toEqual({ slipHz: 0.067, angleDeg: 10, voltagePct: 5, incomingHigher: true });
     expect(p.source).toMatch(/C50\.12.*C50\.13/);
     expect(p.note).toContain('Verify against the standard you hold');
   });
 
-  it('marks the generating-set presets as common practice, inside the usual ranges (common practice, no standard behind it)', () => {
+  it('marks the generating-set presets as common practice, inside the usual ranges (common practice between generating sets)', () => {
     const practice = listSyncPresets().filter((p) => p.confidence === 'practice');
     expect(practice.length).toBeGreaterThanOrEqual(1);
     for (const p of practice) {
