@@ -207,11 +207,14 @@ export interface TrainerVerdict {
   peakCurrentA: number;
   torqueStepPU: number;
   torqueStepKNm: number;
+  /** First-cycle peak air-gap torque with the stator's DC offset (see `ClosingSurge.peakTorquePU`), pu and kN·m. */
+  peakTorquePU: number;
+  peakTorqueKNm: number;
   /**
-   * Machine limits: surge and torque step of a close at the edge of the machine standard's window, and the
-   * peak current and power of the same model's swing after such a close.
+   * Machine limits: surge, torque step and first-cycle peak torque of a close at the edge of the machine
+   * standard's window, and the peak current and power of the same model's swing after such a close.
    */
-  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; peakCurrentPU: number; peakPowerPU: number; source: string };
+  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; peakTorquePU: number; peakCurrentPU: number; peakPowerPU: number; source: string };
   checks: TrainerCheck[];
   insideWindow: boolean;
   withinMachineLimits: boolean;

@@ -66,7 +66,8 @@ function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
           ["surge current I'' (symmetrical)", fmt(s.surgeCurrentPU, 3), `${fmt(s.surgeCurrentA, 0)} A`],
           [`peak current (κ ${fmt(s.peakFactor, 3)}, R/X ${fmt(s.rOverX, 3)})`, fmt(s.peakCurrentPU, 3), `${fmt(s.peakCurrentA, 0)} A`],
           ['synchronizing power step', signed(s.powerStepPU, 3), `${signed(s.powerStepKW, 0)} kW`],
-          ['torque step on the incoming shaft', signed(s.torqueStepPU, 3), `${signed(s.torqueStepKNm, 2)} kN·m`],
+          ['torque step on the incoming shaft (E1 E2 / X) sin θ', signed(s.torqueStepPU, 3), `${signed(s.torqueStepKNm, 2)} kN·m`],
+          ['peak air-gap torque, first cycle, with DC offset', signed(s.peakTorquePU, 3), `${signed(s.peakTorqueKNm, 2)} kN·m`],
         ],
       ),
   );

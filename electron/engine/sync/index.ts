@@ -3,7 +3,7 @@ export { evaluateSync } from './evaluate-sync';
 export { listSyncPresets, syncPreset, ieee1547PresetForRating } from './presets';
 export { syncCheck, sideState, DEFAULT_DEAD_PERMISSIVES } from './permissives';
 export type { SyncCheckInput, SyncCheckOutcome, SideState } from './permissives';
-export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, iecPeakFactor, noSurge } from './closing-surge';
+export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, peakTorquePU, peakTorqueFactor, iecPeakFactor, noSurge } from './closing-surge';
 export type { SurgeCircuit } from './closing-surge';
 export { busEquivalent, incomingBranch, fictitiousROverX } from './bus-equivalent';
 export type { ImpedancePU } from './bus-equivalent';

@@ -18,7 +18,7 @@ export interface PhasorDifference {
 
 /**
  * Phasor difference `V2∠θ − V1∠0` between the incoming voltage `v2` leading the bus voltage `v1` by `thetaDeg`.
- * Magnitude `√(V1² + V2² − 2 V1 V2 cos θ)` (law of cosines; DESIGN.md "Sync-check case").
+ * Magnitude `√(V1² + V2² − 2 V1 V2 cos θ)` (law of cosines on the two phasors).
  * Any consistent unit (V or pu); returns the magnitude in that unit.
  */
 export function phasorDifference(v1: number, v2: number, thetaDeg: number): PhasorDifference {

@@ -1,7 +1,7 @@
 /**
  * Sync-check limit presets from published standards and the trade's common practice. Every preset names its
  * standard and clause; values recalled but not confirmed against the standard's own table say so
- * ("verify against the standard you hold"). See REFERENCES.md §1.
+ * ("verify against the standard you hold").
  */
 import type { SyncLimits, SyncPreset } from '../../../shared-types';
 import { InvalidInput } from '../errors';

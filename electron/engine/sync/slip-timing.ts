@@ -1,6 +1,6 @@
 /**
  * Slip timing: slip period, advance angle, how long the ±window stays open, when it next opens and closes,
- * and when to issue the close command so the contacts touch at 0°. DESIGN.md "Sync-check case".
+ * and when to issue the close command so the contacts touch at 0°.
  *
  * The incoming set's phase angle relative to the bus moves at `360 s` degrees per second, `s = f_in − f_bus`.
  */

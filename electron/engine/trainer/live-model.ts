@@ -135,7 +135,7 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
       angleDeg: angle,
       slipHz: s.incomingFrequencyHz - fBus,
       voltageDifferencePct: 100 * (ratio - 1),
-      // Phasor difference (DESIGN.md): |ΔV| = sqrt(V1² + V2² − 2 V1 V2 cos θ), here in pu of the bus.
+      // Phasor difference (law of cosines): |ΔV| = sqrt(V1² + V2² − 2 V1 V2 cos θ), here in pu of the bus.
       deltaVPU: Math.sqrt(1 + ratio * ratio - 2 * ratio * Math.cos(rad)),
       commandAngleDeg: s.closeCommandAngleDeg ?? angle,
     };
