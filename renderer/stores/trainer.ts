@@ -10,6 +10,7 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
+import { angleAfterDeg } from '../../shared-types';
 import type { SyncLimits, TrainerAttempt, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
 import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
@@ -17,12 +18,6 @@ import { usePlantStore } from './plant';
 /** Longest wall time one step may cover, s (the engine refuses more than 0.25 s). */
 const MAX_STEP_S = 0.2;
 
-const wrap = (a: number): number => {
-  let x = a % 360;
-  if (x > 180) x -= 360;
-  if (x <= -180) x += 360;
-  return x;
-};
 
 /** Keyboard bindings: key → control (shown on the buttons too). */
 export const TRAINER_KEYS = {
@@ -199,7 +194,7 @@ export const useTrainerStore = defineStore('trainer', () => {
     if (!s) return 0;
     if (s.phase === 'closed') return s.contact?.angleDeg ?? s.angleDeg;
     const ahead = Math.min(MAX_STEP_S, Math.max(0, (nowMs - stateAtMs.value) / 1000));
-    return wrap(s.angleDeg + 360 * (s.incomingFrequencyHz - s.busFrequencyHz) * ahead);
+    return angleAfterDeg(s.angleDeg, s.incomingFrequencyHz - s.busFrequencyHz, ahead);
   }
 
   function clearLog(): void {

@@ -28,7 +28,7 @@ describe('evaluateSync handler', () => {
     const r = await dispatch('evaluateSync', caseFile());
     expect(r.ok).toBe(true);
     const v = (r as { value: SyncResult }).value;
-    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms (REFERENCES.md §3)');
+    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms: 360 × 0.1 × 0.1 = 3.6° (closed form)');
     expect(v.permissive).toBe(true);
   });
 
@@ -78,7 +78,24 @@ describe('evaluateSync handler', () => {
     ['a negative frequency', (c: Record<string, unknown>) => ((c.bus as Record<string, unknown>).frequencyHz = -50), 'bus.frequencyHz: must be 0 or more'],
     ['text for a number', (c: Record<string, unknown>) => (c.breakerClosingMs = '100'), 'breakerClosingMs: must be a number (ms)'],
     ['odd poles', (c: Record<string, unknown>) => ((c.incoming as Record<string, unknown>).poles = 3), 'incoming.poles: must be even'],
-    ['dead threshold above live', (c: Record<string, unknown>) => (c.dead = { livePct: 50, deadPct: 60 }), 'dead.deadPct: must be below livePct'],
+    ['dead threshold above live', (c: Record<string, unknown>) => (c.dead = { livePct: 50, deadPct: 60 }), 'dead.deadPct: must be below the live threshold'],
+    ['a negative slip limit', (c: Record<string, unknown>) => (c.limits = { slipHz: -0.2, angleDeg: 10, voltagePct: 5 }), 'limits.slipHz: must be greater than 0'],
+    ['an angle limit of 200°', (c: Record<string, unknown>) => (c.limits = { slipHz: 0.2, angleDeg: 200, voltagePct: 5 }), 'limits.angleDeg: must be 180° or less'],
+    ['a negative breaker time', (c: Record<string, unknown>) => (c.breakerClosingMs = -50), 'breakerClosingMs: must be greater than 0'],
+    ['a breaker time of 0 ms', (c: Record<string, unknown>) => (c.breakerClosingMs = 0), 'breakerClosingMs: must be greater than 0'],
+    [
+      'a 500 Hz incoming set (no rated frequency given)',
+      (c: Record<string, unknown>) => ((c.incoming as Record<string, unknown>).frequencyHz = 500),
+      'incoming.frequencyHz: must be within 15 % of 50 or 60 Hz (42.5–69 Hz), or 0 for a dead side',
+    ],
+    [
+      'a 60 Hz bus on a 50 Hz rating',
+      (c: Record<string, unknown>) => {
+        c.ratedFrequencyHz = 50;
+        (c.bus as Record<string, unknown>).frequencyHz = 60;
+      },
+      'bus.frequencyHz: must be within 15 % of the rated 50 Hz (42.5–57.5 Hz), or 0 for a dead side',
+    ],
     ['a wrong format tag', (c: Record<string, unknown>) => (c.format = 'droopline.plant'), 'format: must be "droopline.sync"'],
     ['an unknown field', (c: Record<string, unknown>) => (c.slipHz = 0.1), '(root): unknown field(s): slipHz'],
     ['a set id without a plant', (c: Record<string, unknown>) => (c.incomingSetId = 'G1'), 'plant: is required when incomingSetId is given'],

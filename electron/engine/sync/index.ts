@@ -13,7 +13,7 @@ export type { ClosingMapJob } from './closing-map';
 export { syncBasis } from './sync-basis';
 export type { SyncBasis } from './sync-basis';
 export { incomingFromSet, defaultPlantBus } from './plant-case';
-export { phasorDifference, deltaVMagnitude, wrapAngleDeg } from './phasor';
+export { phasorDifference, deltaVMagnitude, wrapAngleDeg, angleAfterDeg } from './phasor';
 export type { PhasorDifference } from './phasor';
 export {
   slipPeriodS,

@@ -1,12 +1,7 @@
 /** Phase-angle arithmetic and the voltage phasor across an open breaker. */
 
-/** Wraps an angle to (−180°, 180°]. */
-export function wrapAngleDeg(angleDeg: number): number {
-  let a = angleDeg % 360;
-  if (a > 180) a -= 360;
-  else if (a <= -180) a += 360;
-  return a;
-}
+// The angle wrap has one home, shared with the renderer (shared-types/angle.ts); the engine re-exports it here.
+export { wrapAngleDeg, angleAfterDeg } from '../../../shared-types/angle';
 
 /** The voltage difference across the open breaker as a phasor. */
 export interface PhasorDifference {
