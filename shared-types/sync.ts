@@ -55,6 +55,11 @@ export interface SyncCase {
    * `incoming.angleDeg` (default 0). A dead bus has voltage near 0.
    */
   bus: { frequencyHz: number; voltageV: number; angleDeg?: number };
+  /**
+   * Where the bus figures came from, in words ("given in the case", or the plant's solved operating point with the
+   * incoming set off line). Filled by the case reader; not read from a file.
+   */
+  busFrom?: string;
   incoming: {
     frequencyHz: number;
     voltageV: number;
@@ -193,6 +198,8 @@ export interface SyncResult {
   /** The limits used and where they came from. */
   limits: SyncLimits;
   limitsSource: string;
+  /** The bus the verdict was evaluated against, and where it came from (`SyncCase.busFrom`). */
+  bus: { frequencyHz: number; voltageV: number; from: string };
   /** Bus equivalent used for the surge. */
   busEquivalent: BusEquivalent;
   /** Bases: voltage (V, line-to-line), incoming rated current (A), torque base (kN·m), rated frequency (Hz). */

@@ -6,6 +6,8 @@ import type { SyncLimits } from './sync';
 export interface TrainerAttempt {
   /** ISO 8601 time of the close. */
   at: string;
+  /** Who made the attempt, as typed in the Trainer (absent when no name was given). */
+  trainee?: string;
   /** Exercise seed (repeatable start). */
   seed: number;
   level: string;

@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { Cancelled, closingMapJobFor, defaultPlantBus, evaluateSync, incomingFromSet, listSyncPresets } from '../engine';
+import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
@@ -80,7 +80,8 @@ export function plausibleFrequencyRangeHz(ratedHz: number | undefined): [number,
 /**
  * Schema of a sync-check case (`droopline.sync`, version 1). Either `bus` + `incoming` with `ratedKVA` and
  * `xddpPU`, or a `plant` and `incomingSetId` (the set's machine data fill what `incoming` leaves out; the bus
- * defaults to the plant's rated frequency and voltage, or dead when no other set is online). Limits come from
+ * defaults to the plant's solved operating point with the incoming set off line, or dead when no other set is
+ * online; `busFrom` says which). Limits come from
  * `limits`, or from the preset `presetId` when `limits` is absent.
  */
 export const syncCaseSchema: z.ZodType<SyncCase> = z
@@ -138,11 +139,14 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
   .transform((c): SyncCase => {
     const { bus, incoming, limits, plant, incomingSetId, ...rest } = c;
     const fromSet = plant && incomingSetId ? incomingFromSet(plant, incomingSetId) : undefined;
+    // No bus in the file: the plant's own operating point with the incoming set off line (said in the result).
+    const solved = bus ? null : plantBus(plant!, incomingSetId!);
     return {
       ...rest,
       ...(plant ? { plant } : {}),
       ...(incomingSetId !== undefined ? { incomingSetId } : {}),
-      bus: bus ?? defaultPlantBus(plant!, incomingSetId!),
+      bus: bus ?? solved!.bus,
+      busFrom: solved ? solved.note : 'given in the case',
       incoming: {
         ...incoming,
         ratedKVA: incoming.ratedKVA ?? fromSet!.ratedKVA,

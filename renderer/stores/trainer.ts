@@ -34,6 +34,8 @@ export const useTrainerStore = defineStore('trainer', () => {
   const levels = shallowRef<TrainerLevel[]>([]);
   const levelId = ref('steady');
   const seed = ref(1);
+  /** The trainee's name, written on each attempt of the log. */
+  const trainee = ref('');
   /** Plant set used as the incoming machine (null: the standard 500 kVA set). */
   const incomingSetId = ref<string | null>(null);
   const state = shallowRef<TrainerState | null>(null);
@@ -70,6 +72,12 @@ export const useTrainerStore = defineStore('trainer', () => {
     } catch (e) {
       error.value = messageOf(e);
     }
+  }
+
+  /** Changes the level and restarts the exercise at once on the same seed, so the limits shown are the level's. */
+  async function chooseLevel(id: string): Promise<void> {
+    levelId.value = id;
+    await start(seed.value);
   }
 
   /** Starts an exercise (a new random seed unless one is given). */
@@ -169,7 +177,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     const p = plantStore.plant;
     const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}) });
     verdict.value = v;
-    attempts.value = [{ at: new Date().toISOString(), ...v.attempt }, ...attempts.value];
+    const name = trainee.value.trim();
+    attempts.value = [{ at: new Date().toISOString(), ...(name ? { trainee: name } : {}), ...v.attempt }, ...attempts.value];
   }
 
   /** Called every animation frame: starts a step when none is in flight. */
@@ -215,6 +224,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     levels,
     levelId,
     seed,
+    trainee,
+    chooseLevel,
     incomingSetId,
     state,
     stateAtMs,

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { dispatch } from '../../electron/handlers';
-import type { ClosingMap, SyncResult } from '../../shared-types';
+import type { ClosingMap, Plant, SyncResult } from '../../shared-types';
+import { solveSharing } from '../../electron/engine';
 import { demoPlantJson } from '../helpers/plants';
 import { expectClose } from '../helpers/expect-close';
 
@@ -42,8 +43,11 @@ describe('evaluateSync handler', () => {
     });
     expect(r.ok).toBe(true);
     const v = (r as { value: SyncResult }).value;
-    // Bus defaults to the plant's rated 50 Hz / 400 V; G3 is 500 kVA, 4 poles (demo plant).
-    expectClose(v.slipHz, 0.08, { abs: 1e-9 });
+    // The bus is the plant's own steady state with G3 off line (solveSharing of the same plant); G3 is 500 kVA, 4 poles (demo plant).
+    const plant = demoPlantJson() as unknown as Plant;
+    const bus = solveSharing({ ...plant, sets: plant.sets.map((s) => (s.id === 'G3' ? { ...s, online: false } : s)) }).bus;
+    expect(v.bus).toEqual({ frequencyHz: bus.frequencyHz, voltageV: bus.voltageV, from: expect.stringContaining('G3 off line') });
+    expectClose(v.slipHz, 50.08 - bus.frequencyHz, { abs: 1e-9 });
     expectClose(v.base.currentA, 500000 / (Math.sqrt(3) * 400), { rel: 1e-12 });
     expect(v.base.ratedSpeedRpm).toBe(1500);
     expect(v.busEquivalent.setIds).toEqual(['G1', 'G2']);

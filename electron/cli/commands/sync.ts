@@ -38,6 +38,7 @@ function printPresets(io: CliIO, presets: { id: string; label: string; source: s
 function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
   const L = r.limits;
   io.out(`${name ? `${name}\n` : ''}Sync-check: ${r.permissive ? 'CLOSE PERMITTED' : 'CLOSE NOT PERMITTED'}${r.deadBusClose ? ' (dead-bus close)' : r.deadLineClose ? ' (dead-line close)' : ''}\n`);
+  io.out(`Bus used: ${fmt(r.bus.frequencyHz, 3)} Hz, ${fmt(r.bus.voltageV, 1)} V — ${r.bus.from}.\n`);
   io.out(`Limits: slip ±${L.slipHz} Hz, angle ±${L.angleDeg}°, voltage ±${L.voltagePct} %${L.incomingFaster ? ', incoming faster' : ''}${L.incomingHigher ? ', incoming higher' : ''} — ${r.limitsSource}\n\n`);
   io.out(
     formatTable(

@@ -12,7 +12,7 @@ export { timeDomainClosingMapJob, TIME_DOMAIN_MAX_CELLS, TIME_DOMAIN_STEP_MS } f
 export type { ClosingMapJob } from './closing-map';
 export { syncBasis } from './sync-basis';
 export type { SyncBasis } from './sync-basis';
-export { incomingFromSet, defaultPlantBus } from './plant-case';
+export { incomingFromSet, plantBus } from './plant-case';
 export { phasorDifference, deltaVMagnitude, wrapAngleDeg, angleAfterDeg } from './phasor';
 export type { PhasorDifference } from './phasor';
 export {
