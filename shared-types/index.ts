@@ -4,6 +4,7 @@ export * from './errors';
 export type * from './describe';
 export type * from './sharing';
 export * from './sync';
+export * from './angle';
 export * from './simulation';
 export type * from './progress';
 export * from './engine-api';

@@ -58,6 +58,11 @@ export interface SyncCase {
    * `incoming.angleDeg` (default 0). A dead bus has voltage near 0.
    */
   bus: { frequencyHz: number; voltageV: number; angleDeg?: number };
+  /**
+   * Where the bus figures came from, in words ("given in the case", or the plant's solved operating point with the
+   * incoming set off line). Filled by the case reader; not read from a file.
+   */
+  busFrom?: string;
   incoming: {
     frequencyHz: number;
     voltageV: number;
@@ -143,6 +148,13 @@ export interface ClosingSurge {
   /** Electrical torque step on the incoming shaft, pu of its torque base (rated kVA at rated speed); positive brakes it. */
   torqueStepPU: number;
   torqueStepKNm: number;
+  /**
+   * First-cycle peak of the air-gap torque with the stator's DC offset (R neglected),
+   * (E1 E2 / X)(sin θ + 2 sin(θ/2)) / speed, pu of the torque base; same sign as the step. Twice the step at small
+   * angles, three times at 120°, 2 E1 E2 / X at 180° where the step is zero.
+   */
+  peakTorquePU: number;
+  peakTorqueKNm: number;
 }
 
 /** Sync-check verdict for a case. */
@@ -189,11 +201,22 @@ export interface SyncResult {
   /** The limits used and where they came from. */
   limits: SyncLimits;
   limitsSource: string;
+  /** The bus the verdict was evaluated against, and where it came from (`SyncCase.busFrom`). */
+  bus: { frequencyHz: number; voltageV: number; from: string };
   /** Bus equivalent used for the surge. */
   busEquivalent: BusEquivalent;
   /** Bases: voltage (V, line-to-line), incoming rated current (A), torque base (kN·m), rated frequency (Hz). */
   base: { voltageV: number; currentA: number; torqueKNm: number; ratedFrequencyHz: number; ratedSpeedRpm: number };
 }
+
+/**
+ * The closing map's angle axis in words, one wording for the view, the report and the CLI: the phase angle when
+ * the close command is given (contact lands one breaker time later) or at contact.
+ */
+export const CLOSING_MAP_ANGLE_AXIS_LABEL = {
+  command: 'phase angle at the close command',
+  contact: 'phase angle at contact',
+} as const satisfies Record<'command' | 'contact', string>;
 
 /** Request of `closingMap`. */
 export interface ClosingMapRequest {
@@ -221,6 +244,8 @@ export interface ClosingMap {
   /** Peak asymmetrical current κ √2 I'', pu of the incoming set's rated current. */
   peakCurrentPU: number[];
   torqueStepPU: number[];
+  /** First-cycle peak air-gap torque (closed form, with the DC offset), pu of the torque base, signed. */
+  peakTorquePU: number[];
   /** The sync-check window: ±angleDeg × ±slipHz (half-widths), with its actual edges (one-sided when the incoming must run faster). */
   window: { angleDeg: number; slipHz: number; slipMinHz: number; slipMaxHz: number };
   method: 'closed-form' | 'time-domain';

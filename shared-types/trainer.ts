@@ -6,6 +6,8 @@ import type { SyncLimits } from './sync';
 export interface TrainerAttempt {
   /** ISO 8601 time of the close. */
   at: string;
+  /** Who made the attempt, as typed in the Trainer (absent when no name was given). */
+  trainee?: string;
   /** Exercise seed (repeatable start). */
   seed: number;
   level: string;
@@ -207,11 +209,14 @@ export interface TrainerVerdict {
   peakCurrentA: number;
   torqueStepPU: number;
   torqueStepKNm: number;
+  /** First-cycle peak air-gap torque with the stator's DC offset (see `ClosingSurge.peakTorquePU`), pu and kN·m. */
+  peakTorquePU: number;
+  peakTorqueKNm: number;
   /**
-   * Machine limits: surge and torque step of a close at the edge of the machine standard's window, and the
-   * peak current and power of the same model's swing after such a close.
+   * Machine limits: surge, torque step and first-cycle peak torque of a close at the edge of the machine
+   * standard's window, and the peak current and power of the same model's swing after such a close.
    */
-  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; peakCurrentPU: number; peakPowerPU: number; source: string };
+  machineLimits: { surgeCurrentPU: number; torqueStepPU: number; peakTorquePU: number; peakCurrentPU: number; peakPowerPU: number; source: string };
   checks: TrainerCheck[];
   insideWindow: boolean;
   withinMachineLimits: boolean;

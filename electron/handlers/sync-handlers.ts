@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { Cancelled, closingMapJobFor, defaultPlantBus, evaluateSync, incomingFromSet, listSyncPresets } from '../engine';
+import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
@@ -34,7 +34,7 @@ const deadSchema = z
     deadPct: nonNegative('%').default(25),
   })
   .strict()
-  .refine((d) => d.deadPct < d.livePct, { message: 'must be below livePct', path: ['deadPct'] });
+  .refine((d) => d.deadPct < d.livePct, { message: 'must be below the live threshold', path: ['deadPct'] });
 
 const busSchema = z
   .object({
@@ -67,10 +67,21 @@ const busSourceSchema = z
 
 const presetIds = (): string[] => listSyncPresets().map((p) => p.id);
 
+/** How far a live side's frequency may be from rated before it is refused as implausible (±15 %). */
+export const PLAUSIBLE_FREQUENCY_FRACTION = 0.15;
+
+/** The plausible band for a live side, Hz: ±15 % of rated, or of 50 or 60 Hz when no rated frequency is given. */
+export function plausibleFrequencyRangeHz(ratedHz: number | undefined): [number, number] {
+  const k = PLAUSIBLE_FREQUENCY_FRACTION;
+  const round = (x: number) => Math.round(x * 100) / 100;
+  return ratedHz === undefined ? [round(50 * (1 - k)), round(60 * (1 + k))] : [round(ratedHz * (1 - k)), round(ratedHz * (1 + k))];
+}
+
 /**
  * Schema of a sync-check case (`droopline.sync`, version 1). Either `bus` + `incoming` with `ratedKVA` and
  * `xddpPU`, or a `plant` and `incomingSetId` (the set's machine data fill what `incoming` leaves out; the bus
- * defaults to the plant's rated frequency and voltage, or dead when no other set is online). Limits come from
+ * defaults to the plant's solved operating point with the incoming set off line, or dead when no other set is
+ * online; `busFrom` says which). Limits come from
  * `limits`, or from the preset `presetId` when `limits` is absent.
  */
 export const syncCaseSchema: z.ZodType<SyncCase> = z
@@ -83,7 +94,8 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
     busSource: busSourceSchema.optional(),
     plant: plantSchema.optional(),
     incomingSetId: z.string({ error: 'must be text' }).min(1, 'must not be empty').optional(),
-    breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
+    // A real breaker takes time to close: 0 ms would hide the advance angle, so the rule is > 0.
+    breakerClosingMs: positive('ms').lte(2000, 'must be 2000 ms or less'),
     limits: limitsSchema.optional(),
     presetId: z.string({ error: 'must be text' }).optional(),
     dead: deadSchema.optional(),
@@ -104,6 +116,21 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
       if (c.incoming.ratedKVA === undefined) issue(['incoming', 'ratedKVA'], 'is required (or give a plant and incomingSetId)');
       if (c.incoming.xddpPU === undefined) issue(['incoming', 'xddpPU'], 'is required (or give a plant and incomingSetId)');
     }
+    // A live side far from the rated frequency is a typing error (500 Hz for 50 Hz), not a case to evaluate.
+    const rated = c.plant?.ratedFrequencyHz ?? c.ratedFrequencyHz;
+    for (const side of ['bus', 'incoming'] as const) {
+      const f = c[side]?.frequencyHz;
+      if (f === undefined || f === 0) continue;
+      const [lo, hi] = plausibleFrequencyRangeHz(rated);
+      if (f < lo || f > hi) {
+        issue(
+          [side, 'frequencyHz'],
+          rated === undefined
+            ? `must be within ${PLAUSIBLE_FREQUENCY_FRACTION * 100} % of 50 or 60 Hz (${lo}–${hi} Hz), or 0 for a dead side`
+            : `must be within ${PLAUSIBLE_FREQUENCY_FRACTION * 100} % of the rated ${rated} Hz (${lo}–${hi} Hz), or 0 for a dead side`,
+        );
+      }
+    }
     if (!c.limits) {
       if (c.presetId === undefined) issue(['limits'], 'is required (or give presetId)');
       else if (!presetIds().includes(c.presetId)) issue(['presetId'], `must be one of: ${presetIds().join(', ')}`);
@@ -112,11 +139,14 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
   .transform((c): SyncCase => {
     const { bus, incoming, limits, plant, incomingSetId, ...rest } = c;
     const fromSet = plant && incomingSetId ? incomingFromSet(plant, incomingSetId) : undefined;
+    // No bus in the file: the plant's own operating point with the incoming set off line (said in the result).
+    const solved = bus ? null : plantBus(plant!, incomingSetId!);
     return {
       ...rest,
       ...(plant ? { plant } : {}),
       ...(incomingSetId !== undefined ? { incomingSetId } : {}),
-      bus: bus ?? defaultPlantBus(plant!, incomingSetId!),
+      bus: bus ?? solved!.bus,
+      busFrom: solved ? solved.note : 'given in the case',
       incoming: {
         ...incoming,
         ratedKVA: incoming.ratedKVA ?? fromSet!.ratedKVA,

@@ -2,12 +2,19 @@
  * The synchronizing store: sync-check window settings (kept with the project), the live
  * case on the scope (bus and incoming frequency, voltage and angle), the engine's verdict,
  * and the closing map. The scope turns in real time: between engine evaluations the
- * displayed angle runs on at the engine's slip from the engine's last angle.
+ * displayed angle runs on from the engine's last angle at the engine's slip, by the shared
+ * law `angleAfterDeg` (shared-types/angle.ts) — the store computes no figure of its own.
+ *
+ * Every input goes to the engine as typed; the engine's schema is the one set of rules. A
+ * refused field keeps its typed value with the rule beside it (`fieldErrors`), the verdict
+ * is withdrawn (the view says "settings invalid", never a permissive), and the project keeps
+ * the last accepted settings (`snapshot()`).
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef, watch } from 'vue';
+import { angleAfterDeg, wrapAngleDeg } from '../../shared-types';
 import type { ClosingMap, DeadPermissives, ProjectSyncSettings, SyncCase, SyncLimits, SyncPreset, SyncResult } from '../../shared-types';
-import { engine, messageOf } from '../transport';
+import { EngineCallError, engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
 
 /** Default window: the trade's common practice for generating sets (the preset of the same id). */
@@ -32,12 +39,27 @@ export interface SyncLive {
 /** Seconds between engine evaluations while the scope turns (the angle is interpolated in between). */
 export const EVALUATE_EVERY_S = 0.2;
 
-const wrap = (a: number): number => {
-  let x = a % 360;
-  if (x > 180) x -= 360;
-  if (x <= -180) x += 360;
-  return x;
-};
+/** The case's fields a user types, by their path in the sync case (the engine names refused fields by it). */
+export const SYNC_FIELDS = [
+  'limits.slipHz',
+  'limits.angleDeg',
+  'limits.voltagePct',
+  'breakerClosingMs',
+  'dead.livePct',
+  'dead.deadPct',
+  'bus.frequencyHz',
+  'bus.voltageV',
+  'incoming.frequencyHz',
+  'incoming.voltageV',
+  'incoming.angleDeg',
+] as const;
+export type SyncField = (typeof SYNC_FIELDS)[number];
+const isSyncField = (p: string): p is SyncField => (SYNC_FIELDS as readonly string[]).includes(p);
+
+/** A plain copy of settings (reactive proxies included). */
+function copySettings(s: ProjectSyncSettings): ProjectSyncSettings {
+  return { ...s, limits: { ...s.limits }, dead: { ...s.dead } };
+}
 
 export const useSyncStore = defineStore('sync', () => {
   const plantStore = usePlantStore();
@@ -48,6 +70,12 @@ export const useSyncStore = defineStore('sync', () => {
   /** Wall time (ms) the last result's `angleNowDeg` belongs to. */
   const resultAtMs = ref(0);
   const error = ref<string | null>(null);
+  /** Fields the engine refused, with its rule in words ("must be greater than 0"); empty when all are accepted. */
+  const fieldErrors = ref<Partial<Record<SyncField, string>>>({});
+  /** A field is refused: there is no verdict until it is put right. */
+  const invalid = computed(() => Object.keys(fieldErrors.value).length > 0);
+  /** The last settings the engine accepted (what the project keeps while a field is refused). */
+  let goodSettings: ProjectSyncSettings = structuredClone(DEFAULT_SYNC_SETTINGS);
   /** The scope turns in real time when true; frozen (and the angle editable) when false. */
   const turning = ref(true);
 
@@ -105,7 +133,9 @@ export const useSyncStore = defineStore('sync', () => {
   function caseAngleDeg(nowMs: number): number {
     if (!turning.value) return live.value.angleDeg;
     const slip = live.value.incomingFrequencyHz - live.value.busFrequencyHz;
-    return wrap(live.value.angleDeg + (360 * slip * (nowMs - liveAtMs)) / 1000);
+    // A refused (unreadable) frequency leaves the angle where it was set rather than making it unreadable too.
+    if (!Number.isFinite(slip)) return live.value.angleDeg;
+    return angleAfterDeg(live.value.angleDeg, slip, (nowMs - liveAtMs) / 1000);
   }
 
   /** The angle the scope should draw at wall time `nowMs`: the engine's last angle run on at the engine's slip. */
@@ -113,7 +143,7 @@ export const useSyncStore = defineStore('sync', () => {
     const r = result.value;
     if (!r || resultRev !== liveRev) return caseAngleDeg(nowMs);
     if (!turning.value) return r.angleNowDeg;
-    return wrap(r.angleNowDeg + (360 * r.slipHz * (nowMs - resultAtMs.value)) / 1000);
+    return angleAfterDeg(r.angleNowDeg, r.slipHz, (nowMs - resultAtMs.value) / 1000);
   }
 
   /** Asks the engine for the verdict at the angle the case has at `nowMs`. */
@@ -124,6 +154,7 @@ export const useSyncStore = defineStore('sync', () => {
     }
     evaluating = true;
     const rev = liveRev;
+    const asked = settings.value;
     try {
       const r = await engine().call('evaluateSync', buildCase(caseAngleDeg(nowMs)));
       // A result for a case that has since changed is dropped (the queued evaluation follows).
@@ -132,9 +163,11 @@ export const useSyncStore = defineStore('sync', () => {
         resultAtMs.value = nowMs;
         resultRev = rev;
         error.value = null;
+        fieldErrors.value = {};
+        goodSettings = copySettings(asked);
       }
     } catch (e) {
-      if (rev === liveRev) error.value = messageOf(e);
+      if (rev === liveRev) refused(e);
     } finally {
       evaluating = false;
     }
@@ -145,15 +178,30 @@ export const useSyncStore = defineStore('sync', () => {
     }
   }
 
+  /** The engine refused the case: its field issues go beside the fields, and the verdict is withdrawn. */
+  function refused(e: unknown): void {
+    result.value = null;
+    const issues = e instanceof EngineCallError ? e.issues : [];
+    const byField: Partial<Record<SyncField, string>> = {};
+    const other: string[] = [];
+    for (const i of issues) {
+      if (isSyncField(i.path)) byField[i.path] ??= i.message;
+      else other.push(`${i.path}: ${i.message}`);
+    }
+    fieldErrors.value = byField;
+    error.value = other.length ? other.join('\n') : issues.length ? null : messageOf(e);
+  }
+
   /** Called every animation frame by the view: re-evaluates every `EVALUATE_EVERY_S` while turning. */
   function tick(nowMs: number): void {
-    if (!turning.value) return;
+    // A refused case is evaluated again only when a field changes.
+    if (!turning.value || invalid.value) return;
     if (!result.value || resultRev !== liveRev || nowMs - resultAtMs.value >= EVALUATE_EVERY_S * 1000) void evaluate(nowMs);
   }
 
   /** Marks the case changed at `nowMs` with its angle then. */
   function rebase(angleDeg: number, nowMs: number): void {
-    live.value = { ...live.value, angleDeg: wrap(angleDeg) };
+    live.value = { ...live.value, angleDeg: wrapAngleDeg(angleDeg) };
     liveAtMs = nowMs;
     liveRev++;
   }
@@ -252,14 +300,15 @@ export const useSyncStore = defineStore('sync', () => {
     mapAbort?.abort();
   }
 
-  /** The settings to keep with a project. */
+  /** The settings to keep with a project: the last the engine accepted (a refused field is not saved). */
   function snapshot(): ProjectSyncSettings {
-    return structuredClone({ ...settings.value, limits: { ...settings.value.limits }, dead: { ...settings.value.dead } });
+    return copySettings(invalid.value ? goodSettings : settings.value);
   }
 
   /** Restores settings from a project (null: the defaults). */
   function restore(s: ProjectSyncSettings | null): void {
     settings.value = structuredClone(s ?? DEFAULT_SYNC_SETTINGS);
+    goodSettings = structuredClone(s ?? DEFAULT_SYNC_SETTINGS);
   }
 
   return {
@@ -269,6 +318,8 @@ export const useSyncStore = defineStore('sync', () => {
     result,
     resultAtMs,
     error,
+    fieldErrors,
+    invalid,
     turning,
     map,
     mapBusy,

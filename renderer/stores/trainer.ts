@@ -10,6 +10,7 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
+import { angleAfterDeg } from '../../shared-types';
 import type { SyncLimits, TrainerAttempt, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
 import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
@@ -17,12 +18,6 @@ import { usePlantStore } from './plant';
 /** Longest wall time one step may cover, s (the engine refuses more than 0.25 s). */
 const MAX_STEP_S = 0.2;
 
-const wrap = (a: number): number => {
-  let x = a % 360;
-  if (x > 180) x -= 360;
-  if (x <= -180) x += 360;
-  return x;
-};
 
 /** Keyboard bindings: key → control (shown on the buttons too). */
 export const TRAINER_KEYS = {
@@ -39,6 +34,8 @@ export const useTrainerStore = defineStore('trainer', () => {
   const levels = shallowRef<TrainerLevel[]>([]);
   const levelId = ref('steady');
   const seed = ref(1);
+  /** The trainee's name, written on each attempt of the log. */
+  const trainee = ref('');
   /** Plant set used as the incoming machine (null: the standard 500 kVA set). */
   const incomingSetId = ref<string | null>(null);
   const state = shallowRef<TrainerState | null>(null);
@@ -75,6 +72,12 @@ export const useTrainerStore = defineStore('trainer', () => {
     } catch (e) {
       error.value = messageOf(e);
     }
+  }
+
+  /** Changes the level and restarts the exercise at once on the same seed, so the limits shown are the level's. */
+  async function chooseLevel(id: string): Promise<void> {
+    levelId.value = id;
+    await start(seed.value);
   }
 
   /** Starts an exercise (a new random seed unless one is given). */
@@ -174,7 +177,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     const p = plantStore.plant;
     const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}) });
     verdict.value = v;
-    attempts.value = [{ at: new Date().toISOString(), ...v.attempt }, ...attempts.value];
+    const name = trainee.value.trim();
+    attempts.value = [{ at: new Date().toISOString(), ...(name ? { trainee: name } : {}), ...v.attempt }, ...attempts.value];
   }
 
   /** Called every animation frame: starts a step when none is in flight. */
@@ -199,7 +203,7 @@ export const useTrainerStore = defineStore('trainer', () => {
     if (!s) return 0;
     if (s.phase === 'closed') return s.contact?.angleDeg ?? s.angleDeg;
     const ahead = Math.min(MAX_STEP_S, Math.max(0, (nowMs - stateAtMs.value) / 1000));
-    return wrap(s.angleDeg + 360 * (s.incomingFrequencyHz - s.busFrequencyHz) * ahead);
+    return angleAfterDeg(s.angleDeg, s.incomingFrequencyHz - s.busFrequencyHz, ahead);
   }
 
   function clearLog(): void {
@@ -220,6 +224,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     levels,
     levelId,
     seed,
+    trainee,
+    chooseLevel,
     incomingSetId,
     state,
     stateAtMs,

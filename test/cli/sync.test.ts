@@ -35,7 +35,7 @@ describe('droopline sync', () => {
     for (const k of ['slipHz', 'slipPeriodS', 'advanceAngleDeg', 'windowOpenS', 'voltageDifferencePct', 'permissive', 'reasons', 'closeNow']) expect(out).toHaveProperty(k);
     for (const k of ['angleAtContactDeg', 'surgeCurrentPU', 'surgeCurrentA', 'peakCurrentA', 'torqueStepPU']) expect(out.closeNow).toHaveProperty(k);
     expectClose(out.slipPeriodS, 4, { rel: 1e-9 }, '1 / 0.25 Hz');
-    expectClose(out.advanceAngleDeg, 7.2, { rel: 1e-9 }, '0.25 Hz × 80 ms (closed form)');
+    expectClose(out.advanceAngleDeg, 7.2, { rel: 1e-9 }, '0.25 Hz × 80 ms: 360 × 0.25 × 0.08 = 7.2° (closed form)');
     expectClose(out.windowOpenS, 20 / 90, { rel: 1e-9 }, '2 × 10° / (360 × 0.25)');
     expect(out.permissive).toBe(false);
     expect(out.reasons).toEqual(['Slip +0.250 Hz is beyond the ±0.2 Hz limit.', 'Phase angle +30.0° is outside the ±10° window.']);
@@ -68,11 +68,37 @@ describe('droopline sync', () => {
   });
 
   it('takes a plant file and a set id in the case', async () => {
+    // The demo plant's bus with G2 off line sits near 49.48 Hz (droop, by solve): 49.55 Hz incoming is about 0.07 Hz fast.
     const io = memoryIO({
-      'case.json': JSON.stringify({ plant: demoPlantJson(), incomingSetId: 'G2', incoming: { frequencyHz: 50.05, voltageV: 400, angleDeg: -3 }, breakerClosingMs: 50, presetId: 'practice-generating-sets' }),
+      'case.json': JSON.stringify({ plant: demoPlantJson(), incomingSetId: 'G2', incoming: { frequencyHz: 49.55, voltageV: 400, angleDeg: -3 }, breakerClosingMs: 50, presetId: 'practice-generating-sets' }),
     });
     expect(await runCli(['sync', 'case.json', '--json'], io)).toBe(0);
-    expect((JSON.parse(io.stdout()) as SyncJson).permissive).toBe(true);
+    const out = JSON.parse(io.stdout()) as SyncJson;
+    expect(out.reasons).toEqual([]);
+    expect(out.permissive).toBe(true);
+  });
+
+  it('uses the bus `solve` finds for the plant with the incoming set off line, prints it, and --json carries it', async () => {
+    const plant = demoPlantJson() as { sets: { id: string; online: boolean }[] };
+    const offLine = { ...plant, sets: plant.sets.map((s) => (s.id === 'G2' ? { ...s, online: false } : s)) };
+    const solved = memoryIO({ 'plant.json': JSON.stringify(offLine) });
+    expect(await runCli(['solve', 'plant.json', '--json'], solved)).toBe(0);
+    const bus = (JSON.parse(solved.stdout()) as { bus: { frequencyHz: number; voltageV: number } }).bus;
+    // A drooping plant does not sit at exactly rated: the point of taking the solved bus.
+    expect(bus.frequencyHz).not.toBe(50);
+
+    const file = { plant, incomingSetId: 'G2', incoming: { frequencyHz: 50.05, voltageV: 400, angleDeg: -3 }, breakerClosingMs: 50, presetId: 'practice-generating-sets' };
+    const json = memoryIO({ 'case.json': JSON.stringify(file) });
+    expect(await runCli(['sync', 'case.json', '--json'], json)).toBe(0);
+    const out = JSON.parse(json.stdout()) as SyncJson & { bus: { frequencyHz: number; voltageV: number; from: string } };
+    expect(out.bus.frequencyHz).toBe(bus.frequencyHz);
+    expect(out.bus.voltageV).toBe(bus.voltageV);
+    expect(out.bus.from).toContain('G2 off line');
+    expectClose(out.slipHz, 50.05 - bus.frequencyHz, { abs: 1e-9 }, 'slip against the solved bus');
+
+    const text = memoryIO({ 'case.json': JSON.stringify(file) });
+    expect(await runCli(['sync', 'case.json'], text)).toBe(0);
+    expect(text.stdout()).toContain(`Bus used: ${bus.frequencyHz.toFixed(3)} Hz, ${bus.voltageV.toFixed(1)} V — the plant's steady state with G2 off line`);
   });
 
   it('exits 2 naming the field for invalid input, a bad preset, a missing file and bad JSON', async () => {

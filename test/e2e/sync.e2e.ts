@@ -91,6 +91,39 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     await page.close();
   });
 
+  it('refuses every invalid input beside its field and shows "settings invalid" instead of any permissive', async () => {
+    const base = inject('previewUrl');
+    const { page, errors } = await openPage(browser(), `${base}#/synchronizing`);
+    await page.getByTestId('synchronizing-view').waitFor();
+    const state = () => page.getByTestId('permissive').getAttribute('data-state');
+    await expect.poll(state, { timeout: 15_000 }).toMatch(/^(permissive|blocked)$/);
+    const cases: [string, string, string, string, string][] = [
+      ['incoming-frequency', '500', 'incoming.frequencyHz', 'must be within 15 %', '50.1'],
+      ['bus-frequency', '-1', 'bus.frequencyHz', 'must be 0 or more', '50'],
+      ['limit-angle', '200', 'limits.angleDeg', 'must be 180° or less', '10'],
+      ['limit-voltage', '', 'limits.voltagePct', 'must be a number', '5'],
+      ['breaker-ms', '-50', 'breakerClosingMs', 'must be greater than 0', '100'],
+      ['limit-slip', '-0.2', 'limits.slipHz', 'must be greater than 0', '0.2'],
+      ['incoming-voltage', '', 'incoming.voltageV', 'must be a number', '404'],
+      ['dead-dead', '90', 'dead.deadPct', 'must be below the live threshold', '20'],
+    ];
+    for (const [field, bad, path, rule, good] of cases) {
+      const input = page.getByTestId(field);
+      await input.fill(bad);
+      await input.press('Tab');
+      // Wait for the settled state meant: the refusal, with its rule beside the field.
+      await expect.poll(state, { message: `${field} = "${bad}" withdraws the verdict` }).toBe('invalid');
+      await expect.poll(() => page.getByTestId(`error-${path}`).textContent()).toContain(rule);
+      expect(await page.getByTestId('permissive').textContent()).toContain('Settings invalid');
+      expect(await page.getByTestId('permissive').textContent()).not.toContain('Permissive');
+      await input.fill(good);
+      await input.press('Tab');
+      await expect.poll(state, { message: `${field} put right` }).toMatch(/^(permissive|blocked)$/);
+    }
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
   it('runs a trainer exercise from the keyboard to a close and shows the verdict and the log', async () => {
     const base = inject('previewUrl');
     const { page, errors } = await openPage(browser(), `${base}?measure-frames#/trainer`);

@@ -1,6 +1,8 @@
 import { describe, it, expect } from 'vitest';
+import { plantSchema } from '../../electron/handlers/plant-schema';
 import { dispatch } from '../../electron/handlers';
-import type { ClosingMap, SyncResult } from '../../shared-types';
+import type { ClosingMap, Plant, SyncResult } from '../../shared-types';
+import { solveSharing } from '../../electron/engine';
 import { demoPlantJson } from '../helpers/plants';
 import { expectClose } from '../helpers/expect-close';
 
@@ -28,7 +30,7 @@ describe('evaluateSync handler', () => {
     const r = await dispatch('evaluateSync', caseFile());
     expect(r.ok).toBe(true);
     const v = (r as { value: SyncResult }).value;
-    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms (closed form)');
+    expectClose(v.advanceAngleDeg, 3.6, { rel: 1e-9 }, '0.1 Hz × 100 ms: 360 × 0.1 × 0.1 = 3.6° (closed form)');
     expect(v.permissive).toBe(true);
   });
 
@@ -42,8 +44,11 @@ describe('evaluateSync handler', () => {
     });
     expect(r.ok).toBe(true);
     const v = (r as { value: SyncResult }).value;
-    // Bus defaults to the plant's rated 50 Hz / 400 V; G3 is 500 kVA, 4 poles (demo plant).
-    expectClose(v.slipHz, 0.08, { abs: 1e-9 });
+    // The bus is the plant's own steady state with G3 off line (solveSharing of the same plant); G3 is 500 kVA, 4 poles (demo plant).
+    const plant: Plant = plantSchema.parse(demoPlantJson()); // defaults filled, as the handler reads it
+    const bus = solveSharing({ ...plant, sets: plant.sets.map((s) => (s.id === 'G3' ? { ...s, online: false } : s)) }).bus;
+    expect(v.bus).toEqual({ frequencyHz: bus.frequencyHz, voltageV: bus.voltageV, from: expect.stringContaining('G3 off line') });
+    expectClose(v.slipHz, 50.08 - bus.frequencyHz, { abs: 1e-9 });
     expectClose(v.base.currentA, 500000 / (Math.sqrt(3) * 400), { rel: 1e-12 });
     expect(v.base.ratedSpeedRpm).toBe(1500);
     expect(v.busEquivalent.setIds).toEqual(['G1', 'G2']);
@@ -78,7 +83,24 @@ describe('evaluateSync handler', () => {
     ['a negative frequency', (c: Record<string, unknown>) => ((c.bus as Record<string, unknown>).frequencyHz = -50), 'bus.frequencyHz: must be 0 or more'],
     ['text for a number', (c: Record<string, unknown>) => (c.breakerClosingMs = '100'), 'breakerClosingMs: must be a number (ms)'],
     ['odd poles', (c: Record<string, unknown>) => ((c.incoming as Record<string, unknown>).poles = 3), 'incoming.poles: must be even'],
-    ['dead threshold above live', (c: Record<string, unknown>) => (c.dead = { livePct: 50, deadPct: 60 }), 'dead.deadPct: must be below livePct'],
+    ['dead threshold above live', (c: Record<string, unknown>) => (c.dead = { livePct: 50, deadPct: 60 }), 'dead.deadPct: must be below the live threshold'],
+    ['a negative slip limit', (c: Record<string, unknown>) => (c.limits = { slipHz: -0.2, angleDeg: 10, voltagePct: 5 }), 'limits.slipHz: must be greater than 0'],
+    ['an angle limit of 200°', (c: Record<string, unknown>) => (c.limits = { slipHz: 0.2, angleDeg: 200, voltagePct: 5 }), 'limits.angleDeg: must be 180° or less'],
+    ['a negative breaker time', (c: Record<string, unknown>) => (c.breakerClosingMs = -50), 'breakerClosingMs: must be greater than 0'],
+    ['a breaker time of 0 ms', (c: Record<string, unknown>) => (c.breakerClosingMs = 0), 'breakerClosingMs: must be greater than 0'],
+    [
+      'a 500 Hz incoming set (no rated frequency given)',
+      (c: Record<string, unknown>) => ((c.incoming as Record<string, unknown>).frequencyHz = 500),
+      'incoming.frequencyHz: must be within 15 % of 50 or 60 Hz (42.5–69 Hz), or 0 for a dead side',
+    ],
+    [
+      'a 60 Hz bus on a 50 Hz rating',
+      (c: Record<string, unknown>) => {
+        c.ratedFrequencyHz = 50;
+        (c.bus as Record<string, unknown>).frequencyHz = 60;
+      },
+      'bus.frequencyHz: must be within 15 % of the rated 50 Hz (42.5–57.5 Hz), or 0 for a dead side',
+    ],
     ['a wrong format tag', (c: Record<string, unknown>) => (c.format = 'droopline.plant'), 'format: must be "droopline.sync"'],
     ['an unknown field', (c: Record<string, unknown>) => (c.slipHz = 0.1), '(root): unknown field(s): slipHz'],
     ['a set id without a plant', (c: Record<string, unknown>) => (c.incomingSetId = 'G1'), 'plant: is required when incomingSetId is given'],

@@ -4,7 +4,7 @@ import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
 import PhasorScope from '../../renderer/components/sync/PhasorScope.vue';
 import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
-import { angleOfTip, phasorTip, RIM_FRACTION, sectorPath } from '../../renderer/components/sync/phasor-geometry';
+import { angleOfTip, phasorTip, REACH_FRACTION, windowOutlinePath } from '../../renderer/components/sync/phasor-geometry';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { DEFAULT_SYNC_SETTINGS, useSyncStore } from '../../renderer/stores/sync';
 import { setEngineClient } from '../../renderer/transport';
@@ -13,19 +13,19 @@ import { directClient } from '../helpers/direct-client';
 import { expectClose } from '../helpers/expect-close';
 import type { VueWrapper } from '@vue/test-utils';
 
-/** The angle a drawn phasor line makes, counter-clockwise from straight up, degrees. */
+/** The angle a drawn phasor line makes, clockwise on screen from the reference axis, degrees. */
 function drawnAngle(w: VueWrapper, test: string, size = 320): number {
   const line = w.get(`[data-test="${test}"]`);
   const c = size / 2;
   return angleOfTip(c, c, { x: Number(line.attributes('x2')), y: Number(line.attributes('y2')) });
 }
 
-describe('phasor scope geometry', () => {
-  it('draws phasor tips at the given angle, counter-clockwise from straight up', () => {
-    // Closed form: 90° counter-clockwise from up is left on screen; −90° is right.
-    expectClose(phasorTip(100, 100, 50, 90).x, 50, { abs: 1e-12 }, 'x at +90°');
-    expectClose(phasorTip(100, 100, 50, -90).x, 150, { abs: 1e-12 }, 'x at −90°');
-    expectClose(phasorTip(100, 100, 50, 180).y, 150, { abs: 1e-12 }, 'y at 180°');
+describe('phasor diagram geometry', () => {
+  it('draws phasor tips at the given angle, clockwise on screen from the reference axis (the trade convention)', () => {
+    // Closed form, screen y down: +90° (incoming a quarter-cycle ahead) is straight down, −90° straight up, 180° left.
+    expectClose(phasorTip(100, 100, 50, 90).y, 150, { abs: 1e-12 }, 'y at +90°');
+    expectClose(phasorTip(100, 100, 50, -90).y, 50, { abs: 1e-12 }, 'y at −90°');
+    expectClose(phasorTip(100, 100, 50, 180).x, 50, { abs: 1e-12 }, 'x at 180°');
     for (const a of [-179, -120, -37.5, 0, 12.25, 90, 180]) expectClose(angleOfTip(100, 100, phasorTip(100, 100, 40, a)), a, { abs: 1e-9 }, `round trip ${a}°`);
   });
 
@@ -37,12 +37,37 @@ describe('phasor scope geometry', () => {
     expectClose(drawnAngle(w, 'scope-incoming-A'), 37.5, { abs: 1e-9 }, 'incoming A');
     expectClose(drawnAngle(w, 'scope-incoming-B'), 37.5 - 120, { abs: 1e-9 }, 'incoming B');
     expectClose(drawnAngle(w, 'scope-incoming-C'), 37.5 + 120, { abs: 1e-9 }, 'incoming C');
-    expect(w.get('[data-test="scope-window"]').attributes('d')).toBe(sectorPath(160, 160, 320 * RIM_FRACTION, 10));
+    expect(w.get('[data-test="scope-window"]').attributes('d')).toBe(windowOutlinePath(160, 160, 320 * REACH_FRACTION, 10));
     expect(w.find('[data-test="scope-advance"]').exists()).toBe(true);
     expect(w.get('svg').attributes('aria-label')).toContain('incoming 37.5 degrees ahead of the bus');
   });
 
-  it('draws no window sector until a window is given', () => {
+  it('turns clockwise on screen as the angle grows (incoming fast), counter-clockwise as it falls, and says so in words', () => {
+    // Screen cross product of two successive tips: positive z (y down) is a clockwise turn.
+    const turn = (a: number, b: number): number => {
+      const p = phasorTip(0, 0, 1, a);
+      const q = phasorTip(0, 0, 1, b);
+      return p.x * q.y - p.y * q.x;
+    };
+    for (const a of [-170, -60, 0, 35, 120, 179]) {
+      expect(turn(a, a + 1)).toBeGreaterThan(0);
+      expect(turn(a, a - 1)).toBeLessThan(0);
+    }
+    const fast = mount(PhasorScope, { props: { angleDeg: 5, slipHz: 0.1 } });
+    expect(fast.get('svg').attributes('data-turning')).toBe('clockwise');
+    expect(fast.get('[data-test="scope-words"]').text()).toBe('incoming fast: the diagram turns clockwise');
+    const slow = mount(PhasorScope, { props: { angleDeg: 5, slipHz: -0.1 } });
+    expect(slow.get('svg').attributes('data-turning')).toBe('counter-clockwise');
+    expect(slow.get('[data-test="scope-words"]').text()).toBe('incoming slow: the diagram turns counter-clockwise');
+  });
+
+  it('draws the window as an outline, with no dial ticks and no filled wedge', () => {
+    const w = mount(PhasorScope, { props: { angleDeg: 0, windowDeg: 10 } });
+    expect(w.findAll('.tick')).toHaveLength(0);
+    expect(w.get('[data-test="scope-window"]').attributes('d')).not.toMatch(/Z\s*$/);
+  });
+
+  it('draws no window until a window is given', () => {
     const w = mount(PhasorScope, { props: { angleDeg: 0 } });
     expect(w.find('[data-test="scope-window"]').exists()).toBe(false);
   });
@@ -79,6 +104,59 @@ describe('SynchronizingView with the engine', () => {
     await flushPromises();
     expect(w.get('[data-test="permissive"]').text()).toContain('Permissive: closing is allowed now');
     expectClose(drawnAngle(w, 'scope-incoming-A', 340), -2, { abs: 1e-9 }, 'drawn angle after edit');
+    w.unmount();
+  });
+
+  it.each([
+    ['limit-slip', '-0.2', 'limits.slipHz', 'slip limit must be greater than 0'],
+    ['limit-angle', '200', 'limits.angleDeg', 'angle limit must be 180° or less'],
+    ['limit-voltage', '', 'limits.voltagePct', 'voltage difference limit must be a number'],
+    ['breaker-ms', '-50', 'breakerClosingMs', 'breaker closing time must be greater than 0'],
+    ['incoming-frequency', '500', 'incoming.frequencyHz', 'incoming frequency must be within 15 % of the rated 50 Hz (42.5–57.5 Hz)'],
+    ['bus-voltage', '-400', 'bus.voltageV', 'bus voltage must be 0 or more'],
+  ])('refuses %s = "%s" with the rule beside the field and "settings invalid" in place of any permissive', async (test, value, path, words) => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    sync.setTurning(false, 0);
+    // A case that is permissive before the edit: 0.1 Hz fast, +1 %, −2°.
+    sync.setLive({ busFrequencyHz: 50, incomingFrequencyHz: 50.1, busVoltageV: 400, incomingVoltageV: 404, angleDeg: -2 }, 0);
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    expect(w.get('[data-test="permissive"]').attributes('data-state')).toBe('permissive');
+    const good = sync.snapshot();
+    await w.get(`[data-test="${test}"]`).setValue(value);
+    await flushPromises();
+    expect(sync.error).toBe(null);
+    expect(w.get(`[data-test="error-${path}"]`).text()).toContain(words);
+    const panel = w.get('[data-test="permissive"]');
+    expect(panel.attributes('data-state')).toBe('invalid');
+    expect(panel.text()).toContain('Settings invalid');
+    expect(panel.text()).not.toContain('Permissive');
+    expect(w.findAll('[data-test^="readout-"]')).toHaveLength(0);
+    expect(w.get('[data-test="map-compute"]').attributes('disabled')).toBeDefined();
+    // The project keeps the last accepted settings; the typed value stays in the field.
+    expect(sync.snapshot()).toEqual(good);
+    // Putting the field right brings the verdict back.
+    const fixed: Record<string, string> = { 'limit-slip': '0.2', 'limit-angle': '10', 'limit-voltage': '5', 'breaker-ms': '100', 'incoming-frequency': '50.1', 'bus-voltage': '400' };
+    await w.get(`[data-test="${test}"]`).setValue(fixed[test]!);
+    await flushPromises();
+    await vi.waitFor(() => expect(w.get('[data-test="permissive"]').attributes('data-state')).toBe('permissive'));
+    expect(w.find(`[data-test="error-${path}"]`).exists()).toBe(false);
+    w.unmount();
+  });
+
+  it('shows the table and the verdict from one result: the angle in both is the same figure', async () => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    sync.setLive({ busFrequencyHz: 50, incomingFrequencyHz: 50.25, busVoltageV: 400, incomingVoltageV: 404, angleDeg: 25 }, 0);
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    const r = sync.result!;
+    const shown = w.get('[data-test="readout-angle"]').text();
+    const sign = r.angleNowDeg > 0 ? '+' : '';
+    expect(shown).toContain(`${sign}${r.angleNowDeg.toFixed(1)} °`);
+    const reason = r.reasons.find((x) => x.startsWith('Phase angle'));
+    if (reason) expect(reason).toContain(Math.abs(r.angleNowDeg).toFixed(1));
     w.unmount();
   });
 

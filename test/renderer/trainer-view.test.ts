@@ -122,6 +122,28 @@ describe('TrainerView driven by key presses', () => {
     expect(v.traces.tS.length).toBeGreaterThan(100);
   }, 30_000);
 
+  it('applies a new level at once (same seed) and writes the trainee\'s name on the attempt', async () => {
+    const trainer = await setUp(77);
+    const levels = trainer.levels;
+    const other = levels.find((l) => l.id !== trainer.state!.levelId)!;
+    await w!.get('[data-test="trainer-level"]').setValue(other.id);
+    await vi.waitFor(() => expect(trainer.state!.levelId).toBe(other.id));
+    expect(trainer.state!.level.breakerClosingMs).toBe(other.breakerClosingMs);
+    expect(trainer.state!.seed).toBe(77);
+    expect(w!.text()).toContain('applies at once');
+
+    await w!.get('[data-test="trainer-name"]').setValue('  R. Okafor ');
+    const op = operator(trainer);
+    trainer.setWindow({ slipHz: 0.2, angleDeg: 10, voltagePct: 5 });
+    await op.frames(2);
+    op.down(' ');
+    await op.frames(8);
+    await flushPromises();
+    await vi.waitFor(() => expect(trainer.attempts).toHaveLength(1));
+    expect(trainer.attempts[0]!.trainee).toBe('R. Okafor');
+    expect(w!.get('[data-test="attempt-0"] [data-test="attempt-trainee"]').text()).toBe('R. Okafor');
+  }, 30_000);
+
   it('repeats the same start from the same seed', async () => {
     const trainer = await setUp(77);
     const first = trainer.state!;

@@ -38,6 +38,7 @@ function printPresets(io: CliIO, presets: { id: string; label: string; source: s
 function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
   const L = r.limits;
   io.out(`${name ? `${name}\n` : ''}Sync-check: ${r.permissive ? 'CLOSE PERMITTED' : 'CLOSE NOT PERMITTED'}${r.deadBusClose ? ' (dead-bus close)' : r.deadLineClose ? ' (dead-line close)' : ''}\n`);
+  io.out(`Bus used: ${fmt(r.bus.frequencyHz, 3)} Hz, ${fmt(r.bus.voltageV, 1)} V — ${r.bus.from}.\n`);
   io.out(`Limits: slip ±${L.slipHz} Hz, angle ±${L.angleDeg}°, voltage ±${L.voltagePct} %${L.incomingFaster ? ', incoming faster' : ''}${L.incomingHigher ? ', incoming higher' : ''} — ${r.limitsSource}\n\n`);
   io.out(
     formatTable(
@@ -66,7 +67,8 @@ function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
           ["surge current I'' (symmetrical)", fmt(s.surgeCurrentPU, 3), `${fmt(s.surgeCurrentA, 0)} A`],
           [`peak current (κ ${fmt(s.peakFactor, 3)}, R/X ${fmt(s.rOverX, 3)})`, fmt(s.peakCurrentPU, 3), `${fmt(s.peakCurrentA, 0)} A`],
           ['synchronizing power step', signed(s.powerStepPU, 3), `${signed(s.powerStepKW, 0)} kW`],
-          ['torque step on the incoming shaft', signed(s.torqueStepPU, 3), `${signed(s.torqueStepKNm, 2)} kN·m`],
+          ['torque step on the incoming shaft (E1 E2 / X) sin θ', signed(s.torqueStepPU, 3), `${signed(s.torqueStepKNm, 2)} kN·m`],
+          ['peak air-gap torque, first cycle, with DC offset', signed(s.peakTorquePU, 3), `${signed(s.peakTorqueKNm, 2)} kN·m`],
         ],
       ),
   );

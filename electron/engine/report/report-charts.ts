@@ -1,8 +1,9 @@
 /**
  * The report's charts as SVG: the speed-droop and reactive-droop lines of every set with the
- * operating points of the sharing table, the closing map, and each scenario's frequency and
- * voltage. Droop lines follow the README's definitions.
+ * operating points of the sharing table, the closing map (surge and first-cycle peak torque), and each
+ * scenario's frequency and voltage. Each droop line's law is stated with its function below.
  */
+import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
 import type { GenSet, Plant, ReportChart, SimulationResult } from '../../../shared-types';
 import { kVARBase } from '../describe-plant';
 import { heatMapSvg } from './svg-heat-map';
@@ -89,23 +90,21 @@ function closingMapChart(d: ReportData): ReportChart[] {
   if (!isSyncPart(d.sync) || !d.sync.map) return [];
   const m = d.sync.map;
   const l = d.sync.settings.limits;
-  const title = `Closing map: surge current (pu of the incoming set) — ${d.sync.incomingSetId}`;
-  return [
-    chart(
-      'closing-map',
-      heatMapSvg({
-        title,
-        xLabel: 'Phase angle at closing (°)',
-        yLabel: 'Slip (Hz, + incoming faster)',
-        valueLabel: 'surge (pu)',
-        x: m.anglesDeg,
-        y: m.slipsHz,
-        values: m.surgeCurrentPU,
-        box: { x0: -l.angleDeg, x1: l.angleDeg, y0: l.incomingFaster ? 0 : -l.slipHz, y1: l.slipHz, label: 'sync-check window' },
-      }),
-      title,
-    ),
+  const axis = CLOSING_MAP_ANGLE_AXIS_LABEL[m.angleAxis];
+  const xLabel = `${axis[0]!.toUpperCase()}${axis.slice(1)} (°)`;
+  const box = { x0: -l.angleDeg, x1: l.angleDeg, y0: l.incomingFaster ? 0 : -l.slipHz, y1: l.slipHz, label: 'sync-check window' };
+  const layers = [
+    { id: 'closing-map', title: `Closing map: surge current (pu of the incoming set) — ${d.sync.incomingSetId}`, valueLabel: 'surge (pu)', values: m.surgeCurrentPU },
+    {
+      id: 'closing-map-peak-torque',
+      title: `Closing map: first-cycle peak air-gap torque, |pu| of the torque base — ${d.sync.incomingSetId}`,
+      valueLabel: 'peak torque (|pu|)',
+      values: m.peakTorquePU.map(Math.abs),
+    },
   ];
+  return layers.map((k) =>
+    chart(k.id, heatMapSvg({ title: k.title, xLabel, yLabel: 'Slip (Hz, + incoming faster)', valueLabel: k.valueLabel, x: m.anglesDeg, y: m.slipsHz, values: k.values, box }), k.title),
+  );
 }
 
 function transientCharts(d: ReportData): ReportChart[] {

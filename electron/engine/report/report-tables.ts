@@ -1,7 +1,9 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
+import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
 import { flagWords, isoClassName } from '../../../shared-types/presentation';
 import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
 import { POWER_LOAD_BREAK_PU } from '../simulation/network';
+import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../sync/slip-timing';
 import type { ReportData, SyncPart } from './report-data';
 
 /** True when the sync section was built (it may still carry a problem of its own). */
@@ -117,12 +119,19 @@ function syncSettingsTable(s: SyncPart): ReportTable {
     ['Dead-bus close allowed', yesNo(s.settings.dead.deadBus), '', `live above ${s.settings.dead.livePct} %, dead below ${s.settings.dead.deadPct} % of rated`],
     ['Dead-line close allowed', yesNo(s.settings.dead.deadLine), '', ''],
     ['Incoming set', s.incomingSetId, '', ''],
-    ['Advance angle at the slip limit', e?.advanceAngleDeg ?? null, '°', '360 × slip × breaker time'],
-    ['Slip period at the slip limit', e?.slipPeriodS ?? null, 's', '1 / |slip|'],
-    ['Window open per slip cycle', e?.windowOpenS ?? null, 's', '2 × angle limit / (360 × |slip|)'],
+    // At the slip limit itself (not the edge case's slip just inside it): 0.20 Hz and 100 ms read 5.00 s and 7.20°.
+    ['Advance angle at the slip limit', advanceAngleDeg(l.slipHz, s.settings.breakerClosingMs), '°', '360 × slip × breaker time'],
+    ['Slip period at the slip limit', slipPeriodS(l.slipHz), 's', '1 / |slip|'],
+    ['Window open per slip cycle', windowOpenS(l.angleDeg, l.slipHz), 's', '2 × angle limit / (360 × |slip|)'],
     ['Surge closing at the window edge', e?.closeNow.surgeCurrentA ?? null, 'A', e ? `${e.closeNow.surgeCurrentPU.toFixed(2)} pu; |ΔV| ${e.closeNow.deltaVPU.toFixed(3)} pu` : ''],
     ['Peak with DC offset', e?.closeNow.peakCurrentA ?? null, 'A', e ? `IEC 60909 κ = ${e.closeNow.peakFactor.toFixed(2)}` : ''],
-    ['Torque step at the window edge', e?.closeNow.torqueStepKNm ?? null, 'kN·m', e ? `${e.closeNow.torqueStepPU.toFixed(2)} pu` : ''],
+    ['Torque step at the window edge', e?.closeNow.torqueStepKNm ?? null, 'kN·m', e ? `${e.closeNow.torqueStepPU.toFixed(2)} pu; steady synchronizing torque (E1 E2 / X) sin θ` : ''],
+    [
+      'Peak air-gap torque at the window edge',
+      e?.closeNow.peakTorqueKNm ?? null,
+      'kN·m',
+      e ? `${e.closeNow.peakTorquePU.toFixed(2)} pu; first cycle with the DC offset, (E1 E2 / X)(sin θ + 2 sin(θ/2))` : '',
+    ],
     ['Sync-check verdict at the window edge', e ? (e.permissive ? 'permissive' : 'blocked') : null, '', e?.reasons.join('; ') ?? ''],
   ];
   return { id: 'sync-settings', title: 'Sync-check (device 25) settings', columns: ['Setting', 'Value', 'Unit', 'Note'], decimals: [0, 2, 0, 0], rows };
@@ -133,13 +142,17 @@ function closingMapTable(s: SyncPart): ReportTable | null {
   if (!m) return null;
   const rows: ReportCell[][] = [];
   m.slipsHz.forEach((slip, r) => {
-    m.anglesDeg.forEach((angle, c) => rows.push([slip, angle, m.surgeCurrentPU[r * m.anglesDeg.length + c] ?? null, m.torqueStepPU[r * m.anglesDeg.length + c] ?? null]));
+    m.anglesDeg.forEach((angle, c) => {
+      const k = r * m.anglesDeg.length + c;
+      rows.push([slip, angle, m.surgeCurrentPU[k] ?? null, m.torqueStepPU[k] ?? null, m.peakTorquePU[k] ?? null]);
+    });
   });
+  const axis = CLOSING_MAP_ANGLE_AXIS_LABEL[m.angleAxis];
   return {
     id: 'closing-map',
-    title: `Closing map (${m.method}): surge and torque step over slip × closing angle`,
-    columns: ['Slip (Hz)', 'Closing angle (°)', 'Surge current (pu)', 'Torque step (pu)'],
-    decimals: [3, 1, 3, 3],
+    title: `Closing map (${m.method}): surge, torque step and peak torque over slip × ${axis}`,
+    columns: ['Slip (Hz)', `${axis[0]!.toUpperCase()}${axis.slice(1)} (°)`, 'Surge current (pu)', 'Torque step (pu)', 'Peak torque, first cycle (pu)'],
+    decimals: [3, 1, 3, 3, 3],
     rows,
     printed: false,
   };

@@ -7,6 +7,7 @@
  */
 import type { CloseRecord, ProtectionTrip, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
+import { wrapAngleDeg } from '../../../shared-types/angle';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_DROOP } from './codes';
 import { PROTECTION_DEVICES, buildSimModel } from './sim-model';
@@ -48,11 +49,9 @@ export interface Simulation {
   result(): SimulationResult;
 }
 
+/** An angle in radians as degrees in (−180°, 180°] (the one wrap convention, `wrapAngleDeg`). */
 function wrapDeg(rad: number): number {
-  let d = ((rad * 180) / Math.PI) % 360;
-  if (d > 180) d -= 360;
-  if (d < -180) d += 360;
-  return d;
+  return wrapAngleDeg((rad * 180) / Math.PI);
 }
 
 class Run implements Simulation {

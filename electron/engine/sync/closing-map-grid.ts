@@ -58,6 +58,7 @@ export function setUpClosingMap(req: ClosingMapRequest, method: ClosingMap['meth
     surgeCurrentPU: new Array<number>(cells).fill(0),
     peakCurrentPU: new Array<number>(cells).fill(0),
     torqueStepPU: new Array<number>(cells).fill(0),
+    peakTorquePU: new Array<number>(cells).fill(0),
     window: { angleDeg: L.angleDeg, slipHz: L.slipHz, slipMinHz: L.incomingFaster ? 0 : -L.slipHz, slipMaxHz: L.slipHz },
     method,
     angleAxis,

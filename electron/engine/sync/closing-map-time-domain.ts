@@ -9,7 +9,7 @@ import type { ClosingMapRequest, Plant, Scenario } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { solveSharing } from '../sharing';
 import { createSimulation } from '../simulation';
-import { iecPeakFactor } from './closing-surge';
+import { iecPeakFactor, peakTorqueFactor } from './closing-surge';
 import { inWindow, setUpClosingMap } from './closing-map-grid';
 import type { ClosingMapJob } from './closing-map-grid';
 import { wrapAngleDeg } from './phasor';
@@ -60,7 +60,9 @@ export function timeDomainClosingMapJob(req: ClosingMapRequest): ClosingMapJob {
   const nA = map.anglesDeg.length;
   map.note =
     `First cycle (${(cycleS * 1000).toFixed(1)} ms) of the time-domain model after closing onto the plant's running bus ` +
-    `(${busHz.toFixed(3)} Hz, ${rest.voltageV.toFixed(1)} V at rest); peak = κ √2 × the largest symmetrical current.`;
+    `(${busHz.toFixed(3)} Hz, ${rest.voltageV.toFixed(1)} V at rest); peak = κ √2 × the largest symmetrical current. ` +
+    `The phasor model carries no DC offset, so the peak torque is the closed form (E1 E2 / X)(sin θ + 2 sin(θ/2)) at each cell's contact angle.`;
+  const pMax = (rest.voltageV / c.plant.ratedVoltageV) * (incomingV / c.plant.ratedVoltageV) / circuit.loopXPU;
   return {
     map,
     rows: map.slipsHz.length,
@@ -93,6 +95,7 @@ export function timeDomainClosingMapJob(req: ClosingMapRequest): ClosingMapJob {
           map.surgeCurrentPU[cell] = iPU;
           map.peakCurrentPU[cell] = peakPerSym * iPU;
           map.torqueStepPU[cell] = torquePU;
+          map.peakTorquePU[cell] = (pMax * peakTorqueFactor(contactDeg)) / ((busHz + s) / ratedHz);
           if (iPU > map.maxSurgeCurrentPU) map.maxSurgeCurrentPU = iPU;
           if (iPU > map.maxSurgeInWindowPU && inWindow(map, s, a)) map.maxSurgeInWindowPU = iPU;
         }

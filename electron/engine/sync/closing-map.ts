@@ -1,5 +1,5 @@
 /**
- * The closing map: surge current, peak current and torque step over a grid of phase angle (−180°…180°) ×
+ * The closing map: surge current, peak current, torque step and first-cycle peak torque over a grid of phase angle (−180°…180°) ×
  * slip (±range) at one voltage difference, with the sync-check window as a rectangle on it. Closed forms
  * (see closing-surge.ts). By default the angle axis is the angle when the close command is issued, so the
  * contacts touch 360 s t later and slip moves the picture; with `angleAxis: 'contact'` the map is the bare surge.
@@ -8,7 +8,7 @@
  * `method: 'time-domain'` runs the simulator instead (closing-map-time-domain.ts).
  */
 import type { ClosingMap, ClosingMapRequest } from '../../../shared-types';
-import { iecPeakFactor } from './closing-surge';
+import { iecPeakFactor, peakTorqueFactor } from './closing-surge';
 import { setUpClosingMap } from './closing-map-grid';
 import type { ClosingMapJob } from './closing-map-grid';
 import { timeDomainClosingMapJob } from './closing-map-time-domain';
@@ -34,6 +34,7 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
       const surge = map.surgeCurrentPU;
       const peak = map.peakCurrentPU;
       const torque = map.torqueStepPU;
+      const peakTorque = map.peakTorquePU;
       // The closed forms of closing-surge.ts, unrolled with constants hoisted: |ΔV|² = V1² + V2² − 2 V1 V2 cos θ.
       const v1 = circuit.busVoltagePU;
       const v2 = circuit.incomingVoltagePU;
@@ -59,6 +60,8 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
           surge[row + i] = iPU;
           peak[row + i] = peakPerSym * iPU;
           torque[row + i] = (pMax * Math.sin(th)) / speedPU;
+          // The peak's sin(θ/2) is not 360°-periodic: it takes the wrapped contact angle.
+          peakTorque[row + i] = (pMax * peakTorqueFactor(a + shiftDeg)) / speedPU;
           if (iPU > maxAll) maxAll = iPU;
           if (slipInWindow && iPU > maxWin && Math.abs(a) <= window.angleDeg + 1e-12) maxWin = iPU;
         }

@@ -1,11 +1,17 @@
 /**
  * Closing surge for a breaker closing at a given phase angle: the subtransient symmetrical current, its peak
- * with the IEC 60909 peak factor, and the synchronizing power and torque step on the incoming shaft.
- * Closed forms; peak factor κ from IEC 60909-0.
+ * with the IEC 60909 peak factor, the synchronizing power and torque step on the incoming shaft, and the
+ * first-cycle peak of the air-gap torque with the stator's DC offset.
+ *
+ * Sources: the peak factor κ, IEC 60909-0:2016 (eq. 55); the synchronizing power (E1 E2 / X) sin θ, Kundur, Power
+ * System Stability and Control (1994), eq. 6.2 form; the first-cycle torque of an out-of-phase close with R
+ * neglected, T(t) = (E1 E2 / X)[sin θ − sin(ωt + θ) + sin ωt], the classical result for out-of-phase
+ * synchronizing treated in the same book's chapter on subsynchronous oscillations and torsional effects
+ * (chapter 15; location from memory).
  */
 import type { BusEquivalent, ClosingSurge, SyncCase } from '../../../shared-types';
 import { busEquivalent, incomingBranch } from './bus-equivalent';
-import { deltaVMagnitude } from './phasor';
+import { deltaVMagnitude, wrapAngleDeg } from './phasor';
 import { syncBasis } from './sync-basis';
 import type { SyncBasis } from './sync-basis';
 
@@ -52,6 +58,26 @@ export function torqueStepPU(circuit: SurgeCircuit, angleAtContactDeg: number): 
   return powerStepPU(circuit, angleAtContactDeg) / circuit.speedPU;
 }
 
+/**
+ * First-cycle peak of the air-gap torque of a close at `angleDeg`, as a multiple of E1 E2 / X.
+ *
+ * With R neglected the stator's DC offset adds a torque at mains frequency to the synchronizing torque:
+ * T(t) = (E1 E2 / X)[sin θ − sin(ωt + θ) + sin ωt]. dT/dt = 0 where cos ωt = cos(ωt + θ), i.e. ωt = π − θ/2,
+ * which gives the peak (E1 E2 / X)(sin θ + 2 sin(θ/2)) = step × (1 + 1 / cos(θ/2)): twice the step at small
+ * angles, three times at 120° (where the peak itself is largest, 3√3/2 ≈ 2.60 E1 E2 / X: d/dθ = 0 at
+ * cos(θ/2) = 1/2), and 2 E1 E2 / X at 180°, where the step is zero. Odd in θ (θ wrapped to (−180°, 180°]), so its
+ * sign is the step's.
+ */
+export function peakTorqueFactor(angleDeg: number): number {
+  const th = (wrapAngleDeg(angleDeg) * Math.PI) / 180;
+  return Math.sin(th) + 2 * Math.sin(th / 2);
+}
+
+/** First-cycle peak air-gap torque on the incoming shaft, pu of its torque base: (E1 E2 / X)(sin θ + 2 sin(θ/2)) / speed. */
+export function peakTorquePU(circuit: SurgeCircuit, angleAtContactDeg: number): number {
+  return (((circuit.busVoltagePU * circuit.incomingVoltagePU) / circuit.loopXPU) * peakTorqueFactor(angleAtContactDeg)) / circuit.speedPU;
+}
+
 /** Surge current, peak, power and torque step for contact at `angleAtContactDeg` (degrees, incoming leading positive). */
 export function closingSurge(circuit: SurgeCircuit, angleAtContactDeg: number): ClosingSurge {
   const deltaVPU = deltaVMagnitude(circuit.busVoltagePU, circuit.incomingVoltagePU, angleAtContactDeg);
@@ -60,6 +86,7 @@ export function closingSurge(circuit: SurgeCircuit, angleAtContactDeg: number): 
   const peakPU = kappa * Math.SQRT2 * iPU;
   const pPU = powerStepPU(circuit, angleAtContactDeg);
   const tPU = pPU / circuit.speedPU;
+  const peakTPU = peakTorquePU(circuit, angleAtContactDeg);
   return {
     angleAtContactDeg,
     deltaVPU,
@@ -73,6 +100,8 @@ export function closingSurge(circuit: SurgeCircuit, angleAtContactDeg: number): 
     powerStepKW: pPU * circuit.incomingKVA,
     torqueStepPU: tPU,
     torqueStepKNm: tPU * circuit.torqueBaseKNm,
+    peakTorquePU: peakTPU,
+    peakTorqueKNm: peakTPU * circuit.torqueBaseKNm,
   };
 }
 
@@ -91,6 +120,8 @@ export function noSurge(circuit: SurgeCircuit, angleAtContactDeg: number): Closi
     powerStepKW: 0,
     torqueStepPU: 0,
     torqueStepKNm: 0,
+    peakTorquePU: 0,
+    peakTorqueKNm: 0,
   };
 }
 

@@ -103,6 +103,7 @@ export function evaluateSync(c: SyncCase): SyncResult {
     ...(outcome.deadLineClose ? { deadLineClose: true } : {}),
     limits: { ...L },
     limitsSource: limitsSource(c),
+    bus: { frequencyHz: c.bus.frequencyHz, voltageV: c.bus.voltageV, from: c.busFrom ?? 'given in the case' },
     busEquivalent: bus,
     base: {
       voltageV: basis.voltageV,

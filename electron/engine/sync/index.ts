@@ -3,7 +3,7 @@ export { evaluateSync } from './evaluate-sync';
 export { listSyncPresets, syncPreset, ieee1547PresetForRating } from './presets';
 export { syncCheck, sideState, DEFAULT_DEAD_PERMISSIVES } from './permissives';
 export type { SyncCheckInput, SyncCheckOutcome, SideState } from './permissives';
-export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, iecPeakFactor, noSurge } from './closing-surge';
+export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, peakTorquePU, peakTorqueFactor, iecPeakFactor, noSurge } from './closing-surge';
 export type { SurgeCircuit } from './closing-surge';
 export { busEquivalent, incomingBranch, fictitiousROverX } from './bus-equivalent';
 export type { ImpedancePU } from './bus-equivalent';
@@ -12,8 +12,8 @@ export { timeDomainClosingMapJob, TIME_DOMAIN_MAX_CELLS, TIME_DOMAIN_STEP_MS } f
 export type { ClosingMapJob } from './closing-map';
 export { syncBasis } from './sync-basis';
 export type { SyncBasis } from './sync-basis';
-export { incomingFromSet, defaultPlantBus } from './plant-case';
-export { phasorDifference, deltaVMagnitude, wrapAngleDeg } from './phasor';
+export { incomingFromSet, plantBus } from './plant-case';
+export { phasorDifference, deltaVMagnitude, wrapAngleDeg, angleAfterDeg } from './phasor';
 export type { PhasorDifference } from './phasor';
 export {
   slipPeriodS,

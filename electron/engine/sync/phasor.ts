@@ -1,12 +1,7 @@
 /** Phase-angle arithmetic and the voltage phasor across an open breaker. */
 
-/** Wraps an angle to (−180°, 180°]. */
-export function wrapAngleDeg(angleDeg: number): number {
-  let a = angleDeg % 360;
-  if (a > 180) a -= 360;
-  else if (a <= -180) a += 360;
-  return a;
-}
+// The angle wrap has one home, shared with the renderer (shared-types/angle.ts); the engine re-exports it here.
+export { wrapAngleDeg, angleAfterDeg } from '../../../shared-types/angle';
 
 /** The voltage difference across the open breaker as a phasor. */
 export interface PhasorDifference {
@@ -18,7 +13,7 @@ export interface PhasorDifference {
 
 /**
  * Phasor difference `V2∠θ − V1∠0` between the incoming voltage `v2` leading the bus voltage `v1` by `thetaDeg`.
- * Magnitude `√(V1² + V2² − 2 V1 V2 cos θ)` (law of cosines).
+ * Magnitude `√(V1² + V2² − 2 V1 V2 cos θ)` (law of cosines on the two phasors).
  * Any consistent unit (V or pu); returns the magnitude in that unit.
  */
 export function phasorDifference(v1: number, v2: number, thetaDeg: number): PhasorDifference {

@@ -4,7 +4,7 @@
  *
  * The incoming set's phase angle relative to the bus moves at `360 s` degrees per second, `s = f_in − f_bus`.
  */
-import { wrapAngleDeg } from './phasor';
+import { angleAfterDeg, wrapAngleDeg } from './phasor';
 
 /** Slip period `1 / |s|`, s; null at zero slip (the angle never moves). */
 export function slipPeriodS(slipHz: number): number | null {
@@ -63,5 +63,5 @@ export function closeCommandAngleDeg(slipHz: number, breakerClosingMs: number): 
 
 /** Angle at contact for a close command issued at `angleDeg`: `angle + 360 s t`, wrapped, degrees. */
 export function angleAtContactDeg(angleDeg: number, slipHz: number, breakerClosingMs: number): number {
-  return wrapAngleDeg(angleDeg + 360 * slipHz * (breakerClosingMs / 1000));
+  return angleAfterDeg(angleDeg, slipHz, breakerClosingMs / 1000);
 }

@@ -1,8 +1,8 @@
 /**
  * Closed-form stress of a synchronizing close on the trainer's incoming set: subtransient
- * surge current, its peak, and the synchronizing power and torque step (closed forms;
- * "Sync-check case and closing surge"), computed by the synchronizing engine's
- * `closingSurge` on the trainer's circuit (incoming X''d plus the running bus).
+ * surge current, its peak, the synchronizing power and torque step and the first-cycle peak
+ * air-gap torque, computed by the synchronizing engine's `closingSurge` on the trainer's
+ * circuit (incoming X''d plus the running bus).
  */
 import type { TrainerBus, TrainerMachine } from '../../../shared-types';
 import { closingSurge } from '../sync/closing-surge';
@@ -18,6 +18,9 @@ export interface ContactStress {
   powerStepPU: number;
   torqueStepPU: number;
   torqueStepKNm: number;
+  /** First-cycle peak air-gap torque with the DC offset, pu and kN·m (signed like the step). */
+  peakTorquePU: number;
+  peakTorqueKNm: number;
 }
 
 /** Running bus reactance referred to the incoming set's base, pu: X_bus · S_incoming / S_bus. */
@@ -33,7 +36,8 @@ export function busReactanceOnMachineBasePU(machine: TrainerMachine, bus: Traine
  * - |ΔV| = V_bus sqrt(1 + k² − 2 k cos θ) (law of cosines on the two phasors);
  * - I'' = |ΔV| / (X''d + X_bus) (symmetrical subtransient current);
  * - peak i_p = κ √2 I'' with κ = 1.02 + 0.98 e^(−3 R/X) (IEC 60909-0:2016, eq. 55);
- * - P = k V_bus² sin θ / (X''d + X_bus) (synchronizing power, Kundur 1994 eq. 6.2 form), torque T = P / ω.
+ * - P = k V_bus² sin θ / (X''d + X_bus) (synchronizing power, Kundur 1994 eq. 6.2 form), torque T = P / ω;
+ * - first-cycle peak torque (E1 E2 / X)(sin θ + 2 sin(θ/2)) / ω (see `peakTorqueFactor`).
  */
 export function contactStress(
   machine: TrainerMachine,
@@ -69,5 +73,7 @@ export function contactStress(
     powerStepPU: r.powerStepPU,
     torqueStepPU: r.torqueStepPU,
     torqueStepKNm: r.torqueStepKNm,
+    peakTorquePU: r.peakTorquePU,
+    peakTorqueKNm: r.peakTorqueKNm,
   };
 }

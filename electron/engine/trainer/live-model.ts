@@ -12,6 +12,7 @@
  */
 import type { TrainerInputs, TrainerMachine, TrainerState } from '../../../shared-types';
 import { InvalidInput } from '../errors';
+import { wrapAngleDeg } from '../sync/phasor';
 
 /** Raise/lower rate of the speed reference while a control is held, Hz/s. */
 export const SPEED_RAISE_HZ_PER_S = 0.2;
@@ -27,13 +28,6 @@ export function governorDroopPU(machine: TrainerMachine): number {
   return Math.max(machine.droopPct, 1) / 100;
 }
 
-/** Wraps an angle to (−180, 180] degrees. */
-export function wrapDeg(a: number): number {
-  let x = a % 360;
-  if (x > 180) x -= 360;
-  if (x <= -180) x += 360;
-  return x;
-}
 
 /** Bus frequency at time `tS` with its drift (two slow sines of seeded phase), Hz. */
 export function busFrequencyAt(state: TrainerState, tS: number): number {
@@ -109,7 +103,7 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
     emf += h * dEmf;
     t += h;
     fBus = busFrequencyAt(s, t);
-    angle = wrapDeg(angle + 360 * (speedPU * fr - fBus) * h);
+    angle = wrapAngleDeg(angle + 360 * (speedPU * fr - fBus) * h);
   }
 
   s.tS = t;

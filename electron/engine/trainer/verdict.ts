@@ -11,6 +11,7 @@ import type { AfterCloseOptions } from './after-close';
 import { contactStress } from './contact-stress';
 import { MACHINE_STANDARD_WINDOW } from './levels';
 import { governorDroopPU } from './live-model';
+import { wrapAngleDeg } from '../sync/phasor';
 
 const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
 const signed = (v: number, d: number): string => (v > 0 ? '+' : '') + f(v, d);
@@ -74,6 +75,7 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   const machineLimits = {
     surgeCurrentPU: edge.surgeCurrentPU,
     torqueStepPU: Math.abs(edge.torqueStepPU),
+    peakTorquePU: Math.abs(edge.peakTorquePU),
     peakCurrentPU: 0,
     peakPowerPU: 0,
     source: 'stress of a close at ±10°, +5 %, +0.067 Hz (IEEE C50.12/C50.13 synchronizing limits, from memory) on this machine',
@@ -121,11 +123,21 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   checks.push(
     { quantity: 'Surge current', unit: 'pu', value: stress.surgeCurrentPU, limit: machineLimits.surgeCurrentPU, source: 'machine limit', within: stress.surgeCurrentPU <= machineLimits.surgeCurrentPU * (1 + 1e-9) },
     { quantity: 'Torque step', unit: 'pu', value: stress.torqueStepPU, limit: machineLimits.torqueStepPU, source: 'machine limit', within: Math.abs(stress.torqueStepPU) <= machineLimits.torqueStepPU * (1 + 1e-9) },
+    {
+      quantity: 'Peak air-gap torque, first cycle',
+      unit: 'pu',
+      value: stress.peakTorquePU,
+      limit: machineLimits.peakTorquePU,
+      source: 'machine limit',
+      within: Math.abs(stress.peakTorquePU) <= machineLimits.peakTorquePU * (1 + 1e-9),
+    },
     { quantity: 'Peak current, first seconds', unit: 'pu', value: peakCurrentPU, limit: machineLimits.peakCurrentPU, source: 'machine limit (swing)', within: peakCurrentPU <= machineLimits.peakCurrentPU * (1 + 1e-9) },
     { quantity: 'Peak power swing', unit: 'pu', value: peakPowerPU, limit: machineLimits.peakPowerPU, source: 'machine limit (swing)', within: peakPowerPU <= machineLimits.peakPowerPU * (1 + 1e-9) },
   );
   const insideWindow = checks.slice(0, windowChecks).every((k) => k.within);
   const withinMachineLimits = checks.slice(windowChecks).every((k) => k.within);
+  // The three checks of the contact itself (surge, step, peak torque); the swing's two follow.
+  const closeLimitsOk = checks.slice(windowChecks, windowChecks + 3).every((k) => k.within);
 
   const ra = Math.abs(c.angleDeg) / ref.angleDeg;
   const rs = Math.abs(c.slipHz) / ref.slipHz;
@@ -144,6 +156,7 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
     const over = Math.max(
       stress.surgeCurrentPU / machineLimits.surgeCurrentPU,
       Math.abs(stress.torqueStepPU) / machineLimits.torqueStepPU,
+      Math.abs(stress.peakTorquePU) / machineLimits.peakTorquePU,
       peakCurrentPU / machineLimits.peakCurrentPU,
       peakPowerPU / machineLimits.peakPowerPU,
     );
@@ -165,21 +178,25 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
     else parts.push(`${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 3 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 3 : 1)} ${k.unit} limit.`);
   }
   parts.push(
-    `Surge ${f(stress.surgeCurrentPU, 2)} pu (${f(stress.surgeCurrentA, 0)} A) and torque step ${f(stress.torqueStepPU, 2)} pu (${f(stress.torqueStepKNm, 2)} kN·m) ` +
-      (withinMachineLimits
-        ? `are within the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu).`
-        : `exceed the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu): on a real set this strains shaft, coupling and windings and may trip the protection.`),
+    `Surge ${f(stress.surgeCurrentPU, 2)} pu (${f(stress.surgeCurrentA, 0)} A), torque step ${f(stress.torqueStepPU, 2)} pu (${f(stress.torqueStepKNm, 2)} kN·m) ` +
+      `and first-cycle peak torque ${f(stress.peakTorquePU, 2)} pu (${f(stress.peakTorqueKNm, 2)} kN·m) ` +
+      (closeLimitsOk
+        ? `are within the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu, ${f(machineLimits.peakTorquePU, 2)} pu).`
+        : `exceed the machine's limits (${f(machineLimits.surgeCurrentPU, 2)} pu, ${f(machineLimits.torqueStepPU, 2)} pu, ${f(machineLimits.peakTorquePU, 2)} pu): on a real set this strains shaft, coupling and windings and may trip the protection.`),
   );
-  const swingOver = checks.slice(windowChecks + 2).filter((k) => !k.within);
+  const swingOver = checks.slice(windowChecks + 3).filter((k) => !k.within);
   if (swingOver.length) {
     parts.push(
       `In the first seconds the set swung to ${f(peakCurrentPU, 2)} pu current and ${f(peakPowerPU, 2)} pu power against ${f(machineLimits.peakCurrentPU, 2)} and ${f(machineLimits.peakPowerPU, 2)} pu for a close at the window's edge: it was pulled into step hard.`,
     );
   }
   if (c.slipHz < 0 && Math.abs(c.angleDeg) < 90) parts.push('The incoming set was slower than the bus, so it took power from the bus at first (motoring) — reverse-power protection may see it.');
-  const lead = c.commandAngleDeg - c.angleDeg;
+  // The angle the set gained during the breaker's travel, the short way round (−34°, not 326°).
+  const travel = wrapAngleDeg(c.angleDeg - c.commandAngleDeg);
   if (Math.abs(c.slipHz) > 1e-6 && Math.abs(c.angleDeg) > 3) {
-    parts.push(`The command went at ${signed(c.commandAngleDeg, 1)}°; the breaker's ${state.level.breakerClosingMs} ms moved it ${f(Math.abs(lead), 1)}° before contact.`);
+    parts.push(
+      `The command went at ${signed(c.commandAngleDeg, 1)}°; during the breaker's ${state.level.breakerClosingMs} ms the angle moved ${signed(travel, 1)}° (the incoming set ran ${c.slipHz > 0 ? 'fast' : 'slow'}), to ${signed(c.angleDeg, 1)}° at contact.`,
+    );
   }
   if (loose.length) parts.push(`The window you set was too loose: ${loose.join('; ')}.`);
 
@@ -191,6 +208,8 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
     peakCurrentA: stress.peakCurrentA,
     torqueStepPU: stress.torqueStepPU,
     torqueStepKNm: stress.torqueStepKNm,
+    peakTorquePU: stress.peakTorquePU,
+    peakTorqueKNm: stress.peakTorqueKNm,
     machineLimits,
     checks,
     insideWindow,

@@ -100,12 +100,18 @@ describe('buildReport on the demo plant', () => {
 
   it('sync-check settings and closing map equal evaluateSync and closingMap', async () => {
     const c = edgeCase(plant, sync, 'G3');
-    const edge = await call<{ advanceAngleDeg: number; closeNow: { surgeCurrentA: number; peakCurrentA: number } }>('evaluateSync', c);
+    const edge = await call<{ advanceAngleDeg: number; closeNow: { surgeCurrentA: number; peakCurrentA: number; peakTorqueKNm: number; torqueStepKNm: number } }>(
+      'evaluateSync',
+      c,
+    );
     const t = table(report, 'sync-settings');
     const value = (label: string) => t.rows.find((r) => r[0] === label)![1];
-    // Advance angle 360 · s · t: 0.1998 Hz × 80 ms → 5.754° (closed form).
-    expectClose(value('Advance angle at the slip limit') as number, 360 * 0.999 * 0.2 * 0.08, { rel: 1e-6 }, 'advance angle');
-    expect(value('Advance angle at the slip limit')).toBe(edge.advanceAngleDeg);
+    // At the slip limit itself, not the edge case just inside it (closed form): advance 360 × 0.2 Hz × 0.08 s = 5.76°,
+    // slip period 1 / 0.2 Hz = 5.00 s.
+    expectClose(value('Advance angle at the slip limit') as number, 360 * 0.2 * 0.08, { rel: 1e-12 }, 'advance angle');
+    expectClose(value('Slip period at the slip limit') as number, 5, { rel: 1e-12 }, 'slip period');
+    expect(value('Torque step at the window edge')).toBe(edge.closeNow.torqueStepKNm);
+    expect(value('Peak air-gap torque at the window edge')).toBe(edge.closeNow.peakTorqueKNm);
     expect(value('Surge closing at the window edge')).toBe(edge.closeNow.surgeCurrentA);
     expect(value('Peak with DC offset')).toBe(edge.closeNow.peakCurrentA);
     expect(value('Breaker closing time')).toBe(80);

@@ -49,6 +49,20 @@ describe('closingMap (closed form)', () => {
     }
   });
 
+  it('carries the first-cycle peak torque layer at the contact angle, wrapped (θ + 2 sin(θ/2) is not 360°-periodic)', () => {
+    const c = mapCase();
+    const m = closingMap(request(c));
+    const circuit = surgeCircuit(c);
+    const row = m.slipsHz.findIndex((s) => Math.abs(s - 0.2) < 1e-9);
+    // Column 180 is +180° at the command: contact at 187.2°, i.e. −172.8° — the peak is negative there.
+    for (const col of [0, 60, 90, 120, 150, 180]) {
+      const expected = closingSurge(circuit, wrapAngleDeg(m.anglesDeg[col]! + 7.2));
+      // The case's incoming runs at 60.1 Hz; this row's at 60.2 Hz: torque = power / speed.
+      expectClose(at(m, m.peakTorquePU, row, col), (expected.peakTorquePU * 60.1) / 60.2, { rel: 1e-9, abs: 1e-12 });
+    }
+    expect(at(m, m.peakTorquePU, row, 180)).toBeLessThan(0);
+  });
+
   it('maps the bare contact angle with angleAxis "contact" (slip then changes only the speed)', () => {
     const c = mapCase();
     const m = closingMap(request(c, { angleAxis: 'contact' }));

@@ -1,11 +1,11 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import { closingSurge, closingSurgeForCase, iecPeakFactor, surgeCircuit, syncBasis } from '../../../electron/engine';
+import { closingSurge, closingSurgeForCase, iecPeakFactor, peakTorqueFactor, surgeCircuit, syncBasis } from '../../../electron/engine';
 import type { SurgeCircuit } from '../../../electron/engine';
 import type { SyncCase } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 
-/** Two 1000 kVA 480 V sets, X''d 0.15 each (closed form): loop 0.30 pu, R/X given as 0. */
+/** Two 1000 kVA 480 V sets, X''d 0.15 each (a worked example of our own): loop 0.30 pu, R/X given as 0. */
 function twoSets(over: Partial<SyncCase['incoming']> = {}): SyncCase {
   return {
     bus: { frequencyHz: 60, voltageV: 480 },
@@ -19,12 +19,12 @@ function twoSets(over: Partial<SyncCase['incoming']> = {}): SyncCase {
 describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
   const circuit = surgeCircuit(twoSets());
 
-  it('has the 1202.8 A base and the 0.30 pu loop (closed form, S/(√3 V))', () => {
+  it('has the 1202.8 A base and the 0.30 pu loop (closed form S/(√3 V) = 1 000 000 / (√3 × 480))', () => {
     expectClose(circuit.baseCurrentA, 1202.8, { abs: 0.05 });
     expectClose(circuit.loopXPU, 0.3, { rel: 1e-12 });
   });
 
-  // Closed form: I'' = |ΔV| / 0.30; amperes × 1202.8 A.
+  // Closed form, worked by hand: I'' = |ΔV| / 0.30 = 2 sin(θ/2) / 0.30; amperes × 1202.8 A.
   it.each([
     [10, 0.581, 699],
     [20, 1.158, 1392],
@@ -32,11 +32,11 @@ describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
   ])('closing at %s° gives %s pu, %s A', (deg, pu, amps) => {
     const s = closingSurge(circuit, deg);
     expectClose(s.surgeCurrentPU, (2 * Math.sin((deg * Math.PI) / 360)) / 0.3, { rel: 1e-12 }, 'closed form 2 sin(θ/2) / X');
-    expectClose(s.surgeCurrentPU, pu, { abs: 0.006 }, 'closed form, pu');
-    expectClose(s.surgeCurrentA, amps, { abs: 1.5 }, 'closed form, A');
+    expectClose(s.surgeCurrentPU, pu, { abs: 0.006 }, 'hand-worked pu, rounded');
+    expectClose(s.surgeCurrentA, amps, { abs: 1.5 }, 'hand-worked A, rounded');
   });
 
-  it('gives a 1.667 pu synchronizing power step at 30° ((E1 E2 / X) sin θ, closed form)', () => {
+  it('gives a 1.667 pu synchronizing power step at 30° ((E1 E2 / X) sin θ = 0.5 / 0.3, closed form)', () => {
     const s = closingSurge(circuit, 30);
     expectClose(s.powerStepPU, 0.5 / 0.3, { rel: 1e-12 });
     expectClose(s.powerStepPU, 1.667, { abs: 5e-4 });
@@ -64,6 +64,73 @@ describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
     const s = closingSurge(circuit, 20);
     expect(s.peakFactor).toBe(2);
     expectClose(s.peakCurrentA, 2 * Math.SQRT2 * s.surgeCurrentA, { rel: 1e-12 });
+  });
+});
+
+/**
+ * First-cycle air-gap torque of an out-of-phase close with the stator's DC offset, R neglected:
+ * T(t) = (E1 E2 / X)[sin θ − sin(ωt + θ) + sin ωt], peak (E1 E2 / X)(sin θ + 2 sin(θ/2)) — the classical result for
+ * out-of-phase synchronizing (Kundur, Power System Stability and Control, 1994, chapter on subsynchronous
+ * oscillations and torsional effects; location from memory). Each expected value is recomputed here: by the
+ * closed form, and independently by sampling T(t) over one cycle.
+ */
+describe('peak closing torque (first cycle, with the DC offset)', () => {
+  const circuit = surgeCircuit(twoSets());
+  const eeOverX = 1 / 0.3; // E1 = E2 = 1 pu, X = 0.30 pu
+  const rad = (d: number): number => (d * Math.PI) / 180;
+  /** Largest |T(t)| over one cycle, sampled every 0.01° of ωt: the waveform itself, not the closed form. */
+  const sampledPeak = (thetaDeg: number): number => {
+    const th = rad(thetaDeg);
+    let best = 0;
+    for (let k = 0; k <= 36000; k++) {
+      const wt = rad(k / 100);
+      const t = Math.sin(th) - Math.sin(wt + th) + Math.sin(wt);
+      if (Math.abs(t) > Math.abs(best)) best = t;
+    }
+    return best;
+  };
+
+  it.each([
+    // θ, sin θ + 2 sin(θ/2) worked by hand, peak / step
+    [10, 0.173648 + 2 * 0.087156, 2.0038],
+    [60, 0.866025 + 2 * 0.5, 2.1547],
+    [120, 0.866025 + 2 * 0.866025, 3.0],
+  ])('at %s° the peak is (E1E2/X)(sin θ + 2 sin(θ/2)) = %s × E1E2/X, %s × the step', (deg, factor, ratio) => {
+    const s = closingSurge(circuit, deg);
+    expectClose(peakTorqueFactor(deg), factor, { abs: 2e-6 }, 'closed form by hand');
+    expectClose(peakTorqueFactor(deg), sampledPeak(deg), { abs: 1e-6 }, 'largest of the sampled waveform');
+    expectClose(s.peakTorquePU, eeOverX * factor, { abs: 1e-5 });
+    expectClose(s.peakTorquePU / s.torqueStepPU, ratio, { abs: 1e-4 }, 'peak / step = 1 + 1/cos(θ/2)');
+    expectClose(s.peakTorqueKNm, s.peakTorquePU * syncBasis(twoSets()).torqueKNm, { rel: 1e-12 });
+  });
+
+  it('reads 2.15 × the step at 60° and 3.00 × at 120° (peak / step = 1 + 1/cos(θ/2))', () => {
+    expect((closingSurge(circuit, 60).peakTorquePU / closingSurge(circuit, 60).torqueStepPU).toFixed(2)).toBe('2.15');
+    expect((closingSurge(circuit, 120).peakTorquePU / closingSurge(circuit, 120).torqueStepPU).toFixed(2)).toBe('3.00');
+  });
+
+  it('is 2 E1E2/X at 180°, where the torque step reads zero', () => {
+    const s = closingSurge(circuit, 180);
+    expect(Math.abs(s.torqueStepPU)).toBeLessThan(1e-12);
+    expectClose(s.peakTorquePU, 2 * eeOverX, { rel: 1e-12 }, '0 + 2 sin 90°');
+    expectClose(sampledPeak(180), 2, { abs: 1e-9 });
+  });
+
+  it('is odd in θ, takes the wrapped angle (190° is −170°), and divides by the incoming speed', () => {
+    expectClose(closingSurge(circuit, -60).peakTorquePU, -closingSurge(circuit, 60).peakTorquePU, { rel: 1e-12 });
+    expectClose(closingSurge(circuit, 190).peakTorquePU, closingSurge(circuit, -170).peakTorquePU, { rel: 1e-12 });
+    const fast = surgeCircuit(twoSets({ frequencyHz: 60.6 }));
+    expectClose(closingSurge(fast, 60).peakTorquePU, closingSurge(circuit, 60).peakTorquePU / 1.01, { rel: 1e-12 });
+  });
+
+  it('is never smaller than the step and largest at 120° (3√3/2 E1E2/X) — property', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -180, max: 180, noNaN: true }), (a) => {
+        const s = closingSurge(circuit, a);
+        expect(Math.abs(s.peakTorquePU)).toBeGreaterThanOrEqual(Math.abs(s.torqueStepPU) - 1e-12);
+        expect(Math.abs(s.peakTorquePU)).toBeLessThanOrEqual(eeOverX * ((3 * Math.sqrt(3)) / 2) + 1e-12);
+      }),
+    );
   });
 });
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { SPEED_RAISE_HZ_PER_S, startExercise, stepTrainer, wrapDeg } from '../../../electron/engine/trainer';
+import { wrapAngleDeg as wrapDeg } from '../../../electron/engine';
+import { SPEED_RAISE_HZ_PER_S, startExercise, stepTrainer } from '../../../electron/engine/trainer';
 import type { TrainerState } from '../../../shared-types';
 import { expectClose } from '../../helpers/expect-close';
 

@@ -55,6 +55,30 @@ describe('contactStress', () => {
   });
 });
 
+describe('judgeClose: peak torque and the breaker-travel sentence', () => {
+  it('checks the first-cycle peak torque against the same quantity at the machine standard\'s window corner', () => {
+    const v = judgeClose(closedAt(30, 0.05, 0));
+    const row = v.checks.find((k) => k.quantity.startsWith('Peak air-gap torque'))!;
+    // Limit: (E1E2/X)(sin 10° + 2 sin 5°) with E2 = 1.05 (corner of ±10°, +5 %), X = 0.1875 pu — closed form.
+    const x = 0.15 + (0.15 * 500) / 2000;
+    const limit = (1.05 / x) * (Math.sin(Math.PI / 18) + 2 * Math.sin(Math.PI / 36));
+    expectClose(row.limit, limit, { rel: 1e-9 });
+    expectClose(v.peakTorquePU, row.value, { rel: 1e-12 });
+    expect(row.within).toBe(false);
+    expect(v.withinMachineLimits).toBe(false);
+    expect(v.verdict).toMatch(/first-cycle peak torque/);
+  });
+
+  it('says the angle the breaker travel moved the short way round, signed (-34°, never 326°)', () => {
+    const s = closedAt(-20, -0.425, 0);
+    const v = judgeClose({ ...s, contact: { ...s.contact!, commandAngleDeg: 14 } });
+    expect(v.verdict).toContain('the angle moved -34.0°');
+    expect(v.verdict).not.toMatch(/326/);
+    const wrapped = judgeClose({ ...s, contact: { ...s.contact!, angleDeg: -170, commandAngleDeg: 170 } });
+    expect(wrapped.verdict).toContain('the angle moved +20.0°');
+  });
+});
+
 describe('judgeClose', () => {
   it('calls a close near 0° with small slip good, with a high score', () => {
     const v = judgeClose(closedAt(1.5, 0.03, 0.5));

@@ -1,0 +1,19 @@
+/**
+ * The one home of the phase-angle laws, shared by the engine and the renderer (pure functions, no state): the wrap
+ * to (−180°, 180°] and the angle a slip carries a phasor to after a time. The engine imports them (sync, trainer,
+ * simulator); the renderer uses `angleAfterDeg` to run the scope on at 60 frames a second from the engine's last
+ * angle and slip, between two engine results, so that it computes nothing of its own.
+ */
+
+/** Wraps an angle to (−180°, 180°]: 180 stays 180, −180 becomes 180, 190 becomes −170. */
+export function wrapAngleDeg(angleDeg: number): number {
+  let a = angleDeg % 360;
+  if (a > 180) a -= 360;
+  else if (a <= -180) a += 360;
+  return a;
+}
+
+/** The angle `dtS` seconds on at slip `slipHz` (the incoming phasor gains 360 s degrees a second), wrapped. */
+export function angleAfterDeg(angleDeg: number, slipHz: number, dtS: number): number {
+  return wrapAngleDeg(angleDeg + 360 * slipHz * dtS);
+}
