@@ -143,5 +143,5 @@ describe('planDroop', () => {
       }),
       { numRuns: 40, seed: 20 },
     );
-  });
+  }, 60_000);
 });
