@@ -25,6 +25,18 @@ describe('droopline plan', () => {
     expect(io.stdout()).toContain('NO SETTING MEETS THE BANDS');
   });
 
+  it('keeps the settings named by --fix', async () => {
+    const io = memoryIO(files());
+    const code = await runCli(['plan', 'plant.json', '--hz-band', '49,51', '--v-band', '380,420', '--loads', '0,90', '--fix', 'G2.droopPct', '--json'], io);
+    expect(code).toBe(0);
+    const out = JSON.parse(io.stdout()) as { settings: { droopPct: number }[] };
+    // G2's speed droop is 4 % in the demo plant, so every droop set gets 4 %.
+    expect(out.settings.map((s) => s.droopPct)).toEqual([4, 4, 4]);
+    const bad = memoryIO(files());
+    expect(await runCli(['plan', 'plant.json', '--hz-band', '49,51', '--v-band', '380,420', '--fix', 'G2.speed'], bad)).toBe(2);
+    expect(bad.stderr()).toContain('--fix: "G2.speed" must be SET.FIELD');
+  });
+
   it('exits 2 naming the flag for a malformed band', async () => {
     const io = memoryIO(files());
     expect(await runCli(['plan', 'plant.json', '--hz-band', '50', '--v-band', '380,420'], io)).toBe(2);

@@ -1,5 +1,5 @@
 /**
- * `droopline plan plant.json --hz-band LO,HI --v-band LO,HI [--loads 0,100] [--pf 0.8] [--json]`:
+ * `droopline plan plant.json --hz-band LO,HI --v-band LO,HI [--loads 0,100] [--pf 0.8] [--fix SET.FIELD,…] [--json]`:
  * droop and no-load settings that share in proportion and hold the bands. Exit 3 with the
  * reasons when no setting meets them.
  */
@@ -55,11 +55,27 @@ function table(r: PlanResult): string {
   );
 }
 
+const FIELDS = ['droopPct', 'noLoadHz', 'reactiveDroopPct', 'noLoadV'] as const;
+type Field = (typeof FIELDS)[number];
+
+/** `--fix G1.droopPct,G2.noLoadV`: settings kept as they are. */
+function fixedFlag(value: string | true | undefined): { setId: string; fields: Field[] }[] | undefined {
+  if (value === undefined) return undefined;
+  if (value === true) throw new CliInputError('--fix: needs SET.FIELD[,SET.FIELD…]');
+  return value.split(',').map((item) => {
+    const dot = item.lastIndexOf('.');
+    const setId = item.slice(0, dot).trim();
+    const field = item.slice(dot + 1).trim();
+    if (dot <= 0 || !(FIELDS as readonly string[]).includes(field)) throw new CliInputError(`--fix: "${item}" must be SET.FIELD with FIELD one of ${FIELDS.join(', ')}`);
+    return { setId, fields: [field as Field] };
+  });
+}
+
 export const planCommand: CliCommand = {
   name: 'plan',
   summary: 'droop and no-load settings for proportional sharing inside a frequency and voltage band',
-  usage: 'droopline plan plant.json --hz-band LO,HI --v-band LO,HI [--loads 0,100] [--pf 0.8] [--json]',
-  valueFlags: ['hz-band', 'v-band', 'loads', 'pf'],
+  usage: 'droopline plan plant.json --hz-band LO,HI --v-band LO,HI [--loads 0,100] [--pf 0.8] [--fix SET.FIELD,…] [--json]',
+  valueFlags: ['hz-band', 'v-band', 'loads', 'pf', 'fix'],
   async run(args, io) {
     const plant = await readJson(io, args.positional[0], 'plant');
     const frequencyBandHz = pairFlag(args, 'hz-band');
@@ -68,7 +84,8 @@ export const planCommand: CliCommand = {
     if (!voltageBandV) throw new CliInputError('--v-band: is required (LO,HI in V)');
     const loadRangePct = pairFlag(args, 'loads');
     const pf = numberFlag(args, 'pf');
-    const request = { plant, frequencyBandHz, voltageBandV, ...(loadRangePct ? { loadRangePct } : {}), ...(pf === undefined ? {} : { pf }) };
+    const fixed = fixedFlag(args.flags.get('fix'));
+    const request = { plant, frequencyBandHz, voltageBandV, ...(loadRangePct ? { loadRangePct } : {}), ...(pf === undefined ? {} : { pf }), ...(fixed ? { fixed } : {}) };
     const r = await callEngine(io, 'planDroop', request);
     if (!r.ok) return r.exitCode;
     io.out(args.flags.has('json') ? JSON.stringify(toJson(r.value), null, 2) + '\n' : table(r.value));

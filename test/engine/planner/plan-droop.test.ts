@@ -82,6 +82,18 @@ describe('planDroop', () => {
     expectClose(f.shortBy, 0.15, { abs: 1e-6 }, 'short by (the swing centred: 0.3 / 2 each side)');
   });
 
+  it('planDroop says the voltage band cannot be met when the feeders alone swing the bus more than it allows', () => {
+    // Demo plant over 0–95 %: the smallest common slope (every set at least 1 % reactive droop plus its
+    // feeder) swings the bus several volts; a 2 V band cannot hold it.
+    const r = planDroop({ plant: demoPlant(), frequencyBandHz: { min: 49.5, max: 50.5 }, voltageBandV: { min: 399, max: 401 }, loadRangePct: { min: 0, max: 95 } });
+    expect(r.feasible).toBe(false);
+    const v = r.bands.find((b) => b.quantity === 'voltage')!;
+    expect(v.met).toBe(false);
+    expect(v.shortBy).toBeGreaterThan(0);
+    expect(r.reasons.join(' ')).toContain('Voltage band');
+    expect(r.bands.find((b) => b.quantity === 'frequency')!.met).toBe(true);
+  });
+
   it('planDroop keeps a fixed droop and matches the others to it', () => {
     const plant = makePlant([rawSet('A', { governor: { mode: 'droop', droopPct: 3, noLoadHz: 51.5 } }), rawSet('B')]);
     const r = planDroop({ plant, frequencyBandHz: { min: 49, max: 51 }, voltageBandV: { min: 380, max: 420 }, loadRangePct: { min: 0, max: 90 }, fixed: [{ setId: 'A', fields: ['droopPct'] }] });
