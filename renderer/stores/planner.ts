@@ -6,7 +6,7 @@
  */
 import { defineStore } from 'pinia';
 import { ref, shallowRef, watch } from 'vue';
-import type { Band, PlanResult, Plant, SensitivityResult, ToleranceDistribution, ToleranceResult } from '../../shared-types';
+import type { Band, PlanField, PlanResult, Plant, SensitivityResult, ToleranceDistribution, ToleranceResult } from '../../shared-types';
 import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
 import type { PlantDraft } from './plant-draft';
@@ -71,6 +71,10 @@ export const usePlannerStore = defineStore('planner', () => {
   const vBand = ref<Band>({ min: 390, max: 410 });
   const loadRange = ref<Band>({ min: 0, max: 100 });
   const pf = ref(0.8);
+  /** Settings to keep as they are, by set id. */
+  const fixed = ref<Record<string, PlanField[]>>({});
+  /** Tolerance samples at the plant's own loads, or each drawn over the load range above. */
+  const toleranceOver = ref<'plant' | 'range'>('plant');
   /** The plant the bands were last defaulted for (ratings change → new defaults). */
   let bandsFor: string | null = null;
 
@@ -120,7 +124,17 @@ export const usePlannerStore = defineStore('planner', () => {
     planError.value = null;
     applied.value = false;
     try {
-      plan.value = await engine().call('planDroop', { plant: p, frequencyBandHz: { ...hzBand.value }, voltageBandV: { ...vBand.value }, loadRangePct: { ...loadRange.value }, pf: pf.value });
+      const keep = Object.entries(fixed.value)
+        .filter(([id, fields]) => fields.length > 0 && p.sets.some((s) => s.id === id))
+        .map(([setId, fields]) => ({ setId, fields: [...fields] }));
+      plan.value = await engine().call('planDroop', {
+        plant: p,
+        frequencyBandHz: { ...hzBand.value },
+        voltageBandV: { ...vBand.value },
+        loadRangePct: { ...loadRange.value },
+        pf: pf.value,
+        ...(keep.length ? { fixed: keep } : {}),
+      });
       planFor.value = p;
       planState.value = 'done';
     } catch (e) {
@@ -158,7 +172,7 @@ export const usePlannerStore = defineStore('planner', () => {
   async function runTolerance(): Promise<void> {
     const p = plantStore.plant;
     if (!p) return;
-    const problem = toleranceInputProblem(tolerance.value);
+    const problem = toleranceInputProblem(tolerance.value) ?? (toleranceOver.value === 'range' ? planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value) : null);
     if (problem) {
       toleranceError.value = problem;
       toleranceState.value = 'error';
@@ -171,7 +185,8 @@ export const usePlannerStore = defineStore('planner', () => {
     toleranceProgress.value = 0;
     toleranceError.value = null;
     try {
-      const r = await engine().call('toleranceAnalysis', { plant: p, ...tolerance.value }, { signal: abort.signal, onProgress: (f) => (toleranceProgress.value = f) });
+      const over = toleranceOver.value === 'range' ? { loadRangePct: { ...loadRange.value }, pf: pf.value } : {};
+      const r = await engine().call('toleranceAnalysis', { plant: p, ...tolerance.value, ...over }, { signal: abort.signal, onProgress: (f) => (toleranceProgress.value = f) });
       if (toleranceAbort !== abort) return;
       toleranceResult.value = r;
       toleranceState.value = 'done';
@@ -196,6 +211,8 @@ export const usePlannerStore = defineStore('planner', () => {
     vBand,
     loadRange,
     pf,
+    fixed,
+    toleranceOver,
     plan,
     planFor,
     planState,

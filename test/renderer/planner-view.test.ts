@@ -58,6 +58,30 @@ describe('Planner view', () => {
     expect(plant.plant!.sets[1]!.regulator.droopPct).toBe(before);
   });
 
+  it('keeps the settings ticked under "Keep as they are" and plans the rest around them', async () => {
+    const planner = usePlannerStore();
+    planner.loadRange = { min: 0, max: 90 };
+    planner.hzBand = { min: 49, max: 51 };
+    await w.get('[data-test="keep-G2-droopPct"]').setValue(true);
+    await planner.runPlan();
+    await settle();
+    // G2's speed droop is 4 % in the demo plant: every droop set gets 4 % to share in proportion.
+    expect(planner.plan!.settings.map((s) => s.droopPct)).toEqual([4, 4, 4]);
+  });
+
+  it('draws the tolerance samples over the load range when asked', async () => {
+    const planner = usePlannerStore();
+    planner.tolerance.samples = 200;
+    planner.loadRange = { min: 20, max: 80 };
+    planner.toleranceOver = 'range';
+    await planner.runTolerance();
+    await settle();
+    expect(planner.toleranceState).toBe('done');
+    // Loading of G1 spreads over most of the 20–80 % range (it is drawn, not fixed).
+    const g1 = planner.toleranceResult!.sets[0]!.loadingPct;
+    expect(g1.max - g1.min).toBeGreaterThan(40);
+  });
+
   it('refuses a band upside down with words, not field names, and keeps the plant', async () => {
     const planner = usePlannerStore();
     planner.hzBand = { min: 51, max: 49 };
