@@ -11,6 +11,7 @@ import type { ProgressEvent } from './progress';
 import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject, Project } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
+import type { PlanRequest, PlanResult, SensitivityRequest, SensitivityResult, ToleranceRequest, ToleranceResult } from './planner';
 
 /** A method's request and response types. */
 export interface Method<Req, Res> {
@@ -50,6 +51,12 @@ export interface EngineApi {
   serializeProject: Method<{ project: Project }, { text: string }>;
   /** The printable plant report (HTML with inline SVG) and its tables and charts (long; progress). */
   buildReport: Method<BuildReportRequest, ReportResult>;
+  /** Droop and no-load settings for proportional sharing inside the bands, checked through the solver. */
+  planDroop: Method<PlanRequest, PlanResult>;
+  /** kW and kVAR per 0.1 Hz and per 1 % of setpoint error on each set, at the operating point. */
+  sharingSensitivity: Method<SensitivityRequest, SensitivityResult>;
+  /** Seeded Monte-Carlo of setpoint and droop tolerances (long; progress). */
+  toleranceAnalysis: Method<ToleranceRequest, ToleranceResult>;
 }
 
 /** A method name, which is also its channel name. */
@@ -74,6 +81,9 @@ export const ENGINE_METHODS = [
   'parseProject',
   'serializeProject',
   'buildReport',
+  'planDroop',
+  'sharingSensitivity',
+  'toleranceAnalysis',
 ] as const satisfies readonly EngineMethod[];
 
 /** Events the host pushes to the renderer; keys are channel names. */

@@ -12,5 +12,6 @@ export type * from './bridge';
 export type * from './trainer';
 export * from './project';
 export type * from './report';
+export type * from './planner';
 export * from './host-api';
 export * from './presentation';

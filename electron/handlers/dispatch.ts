@@ -13,6 +13,7 @@ import { simulationHandlers } from './simulation-handlers';
 import { trainerHandlers } from './trainer-handlers';
 import { projectHandlers } from './project-handlers';
 import { reportHandlers } from './report-handlers';
+import { plannerHandlers } from './planner-handlers';
 import { parseOrThrow, ValidationError } from './validate';
 
 /** Every contract method mapped to its schema and engine call. */
@@ -24,6 +25,7 @@ export const handlers: HandlerTable = {
   ...trainerHandlers,
   ...projectHandlers,
   ...reportHandlers,
+  ...plannerHandlers,
 };
 
 /** The outcome of a call, as it crosses a process or worker boundary. */

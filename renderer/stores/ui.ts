@@ -6,6 +6,7 @@ import { ref, watch } from 'vue';
 export const VIEWS = [
   { id: 'plant', label: 'Plant' },
   { id: 'sharing', label: 'Sharing' },
+  { id: 'planner', label: 'Planner' },
   { id: 'synchronizing', label: 'Synchronizing' },
   { id: 'transients', label: 'Transients' },
   { id: 'trainer', label: 'Trainer' },

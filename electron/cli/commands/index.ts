@@ -1,9 +1,11 @@
 /** Every CLI sub-command. Add a command by adding its module here. */
 import type { CliCommand } from '../io';
 import { describeCommand } from './describe';
+import { planCommand } from './plan';
 import { reportCommand } from './report';
 import { simulateCommand } from './simulate';
 import { solveCommand } from './solve';
 import { syncCommand } from './sync';
+import { toleranceCommand } from './tolerance';
 
-export const commands: CliCommand[] = [describeCommand, reportCommand, simulateCommand, solveCommand, syncCommand];
+export const commands: CliCommand[] = [describeCommand, planCommand, reportCommand, simulateCommand, solveCommand, syncCommand, toleranceCommand];

@@ -1,0 +1,32 @@
+/**
+ * Mean, standard deviation, percentiles and histogram of one figure over the samples.
+ * Statistics from simple-statistics (a well-kept library whose quantile rule is documented:
+ * `quantileSorted`); the sample standard deviation divides by n − 1.
+ */
+import { mean, quantileSorted, sampleStandardDeviation } from 'simple-statistics';
+import type { Distribution } from '../../../shared-types';
+
+/** Summary of `values` (the first `count` entries are used; at least one). */
+export function summarise(values: Float64Array, count: number, bins: number): Distribution {
+  const sorted = Array.from(values.subarray(0, count)).sort((a, b) => a - b);
+  const min = sorted[0]!;
+  const max = sorted[count - 1]!;
+  // A figure that does not move gets one narrow bin span around its value.
+  const half = max > min ? 0 : Math.max(Math.abs(min) * 1e-6, 1e-9);
+  const lo = min - half;
+  const hi = max + half;
+  const edges = Array.from({ length: bins + 1 }, (_, k) => lo + ((hi - lo) * k) / bins);
+  const counts = new Array<number>(bins).fill(0);
+  for (const v of sorted) counts[Math.min(bins - 1, Math.floor(((v - lo) / (hi - lo)) * bins))]! += 1;
+  return {
+    mean: mean(sorted),
+    std: count > 1 ? sampleStandardDeviation(sorted) : 0,
+    p5: quantileSorted(sorted, 0.05),
+    p50: quantileSorted(sorted, 0.5),
+    p95: quantileSorted(sorted, 0.95),
+    min,
+    max,
+    edges,
+    counts,
+  };
+}

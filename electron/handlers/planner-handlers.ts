@@ -1,0 +1,89 @@
+/**
+ * Handlers for the droop planner, the sensitivity matrix and the setpoint-tolerance analysis.
+ * The tolerance run goes in chunks of samples with progress and cancel.
+ */
+import { z } from 'zod';
+import { Cancelled, createToleranceRun, planDroop, sharingSensitivity } from '../engine';
+import type { ToleranceRequest } from '../../shared-types';
+import { breathe } from './handler';
+import type { HandlerContext, HandlerGroup } from './handler';
+import { plantSchema } from './plant-schema';
+import { loadOverrideSchema } from './sharing-handlers';
+
+const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
+
+/** A min–max band whose min is below its max. */
+const band = (unit: string) =>
+  z
+    .object({ min: num(unit), max: num(unit) })
+    .strict()
+    .refine((b) => b.min < b.max, { message: 'min must be below max', path: ['max'] });
+
+const pfSchema = z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less');
+
+const loadRangeSchema = band('%').refine((b) => b.min >= 0 && b.max <= 200, { message: 'must lie within 0–200 %', path: ['max'] });
+
+/** Request of `planDroop`. */
+export const planRequestSchema = z
+  .object({
+    plant: plantSchema,
+    frequencyBandHz: band('Hz').refine((b) => b.min > 0, { message: 'must be above 0 Hz', path: ['min'] }),
+    voltageBandV: band('V').refine((b) => b.min > 0, { message: 'must be above 0 V', path: ['min'] }),
+    loadRangePct: loadRangeSchema.optional(),
+    pf: pfSchema.optional(),
+    fixed: z
+      .array(z.object({ setId: z.string({ error: 'must be a set id' }), fields: z.array(z.enum(['droopPct', 'noLoadHz', 'reactiveDroopPct', 'noLoadV'], { error: 'must be droopPct, noLoadHz, reactiveDroopPct or noLoadV' })) }).strict())
+      .optional(),
+    limits: z
+      .object({
+        speedDroopPct: band('%').refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] }).optional(),
+        reactiveDroopPct: band('%').refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] }).optional(),
+        noLoadHzPct: band('%').optional(),
+        noLoadVPct: band('%').optional(),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict();
+
+/** Request of `sharingSensitivity`. */
+export const sensitivityRequestSchema = z.object({ plant: plantSchema, load: loadOverrideSchema.optional() }).strict();
+
+/** Request of `toleranceAnalysis`. */
+export const toleranceRequestSchema = z
+  .object({
+    plant: plantSchema,
+    samples: z.number({ error: 'must be a number' }).int('must be a whole number').gte(10, 'must be 10 or more').lte(1_000_000, 'must be 1 000 000 or fewer').optional(),
+    seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(2 ** 31 - 1, 'must be below 2³¹').optional(),
+    speedTolHz: num('Hz').refine((v) => v >= 0 && v <= 5, 'must be 0–5 Hz').optional(),
+    voltageTolPct: num('%').refine((v) => v >= 0 && v <= 20, 'must be 0–20 %').optional(),
+    droopTolPct: num('%').refine((v) => v >= 0 && v < 50, 'must be 0 % or more and below 50 %').optional(),
+    distribution: z.enum(['uniform', 'normal'], { error: 'must be uniform or normal' }).optional(),
+    load: loadOverrideSchema.optional(),
+    loadRangePct: loadRangeSchema.optional(),
+    pf: pfSchema.optional(),
+    bins: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(200, 'must be 200 or fewer').optional(),
+  })
+  .strict()
+  .refine((r) => !(r.load && r.loadRangePct), { message: 'give either load or loadRangePct, not both', path: ['loadRangePct'] });
+
+/** Samples run between progress reports and cancel checks. */
+export const SAMPLES_PER_CHUNK = 250;
+
+async function runTolerance(req: ToleranceRequest, ctx: HandlerContext) {
+  const run = createToleranceRun(req);
+  ctx.progress(0, 'tolerance samples');
+  while (run.done < run.total) {
+    if (ctx.signal.aborted) throw new Cancelled('The tolerance analysis was cancelled.');
+    run.step(SAMPLES_PER_CHUNK);
+    ctx.progress(run.done / run.total, 'tolerance samples');
+    if (run.done < run.total) await breathe();
+  }
+  return run.result();
+}
+
+export const plannerHandlers: HandlerGroup<'planDroop' | 'sharingSensitivity' | 'toleranceAnalysis'> = {
+  planDroop: { schema: planRequestSchema, run: (r) => planDroop(r) },
+  sharingSensitivity: { schema: sensitivityRequestSchema, run: ({ plant, load }) => sharingSensitivity(plant, load) },
+  toleranceAnalysis: { schema: toleranceRequestSchema, run: runTolerance },
+};

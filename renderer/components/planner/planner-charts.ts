@@ -1,0 +1,103 @@
+/**
+ * Chart.js configurations of the Planner view: each set's droop line now and as proposed, the
+ * bus across the load range against the band, and a histogram of one tolerance figure. Pure.
+ */
+import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
+import type { Band, Distribution, PlanCheck, Plant } from '../../../shared-types';
+import { reactiveDroopLine, speedDroopLine } from '../charts/droop-lines';
+import type { XY } from '../charts/droop-lines';
+import { seriesStyle, withAlpha } from '../charts/series-style';
+import type { ChartTheme } from '../charts/theme';
+
+function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
+  return { type: 'linear', title: { display: true, text: title, color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid }, border: { color: theme.grid } } as ScaleOptions<'linear'>;
+}
+
+const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
+
+/** Droop lines of the online sets, now (thin, faded) and proposed (heavy). */
+export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed: Plant, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
+  const datasets: ChartDataset<'scatter', XY[]>[] = [];
+  now.sets.forEach((s, i) => {
+    if (!s.online) return;
+    const st = seriesStyle(i, theme);
+    for (const [plant, when] of [[now, 'now'], [proposed, 'proposed']] as const) {
+      const set = plant.sets[i]!;
+      const qTop = set.ratedKVA * Math.sqrt(1 - set.ratedPF * set.ratedPF);
+      const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
+      if (c.kind !== 'segment') continue;
+      datasets.push({
+        label: `${s.id} ${when}`,
+        data: c.points,
+        showLine: true,
+        borderColor: when === 'now' ? withAlpha(st.color, 0.45) : st.color,
+        backgroundColor: st.color,
+        borderDash: when === 'now' ? [3, 3] : st.dash,
+        borderWidth: when === 'now' ? 1.2 : 2.5,
+        pointRadius: 0,
+        pointStyle: st.pointStyle,
+      });
+    }
+  });
+  const x = kind === 'speed' ? 'output, kW' : 'reactive output, kVAR';
+  const y = kind === 'speed' ? 'frequency, Hz' : 'terminal voltage, V';
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: { animation: false, responsive: true, maintainAspectRatio: false, scales: { x: axis(theme, x), y: axis(theme, y) }, plugins: { legend: legend(theme) } },
+  };
+}
+
+/** The bus across the load range, now and proposed, with the band drawn as two lines. */
+export function busAcrossChart(quantity: 'frequency' | 'voltage', now: PlanCheck, proposed: PlanCheck, band: Band, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
+  const pick = (c: PlanCheck): XY[] =>
+    c.points.flatMap((p) => {
+      const y = quantity === 'frequency' ? p.frequencyHz : p.voltageV;
+      return y === null ? [] : [{ x: p.loadPct, y }];
+    });
+  const edge = (y: number, text: string) => ({
+    type: 'line' as const,
+    yMin: y,
+    yMax: y,
+    borderColor: theme.bad,
+    borderWidth: 1.5,
+    borderDash: [6, 3],
+    label: { display: true, content: text, position: 'end' as const, backgroundColor: theme.panel, color: theme.fg, font: { size: 11 }, padding: 3 },
+  });
+  const unit = quantity === 'frequency' ? 'Hz' : 'V';
+  return {
+    type: 'scatter',
+    data: {
+      datasets: [
+        { label: 'now', data: pick(now), showLine: true, borderColor: theme.muted, backgroundColor: theme.muted, borderDash: [3, 3], borderWidth: 1.5, pointStyle: 'rect', pointRadius: 4 },
+        { label: 'proposed', data: pick(proposed), showLine: true, borderColor: theme.accent, backgroundColor: theme.accent, borderWidth: 2.5, pointStyle: 'circle', pointRadius: 4 },
+      ],
+    },
+    options: {
+      animation: false,
+      responsive: true,
+      maintainAspectRatio: false,
+      scales: { x: axis(theme, 'load, % of online rated kW'), y: axis(theme, `bus ${quantity}, ${unit}`) },
+      plugins: { legend: legend(theme), annotation: { annotations: { lo: edge(band.min, `band min ${band.min.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`), hi: edge(band.max, `band max ${band.max.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`) } } },
+    },
+  };
+}
+
+/** A histogram of one tolerance figure, with its 5th and 95th percentiles marked. */
+export function histogramChart(d: Distribution, title: string, digits: number, theme: ChartTheme): ChartConfiguration<'bar', number[], string> {
+  const labels = d.counts.map((_, k) => ((d.edges[k]! + d.edges[k + 1]!) / 2).toFixed(digits));
+  return {
+    type: 'bar',
+    data: { labels, datasets: [{ label: 'samples', data: d.counts, backgroundColor: withAlpha(theme.accent, 0.7), borderColor: theme.accent, borderWidth: 1 }] },
+    options: {
+      animation: false,
+      responsive: true,
+      maintainAspectRatio: false,
+      scales: {
+        x: { title: { display: true, text: title, color: theme.fg }, ticks: { color: theme.muted, maxRotation: 0, autoSkip: true }, grid: { display: false } },
+        y: { title: { display: true, text: 'samples', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
+      },
+      plugins: { legend: { display: false } },
+    },
+  };
+}

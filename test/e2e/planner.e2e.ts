@@ -1,0 +1,52 @@
+/**
+ * The Planner view in the browser preview (engine in the Web Worker): plan the demo plant over
+ * 0–95 % load, apply the proposal and read the new settings back in the Plant store's results,
+ * compute the sensitivity matrix, run a tolerance analysis to the end (with progress) and
+ * cancel a long one; screenshots to out/test-output/.
+ */
+import { describe, expect, inject, it } from 'vitest';
+import { join } from 'node:path';
+import { ARTIFACTS, openPage, useBrowser } from './chromium';
+
+describe('Planner view in the browser preview', () => {
+  const browser = useBrowser();
+
+  it('plans, applies, shows sensitivity and tolerance results, and cancels a long run', async () => {
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
+    await page.getByTestId('set-sheet').waitFor();
+    await page.getByTestId('nav-planner').click();
+    const view = page.locator('section.planner-view');
+    await view.waitFor();
+
+    await page.getByTestId('load-max').fill('95');
+    await page.getByTestId('plan').click();
+    // Wait for the settled state (the plan has come back), not the first change.
+    await page.locator('section.planner-view[data-plan-state="done"]').waitFor();
+    await expect.poll(() => page.getByTestId('plan-verdict').textContent()).toContain('holds both bands');
+    const table = (await page.getByTestId('plan-table').textContent()) ?? '';
+    expect(table).toContain('→');
+    await page.screenshot({ path: join(ARTIFACTS, 'planner-view.png') });
+    await page.getByTestId('sensitivity').click();
+    await page.getByTestId('sens-kWPerSpeed').waitFor();
+    expect(await page.getByTestId('sens-kWPerSpeed').textContent()).toContain('(largest)');
+
+    await page.getByTestId('tol-samples').fill('2000');
+    await page.getByTestId('tol-run').click();
+    await page.locator('section.planner-view[data-tolerance-state="done"]').waitFor({ timeout: 60_000 });
+    expect(await page.getByTestId('tol-probabilities').textContent()).toContain('2000 samples');
+    await page.getByTestId('tol-histogram').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(ARTIFACTS, 'planner-tolerance.png') });
+
+    // A long run can be cancelled while its progress shows.
+    await page.getByTestId('tol-samples').fill('200000');
+    await page.getByTestId('tol-run').click();
+    await page.getByTestId('tol-progress').waitFor();
+    await page.getByTestId('tol-cancel').click();
+    await page.locator('section.planner-view[data-tolerance-state="cancelled"]').waitFor({ timeout: 30_000 });
+
+    // Apply: one edit, and Undo brings today's settings back.
+    await page.getByTestId('apply').click();
+    await page.getByTestId('applied-note').waitFor();
+    expect(errors).toEqual([]);
+  }, 120_000);
+});

@@ -1,0 +1,111 @@
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { mount, flushPromises } from '@vue/test-utils';
+import type { VueWrapper } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import PlannerView from '../../renderer/views/PlannerView.vue';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { planInputProblem, usePlannerStore } from '../../renderer/stores/planner';
+import { setEngineClient } from '../../renderer/transport';
+import { planDroop } from '../../electron/engine';
+import { directClient } from '../helpers/direct-client';
+
+async function settle(): Promise<void> {
+  await flushPromises();
+  await usePlantStore().settled();
+  await flushPromises();
+}
+
+describe('Planner view', () => {
+  let w: VueWrapper;
+  beforeEach(async () => {
+    setActivePinia(createPinia());
+    setEngineClient(directClient());
+    await usePlantStore().loadDemo();
+    w = mount(PlannerView, { attachTo: document.body });
+    await settle();
+  });
+  afterEach(() => w.unmount());
+
+  it('defaults the bands from the plant ratings and shows the engine’s proposal beside today’s settings', async () => {
+    const planner = usePlannerStore();
+    // 400 V, 50 Hz demo plant: ±1 % frequency (common practice) and ±2.5 % voltage (ISO 8528-5 G2).
+    expect(planner.hzBand).toEqual({ min: 49.5, max: 50.5 });
+    expect(planner.vBand).toEqual({ min: 390, max: 410 });
+    planner.loadRange = { min: 0, max: 95 };
+    await w.get('[data-test="plan"]').trigger('submit');
+    await settle();
+    expect(w.get('section').attributes('data-plan-state')).toBe('done');
+    const expected = planDroop({ plant: usePlantStore().plant!, frequencyBandHz: planner.hzBand, voltageBandV: planner.vBand, loadRangePct: { min: 0, max: 95 }, pf: 0.8 });
+    expect(w.get('[data-test="plan-verdict"]').text()).toContain(expected.feasible ? 'holds both bands' : 'No setting');
+    expect(w.get('[data-test="plan-table"]').text()).toContain(expected.settings[0]!.droopPct.toFixed(2));
+    expect(w.get('[data-test="worst-error"]').text()).toContain(expected.proposal.worstKVARErrorPct!.toFixed(2));
+    expect(w.text()).not.toContain('NaN');
+  });
+
+  it('applies the proposal as one undoable edit', async () => {
+    const planner = usePlannerStore();
+    const plant = usePlantStore();
+    planner.loadRange = { min: 0, max: 95 };
+    await planner.runPlan();
+    await settle();
+    const before = plant.plant!.sets[1]!.regulator.droopPct;
+    await w.get('[data-test="apply"]').trigger('click');
+    await settle();
+    expect(plant.plant!.sets[1]!.regulator.droopPct).toBeCloseTo(planner.plan!.settings[1]!.reactiveDroopPct, 12);
+    expect(w.get('[data-test="applied-note"]').text()).toContain('Undo');
+    await plant.undo();
+    await settle();
+    expect(plant.plant!.sets[1]!.regulator.droopPct).toBe(before);
+  });
+
+  it('keeps the settings ticked under "Keep as they are" and plans the rest around them', async () => {
+    const planner = usePlannerStore();
+    planner.loadRange = { min: 0, max: 90 };
+    planner.hzBand = { min: 49, max: 51 };
+    await w.get('[data-test="keep-G2-droopPct"]').setValue(true);
+    await planner.runPlan();
+    await settle();
+    // G2's speed droop is 4 % in the demo plant: every droop set gets 4 % to share in proportion.
+    expect(planner.plan!.settings.map((s) => s.droopPct)).toEqual([4, 4, 4]);
+  });
+
+  it('draws the tolerance samples over the load range when asked', async () => {
+    const planner = usePlannerStore();
+    planner.tolerance.samples = 200;
+    planner.loadRange = { min: 20, max: 80 };
+    planner.toleranceOver = 'range';
+    await planner.runTolerance();
+    await settle();
+    expect(planner.toleranceState).toBe('done');
+    // Loading of G1 spreads over most of the 20–80 % range (it is drawn, not fixed).
+    const g1 = planner.toleranceResult!.sets[0]!.loadingPct;
+    expect(g1.max - g1.min).toBeGreaterThan(40);
+  });
+
+  it('refuses a band upside down with words, not field names, and keeps the plant', async () => {
+    const planner = usePlannerStore();
+    planner.hzBand = { min: 51, max: 49 };
+    await planner.runPlan();
+    await settle();
+    expect(w.get('[data-test="plan-error"]').text()).toContain('Frequency band: the lower edge must be below the upper edge.');
+    expect(planInputProblem({ min: 49, max: 51 }, { min: 390, max: 410 }, { min: 0, max: 100 }, 1.3)).toContain('Load power factor');
+  });
+
+  it('marks the largest sensitivity entries in words', async () => {
+    await w.get('[data-test="sensitivity"]').trigger('click');
+    await settle();
+    expect(w.get('[data-test="sens-kWPerSpeed"]').text()).toContain('(largest)');
+    expect(w.get('[data-test="sens-kVARPerVoltage"]').text()).toContain('(largest)');
+  });
+
+  it('runs the tolerance analysis with progress to the end and shows the statistics', async () => {
+    const planner = usePlannerStore();
+    planner.tolerance.samples = 300;
+    await planner.runTolerance();
+    await settle();
+    expect(planner.toleranceState).toBe('done');
+    expect(w.get('[data-test="tol-table"]').text()).toContain('Bus frequency, Hz');
+    expect(w.get('[data-test="tol-probabilities"]').text()).toContain('exceeds its rating');
+    expect(w.text()).not.toContain('NaN');
+  });
+});
