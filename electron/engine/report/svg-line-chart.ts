@@ -43,7 +43,7 @@ export interface LineChartSpec {
 }
 
 /** Print-safe colours (the app's light palette) and dash patterns, cycled together. */
-export const SERIES_COLOURS = ['#1f6f8b', '#c26a1b', '#6b4c9a', '#2e7d32', '#8d2f4f', '#5b6670'] as const;
+export const SERIES_COLOURS = ['#1f6f8b', '#a85a12', '#6b4c9a', '#2e7d32', '#8d2f4f', '#5b6670'] as const;
 export const SERIES_DASHES = ['', '7 4', '2 3', '9 3 2 3', '4 2', '12 4'] as const;
 export const SERIES_MARKERS: readonly MarkerShape[] = ['circle', 'square', 'triangle', 'diamond', 'cross'];
 

@@ -31,7 +31,7 @@ const FALLBACK: ChartTheme = {
   good: '#1b7a43',
   warn: '#8a5a00',
   bad: '#b02a2a',
-  series: ['#1f6f8b', '#c26a1b', '#6b4c9a', '#2e7d32', '#8d2f4f'],
+  series: ['#1f6f8b', '#a85a12', '#6b4c9a', '#2e7d32', '#8d2f4f'],
 };
 
 /** Reads the theme from the document's CSS variables. */
