@@ -53,8 +53,8 @@ const levelSchema: z.ZodType<TrainerLevel> = z
     id: z.string(),
     label: z.string(),
     description: z.string(),
-    breakerClosingMs: nonNegative('ms'),
-    busDriftHz: nonNegative('Hz'),
+    breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
+    busDriftHz: nonNegative('Hz').lte(5, 'must be 5 Hz or less'),
     mustSetWindow: z.boolean(),
   })
   .strict();

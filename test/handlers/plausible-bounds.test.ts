@@ -72,3 +72,12 @@ describe('trainer schemas: plausible bounds', () => {
     }
   });
 });
+
+describe('trainer level in the state: bounded drift (fuzz finding)', () => {
+  it('a bus drift of 1e308 Hz is refused (it used to return an angle of Infinity)', async () => {
+    const start = await dispatch('trainerStart', { seed: 3, levelId: 'drifting-bus' });
+    if (!start.ok) throw new Error(start.error.message);
+    const bad = { ...start.value, level: { ...start.value.level, busDriftHz: 1e308 } };
+    expect(await refusal('trainerStep', { state: bad, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 })).toContain('state.level.busDriftHz: must be 5 Hz or less');
+  });
+});
