@@ -81,3 +81,18 @@ describe('trainer level in the state: bounded drift (fuzz finding)', () => {
     expect(await refusal('trainerStep', { state: bad, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 })).toContain('state.level.busDriftHz: must be 5 Hz or less');
   });
 });
+
+describe('trainer live model at the edges of its bounds (fuzz finding)', () => {
+  it('lags of 5e-324 s, damping 500 pu on 0.01 s of inertia: every frame stays finite', async () => {
+    // Explicit Euler with a lag far below the 1 ms substep used to return an infinite incoming frequency.
+    const start = await dispatch('trainerStart', { seed: 3, levelId: 'steady' });
+    if (!start.ok) throw new Error(start.error.message);
+    let state: TrainerState = { ...start.value, machine: { ...start.value.machine, actuatorLagS: 5e-324, engineLagS: 5e-324, exciterLagS: 5e-324, dampingPU: 500, inertiaS: 0.01 } };
+    for (let i = 0; i < 20; i++) {
+      const r = await dispatch('trainerStep', { state, inputs: { speed: 1, voltage: 1 }, dtS: 0.1 });
+      if (!r.ok) throw new Error(r.error.message);
+      state = r.value;
+      for (const k of ['incomingFrequencyHz', 'angleDeg', 'mechanicalPU', 'fieldPU', 'emfPU'] as const) expect(Number.isFinite(state[k])).toBe(true);
+    }
+  });
+});
