@@ -3,7 +3,7 @@
  * The tolerance run goes in chunks of samples with progress and cancel.
  */
 import { z } from 'zod';
-import { Cancelled, createToleranceRun, planDroop, sharingSensitivity } from '../engine';
+import { Cancelled, createToleranceRun, planDroop, sharingSensitivity, TOLERANCE_DEFAULTS } from '../engine';
 import type { ToleranceRequest } from '../../shared-types';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
@@ -49,6 +49,9 @@ export const planRequestSchema = z
 /** Request of `sharingSensitivity`. */
 export const sensitivityRequestSchema = z.object({ plant: plantSchema, load: loadOverrideSchema.optional() }).strict();
 
+/** Most set solutions (tolerance samples × sets) in one tolerance analysis. */
+export const MAX_TOLERANCE_SET_SAMPLES = 4_000_000;
+
 /** Request of `toleranceAnalysis`. */
 export const toleranceRequestSchema = z
   .object({
@@ -65,7 +68,17 @@ export const toleranceRequestSchema = z
     bins: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(200, 'must be 200 or fewer').optional(),
   })
   .strict()
-  .refine((r) => !(r.load && r.loadRangePct), { message: 'give either load or loadRangePct, not both', path: ['loadRangePct'] });
+  .refine((r) => !(r.load && r.loadRangePct), { message: 'give either load or loadRangePct, not both', path: ['loadRangePct'] })
+  .superRefine((r, ctx) => {
+    const n = r.plant.sets.length;
+    const samples = r.samples ?? TOLERANCE_DEFAULTS.samples;
+    if (samples * n > MAX_TOLERANCE_SET_SAMPLES)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['samples'],
+        message: `${samples} samples × ${n} sets is more than ${MAX_TOLERANCE_SET_SAMPLES.toLocaleString('en').replace(/,/g, ' ')} set solutions: give ${Math.floor(MAX_TOLERANCE_SET_SAMPLES / n)} samples or fewer for this plant`,
+      });
+  });
 
 /** Samples run between progress reports and cancel checks. */
 export const SAMPLES_PER_CHUNK = 250;

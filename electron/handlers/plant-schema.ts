@@ -11,17 +11,38 @@ const nonNegative = (unit: string) =>
   z.number({ error: `must be a number (${unit})` }).gte(0, 'must be 0 or more');
 const finite = (unit: string) => z.number({ error: `must be a number (${unit})` });
 
+/*
+ * Plausible bounds. They are wide enough for every real engine-driven set (a few kVA to a few tens of MVA,
+ * low and medium voltage) and exist so that an extreme but finite number (5e-324 V, 1e308 kVA) is refused
+ * with its rule instead of producing NaN or Infinity downstream. Ranges are common practice, chosen wide.
+ */
+/** Largest set rating accepted, kVA and kW (covers textbook examples of 1000 MW units as well). */
+export const MAX_SET_RATING = 2_000_000;
+/** Largest load accepted, kW and kVAR (magnitude). */
+export const MAX_LOAD_KW = 10_000_000;
+/** Largest feeder resistance or reactance accepted, Ω. */
+export const MAX_FEEDER_OHM = 100;
+/** Largest damping accepted, pu. */
+export const MAX_DAMPING_PU = 500;
+/** Setpoints (no-load and setpoint frequency and voltage) must lie within this fraction of rated. */
+export const SETPOINT_FRACTION = 0.5;
+const between = (unit: string, lo: number, hi: number, words = `${unit}`) =>
+  z
+    .number({ error: `must be a number (${unit})` })
+    .gte(lo, `must be ${lo.toLocaleString('en').replace(/,/g, ' ')} ${words} or more`)
+    .lte(hi, `must be ${hi.toLocaleString('en').replace(/,/g, ' ')} ${words} or less`);
+
 const governorSchema = z
   .object({
     mode: z.enum(['droop', 'isochronous', 'baseload'], { error: 'must be "droop", "isochronous" or "baseload"' }),
     droopPct: nonNegative('%').lte(20, 'must be 20 % or less').default(4),
     noLoadHz: positive('Hz').optional(),
     setpointHz: positive('Hz').optional(),
-    baseKW: finite('kW').default(0),
+    baseKW: between('kW', -MAX_SET_RATING, MAX_SET_RATING).default(0),
     loadSharingLink: z.boolean({ error: 'must be true or false' }).default(true),
-    actuatorLagS: nonNegative('s').default(0.05),
-    engineLagS: nonNegative('s').default(0.3),
-    isoResetS: positive('s').default(2),
+    actuatorLagS: nonNegative('s').lte(10, 'must be 10 s or less').default(0.05),
+    engineLagS: nonNegative('s').lte(30, 'must be 30 s or less').default(0.3),
+    isoResetS: between('s', 0.01, 600).default(2),
   })
   .strict();
 
@@ -34,8 +55,8 @@ const regulatorSchema = z
     noLoadV: positive('V').optional(),
     setpointV: positive('V').optional(),
     pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
-    exciterLagS: nonNegative('s').default(0.1),
-    gainPU: positive('pu').default(50),
+    exciterLagS: nonNegative('s').lte(10, 'must be 10 s or less').default(0.1),
+    gainPU: between('pu', 0.01, 10_000).default(50),
     // Empty (null) or left out: derived from the machine data (`fieldCeiling`).
     ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').nullish(),
     shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
@@ -49,13 +70,13 @@ const regulatorSchema = z
 
 const machineSchema = z
   .object({
-    xdPU: positive('pu').default(2.5),
-    xdpPU: positive('pu').default(0.25),
-    xddpPU: positive('pu').default(0.15),
-    tdopS: positive('s').default(2.5),
-    inertiaS: positive('s').default(1),
-    dampingPU: nonNegative('pu').default(2),
-    raPU: nonNegative('pu').default(0.01),
+    xdPU: between('pu', 0.1, 10).default(2.5),
+    xdpPU: between('pu', 0.01, 5).default(0.25),
+    xddpPU: between('pu', 0.01, 2).default(0.15),
+    tdopS: between('s', 0.01, 60).default(2.5),
+    inertiaS: between('s', 0.01, 60).default(1),
+    dampingPU: nonNegative('pu').lte(MAX_DAMPING_PU, `must be ${MAX_DAMPING_PU} pu or less`).default(2),
+    raPU: nonNegative('pu').lte(1, 'must be 1 pu or less').default(0.01),
   })
   .strict();
 
@@ -75,18 +96,19 @@ const protectionSchema = z
   })
   .strict();
 
-const feederSchema = z.object({ rOhm: nonNegative('Ω').default(0), xOhm: nonNegative('Ω').default(0) }).strict();
+const feederOhm = () => nonNegative('Ω').lte(MAX_FEEDER_OHM, `must be ${MAX_FEEDER_OHM} Ω or less`).default(0);
+const feederSchema = z.object({ rOhm: feederOhm(), xOhm: feederOhm() }).strict();
 
 const setSchema = z
   .object({
     id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
     name: z.string({ error: 'must be text' }).optional(),
     online: z.boolean({ error: 'must be true or false' }).default(true),
-    ratedKVA: positive('kVA'),
-    ratedKW: positive('kW'),
+    ratedKVA: positive('kVA').lte(MAX_SET_RATING, 'must be 2 000 000 kVA or less'),
+    ratedKW: positive('kW').lte(MAX_SET_RATING, 'must be 2 000 000 kW or less'),
     ratedPF: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lt(1, 'must be less than 1').default(0.8),
     poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').multipleOf(2, 'must be even').default(4),
-    minKW: finite('kW').default(0),
+    minKW: between('kW', -MAX_SET_RATING, MAX_SET_RATING).default(0),
     reversePowerTripPct: nonNegative('%').lte(50, 'must be 50 % or less').default(10),
     reversePowerDelayS: nonNegative('s').lte(60, 'must be 60 s or less').default(SET_DEFAULTS.reversePowerDelayS),
     overloadPct: z.number({ error: 'must be a number (%)' }).gte(100, 'must be 100 % or more').lte(150, 'must be 150 % or less').default(SET_DEFAULTS.overloadPct),
@@ -105,8 +127,8 @@ const loadSchema = z
     id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
     name: z.string({ error: 'must be text' }).optional(),
     online: z.boolean({ error: 'must be true or false' }).default(true),
-    kW: nonNegative('kW'),
-    kVAR: finite('kVAR'),
+    kW: nonNegative('kW').lte(MAX_LOAD_KW, 'must be 10 000 000 kW or less'),
+    kVAR: between('kVAR', -MAX_LOAD_KW, MAX_LOAD_KW),
     model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).default('constant-power'),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
     shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').optional(),
@@ -131,7 +153,7 @@ export const plantSchema = z
     version: z.literal(PLANT_VERSION, { error: `must be ${PLANT_VERSION} (this version of Droopline reads plant files of version ${PLANT_VERSION})` }),
     name: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
     ratedFrequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'must be 50 or 60 (Hz)' }),
-    ratedVoltageV: positive('V').lte(35000, 'must be 35 000 V or less'),
+    ratedVoltageV: finite('V').gte(100, 'must be 100 V or more').lte(35000, 'must be 35 000 V or less'),
     sets: z.array(setSchema, { error: 'must be a list of sets' }).min(1, 'must hold at least one set').max(256, 'must hold 256 sets or fewer'),
     loads: z.array(loadSchema, { error: 'must be a list of loads' }).default([]),
   })
@@ -151,6 +173,19 @@ export const plantSchema = z
       if (s.minKW < (-s.motoringPct / 100) * s.ratedKW)
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'minKW'], message: 'must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)' });
       const r = s.regulator;
+      // Setpoints far from rated are typing errors (5 Hz for 50 Hz, 4 V for 400 V), not settings.
+      const within = (v: number | undefined, rated: number, path: string[], unit: string) => {
+        // A rated value that is itself refused says so once; no second message here.
+        if (v === undefined || !(rated >= 100 || unit === 'Hz')) return;
+        const lo = rated * (1 - SETPOINT_FRACTION);
+        const hi = rated * (1 + SETPOINT_FRACTION);
+        if (v < lo || v > hi)
+          ctx.addIssue({ code: 'custom', path: ['sets', i, ...path], message: `must be within ${SETPOINT_FRACTION * 100} % of the rated ${rated} ${unit} (${lo}–${hi} ${unit})` });
+      };
+      within(g.noLoadHz, p.ratedFrequencyHz, ['governor', 'noLoadHz'], 'Hz');
+      within(g.setpointHz, p.ratedFrequencyHz, ['governor', 'setpointHz'], 'Hz');
+      within(r.noLoadV, p.ratedVoltageV, ['regulator', 'noLoadV'], 'V');
+      within(r.setpointV, p.ratedVoltageV, ['regulator', 'setpointV'], 'V');
       if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });
     });

@@ -22,6 +22,9 @@ export const solveSharingSchema = z
     if (r.atMost && !r.load) ctx.addIssue({ code: 'custom', path: ['atMost'], message: 'needs a load (atMost applies to a load override)' });
   });
 
+/** Most set operating points (sweep steps × sets) in one sweep. */
+export const MAX_SWEEP_SET_POINTS = 100_000;
+
 /** Request of `sweepLoad`. */
 export const sweepLoadSchema = z
   .object({
@@ -33,6 +36,9 @@ export const sweepLoadSchema = z
   })
   .strict()
   .superRefine((r, ctx) => {
+    const work = r.steps * r.plant.sets.length;
+    if (work > MAX_SWEEP_SET_POINTS)
+      ctx.addIssue({ code: 'custom', path: ['steps'], message: `${r.steps} steps × ${r.plant.sets.length} sets is more than ${MAX_SWEEP_SET_POINTS} solved set points: give ${Math.floor(MAX_SWEEP_SET_POINTS / r.plant.sets.length)} steps or fewer for this plant` });
     if ((r.fromPct ?? 0) > (r.toPct ?? 110)) ctx.addIssue({ code: 'custom', path: ['toPct'], message: 'must not be below fromPct' });
   });
 

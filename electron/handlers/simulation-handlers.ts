@@ -20,6 +20,11 @@ const id = () => z.string({ error: 'must be text' }).min(1, 'must not be empty')
 export const MAX_DURATION_S = 3600;
 /** Most integration steps in one run. */
 export const MAX_STEPS = 20_000_000;
+/** Most set-steps (integration steps × sets in the plant) in one run: bounds the work of a large plant. */
+export const MAX_SET_STEPS = 40_000_000;
+/** Most output values per series kind (output points × sets): bounds the size of the result. */
+export const MAX_OUTPUT_SET_POINTS = 2_000_000;
+const fmt = (n: number) => Math.round(n).toLocaleString('en').replace(/,/g, ' ');
 
 const atS = () => nonNegative('s');
 
@@ -120,6 +125,19 @@ export const scenarioSchema: z.ZodType<Scenario> = z
     const steps = (s.durationS * 1000) / s.stepMs;
     if (steps > MAX_STEPS)
       ctx.addIssue({ code: 'custom', path: ['stepMs'], message: `too small for ${s.durationS} s: the run would take more than ${MAX_STEPS.toLocaleString('en')} steps` });
+    const sets = plant.sets.length;
+    if (steps <= MAX_STEPS && steps * sets > MAX_SET_STEPS)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['durationS'],
+        message: `the run would take ${fmt(steps * sets)} set-steps (${fmt(steps)} steps × ${sets} sets); the limit is ${fmt(MAX_SET_STEPS)}: shorten durationS to ${fmt((MAX_SET_STEPS / sets) * s.stepMs / 1000)} s or less, or lengthen stepMs`,
+      });
+    if (s.outputPoints * sets > MAX_OUTPUT_SET_POINTS)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['outputPoints'],
+        message: `${fmt(s.outputPoints)} points × ${sets} sets is more than ${fmt(MAX_OUTPUT_SET_POINTS)}: give ${fmt(Math.floor(MAX_OUTPUT_SET_POINTS / sets))} points or fewer for this plant`,
+      });
     (s.startDeExcited ?? []).forEach((sid, i) => {
       const set = plant.sets.find((x) => x.id === sid);
       if (!set) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `no set "${sid}" in the plant` });

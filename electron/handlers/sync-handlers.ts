@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus } from '../engine';
+import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, TIME_DOMAIN_MAX_CELLS } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
@@ -169,7 +169,17 @@ export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
     angleAxis: z.enum(['command', 'contact'], { error: 'must be "command" or "contact"' }).optional(),
     voltageDifferencePct: num('%').gte(-50, 'must be −50 % or more').lte(50, 'must be 50 % or less').optional(),
   })
-  .strict();
+  .strict()
+  .superRefine((r, ctx) => {
+    // Each time-domain cell is a whole simulation of the plant: bound the cells (the closed form is bounded by the axes).
+    const cells = r.angleSteps * r.slipSteps;
+    if (r.method === 'time-domain' && cells > TIME_DOMAIN_MAX_CELLS)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['angleSteps'],
+        message: `${r.angleSteps} × ${r.slipSteps} = ${cells} cells is more than the ${TIME_DOMAIN_MAX_CELLS} a time-domain map may hold (each cell is a simulation): use fewer angle or slip steps, or the closed form`,
+      });
+  }) as unknown as z.ZodType<ClosingMapRequest>;
 
 /** Cells computed between progress reports and cancel checks. */
 const CELLS_PER_CHUNK = 4096;

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
 import type { SyncLimits, TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
 import type { HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from './plant-schema';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
 const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0').refine(Number.isFinite, 'must be a finite number');
@@ -19,38 +19,42 @@ const limitsSchema: z.ZodType<SyncLimits> = z
   })
   .strict();
 
+/** A number within [lo, hi], the rule in words. Same plausible ranges as the plant schema (common practice, wide). */
+const range = (unit: string, lo: number, hi: number) =>
+  z.number({ error: `must be a number (${unit})` }).gte(lo, `must be ${lo} ${unit} or more`).lte(hi, `must be ${hi} ${unit} or less`);
+
 const machineSchema: z.ZodType<TrainerMachine> = z
   .object({
     label: z.string({ error: 'must be text' }),
-    ratedKVA: positive('kVA'),
-    ratedKW: positive('kW'),
-    ratedVoltageV: positive('V'),
-    ratedFrequencyHz: positive('Hz'),
-    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more'),
-    xddpPU: positive('pu'),
-    xdpPU: positive('pu'),
-    tdopS: positive('s'),
-    inertiaS: positive('s'),
-    dampingPU: nonNegative('pu'),
-    raPU: nonNegative('pu'),
-    droopPct: nonNegative('%'),
-    actuatorLagS: nonNegative('s'),
-    engineLagS: nonNegative('s'),
-    regulatorGainPU: positive('pu'),
-    exciterLagS: nonNegative('s'),
-    ceilingPU: positive('pu'),
+    ratedKVA: positive('kVA').lte(MAX_SET_RATING, 'must be 2 000 000 kVA or less'),
+    ratedKW: positive('kW').lte(MAX_SET_RATING, 'must be 2 000 000 kW or less'),
+    ratedVoltageV: range('V', 100, 35000),
+    ratedFrequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'must be 50 or 60 (Hz)' }),
+    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(64, 'must be 64 or fewer'),
+    xddpPU: range('pu', 0.01, 2),
+    xdpPU: range('pu', 0.01, 5),
+    tdopS: range('s', 0.01, 60),
+    inertiaS: range('s', 0.01, 60),
+    dampingPU: range('pu', 0, MAX_DAMPING_PU),
+    raPU: range('pu', 0, 1),
+    droopPct: range('%', 0, 20),
+    actuatorLagS: range('s', 0, 10),
+    engineLagS: range('s', 0, 30),
+    regulatorGainPU: range('pu', 0.01, 10000),
+    exciterLagS: range('s', 0, 10),
+    ceilingPU: range('pu', 0.01, 20),
   })
   .strict();
 
-const busSchema: z.ZodType<TrainerBus> = z.object({ ratedKVA: positive('kVA'), xPU: positive('pu'), inertiaS: positive('s') }).strict();
+const busSchema: z.ZodType<TrainerBus> = z.object({ ratedKVA: positive('kVA').lte(10 * MAX_SET_RATING, 'must be 20 000 000 kVA or less'), xPU: range('pu', 0.001, 10), inertiaS: range('s', 0.01, 600) }).strict();
 
 const levelSchema: z.ZodType<TrainerLevel> = z
   .object({
     id: z.string(),
     label: z.string(),
     description: z.string(),
-    breakerClosingMs: nonNegative('ms'),
-    busDriftHz: nonNegative('Hz'),
+    breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
+    busDriftHz: nonNegative('Hz').lte(5, 'must be 5 Hz or less'),
     mustSetWindow: z.boolean(),
   })
   .strict();
@@ -96,7 +100,22 @@ const stateSchema: z.ZodType<TrainerState> = z
     incomingSetId: z.string().nullable(),
     contact: contactSchema.nullable(),
   })
-  .strict();
+  .strict()
+  .superRefine((st, ctx) => {
+    // The live state's frequencies and voltages stay near the machine's rating (a returned state is far inside).
+    const fr = st.machine.ratedFrequencyHz;
+    const vr = st.machine.ratedVoltageV;
+    for (const k of ['busFrequencyHz', 'busBaseFrequencyHz', 'incomingFrequencyHz', 'speedReferenceHz'] as const) {
+      if (st[k] < fr / 2 || st[k] > fr * 1.5) ctx.addIssue({ code: 'custom', path: [k], message: `must be within 50 % of the rated ${fr} Hz (${fr / 2}–${fr * 1.5} Hz)` });
+    }
+    for (const k of ['busVoltageV', 'incomingVoltageV', 'voltageReferenceV'] as const) {
+      if (st[k] > vr * 2) ctx.addIssue({ code: 'custom', path: [k], message: `must be ${vr * 2} V (twice rated) or less` });
+    }
+    for (const k of ['actuatorPU', 'mechanicalPU', 'fieldPU', 'emfPU'] as const) {
+      if (Math.abs(st[k]) > 100) ctx.addIssue({ code: 'custom', path: [k], message: 'must be within ±100 pu' });
+    }
+    if (st.drift.period1S > 1e6 || st.drift.period2S > 1e6) ctx.addIssue({ code: 'custom', path: ['drift'], message: 'periods must be 1 000 000 s or less' });
+  }) as unknown as z.ZodType<TrainerState>;
 
 const direction = z.union([z.literal(-1), z.literal(0), z.literal(1)], { error: 'must be -1, 0 or 1' });
 const inputsSchema: z.ZodType<TrainerInputs> = z

@@ -150,4 +150,10 @@ describe('electron main', () => {
     expect(CONTENT_SECURITY_POLICY).toContain("object-src 'none'");
     expect(CONTENT_SECURITY_POLICY).not.toMatch(/unsafe-eval|unsafe-inline|https?:/);
   });
+
+  it('the browser preview sends the same policy', async () => {
+    const { PREVIEW_CSP, PREVIEW_HEADERS } = await import('../../build/scripts/security-headers.mjs');
+    expect(PREVIEW_CSP).toBe(CONTENT_SECURITY_POLICY);
+    expect(PREVIEW_HEADERS['Content-Security-Policy']).toBe(CONTENT_SECURITY_POLICY);
+  });
 });

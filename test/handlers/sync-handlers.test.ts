@@ -116,7 +116,7 @@ describe('evaluateSync handler', () => {
     expect(await messageOf('evaluateSync', { ...base, plant: demoPlantJson(), incomingSetId: 'G7' })).toContain('incomingSetId: must name a set of the plant (G1, G2, G3)');
     const bad = demoPlantJson() as { sets: { machine: { xddpPU: number } }[] };
     bad.sets[1]!.machine.xddpPU = 0;
-    expect(await messageOf('evaluateSync', { ...base, plant: bad, incomingSetId: 'G1' })).toContain('sets[1].machine.xddpPU: must be greater than 0');
+    expect(await messageOf('evaluateSync', { ...base, plant: bad, incomingSetId: 'G1' })).toContain('sets[1].machine.xddpPU: must be 0.01 pu or more');
   });
 
   it('refuses a live bus at 0 Hz from the engine with a field-named sentence', async () => {

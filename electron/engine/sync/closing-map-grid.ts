@@ -45,6 +45,8 @@ export function setUpClosingMap(req: ClosingMapRequest, method: ClosingMap['meth
   if (sideState((c.bus.voltageV / basis.voltageV) * 100, c.dead) !== 'live') {
     throw new InvalidInput('case.bus.voltageV: the bus is not live, so there is no synchronizing surge to map (a dead-bus close has none).');
   }
+  // The same rule as evaluateSync: a live bus turns (0 Hz would give an infinite surge torque).
+  if (!(c.bus.frequencyHz > 0)) throw new InvalidInput('case.bus.frequencyHz: must be greater than 0 when the bus is live.');
   const base = surgeCircuit(c, basis);
   const voltageDifferencePct = req.voltageDifferencePct ?? ((c.incoming.voltageV - c.bus.voltageV) / basis.voltageV) * 100;
   const circuit: SurgeCircuit = { ...base, incomingVoltagePU: base.busVoltagePU + voltageDifferencePct / 100 };

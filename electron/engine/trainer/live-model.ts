@@ -87,19 +87,22 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
     // Governor: droop command through actuator and engine lags, limited to −10 %…110 % of rated kW (kVA base).
     const kwLimit = m.ratedKW / m.ratedKVA;
     const cmd = Math.min(1.1 * kwLimit, Math.max(-0.1 * kwLimit, (fRef / fr - speedPU) / r));
-    const dAct = m.actuatorLagS > 0 ? (cmd - act) / m.actuatorLagS : 0;
-    const dMech = m.engineLagS > 0 ? (act - mech) / m.engineLagS : 0;
-    const dSpeed = (mech - m.dampingPU * (speedPU - 1)) / (2 * m.inertiaS);
+    // Lags advance by their exact first-order step, x += (target − x)(1 − e^(−h/T)) (closed form for a
+    // target held over the substep): stable for any T > 0 and equal to "no lag" as T → 0.
+    const actNext = m.actuatorLagS > 0 ? act + (cmd - act) * -Math.expm1(-h / m.actuatorLagS) : cmd;
+    const mechNext = m.engineLagS > 0 ? mech + (act - mech) * -Math.expm1(-h / m.engineLagS) : act;
     // Regulator: reference fed forward plus gain on the error, through the exciter lag, within the ceiling.
     const vRefPU = vRef / vr;
     const fieldCmd = Math.min(m.ceilingPU, Math.max(0, vRefPU + m.regulatorGainPU * (vRefPU - emf)));
-    const dField = m.exciterLagS > 0 ? (fieldCmd - field) / m.exciterLagS : 0;
+    const fieldNext = m.exciterLagS > 0 ? field + (fieldCmd - field) * -Math.expm1(-h / m.exciterLagS) : fieldCmd;
     const dEmf = (field - emf) / m.tdopS;
 
-    act = m.actuatorLagS > 0 ? act + h * dAct : cmd;
-    mech = m.engineLagS > 0 ? mech + h * dMech : act;
-    speedPU += h * dSpeed;
-    field = m.exciterLagS > 0 ? field + h * dField : fieldCmd;
+    // Swing equation 2H ds/dt = Pm − D (s − 1), the damping term taken implicitly (stable for any D/H).
+    const k = (h * m.dampingPU) / (2 * m.inertiaS);
+    speedPU = (speedPU + (h * (mech + m.dampingPU)) / (2 * m.inertiaS)) / (1 + k);
+    act = actNext;
+    mech = mechNext;
+    field = fieldNext;
     emf += h * dEmf;
     t += h;
     fBus = busFrequencyAt(s, t);
