@@ -73,7 +73,8 @@ const machineSchema = z
     xdPU: between('pu', 0.1, 10).default(2.5),
     xdpPU: between('pu', 0.01, 5).default(0.25),
     xddpPU: between('pu', 0.01, 2).default(0.15),
-    tdopS: between('s', 0.01, 60).default(2.5),
+    // Up to 10 000 s: a T'd0 far beyond the run freezes the field flux (the classical model).
+    tdopS: between('s', 0.01, 10_000).default(2.5),
     inertiaS: between('s', 0.01, 60).default(1),
     dampingPU: nonNegative('pu').lte(MAX_DAMPING_PU, `must be ${MAX_DAMPING_PU} pu or less`).default(2),
     raPU: nonNegative('pu').lte(1, 'must be 1 pu or less').default(0.01),

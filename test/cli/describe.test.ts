@@ -57,6 +57,6 @@ describe('droopline describe', () => {
     writeFileSync(bad, JSON.stringify({ ...(demoPlantJson() as object), ratedVoltageV: -400 }));
     const err = await run(process.execPath, [bin, 'describe', bad]).catch((e: { code: number; stderr: string }) => e);
     expect((err as { code: number }).code).toBe(2);
-    expect((err as { stderr: string }).stderr).toContain('ratedVoltageV: must be greater than 0');
+    expect((err as { stderr: string }).stderr).toContain('ratedVoltageV: must be 100 V or more');
   });
 });

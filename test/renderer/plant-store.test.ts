@@ -92,7 +92,7 @@ describe('plant store editing', () => {
     const store = usePlantStore();
     await store.loadDemo();
     await store.edit('ratedVoltageV', -1);
-    expect(store.issueAt('ratedVoltageV')).toBe('must be greater than 0');
+    expect(store.issueAt('ratedVoltageV')).toBe('must be 100 V or more');
     await store.undo();
     expect(store.draftIssues).toEqual([]);
     expect(store.draft?.ratedVoltageV).toBe(400);

@@ -31,8 +31,8 @@ describe('small-signal swing frequency against a stiff bus', () => {
           ratedPF: 0.95,
           governor: { mode: 'baseload', baseKW: 0.995 * iRe * 1000, actuatorLagS: 0.01, engineLagS: 0.01 },
           regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV },
-          // Classical model: X''d = X'd = X_T, field flux frozen (T'd0 very long), no damping.
-          machine: { xdPU: 1.81, xdpPU: 0.95, xddpPU: 0.95, tdopS: 1e6, inertiaS: 3.5, dampingPU },
+          // Classical model: X''d = X'd = X_T, field flux frozen (T'd0 = 10 000 s, far beyond the run), no damping.
+          machine: { xdPU: 1.81, xdpPU: 0.95, xddpPU: 0.95, tdopS: 1e4, inertiaS: 3.5, dampingPU },
         }),
         // The "infinite bus": a set a thousand times larger holding 0.995 pu.
         rawSet('BUS', {
