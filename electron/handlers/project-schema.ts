@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt } from '../../shared-types';
 import { plantSchema } from './plant-schema';
+import { checkEvents, projectEventSchema } from './simulation-handlers';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
 const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
@@ -15,18 +16,14 @@ const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
 const text = () => z.string({ error: 'must be text' });
 const flag = () => z.boolean({ error: 'must be true or false' });
 
-/** One event on a scenario's time line: time and kind are checked here, the rest by `simulate`. */
-const scenarioEventSchema = z.looseObject({
-  atS: nonNegative('s'),
-  type: text().min(1, 'must not be empty'),
-});
 
 const scenarioSchema = z.looseObject({
   id: text().min(1, 'must not be empty'),
   name: text(),
   durationS: positive('s'),
   stepMs: positive('ms'),
-  events: z.array(scenarioEventSchema, { error: 'must be a list of events' }),
+  // Each event by its type, with the same rules as a scenario file (`projectEventSchema`).
+  events: z.array(projectEventSchema, { error: 'must be a list of events' }),
 });
 
 const syncSettingsSchema = z.looseObject({
@@ -77,6 +74,8 @@ export const projectSchema = z
     p.scenarios.forEach((s, i) => {
       if (ids.has(s.id)) ctx.addIssue({ code: 'custom', path: ['scenarios', i, 'id'], message: `must be unique ("${s.id}" is used twice)` });
       ids.add(s.id);
+      // Events name the project's own sets and loads and lie within the run, as in a scenario file.
+      checkEvents(s.events, s.durationS, p.plant, (path, message) => ctx.addIssue({ code: 'custom', path: ['scenarios', i, ...path], message }));
     });
   })
   .transform(
@@ -85,7 +84,6 @@ export const projectSchema = z
       version: p.version,
       name: p.name ?? p.plant.name,
       plant: p.plant,
-      // Event fields beyond time and kind are checked by `simulate` when a scenario runs.
       scenarios: p.scenarios as unknown as ProjectScenario[],
       sync: p.sync as ProjectSyncSettings | null,
       trainerLog: p.trainerLog as TrainerAttempt[],

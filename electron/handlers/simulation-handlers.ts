@@ -88,9 +88,51 @@ const motorStart = z
 
 const EVENT_TYPES = '"load-step", "trip", "close", "setpoint", "ramp" or "motor-start"';
 
+/** One event of a scenario, checked by its type. */
 const eventSchema = z.discriminatedUnion('type', [loadStep, trip, close, setpoint, ramp, motorStart], {
   error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined),
 });
+
+/**
+ * The same rules for an event kept in a project, which also keeps any field this version does
+ * not know (a project never loses data on its way through open and save).
+ */
+export const projectEventSchema = z.discriminatedUnion(
+  'type',
+  [loadStep.loose(), trip.loose(), close.loose(), setpoint.loose(), ramp.loose(), motorStart.loose()],
+  { error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined) },
+);
+
+type EventInput = z.infer<typeof eventSchema>;
+
+/**
+ * Checks a scenario's events against its run and its plant: each event within the run, each
+ * set and load id in the plant, the fields each kind needs. `add` receives the path below the
+ * scenario (`['events', i, field]`). Used by the scenario schema and the project schema alike.
+ */
+export function checkEvents(
+  events: readonly EventInput[],
+  durationS: number,
+  plant: { sets: readonly { id: string }[]; loads: readonly { id: string }[] },
+  add: (path: (string | number)[], message: string) => void,
+): void {
+  const setIds = new Set(plant.sets.map((x) => x.id));
+  const loadIds = new Set(plant.loads.map((x) => x.id));
+  events.forEach((e, i) => {
+    const at = (field: string, message: string) => add(['events', i, field], message);
+    if (e.atS > durationS) at('atS', `must be within the run (0 to ${durationS} s)`);
+    if ('setId' in e && !setIds.has(e.setId)) at('setId', `no set "${e.setId}" in the plant`);
+    if (e.type === 'load-step') {
+      if (e.loadId !== undefined) {
+        if (!loadIds.has(e.loadId)) at('loadId', `no load "${e.loadId}" in the plant`);
+        if (e.kW !== undefined || e.kVAR !== undefined) at('kW', 'give either loadId or kW/kVAR, not both');
+      } else if (e.kW === undefined && e.kVAR === undefined) at('kW', 'is required (or name a plant load with loadId)');
+    }
+    if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false) at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
+    if (e.type === 'setpoint' && e.frequencyHz === undefined && e.voltageV === undefined && e.kW === undefined)
+      at('frequencyHz', 'give frequencyHz, voltageV or kW');
+  });
+}
 
 /**
  * Schema of a scenario (`droopline.scenario`, version 1). The plant is inline
@@ -120,8 +162,6 @@ export const scenarioSchema: z.ZodType<Scenario> = z
       return;
     }
     const plant = s.plant;
-    const setIds = new Set(plant.sets.map((x) => x.id));
-    const loadIds = new Set(plant.loads.map((x) => x.id));
     const steps = (s.durationS * 1000) / s.stepMs;
     if (steps > MAX_STEPS)
       ctx.addIssue({ code: 'custom', path: ['stepMs'], message: `too small for ${s.durationS} s: the run would take more than ${MAX_STEPS.toLocaleString('en')} steps` });
@@ -143,20 +183,7 @@ export const scenarioSchema: z.ZodType<Scenario> = z
       if (!set) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `no set "${sid}" in the plant` });
       else if (set.online) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `set "${sid}" is on line; only an off-line set can start de-excited` });
     });
-    s.events.forEach((e, i) => {
-      const at = (field: string, message: string) => ctx.addIssue({ code: 'custom', path: ['events', i, field], message });
-      if (e.atS > s.durationS) at('atS', `must be within the run (0 to ${s.durationS} s)`);
-      if ('setId' in e && !setIds.has(e.setId)) at('setId', `no set "${e.setId}" in the plant`);
-      if (e.type === 'load-step') {
-        if (e.loadId !== undefined) {
-          if (!loadIds.has(e.loadId)) at('loadId', `no load "${e.loadId}" in the plant`);
-          if (e.kW !== undefined || e.kVAR !== undefined) at('kW', 'give either loadId or kW/kVAR, not both');
-        } else if (e.kW === undefined && e.kVAR === undefined) at('kW', 'is required (or name a plant load with loadId)');
-      }
-      if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false) at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
-      if (e.type === 'setpoint' && e.frequencyHz === undefined && e.voltageV === undefined && e.kW === undefined)
-        at('frequencyHz', 'give frequencyHz, voltageV or kW');
-    });
+    checkEvents(s.events, s.durationS, plant, (path, message) => ctx.addIssue({ code: 'custom', path, message }));
   }) as unknown as z.ZodType<Scenario>;
 
 /** Runs the scenario in chunks, reporting progress and stopping when cancelled. */

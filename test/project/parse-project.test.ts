@@ -46,6 +46,25 @@ describe('parseProject', () => {
     expect((again.scenarios[0]!.events[0] as unknown as Record<string, unknown>).note).toBe('kept');
   });
 
+  it('checks each scenario event by its type, as a scenario file is checked, and names the field', () => {
+    const withEvents = (events: unknown[]) => {
+      const raw = rawProject();
+      const scenarios = raw.scenarios as Record<string, unknown>[];
+      scenarios[0] = { ...scenarios[0], durationS: 10, events };
+      return JSON.stringify({ ...raw, scenarios });
+    };
+    // A null field used to open and save, then fail only when the scenario ran.
+    expect(failure(withEvents([{ atS: 1, type: 'load-step', kW: null, kVAR: 10 }])).message).toContain('scenarios[0].events[0].kW');
+    expect(failure(withEvents([{ atS: null, type: 'trip', setId: 'G1' }])).message).toContain('scenarios[0].events[0].atS');
+    expect(failure(withEvents([{ atS: 1, type: 'explode' }])).message).toContain('must be "load-step"');
+    // Ids name the project's own plant; times lie within the run.
+    expect(failure(withEvents([{ atS: 1, type: 'trip', setId: 'G9' }])).message).toContain('no set "G9" in the plant');
+    expect(failure(withEvents([{ atS: 11, type: 'trip', setId: 'G1' }])).message).toContain('must be within the run (0 to 10 s)');
+    expect(failure(withEvents([{ atS: 1, type: 'load-step', loadId: 'nowhere' }])).message).toContain('no load "nowhere" in the plant');
+    // A valid event opens.
+    expect(parseProject(withEvents([{ atS: 1, type: 'trip', setId: 'G1' }])).project.scenarios[0]!.events).toHaveLength(1);
+  });
+
   it('fills the parts a minimal project leaves out', () => {
     const { project } = parseProject(JSON.stringify({ format: 'droopline.project', version: 1, plant: demoPlantJson() }));
     expect(project.name).toBe('Kestrel Ford Water Treatment Works (demo)');
