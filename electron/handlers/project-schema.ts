@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt } from '../../shared-types';
 import { plantSchema } from './plant-schema';
-import { checkEvents, projectEventSchema } from './simulation-handlers';
+import { projectEventSchema } from './simulation-handlers';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
 const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
@@ -74,8 +74,6 @@ export const projectSchema = z
     p.scenarios.forEach((s, i) => {
       if (ids.has(s.id)) ctx.addIssue({ code: 'custom', path: ['scenarios', i, 'id'], message: `must be unique ("${s.id}" is used twice)` });
       ids.add(s.id);
-      // Events name the project's own sets and loads and lie within the run, as in a scenario file.
-      checkEvents(s.events, s.durationS, p.plant, (path, message) => ctx.addIssue({ code: 'custom', path: ['scenarios', i, ...path], message }));
     });
   })
   .transform(

@@ -6,6 +6,7 @@
 import type { ParsedProject, Project } from '../../shared-types';
 import { z } from 'zod';
 import { projectSchema } from '../handlers/project-schema';
+import { checkEvents } from '../handlers/simulation-handlers';
 import { parseOrThrow, ValidationError } from '../handlers/validate';
 import { checkAndStrip, contentChecksum, INTEGRITY_KEY } from './checksum';
 import { findJsonSyntaxProblem } from './json-syntax';
@@ -71,7 +72,23 @@ export function parseProject(text: string): ParsedProject {
   const migrated = migrateToCurrent(content);
   const notes = [...migrated.notes];
   if (check === 'mismatch') notes.push(CHECKSUM_MISMATCH);
-  return { project: validate(migrated.raw), migratedFrom: migrated.migratedFrom, notes };
+  const project = validate(migrated.raw);
+  notes.push(...scenarioNotes(project));
+  return { project, migratedFrom: migrated.migratedFrom, notes };
+}
+
+/**
+ * Scenario events that no longer fit the project's plant (a set or load deleted since, an event
+ * beyond a shortened run): the project opens — the plant is the user's work — and the note says
+ * which event will be refused when that scenario runs.
+ */
+function scenarioNotes(project: Project): string[] {
+  const notes: string[] = [];
+  for (const s of project.scenarios)
+    checkEvents(s.events, s.durationS, project.plant, (path, message) =>
+      notes.push(`Scenario "${s.name || s.id}", event ${Number(path[1]) + 1} (${String(path[2])}): ${message}; it will be refused when the scenario runs until it is changed.`),
+    );
+  return notes;
 }
 
 /** The note of a project whose content no longer matches the checksum it was saved with. */

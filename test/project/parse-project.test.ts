@@ -46,7 +46,7 @@ describe('parseProject', () => {
     expect((again.scenarios[0]!.events[0] as unknown as Record<string, unknown>).note).toBe('kept');
   });
 
-  it('checks each scenario event by its type, as a scenario file is checked, and names the field', () => {
+  it('checks each scenario event by its type, as a scenario file is checked, and names the field; a stale id is a note, not a refusal', () => {
     const withEvents = (events: unknown[]) => {
       const raw = rawProject();
       const scenarios = raw.scenarios as Record<string, unknown>[];
@@ -57,12 +57,14 @@ describe('parseProject', () => {
     expect(failure(withEvents([{ atS: 1, type: 'load-step', kW: null, kVAR: 10 }])).message).toContain('scenarios[0].events[0].kW');
     expect(failure(withEvents([{ atS: null, type: 'trip', setId: 'G1' }])).message).toContain('scenarios[0].events[0].atS');
     expect(failure(withEvents([{ atS: 1, type: 'explode' }])).message).toContain('must be "load-step"');
-    // Ids name the project's own plant; times lie within the run.
-    expect(failure(withEvents([{ atS: 1, type: 'trip', setId: 'G9' }])).message).toContain('no set "G9" in the plant');
-    expect(failure(withEvents([{ atS: 11, type: 'trip', setId: 'G1' }])).message).toContain('must be within the run (0 to 10 s)');
-    expect(failure(withEvents([{ atS: 1, type: 'load-step', loadId: 'nowhere' }])).message).toContain('no load "nowhere" in the plant');
+    // An event that no longer fits the plant (a set deleted since) does not lock the user out: the
+    // project opens and a note says which event will be refused when its scenario runs.
+    const notesOf = (events: unknown[]) => parseProject(withEvents(events)).notes.join(' ');
+    expect(notesOf([{ atS: 1, type: 'trip', setId: 'G9' }])).toContain('event 1 (setId): no set "G9" in the plant');
+    expect(notesOf([{ atS: 11, type: 'trip', setId: 'G1' }])).toContain('must be within the run (0 to 10 s)');
+    expect(notesOf([{ atS: 1, type: 'load-step', loadId: 'nowhere' }])).toContain('no load "nowhere" in the plant');
     // A valid event opens.
-    expect(parseProject(withEvents([{ atS: 1, type: 'trip', setId: 'G1' }])).project.scenarios[0]!.events).toHaveLength(1);
+    expect(parseProject(withEvents([{ atS: 1, type: 'trip', setId: 'G1' }])).notes).toEqual([]);
   });
 
   it('fills the parts a minimal project leaves out', () => {
