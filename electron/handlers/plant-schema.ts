@@ -3,7 +3,7 @@
  * "field: rule" message. Optional simulator fields get documented defaults.
  */
 import { z } from 'zod';
-import { PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
+import { PLANT_DEFAULTS, PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
 import type { Plant } from '../../shared-types';
 
 const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0');
@@ -22,6 +22,7 @@ const governorSchema = z
     actuatorLagS: nonNegative('s').default(0.05),
     engineLagS: nonNegative('s').default(0.3),
     isoResetS: positive('s').default(2),
+    isoGainPU: positive('pu').lte(200, 'must be 200 pu or less').default(SET_DEFAULTS.isoGainPU),
   })
   .strict();
 
@@ -44,6 +45,9 @@ const regulatorSchema = z
     vhzSlopePctPerHz: nonNegative('% per Hz').lte(20, 'must be 20 % per Hz or less').default(SET_DEFAULTS.vhzSlopePctPerHz),
     oelPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
     oelDelayS: nonNegative('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.oelDelayS),
+    oelResetS: nonNegative('s').lte(600, 'must be 600 s or less').default(SET_DEFAULTS.oelResetS),
+    resetS: positive('s').lte(60, 'must be 60 s or less').default(SET_DEFAULTS.regulatorResetS),
+    pfTrimS: positive('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.pfTrimS),
   })
   .strict();
 
@@ -56,6 +60,7 @@ const machineSchema = z
     inertiaS: positive('s').default(1),
     dampingPU: nonNegative('pu').default(2),
     raPU: nonNegative('pu').default(0.01),
+    tddopS: positive('s').lte(0.5, 'must be 0.5 s or less').default(SET_DEFAULTS.tddopS),
   })
   .strict();
 
@@ -100,6 +105,8 @@ const setSchema = z
   })
   .strict();
 
+const share = () => nonNegative('%').lte(100, 'must be 100 % or less').optional();
+
 const loadSchema = z
   .object({
     id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
@@ -107,8 +114,13 @@ const loadSchema = z
     online: z.boolean({ error: 'must be true or false' }).default(true),
     kW: nonNegative('kW'),
     kVAR: finite('kVAR'),
-    model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).default('constant-power'),
+    model: z.enum(['constant-power', 'constant-impedance', 'zip'], { error: 'must be "constant-power", "constant-impedance" or "zip"' }).default('constant-power'),
+    kWImpedancePct: share(),
+    kWCurrentPct: share(),
+    kVARImpedancePct: share(),
+    kVARCurrentPct: share(),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
+    kVARFrequencySensitivity: finite('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').optional(),
     shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').optional(),
     shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').optional(),
   })
@@ -134,6 +146,7 @@ export const plantSchema = z
     ratedVoltageV: positive('V').lte(35000, 'must be 35 000 V or less'),
     sets: z.array(setSchema, { error: 'must be a list of sets' }).min(1, 'must hold at least one set').max(256, 'must hold 256 sets or fewer'),
     loads: z.array(loadSchema, { error: 'must be a list of loads' }).default([]),
+    powerLoadBreakPct: positive('%').gte(10, 'must be 10 % or more').lte(95, 'must be 95 % or less').default(PLANT_DEFAULTS.powerLoadBreakPct),
   })
   .strict()
   .superRefine((p, ctx) => {
@@ -153,11 +166,17 @@ export const plantSchema = z
       const r = s.regulator;
       if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });
+      if (s.machine.tddopS >= s.machine.tdopS)
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'machine', 'tddopS'], message: "must be less than T'd0 (machine.tdopS): the damper decays faster than the field" });
     });
     const loadIds = new Set<string>();
     p.loads.forEach((l, i) => {
       if (loadIds.has(l.id)) ctx.addIssue({ code: 'custom', path: ['loads', i, 'id'], message: `must be unique ("${l.id}" is used twice)` });
       loadIds.add(l.id);
+      if ((l.kWImpedancePct ?? 0) + (l.kWCurrentPct ?? 0) > 100)
+        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kWCurrentPct'], message: 'with kWImpedancePct must not exceed 100 % (the rest of the kW is constant power)' });
+      if ((l.kVARImpedancePct ?? 0) + (l.kVARCurrentPct ?? 0) > 100)
+        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kVARCurrentPct'], message: 'with kVARImpedancePct must not exceed 100 % (the rest of the kVAR is constant power)' });
     });
   })
   .transform((p): Plant => ({

@@ -1,8 +1,7 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL, PLANT_DEFAULTS } from '../../../shared-types';
 import { flagWords, isoClassName } from '../../../shared-types/presentation';
 import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
-import { POWER_LOAD_BREAK_PU } from '../simulation/network';
 import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../sync/slip-timing';
 import type { ReportData, SyncPart } from './report-data';
 
@@ -177,16 +176,16 @@ function metricsTable(d: ReportData): ReportTable {
         m?.voltageRecoveryS ?? null,
         m?.final.frequencyHz ?? null,
         m?.final.voltageV ?? null,
-        t.problem ?? (m ? transientNotes(m) : ''),
+        t.problem ?? (m ? transientNotes(m, d.plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct) : ''),
       ];
     }),
   };
 }
 
-function transientNotes(m: SimulationMetrics): string {
+function transientNotes(m: SimulationMetrics, breakPct: number): string {
   const notes: string[] = [];
   if (m.frequencyRecoveryS === null || m.voltageRecoveryS === null) notes.push('did not recover into the band around the steady state of the final load within the run');
-  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of constant-power load not served below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage`);
+  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of load not served (bus dead, or below ${breakPct.toFixed(0)} % voltage where constant-power and constant-current loads draw as impedance)`);
   return notes.join('; ');
 }
 

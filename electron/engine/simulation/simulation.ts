@@ -22,7 +22,6 @@ import type { EventTarget } from './events';
 import { Recorder } from './recorder';
 import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
-import { POWER_LOAD_BREAK_PU } from './network';
 import { steadyTarget } from './steady-target';
 import { fieldCeiling } from './excitation';
 
@@ -229,7 +228,7 @@ class Run implements Simulation {
 
   /**
    * Load the bus does not serve, said in the run: constant-power loads turn into constant
-   * impedance below `POWER_LOAD_BREAK_PU` (the bus solve needs it), and a dead bus serves
+   * impedance below the plant's break voltage (`m.breakPU`; the bus solve needs it), and a dead bus serves
    * nothing (log lines, warning, energy).
    */
   private watchLowVoltage(t: number): void {
@@ -252,7 +251,7 @@ class Run implements Simulation {
         text:
           kind === 'dead'
             ? `bus dead: ${kw.toFixed(0)} kW of load not served`
-            : `bus below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage: constant-power loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
+            : `bus below ${(this.m.breakPU * 100).toFixed(0)} % voltage: constant-power and constant-current loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
       });
     }
     if (kw > this.lowVMaxKW) this.lowVMaxKW = kw;
@@ -269,7 +268,7 @@ class Run implements Simulation {
       text:
         this.lowVKind === 'dead'
           ? `bus live again (${span})`
-          : `bus no longer below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage with constant-power loads drawing as impedance (${span})`,
+          : `bus no longer below ${(this.m.breakPU * 100).toFixed(0)} % voltage with constant-power and constant-current loads drawing as impedance (${span})`,
     });
     this.lowVStartS = null;
     this.lowVKind = null;
@@ -486,7 +485,7 @@ class Run implements Simulation {
     if (this.lowVEpisodes > 0) {
       const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${this.lowVStartS.toFixed(2)} s).` : '';
       warnings.push(
-        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage where constant-power loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
+        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(this.m.breakPU * 100).toFixed(0)} % voltage where constant-power and constant-current loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
       );
     }
     const metrics = computeMetrics({

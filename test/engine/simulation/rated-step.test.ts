@@ -93,7 +93,7 @@ describe('rated 0.8 PF load step on default data', () => {
     expect(r.metrics.unservedKWh).toBeGreaterThan(0);
     expect(r.metrics.maxUnservedKW).toBeGreaterThan(100);
     expect(r.warnings.join(' ')).toMatch(/Load was not served .* kWh in all\. Load is still not served at the end/);
-    expect(r.log.some((e) => /constant-power loads now draw as constant impedance/.test(e.text))).toBe(true);
+    expect(r.log.some((e) => /constant-power and constant-current loads now draw as constant impedance/.test(e.text))).toBe(true);
     const rec = r.metrics.classes.find((c) => c.quantity === 'voltage recovery time')!;
     expect(rec.pass).toEqual({ G1: false, G2: false, G3: false });
     expect(rec.note).toMatch(/below the 400\.0 V steady state of the final loads/);
