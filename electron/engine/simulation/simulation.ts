@@ -276,22 +276,35 @@ class Run implements Simulation {
 
   /**
    * Over-excitation limiter of each set: after the field has stayed above its limit for the
-   * delay, the regulator holds it at the limit for the rest of the run (a latching limiter;
-   * real limiters reset after a cool-down the model does not follow, and the run says so).
+   * delay, the regulator holds it at the limit; once the regulator's demand has let the field
+   * fall back below the limit and it has stayed there for the reset time (`oelResetS`), the
+   * limiter lets go and the field may force again (common practice, values from memory).
    */
   private limitExcitation(t: number): void {
     const m = this.m;
     for (let i = 0; i < m.n; i++) {
       const lim = m.oelPU[i]!;
       if (!(lim > 0) || m.shutdown[i]) continue;
-      const o = i * STATES_PER_SET;
-      if (m.oelActive[i]) continue;
-      if (this.y[o + EFD]! > lim) {
+      const efd = this.y[i * STATES_PER_SET + EFD]!;
+      if (m.oelActive[i]) {
+        // Held, the field sits on the limit; below it the demand has fallen back.
+        if (efd < lim * (1 - 1e-6)) {
+          this.oelTimer[i] = this.oelTimer[i]! + this.stepS;
+          if (this.oelTimer[i]! >= m.oelResetS[i]! - 1e-9) {
+            m.oelActive[i] = 0;
+            this.oelTimer[i] = 0;
+            this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter resets: field below ${lim.toFixed(2)} pu for ${m.oelResetS[i]} s` });
+          }
+        } else this.oelTimer[i] = 0;
+        continue;
+      }
+      if (efd > lim) {
         this.oelTimer[i] = this.oelTimer[i]! + this.stepS;
         if (this.oelTimer[i]! >= m.oelDelayS[i]! - 1e-9) {
           m.oelActive[i] = 1;
+          this.oelTimer[i] = 0;
           this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter acts: field held at ${lim.toFixed(2)} pu after ${m.oelDelayS[i]} s above it` });
-          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting (the limiter latches for the rest of the run).`);
+          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`);
         }
       } else this.oelTimer[i] = 0;
     }
