@@ -105,7 +105,8 @@ const setSchema = z
   })
   .strict();
 
-const share = () => nonNegative('%').lte(100, 'must be 100 % or less').optional();
+// Optional load fields: empty (null) or left out mean the same (the default, or never shed).
+const share = () => nonNegative('%').lte(100, 'must be 100 % or less').nullish();
 
 const loadSchema = z
   .object({
@@ -120,11 +121,16 @@ const loadSchema = z
     kVARImpedancePct: share(),
     kVARCurrentPct: share(),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
-    kVARFrequencySensitivity: finite('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').optional(),
-    shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').optional(),
-    shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').optional(),
+    kVARFrequencySensitivity: finite('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').nullish(),
+    shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').nullish(),
+    shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').nullish(),
   })
   .strict();
+
+/** A load without its emptied (null) optional fields: they read as left out. */
+function withoutNulls<T extends object>(l: T): { [K in keyof T]: Exclude<T[K], null> } {
+  return Object.fromEntries(Object.entries(l).filter(([, v]) => v !== null)) as { [K in keyof T]: Exclude<T[K], null> };
+}
 
 /** The regulator without a `ceilingPU` of null (an emptied field: the ceiling is derived). */
 function withoutNullCeiling<T extends { ceilingPU?: number | null }>(r: T): Omit<T, 'ceilingPU'> & { ceilingPU?: number } {
@@ -195,5 +201,5 @@ export const plantSchema = z
         setpointV: s.regulator.setpointV ?? p.ratedVoltageV,
       },
     })),
-    loads: p.loads.map((l) => ({ ...l, name: l.name ?? l.id })),
+    loads: p.loads.map((l) => ({ ...withoutNulls(l), name: l.name ?? l.id })),
   }));
