@@ -1,5 +1,6 @@
 /**
- * The loads on the common bus as functions of bus voltage and frequency: the ZIP model.
+ * The loads on the common bus as functions of bus voltage and frequency: the ZIP (polynomial)
+ * model of Kundur, *Power System Stability and Control* (1994), §7.1 (section value from memory).
  * With u = V / V_rated each load draws
  *
  *   P = kW   (pZ u² + pI u + pP) · max(0, 1 + s_P (f − f_rated) / f_rated)
