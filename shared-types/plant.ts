@@ -68,8 +68,41 @@ export const SET_DEFAULTS = {
    */
   oelPct: 110,
   oelDelayS: 10,
+  /**
+   * Over-excitation limiter release: once the field demand has stayed below the limit for
+   * `oelResetS`, the limiter lets go and the field may force again (limiters reset after a
+   * cool-down of some tens of seconds; common practice, value from memory).
+   */
+  oelResetS: 30,
   /** Delay of an under-frequency load-shedding stage when a load gives none, s (common practice, value from memory). */
   shedDelayS: 0.5,
+  /**
+   * Subtransient open-circuit time constant T''d0, s: 0.03 s sits inside the 0.01–0.05 s
+   * typical of engine-set alternators (typical data of engine-set alternators; value from memory).
+   */
+  tddopS: 0.03,
+  /**
+   * Proportional gain of the isochronous governor, pu power per pu speed error: 20, a 5 %
+   * transient droop (common practice for engine governors; value from memory).
+   */
+  isoGainPU: 20,
+  /** Integral (reset) time of the voltage regulator, s: 1 s (common practice for engine-set regulators; value from memory). */
+  regulatorResetS: 1,
+  /**
+   * Time constant of the power-factor controller's trim of the voltage reference, s: 5 s
+   * (power-factor controllers act over seconds; common practice, value from memory).
+   */
+  pfTrimS: 5,
+} as const;
+
+/**
+ * Plant-wide defaults. `powerLoadBreakPct`: below this bus voltage, % of rated, the
+ * simulator's constant-power and constant-current load shares draw as constant impedance (as
+ * stability programs do, so a collapsing or building-up bus stays solvable; 70 % is common
+ * practice in stability programs, value from memory). The run says so, with the kW not served.
+ */
+export const PLANT_DEFAULTS = {
+  powerLoadBreakPct: 70,
 } as const;
 
 /** How a set's governor controls speed. */
@@ -77,7 +110,7 @@ export type GovernorMode = 'droop' | 'isochronous' | 'baseload';
 /** How a set's voltage regulator controls terminal voltage. */
 export type RegulatorMode = 'reactive-droop' | 'cross-current' | 'voltage' | 'power-factor';
 /** How a load responds to voltage. */
-export type LoadModel = 'constant-power' | 'constant-impedance';
+export type LoadModel = 'constant-power' | 'constant-impedance' | 'zip';
 
 /** Governor (speed control) settings of one set. */
 export interface Governor {
@@ -101,6 +134,8 @@ export interface Governor {
   engineLagS: number;
   /** Isochronous PI reset time, s (simulator). */
   isoResetS: number;
+  /** Isochronous proportional gain, pu power per pu speed error (simulator). Default `SET_DEFAULTS.isoGainPU`. */
+  isoGainPU?: number;
 }
 
 /** Voltage regulator (excitation control) settings of one set. */
@@ -135,6 +170,12 @@ export interface Regulator {
   oelPct?: number;
   /** Time the field may stay above the over-excitation limit before it is held there, s. Default `SET_DEFAULTS.oelDelayS`. */
   oelDelayS?: number;
+  /** Time the field demand must stay below the limit before the limiter lets go, s. Default `SET_DEFAULTS.oelResetS`. */
+  oelResetS?: number;
+  /** Integral (reset) time of the regulator, s (simulator). Default `SET_DEFAULTS.regulatorResetS`. */
+  resetS?: number;
+  /** Time constant of the power-factor trim, s (simulator, power-factor mode). Default `SET_DEFAULTS.pfTrimS`. */
+  pfTrimS?: number;
 }
 
 /** Synchronous machine data, per unit on the set's base (`ratedKVA`, plant `ratedVoltageV`). */
@@ -153,6 +194,8 @@ export interface Machine {
   dampingPU: number;
   /** Armature resistance, pu (closing surge R/X, simulator). */
   raPU: number;
+  /** Subtransient open-circuit time constant T''d0, s (simulator). Default `SET_DEFAULTS.tddopS`. */
+  tddopS?: number;
 }
 
 /**
@@ -227,9 +270,23 @@ export interface Load {
   kW: number;
   /** Reactive power at rated voltage, kVAR (positive = lagging, absorbs VARs). */
   kVAR: number;
+  /**
+   * How the load responds to voltage: constant power, constant impedance, or `zip` — shares of
+   * constant impedance (∝ V²), constant current (∝ V) and constant power given by the fields below.
+   */
   model: LoadModel;
+  /** ZIP model: share of the kW that is constant impedance, %. Default 0. */
+  kWImpedancePct?: number;
+  /** ZIP model: share of the kW that is constant current, %; the rest (100 − Z − I) is constant power. Default 0. */
+  kWCurrentPct?: number;
+  /** ZIP model: share of the kVAR that is constant impedance, %. Default 0. */
+  kVARImpedancePct?: number;
+  /** ZIP model: share of the kVAR that is constant current, %; the rest is constant power. Default 0. */
+  kVARCurrentPct?: number;
   /** Frequency sensitivity: % change of kW per % change of frequency (0 = none). */
   frequencySensitivity: number;
+  /** Frequency sensitivity of the kVAR: % change of kVAR per % change of frequency (0 = none). Default 0. */
+  kVARFrequencySensitivity?: number;
   /**
    * Under-frequency load shedding: the load is switched off when the bus frequency stays
    * below this, % of rated frequency, for `shedDelayS`. Left out: never shed.
@@ -249,4 +306,34 @@ export interface Plant {
   ratedVoltageV: number;
   sets: GenSet[];
   loads: Load[];
+  /**
+   * Below this bus voltage, % of rated, the simulator's constant-power and constant-current
+   * load shares draw as constant impedance (and the run says how much is not served).
+   * Default `PLANT_DEFAULTS.powerLoadBreakPct`.
+   */
+  powerLoadBreakPct?: number;
+}
+
+/** The shares of a load's kW and kVAR by voltage law (fractions 0–1, each triple sums to 1). */
+export interface ZipShares {
+  pZ: number;
+  pI: number;
+  pP: number;
+  qZ: number;
+  qI: number;
+  qP: number;
+}
+
+/**
+ * The voltage-law shares of a load: constant power (0, 0, 1), constant impedance (1, 0, 0), or
+ * the ZIP fields (constant power the rest). Fields of the ZIP model are not used by the others.
+ */
+export function zipShares(l: Pick<Load, 'model' | 'kWImpedancePct' | 'kWCurrentPct' | 'kVARImpedancePct' | 'kVARCurrentPct'>): ZipShares {
+  if (l.model === 'constant-impedance') return { pZ: 1, pI: 0, pP: 0, qZ: 1, qI: 0, qP: 0 };
+  if (l.model !== 'zip') return { pZ: 0, pI: 0, pP: 1, qZ: 0, qI: 0, qP: 1 };
+  const pZ = (l.kWImpedancePct ?? 0) / 100;
+  const pI = (l.kWCurrentPct ?? 0) / 100;
+  const qZ = (l.kVARImpedancePct ?? 0) / 100;
+  const qI = (l.kVARCurrentPct ?? 0) / 100;
+  return { pZ, pI, pP: Math.max(0, 1 - pZ - pI), qZ, qI, qP: Math.max(0, 1 - qZ - qI) };
 }

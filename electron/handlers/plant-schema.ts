@@ -3,7 +3,7 @@
  * "field: rule" message. Optional simulator fields get documented defaults.
  */
 import { z } from 'zod';
-import { PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
+import { PLANT_DEFAULTS, PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
 import type { Plant } from '../../shared-types';
 
 const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0');
@@ -43,6 +43,7 @@ const governorSchema = z
     actuatorLagS: nonNegative('s').lte(10, 'must be 10 s or less').default(0.05),
     engineLagS: nonNegative('s').lte(30, 'must be 30 s or less').default(0.3),
     isoResetS: between('s', 0.01, 600).default(2),
+    isoGainPU: between('pu', 0.01, 200).default(SET_DEFAULTS.isoGainPU),
   })
   .strict();
 
@@ -65,6 +66,9 @@ const regulatorSchema = z
     vhzSlopePctPerHz: nonNegative('% per Hz').lte(20, 'must be 20 % per Hz or less').default(SET_DEFAULTS.vhzSlopePctPerHz),
     oelPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
     oelDelayS: nonNegative('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.oelDelayS),
+    oelResetS: nonNegative('s').lte(600, 'must be 600 s or less').default(SET_DEFAULTS.oelResetS),
+    resetS: between('s', 0.01, 60).default(SET_DEFAULTS.regulatorResetS),
+    pfTrimS: between('s', 0.01, 120).default(SET_DEFAULTS.pfTrimS),
   })
   .strict();
 
@@ -78,6 +82,7 @@ const machineSchema = z
     inertiaS: between('s', 0.01, 60).default(1),
     dampingPU: nonNegative('pu').lte(MAX_DAMPING_PU, `must be ${MAX_DAMPING_PU} pu or less`).default(2),
     raPU: nonNegative('pu').lte(1, 'must be 1 pu or less').default(0.01),
+    tddopS: between('s', 0.001, 0.5).default(SET_DEFAULTS.tddopS),
   })
   .strict();
 
@@ -123,6 +128,9 @@ const setSchema = z
   })
   .strict();
 
+// Optional load fields: empty (null) or left out mean the same (the default, or never shed).
+const share = () => nonNegative('%').lte(100, 'must be 100 % or less').nullish();
+
 const loadSchema = z
   .object({
     id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
@@ -130,12 +138,22 @@ const loadSchema = z
     online: z.boolean({ error: 'must be true or false' }).default(true),
     kW: nonNegative('kW').lte(MAX_LOAD_KW, 'must be 10 000 000 kW or less'),
     kVAR: between('kVAR', -MAX_LOAD_KW, MAX_LOAD_KW),
-    model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).default('constant-power'),
+    model: z.enum(['constant-power', 'constant-impedance', 'zip'], { error: 'must be "constant-power", "constant-impedance" or "zip"' }).default('constant-power'),
+    kWImpedancePct: share(),
+    kWCurrentPct: share(),
+    kVARImpedancePct: share(),
+    kVARCurrentPct: share(),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
-    shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').optional(),
-    shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').optional(),
+    kVARFrequencySensitivity: finite('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').nullish(),
+    shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').nullish(),
+    shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').nullish(),
   })
   .strict();
+
+/** A load without its emptied (null) optional fields: they read as left out. */
+function withoutNulls<T extends object>(l: T): { [K in keyof T]: Exclude<T[K], null> } {
+  return Object.fromEntries(Object.entries(l).filter(([, v]) => v !== null)) as { [K in keyof T]: Exclude<T[K], null> };
+}
 
 /** The regulator without a `ceilingPU` of null (an emptied field: the ceiling is derived). */
 function withoutNullCeiling<T extends { ceilingPU?: number | null }>(r: T): Omit<T, 'ceilingPU'> & { ceilingPU?: number } {
@@ -157,6 +175,7 @@ export const plantSchema = z
     ratedVoltageV: finite('V').gte(100, 'must be 100 V or more').lte(35000, 'must be 35 000 V or less'),
     sets: z.array(setSchema, { error: 'must be a list of sets' }).min(1, 'must hold at least one set').max(256, 'must hold 256 sets or fewer'),
     loads: z.array(loadSchema, { error: 'must be a list of loads' }).default([]),
+    powerLoadBreakPct: positive('%').gte(10, 'must be 10 % or more').lte(95, 'must be 95 % or less').default(PLANT_DEFAULTS.powerLoadBreakPct),
   })
   .strict()
   .superRefine((p, ctx) => {
@@ -189,11 +208,17 @@ export const plantSchema = z
       within(r.setpointV, p.ratedVoltageV, ['regulator', 'setpointV'], 'V');
       if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });
+      if (s.machine.tddopS >= s.machine.tdopS)
+        ctx.addIssue({ code: 'custom', path: ['sets', i, 'machine', 'tddopS'], message: "must be less than T'd0 (machine.tdopS): the damper decays faster than the field" });
     });
     const loadIds = new Set<string>();
     p.loads.forEach((l, i) => {
       if (loadIds.has(l.id)) ctx.addIssue({ code: 'custom', path: ['loads', i, 'id'], message: `must be unique ("${l.id}" is used twice)` });
       loadIds.add(l.id);
+      if ((l.kWImpedancePct ?? 0) + (l.kWCurrentPct ?? 0) > 100)
+        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kWCurrentPct'], message: 'with kWImpedancePct must not exceed 100 % (the rest of the kW is constant power)' });
+      if ((l.kVARImpedancePct ?? 0) + (l.kVARCurrentPct ?? 0) > 100)
+        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kVARCurrentPct'], message: 'with kVARImpedancePct must not exceed 100 % (the rest of the kVAR is constant power)' });
     });
   })
   .transform((p): Plant => ({
@@ -212,5 +237,5 @@ export const plantSchema = z
         setpointV: s.regulator.setpointV ?? p.ratedVoltageV,
       },
     })),
-    loads: p.loads.map((l) => ({ ...l, name: l.name ?? l.id })),
+    loads: p.loads.map((l) => ({ ...withoutNulls(l), name: l.name ?? l.id })),
   }));

@@ -103,7 +103,19 @@ export const projectEventSchema = z.discriminatedUnion(
   { error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined) },
 );
 
-type EventInput = z.infer<typeof eventSchema>;
+/** The fields of an event that `checkEvents` reads (any event kind fits). */
+interface EventFields {
+  atS: number;
+  type: string;
+  setId?: string;
+  loadId?: string;
+  kW?: number;
+  kVAR?: number;
+  voltageV?: number;
+  frequencyHz?: number;
+  openBreaker?: boolean;
+  shutdown?: boolean;
+}
 
 /**
  * Checks a scenario's events against its run and its plant: each event within the run, each
@@ -111,7 +123,7 @@ type EventInput = z.infer<typeof eventSchema>;
  * scenario (`['events', i, field]`). Used by the scenario schema and the project schema alike.
  */
 export function checkEvents(
-  events: readonly EventInput[],
+  events: readonly EventFields[],
   durationS: number,
   plant: { sets: readonly { id: string }[]; loads: readonly { id: string }[] },
   add: (path: (string | number)[], message: string) => void,
@@ -121,7 +133,7 @@ export function checkEvents(
   events.forEach((e, i) => {
     const at = (field: string, message: string) => add(['events', i, field], message);
     if (e.atS > durationS) at('atS', `must be within the run (0 to ${durationS} s)`);
-    if ('setId' in e && !setIds.has(e.setId)) at('setId', `no set "${e.setId}" in the plant`);
+    if (e.setId !== undefined && !setIds.has(e.setId)) at('setId', `no set "${e.setId}" in the plant`);
     if (e.type === 'load-step') {
       if (e.loadId !== undefined) {
         if (!loadIds.has(e.loadId)) at('loadId', `no load "${e.loadId}" in the plant`);

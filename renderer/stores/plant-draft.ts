@@ -112,7 +112,7 @@ export function newSet(draft: PlantDraft): SetDraft {
     overloadPct: SET_DEFAULTS.overloadPct,
     motoringPct: SET_DEFAULTS.motoringPct,
     leadingKVARLimitPct: 30,
-    governor: { mode: 'droop', droopPct: 4, noLoadHz: f * 1.04, setpointHz: f, baseKW: 0, loadSharingLink: true, actuatorLagS: 0.05, engineLagS: 0.3, isoResetS: 2 },
+    governor: { mode: 'droop', droopPct: 4, noLoadHz: f * 1.04, setpointHz: f, baseKW: 0, loadSharingLink: true, actuatorLagS: 0.05, engineLagS: 0.3, isoResetS: 2, isoGainPU: SET_DEFAULTS.isoGainPU },
     regulator: {
       mode: 'reactive-droop',
       droopPct: 4,
@@ -127,8 +127,11 @@ export function newSet(draft: PlantDraft): SetDraft {
       vhzSlopePctPerHz: SET_DEFAULTS.vhzSlopePctPerHz,
       oelPct: SET_DEFAULTS.oelPct,
       oelDelayS: SET_DEFAULTS.oelDelayS,
+      oelResetS: SET_DEFAULTS.oelResetS,
+      resetS: SET_DEFAULTS.regulatorResetS,
+      pfTrimS: SET_DEFAULTS.pfTrimS,
     },
-    machine: { ...TYPICAL_MACHINE, dampingPU: 2, raPU: 0.01 },
+    machine: { ...TYPICAL_MACHINE, dampingPU: 2, raPU: 0.01, tddopS: SET_DEFAULTS.tddopS },
     feeder: { rOhm: 0, xOhm: 0 },
     protection: { ...SET_DEFAULTS.protection },
   };

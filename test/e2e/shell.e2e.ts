@@ -20,4 +20,22 @@ describe('browser preview shell', () => {
     }
     expect(errors).toEqual([]);
   });
+
+  it('edits a load\'s voltage law (ZIP shares) and its under-frequency shedding stage in the Plant view', async () => {
+    const { page, errors } = await openPage(browser(), inject('previewUrl'));
+    await page.getByTestId('rated-table').waitFor();
+    await page.locator('[data-test="field-loads[0].model"]').selectOption('zip');
+    await page.locator('[data-test="field-loads[0].kWImpedancePct"]').fill('30');
+    await page.locator('[data-test="field-loads[0].kWCurrentPct"]').fill('20');
+    // The constant-power share is the rest: 100 − 30 − 20 = 50 % (closed form).
+    await expect.poll(() => page.getByTestId('load-kw-power-share-0').textContent()).toBe('50.0');
+    await page.locator('[data-test="field-loads[0].shedFrequencyPct"]').fill('97');
+    // 97 % of 50 Hz = 48.50 Hz (closed form).
+    await expect.poll(() => page.getByTestId('load-shed-hz-0').textContent()).toBe('(48.50 Hz)');
+    await page.locator('[data-test="field-loads[0].shedFrequencyPct"]').fill('100');
+    await expect.poll(() => page.getByTestId('load-detail-0').textContent()).toContain('must be below 100 %');
+    await page.getByTestId('load-detail-0').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(ARTIFACTS, 'plant-loads.png') });
+    expect(errors).toEqual([]);
+  });
 });

@@ -62,7 +62,7 @@ describe('solveSharing handler', () => {
     ['leading kVAR limit above 100 %', (p) => (p.sets[0]!.leadingKVARLimitPct = 150), 'sets[0].leadingKVARLimitPct: must be 100 % or less'],
     ['duplicate set id', (p) => (p.sets[1]!.id = 'G1'), 'sets[1].id: must be unique ("G1" is used twice)'],
     ['negative load kW', (p) => ((p.loads as Raw[])[0]!.kW = -1), 'loads[0].kW: must be 0 or more'],
-    ['unknown load model', (p) => ((p.loads as Raw[])[0]!.model = 'motor'), 'loads[0].model: must be "constant-power" or "constant-impedance"'],
+    ['unknown load model', (p) => ((p.loads as Raw[])[0]!.model = 'motor'), 'loads[0].model: must be "constant-power", "constant-impedance" or "zip"'],
     ['frequency sensitivity above 10', (p) => ((p.loads as Raw[])[0]!.frequencySensitivity = 12), 'loads[0].frequencySensitivity: must be 10 or less'],
     ['rated frequency not 50 or 60', (p) => (p.ratedFrequencyHz = 55), 'ratedFrequencyHz: must be 50 or 60 (Hz)'],
     ['no sets', (p) => (p.sets = []), 'sets: must hold at least one set'],

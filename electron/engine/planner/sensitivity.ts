@@ -28,7 +28,7 @@ function closedFormApplies(plant: Plant, base: SharingResult, load?: LoadOverrid
     if (s.governor.mode !== 'droop' || s.regulator.mode !== 'reactive-droop') return false;
     if (s.feeder.rOhm !== 0 || s.feeder.xOhm !== 0) return false;
   }
-  if (!load && plant.loads.some((l) => l.online && (l.model !== 'constant-power' || l.frequencySensitivity !== 0))) return false;
+  if (!load && plant.loads.some((l) => l.online && (l.model !== 'constant-power' || l.frequencySensitivity !== 0 || (l.kVARFrequencySensitivity ?? 0) !== 0))) return false;
   return base.sets.every((r) => !r.flags.includes('at-max-kW') && !r.flags.includes('at-min-kW'));
 }
 

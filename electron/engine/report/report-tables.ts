@@ -1,8 +1,7 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL, PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
 import { flagWords, isoClassName } from '../../../shared-types/presentation';
 import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
-import { POWER_LOAD_BREAK_PU } from '../simulation/network';
 import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../sync/slip-timing';
 import type { ReportData, SyncPart } from './report-data';
 
@@ -62,12 +61,32 @@ function settingsTable(d: ReportData): ReportTable {
 }
 
 function loadsTable(d: ReportData): ReportTable {
+  const fr = d.plant.ratedFrequencyHz;
+  const pct = (x: number) => String(Number((x * 100).toFixed(1)));
+  const breakPct = d.plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct;
   return {
     id: 'loads',
-    title: 'Connected loads (at rated voltage and frequency)',
-    columns: ['Load', 'Name', 'Online', 'kW', 'kVAR', 'Model'],
-    decimals: [0, 0, 0, 0, 0, 0],
-    rows: d.plant.loads.map((l) => [l.id, l.name, l.online ? 'yes' : 'no', l.kW, l.kVAR, l.model]),
+    title: `Connected loads (at rated voltage and frequency; in runs the constant-power and constant-current shares draw as impedance below ${breakPct} % voltage)`,
+    columns: ['Load', 'Name', 'Online', 'kW', 'kVAR', 'Model', 'kW shares Z / I / P (%)', 'kVAR shares Z / I / P (%)', 'kW f-sensitivity (%/%)', 'kVAR f-sensitivity (%/%)', 'Shed below (Hz)', 'Shed delay (s)'],
+    decimals: [0, 0, 0, 0, 0, 0, 0, 0, 1, 1, 2, 2],
+    rows: d.plant.loads.map((l) => {
+      const z = zipShares(l);
+      const shed = l.shedFrequencyPct !== undefined && l.shedFrequencyPct > 0;
+      return [
+        l.id,
+        l.name,
+        l.online ? 'yes' : 'no',
+        l.kW,
+        l.kVAR,
+        l.model,
+        `${pct(z.pZ)} / ${pct(z.pI)} / ${pct(z.pP)}`,
+        `${pct(z.qZ)} / ${pct(z.qI)} / ${pct(z.qP)}`,
+        l.frequencySensitivity,
+        l.kVARFrequencySensitivity ?? 0,
+        shed ? (l.shedFrequencyPct! / 100) * fr : null,
+        shed ? (l.shedDelayS ?? SET_DEFAULTS.shedDelayS) : null,
+      ];
+    }),
   };
 }
 
@@ -177,16 +196,16 @@ function metricsTable(d: ReportData): ReportTable {
         m?.voltageRecoveryS ?? null,
         m?.final.frequencyHz ?? null,
         m?.final.voltageV ?? null,
-        t.problem ?? (m ? transientNotes(m) : ''),
+        t.problem ?? (m ? transientNotes(m, d.plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct) : ''),
       ];
     }),
   };
 }
 
-function transientNotes(m: SimulationMetrics): string {
+function transientNotes(m: SimulationMetrics, breakPct: number): string {
   const notes: string[] = [];
   if (m.frequencyRecoveryS === null || m.voltageRecoveryS === null) notes.push('did not recover into the band around the steady state of the final load within the run');
-  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of constant-power load not served below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage`);
+  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of load not served (bus dead, or below ${breakPct.toFixed(0)} % voltage where constant-power and constant-current loads draw as impedance)`);
   return notes.join('; ');
 }
 

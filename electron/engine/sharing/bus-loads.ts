@@ -1,27 +1,37 @@
 /**
- * The loads on the common bus as functions of bus voltage and frequency.
- * Constant power: P, Q fixed. Constant impedance: P, Q ∝ (V / V_rated)².
- * Frequency sensitivity s (% kW per % Hz): P · max(0, 1 + s (f − f_rated) / f_rated);
- * the clamp keeps a load from turning into a source far below rated frequency.
- * Reactive power is taken as independent of frequency.
+ * The loads on the common bus as functions of bus voltage and frequency: the ZIP (polynomial)
+ * model of Kundur, *Power System Stability and Control* (1994), §7.1 (section value from memory).
+ * With u = V / V_rated each load draws
+ *
+ *   P = kW   (pZ u² + pI u + pP) · max(0, 1 + s_P (f − f_rated) / f_rated)
+ *   Q = kVAR (qZ u² + qI u + qP) · max(0, 1 + s_Q (f − f_rated) / f_rated)
+ *
+ * (constant impedance, constant current and constant power shares; s_P, s_Q in % per %).
+ * A constant-power load is (0, 0, 1), a constant-impedance load (1, 0, 0). The clamp keeps a
+ * load from turning into a source far from rated frequency.
  */
 import type { LoadTerm } from './sharing-model';
 
-function voltageFactor(l: LoadTerm, voltageV: number, ratedVoltageV: number): number {
-  if (!l.impedance) return 1;
-  const u = voltageV / ratedVoltageV;
-  return u * u;
+/** kW voltage factor pZ u² + pI u + pP. */
+function pVoltageFactor(l: LoadTerm, u: number): number {
+  return l.pZ * u * u + l.pI * u + l.pP;
 }
 
-function frequencyFactor(l: LoadTerm, frequencyHz: number, ratedFrequencyHz: number): number {
-  if (l.frequencySensitivity === 0) return 1;
-  return Math.max(0, 1 + (l.frequencySensitivity * (frequencyHz - ratedFrequencyHz)) / ratedFrequencyHz);
+/** kVAR voltage factor qZ u² + qI u + qP. */
+function qVoltageFactor(l: LoadTerm, u: number): number {
+  return l.qZ * u * u + l.qI * u + l.qP;
+}
+
+function factor(sensitivity: number, frequencyHz: number, ratedFrequencyHz: number): number {
+  if (sensitivity === 0) return 1;
+  return Math.max(0, 1 + (sensitivity * (frequencyHz - ratedFrequencyHz)) / ratedFrequencyHz);
 }
 
 /** Total load kW at bus voltage `voltageV` (V line-to-line) and frequency `frequencyHz`. */
 export function busLoadKW(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  const u = voltageV / ratedVoltageV;
   let p = 0;
-  for (const l of loads) p += l.kW * voltageFactor(l, voltageV, ratedVoltageV) * frequencyFactor(l, frequencyHz, ratedFrequencyHz);
+  for (const l of loads) p += l.kW * pVoltageFactor(l, u) * factor(l.frequencySensitivity, frequencyHz, ratedFrequencyHz);
   return p;
 }
 
@@ -36,48 +46,77 @@ export function busLoadKWLinear(
   ratedVoltageV: number,
   ratedFrequencyHz: number,
 ): { a: number; b: number } {
+  const u = voltageV / ratedVoltageV;
   let a = 0;
   let b = 0;
   for (const l of loads) {
-    const pv = l.kW * voltageFactor(l, voltageV, ratedVoltageV);
-    if (frequencyFactor(l, frequencyHz, ratedFrequencyHz) <= 0) continue;
+    const pv = l.kW * pVoltageFactor(l, u);
+    if (factor(l.frequencySensitivity, frequencyHz, ratedFrequencyHz) <= 0) continue;
     a += pv;
     b += (pv * l.frequencySensitivity) / ratedFrequencyHz;
   }
   return { a, b };
 }
 
-/** Total load kVAR at bus voltage `voltageV`. */
-export function busLoadKVAR(loads: readonly LoadTerm[], voltageV: number, ratedVoltageV: number): number {
+/** Total load kVAR at bus voltage `voltageV` and frequency `frequencyHz`. */
+export function busLoadKVAR(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  const u = voltageV / ratedVoltageV;
   let q = 0;
-  for (const l of loads) q += l.kVAR * voltageFactor(l, voltageV, ratedVoltageV);
+  for (const l of loads) q += l.kVAR * qVoltageFactor(l, u) * factor(l.kVARFrequencySensitivity, frequencyHz, ratedFrequencyHz);
   return q;
 }
 
-/** Split of the load kVAR into a constant part and the coefficient c of V² (kVAR per V²). */
-export function busLoadKVARQuadratic(loads: readonly LoadTerm[], ratedVoltageV: number): { constant: number; perV2: number } {
+/**
+ * The load kVAR at frequency `frequencyHz` as `constant + perV · V + perV2 · V²` (kVAR, kVAR
+ * per V, kVAR per V²): the constant-power, constant-current and constant-impedance parts.
+ */
+export function busLoadKVARQuadratic(
+  loads: readonly LoadTerm[],
+  frequencyHz: number,
+  ratedVoltageV: number,
+  ratedFrequencyHz: number,
+): { constant: number; perV: number; perV2: number } {
   let constant = 0;
+  let perV = 0;
   let perV2 = 0;
   for (const l of loads) {
-    if (l.impedance) perV2 += l.kVAR / (ratedVoltageV * ratedVoltageV);
-    else constant += l.kVAR;
+    const q = l.kVAR * factor(l.kVARFrequencySensitivity, frequencyHz, ratedFrequencyHz);
+    constant += q * l.qP;
+    perV += (q * l.qI) / ratedVoltageV;
+    perV2 += (q * l.qZ) / (ratedVoltageV * ratedVoltageV);
   }
-  return { constant, perV2 };
+  return { constant, perV, perV2 };
 }
 
 /** ∂(load kW)/∂V at (V, f), kW per V. */
 export function busLoadKWdV(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  const u = voltageV / ratedVoltageV;
   let d = 0;
   for (const l of loads) {
-    if (!l.impedance) continue;
-    d += ((2 * l.kW * voltageV) / (ratedVoltageV * ratedVoltageV)) * frequencyFactor(l, frequencyHz, ratedFrequencyHz);
+    if (l.pZ === 0 && l.pI === 0) continue;
+    d += ((l.kW * (2 * l.pZ * u + l.pI)) / ratedVoltageV) * factor(l.frequencySensitivity, frequencyHz, ratedFrequencyHz);
   }
   return d;
 }
 
-/** ∂(load kVAR)/∂V at V, kVAR per V. */
-export function busLoadKVARdV(loads: readonly LoadTerm[], voltageV: number, ratedVoltageV: number): number {
+/** ∂(load kVAR)/∂V at (V, f), kVAR per V. */
+export function busLoadKVARdV(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  const u = voltageV / ratedVoltageV;
   let d = 0;
-  for (const l of loads) if (l.impedance) d += (2 * l.kVAR * voltageV) / (ratedVoltageV * ratedVoltageV);
+  for (const l of loads) {
+    if (l.qZ === 0 && l.qI === 0) continue;
+    d += ((l.kVAR * (2 * l.qZ * u + l.qI)) / ratedVoltageV) * factor(l.kVARFrequencySensitivity, frequencyHz, ratedFrequencyHz);
+  }
+  return d;
+}
+
+/** ∂(load kVAR)/∂f at (V, f), kVAR per Hz (0 where a load's frequency factor is clamped at zero). */
+export function busLoadKVARdF(loads: readonly LoadTerm[], voltageV: number, frequencyHz: number, ratedVoltageV: number, ratedFrequencyHz: number): number {
+  const u = voltageV / ratedVoltageV;
+  let d = 0;
+  for (const l of loads) {
+    if (l.kVARFrequencySensitivity === 0 || factor(l.kVARFrequencySensitivity, frequencyHz, ratedFrequencyHz) <= 0) continue;
+    d += (l.kVAR * qVoltageFactor(l, u) * l.kVARFrequencySensitivity) / ratedFrequencyHz;
+  }
   return d;
 }

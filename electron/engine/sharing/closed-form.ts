@@ -1,7 +1,7 @@
 /**
  * The operating point of a plant without feeders: every set's terminals are the bus.
- * Active and reactive closed forms are coupled only through constant-impedance loads
- * (P depends on V) and power-factor sets (Q depends on P): a short fixed-point loop
+ * Active and reactive closed forms are coupled only through voltage-dependent loads
+ * (P depends on V), frequency-dependent kVAR and power-factor sets (Q depends on P): a short fixed-point loop
  * settles that coupling; with the voltage held by a set it finishes in one pass.
  */
 import { Diverged } from '../errors';
@@ -26,8 +26,8 @@ export function solveClosedForm(m: SharingModel): OperatingPoint {
     if (passes === MAX_PASSES)
       throw new Diverged(`The sharing solve did not settle in ${MAX_PASSES} passes (bus voltage still moving). Check for unusual load or setpoint values.`);
     passes++;
-    solveActive(m, v, p);
-    const r = solveReactive(m, p, q);
+    const act = solveActive(m, v, p);
+    const r = solveReactive(m, p, q, act.frequencyHz);
     loadKVAR = r.loadKVAR;
     const dv = Math.abs(r.voltageV - v);
     v = r.voltageV;

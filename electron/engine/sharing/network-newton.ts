@@ -7,7 +7,7 @@
  */
 import { Diverged, EngineError, NoSteadyState } from '../errors';
 import * as codes from './sharing-model';
-import { busLoadKVAR, busLoadKVARdV, busLoadKW, busLoadKWdV, busLoadKWLinear } from './bus-loads';
+import { busLoadKVAR, busLoadKVARdF, busLoadKVARdV, busLoadKW, busLoadKWdV, busLoadKWLinear } from './bus-loads';
 import { solveSet } from './feeder-solve';
 import { overCapabilityMessage, underMinimumMessage } from './active-sharing';
 import type { Work } from './network-work';
@@ -31,7 +31,7 @@ export function evaluate(w: Work): boolean {
   const vr = m.ratedVoltageV;
   const fr = m.ratedFrequencyHz;
   w.loadW = busLoadKW(m.loads, vb, fHz, vr, fr) * 1000;
-  w.loadVAR = busLoadKVAR(m.loads, vb, vr) * 1000;
+  w.loadVAR = busLoadKVAR(m.loads, vb, fHz, vr, fr) * 1000;
   let sp = 0;
   let sq = 0;
   let se = 0;
@@ -51,9 +51,12 @@ export function evaluate(w: Work): boolean {
   w.f[0] = sp - w.loadW;
   w.f[1] = sq - w.loadVAR;
   if (w.ny === 3) w.f[2] = se / w.unitWeightSum - m.voltageSetpointV;
-  if (!w.isoMode) jac[0] = jac[0]! - busLoadKWLinear(m.loads, vb, fHz, vr, fr).b * 1000;
+  if (!w.isoMode) {
+    jac[0] = jac[0]! - busLoadKWLinear(m.loads, vb, fHz, vr, fr).b * 1000;
+    jac[3] = jac[3]! - busLoadKVARdF(m.loads, vb, fHz, vr, fr) * 1000;
+  }
   jac[1] = jac[1]! - busLoadKWdV(m.loads, vb, fHz, vr, fr) * 1000;
-  jac[4] = jac[4]! - busLoadKVARdV(m.loads, vb, vr) * 1000;
+  jac[4] = jac[4]! - busLoadKVARdV(m.loads, vb, fHz, vr, fr) * 1000;
   return true;
 }
 

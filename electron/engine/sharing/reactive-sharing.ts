@@ -6,8 +6,10 @@
  * Power-factor control: `Q = P tan φ`. The voltage unit (one voltage-mode set, or the
  * cross-current group sharing in proportion to `ratedKVA`) holds its setpoint and takes
  * the remainder. Without a voltage unit the droop sets set the voltage: with loads of
- * constant power and constant impedance the balance is the quadratic
- * `c V² + A V − B = 0`, solved in the cancellation-free form `V = 2B / (A + √(A² + 4cB))`.
+ * constant power, constant current and constant impedance (ZIP, `bus-loads.ts`) the balance is
+ * the quadratic `c V² + A V − B = 0` (the constant-current part joins A), solved in the
+ * cancellation-free form `V = 2B / (A + √(A² + 4cB))`. The loads' kVAR is taken at the
+ * frequency of the active solve (`frequencyHz`).
  *
  * Regulator limiters: a set in reactive droop or power-factor control is held inside its
  * field-heating limit (lagging kVAR at its kW, `capability.ts`) and its leading limit; a set
@@ -61,14 +63,16 @@ const MAX_BISECTIONS = 200;
  * Bus voltage and each set's kVAR (written to `q`) given each set's kW in `p`.
  * @throws NoSteadyState when the droop sets cannot meet the reactive load at any positive voltage.
  */
-export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array): { voltageV: number; loadKVAR: number } {
+export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array, frequencyHz: number): { voltageV: number; loadKVAR: number } {
   const vr = m.ratedVoltageV;
+  const fr = m.ratedFrequencyHz;
+  const f = frequencyHz;
   let qPF = 0;
   for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_PF) qPF += (q[i] = limitKVAR(m, i, p[i]!, p[i]! * m.tanPhi[i]!));
 
   if (m.voltageUnit.length > 0) {
     const v = m.voltageSetpointV;
-    const loadKVAR = busLoadKVAR(m.loads, v, vr);
+    const loadKVAR = busLoadKVAR(m.loads, v, f, vr, fr);
     let others = qPF;
     for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_DROOP) others += (q[i] = limitKVAR(m, i, p[i]!, droopKVAR(m, i, v)));
     const unitKVAR = loadKVAR - others;
@@ -78,11 +82,11 @@ export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array)
     return { voltageV: v, loadKVAR };
   }
 
-  const { constant, perV2 } = busLoadKVARQuadratic(m.loads, vr);
+  const { constant, perV, perV2 } = busLoadKVARQuadratic(m.loads, f, vr, fr);
   // The exact balance voltage with the droop sets held as they are at `vAt` (NaN: none, or
   // no positive root). vAt = NaN: no set held (the plain droop lines).
   const segment = (vAt: number): number => {
-    let a = 0;
+    let a = perV;
     let b = qPF - constant;
     for (let i = 0; i < m.n; i++) {
       if (m.reg[i] !== REG_DROOP) continue;
@@ -101,9 +105,9 @@ export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array)
   const balance = (v: number): number => {
     let s = qPF;
     for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_DROOP) s += limitKVAR(m, i, p[i]!, droopKVAR(m, i, v));
-    return s - busLoadKVAR(m.loads, v, vr);
+    return s - busLoadKVAR(m.loads, v, f, vr, fr);
   };
-  const tol = 1e-12 * (busLoadKVAR(m.loads, vr, vr) + m.ratedVoltageV + 1);
+  const tol = 1e-12 * (busLoadKVAR(m.loads, vr, f, vr, fr) + m.ratedVoltageV + 1);
   let v = segment(NaN);
   for (let k = 0; k < MAX_WALK && v > 0 && Number.isFinite(v); k++) {
     const next = segment(v);
@@ -129,9 +133,9 @@ export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array)
   }
   if (!(v > 0) || !Number.isFinite(v)) {
     throw new NoSteadyState(
-      `The reactive load (${Math.round(busLoadKVAR(m.loads, vr, vr))} kVAR at rated voltage) is more than the sets in reactive droop can supply at any voltage within their field limits: the voltage would collapse. Raise the no-load voltages, add a set, or compensate the load.`,
+      `The reactive load (${Math.round(busLoadKVAR(m.loads, vr, f, vr, fr))} kVAR at rated voltage) is more than the sets in reactive droop can supply at any voltage within their field limits: the voltage would collapse. Raise the no-load voltages, add a set, or compensate the load.`,
     );
   }
   for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_DROOP) q[i] = limitKVAR(m, i, p[i]!, droopKVAR(m, i, v));
-  return { voltageV: v, loadKVAR: busLoadKVAR(m.loads, v, vr) };
+  return { voltageV: v, loadKVAR: busLoadKVAR(m.loads, v, f, vr, fr) };
 }

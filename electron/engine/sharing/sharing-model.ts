@@ -3,7 +3,8 @@
  * and regulator law as numbers in typed arrays; the loads as voltage- and
  * frequency-dependent terms. Built once per solve; the solvers only read it.
  */
-import type { GenSet, LoadOverride, Plant } from '../../../shared-types';
+import { zipShares } from '../../../shared-types';
+import type { GenSet, Load, LoadOverride, Plant, ZipShares } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
 import { leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, overloadLimitKW } from './set-limits';
@@ -19,14 +20,27 @@ export const REG_CROSS = 1;
 export const REG_VOLTAGE = 2;
 export const REG_PF = 3;
 
-/** One load term on the common bus (powers at rated voltage and frequency). */
-export interface LoadTerm {
+/**
+ * One load term on the common bus (powers at rated voltage and frequency) with its ZIP
+ * shares: P(V) = kW (pZ u² + pI u + pP), Q(V) = kVAR (qZ u² + qI u + qP), u = V / V_rated.
+ */
+export interface LoadTerm extends ZipShares {
   kW: number;
   kVAR: number;
-  /** true: P, Q scale with (V / V_rated)²; false: constant power. */
-  impedance: boolean;
   /** % change of kW per % change of frequency. */
   frequencySensitivity: number;
+  /** % change of kVAR per % change of frequency. */
+  kVARFrequencySensitivity: number;
+}
+
+/** A constant-power load term. */
+export function constantPowerTerm(kW: number, kVAR: number): LoadTerm {
+  return { kW, kVAR, ...zipShares({ model: 'constant-power' }), frequencySensitivity: 0, kVARFrequencySensitivity: 0 };
+}
+
+/** The load term of a plant load. */
+export function loadTerm(l: Load): LoadTerm {
+  return { kW: l.kW, kVAR: l.kVAR, ...zipShares(l), frequencySensitivity: l.frequencySensitivity, kVARFrequencySensitivity: l.kVARFrequencySensitivity ?? 0 };
 }
 
 /** The solver's view of a plant. Arrays are indexed by online set. */
@@ -249,9 +263,7 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
       throw new NoSteadyState('No online set controls voltage (all are in power-factor control): put at least one set in reactive droop, cross-current or voltage control.');
   }
 
-  if (load) m.loads.push({ kW: load.kW, kVAR: load.kVAR, impedance: false, frequencySensitivity: 0 });
-  else
-    for (const l of plant.loads)
-      if (l.online) m.loads.push({ kW: l.kW, kVAR: l.kVAR, impedance: l.model === 'constant-impedance', frequencySensitivity: l.frequencySensitivity });
+  if (load) m.loads.push(constantPowerTerm(load.kW, load.kVAR));
+  else for (const l of plant.loads) if (l.online) m.loads.push(loadTerm(l));
   return m;
 }

@@ -11,6 +11,7 @@ import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_DROOP } from './codes';
 import { initialiseOffline } from './initialise';
 import type { Outputs } from './plant-dynamics';
+import { plainLoadSlot } from './sim-model';
 import type { LoadSlot, SimModel } from './sim-model';
 
 /** What an event may touch. */
@@ -70,18 +71,7 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         return;
       }
       if (ev.kW === undefined && ev.kVAR === undefined) throw new InvalidInput('load-step: give loadId, or kW and kVAR.');
-      const slot: LoadSlot = {
-        id: `step@${fmt(t, 3)}s`,
-        on: true,
-        pPU: (ev.kW ?? 0) / m.baseKVA,
-        qPU: (ev.kVAR ?? 0) / m.baseKVA,
-        impedance: ev.model === 'constant-impedance',
-        frequencySensitivity: 0,
-        shedPU: 0,
-        shedDelayS: 0,
-        shedTimer: 0,
-      };
-      m.loads.push(slot);
+      m.loads.push(plainLoadSlot(`step@${fmt(t, 3)}s`, ev.kW ?? 0, ev.kVAR ?? 0, m.baseKVA, ev.model ?? 'constant-power'));
       target.log(t, `load step ${fmt(ev.kW ?? 0, 0)} kW, ${fmt(ev.kVAR ?? 0, 0)} kVAR (${ev.model ?? 'constant-power'})`);
       return;
     }
@@ -189,17 +179,7 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
     }
     case 'motor-start': {
       const sin = Math.sqrt(Math.max(0, 1 - ev.pf * ev.pf));
-      const slot: LoadSlot = {
-        id: `motor@${fmt(t, 3)}s`,
-        on: true,
-        pPU: (ev.kVA * ev.pf) / m.baseKVA,
-        qPU: (ev.kVA * sin) / m.baseKVA,
-        impedance: true,
-        frequencySensitivity: 0,
-        shedPU: 0,
-        shedDelayS: 0,
-        shedTimer: 0,
-      };
+      const slot: LoadSlot = plainLoadSlot(`motor@${fmt(t, 3)}s`, ev.kVA * ev.pf, ev.kVA * sin, m.baseKVA, 'constant-impedance');
       m.loads.push(slot);
       target.log(t, `motor start: locked rotor ${fmt(ev.kVA, 0)} kVA at pf ${fmt(ev.pf, 2)} for ${fmt(ev.durationS, 2)} s`);
       // Default running load: the locked-rotor kVA over the typical ratio, at the typical running power factor.
@@ -210,7 +190,7 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
       target.later(t + ev.durationS, () => {
         slot.on = false;
         if (runKW !== 0 || runKVAR !== 0) {
-          m.loads.push({ id: `${slot.id}-running`, on: true, pPU: runKW / m.baseKVA, qPU: runKVAR / m.baseKVA, impedance: false, frequencySensitivity: 0, shedPU: 0, shedDelayS: 0, shedTimer: 0 });
+          m.loads.push(plainLoadSlot(`${slot.id}-running`, runKW, runKVAR, m.baseKVA, 'constant-power'));
         }
         const how = defaulted ? ` (not given: locked-rotor ${fmt(ev.kVA, 0)} kVA / ${MOTOR_LOCKED_ROTOR_RATIO} at ${MOTOR_RUNNING_PF} power factor)` : '';
         target.log(t + ev.durationS, `motor up to speed: running load ${fmt(runKW, 0)} kW, ${fmt(runKVAR, 0)} kVAR${how}`);

@@ -6,7 +6,7 @@
  *     above the overload (fuel) limit, below zero fuel (−motoring power) in droop or minKW
  *     for isochronous and base load
  *     droop:        u = (f_nl − f) / (droop · f_rated)      (the speed-droop definition of the README)
- *     isochronous:  u = K_p (e + z),  T_reset dz/dt = e + (p̄ − p) / K_p,  e = (f_set − f) / f_rated
+ *     isochronous:  u = K_p (e + z) (K_p: `governor.isoGainPU`),  T_reset dz/dt = e + (p̄ − p) / K_p,  e = (f_set − f) / f_rated
  *                   p̄ = Σ P / Σ ratedKW of the linked isochronous sets (load-sharing link)
  *     base load:    u = baseKW / ratedKW (moving along a ramp when one runs)
  *   T_act dx/dt = u · kW/kVA − x,   T_eng dPm/dt = x − Pm
@@ -21,12 +21,6 @@ import { ACTUATOR, GOV_INT, OMEGA, PMECH } from './layout';
 import { GOV_BASE, GOV_DROOP } from './codes';
 import type { SimModel } from './sim-model';
 import type { Outputs } from './plant-dynamics';
-
-/**
- * Proportional gain of the isochronous governor, pu power per pu speed error: a 5 %
- * transient droop (common practice for engine governors; the plant file has no field for it).
- */
-export const ISO_GAIN_PU = 20;
 
 /** Base-load reference of set `i` at time `t`, pu of ratedKW, following a ramp if one runs. */
 export function baseReference(m: SimModel, i: number, t: number): number {
@@ -67,8 +61,9 @@ export function governorDerivatives(m: SimModel, i: number, o: number, y: Float6
     } else {
       const e = m.setpointPU[i]! - w;
       const z = y[o + GOV_INT]!;
-      u = ISO_GAIN_PU * (e + z);
-      const share = m.online[i] && m.isoLinked[i] && mode !== GOV_BASE ? (pBarIso - pOwn / kw) / ISO_GAIN_PU : 0;
+      const kp = m.isoGainPU[i]!;
+      u = kp * (e + z);
+      const share = m.online[i] && m.isoLinked[i] && mode !== GOV_BASE ? (pBarIso - pOwn / kw) / kp : 0;
       dz = (e + share) / m.resetS[i]!;
       if ((u >= hi && dz > 0) || (u <= lo && dz < 0)) dz = 0;
     }

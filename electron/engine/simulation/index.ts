@@ -5,10 +5,6 @@ export { createSimulation, DEFAULT_STEP_MS, DEFAULT_OUTPUT_POINTS, MAX_STEP_MS }
 export type { Simulation, SteppedSimulation } from './simulation';
 export { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, recoveryBandPct } from './iso-8528-5';
 export type { ClassLimit, ClassLimitKey } from './iso-8528-5';
-export { ISO_GAIN_PU } from './governor';
-export { REGULATOR_RESET_S, PF_TRIM_S } from './regulator';
-export { TDDO_S } from './sim-model';
-export { POWER_LOAD_BREAK_PU } from './network';
 export { fieldCeiling, ratedLoadFieldPU } from './excitation';
 export type { FieldCeiling } from './excitation';
 

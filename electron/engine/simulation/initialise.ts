@@ -9,7 +9,6 @@ import type { Plant, SharingResult } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { ACTUATOR, AVR_INT, DELTA, ED2, EFD, EQ1, EQ2, GOV_INT, OMEGA, PMECH, STATES_PER_SET, VAR_TRIM } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from './codes';
-import { ISO_GAIN_PU } from './governor';
 import { voltageReference } from './regulator';
 import type { SimModel } from './sim-model';
 
@@ -103,7 +102,7 @@ export function initialiseAtRest(
     y[o + EQ2] = eq2;
     y[o + PMECH] = pOwn;
     y[o + ACTUATOR] = pOwn;
-    y[o + GOV_INT] = m.govMode[i] === GOV_BASE ? 0 : pOwn / m.kwPU[i]! / ISO_GAIN_PU - (m.setpointPU[i]! - w);
+    y[o + GOV_INT] = m.govMode[i] === GOV_BASE ? 0 : pOwn / m.kwPU[i]! / m.isoGainPU[i]! - (m.setpointPU[i]! - w);
     const efd = eq1 + (m.xdPU[i]! - x1) * id - m.residualPU[i]!;
     y[o + EFD] = efd;
     y[o + VAR_TRIM] = m.regMode[i] === REG_PF ? vt - m.setpointVPU[i]! : 0;

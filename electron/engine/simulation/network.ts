@@ -1,20 +1,19 @@
 /**
  * The common bus, solved at every evaluation: each on-line set is a Norton source
  * (its E'' through X''d and its feeder), loads hang on the bus. With the total
- * admittance A (sets and constant-impedance loads), the Norton current I_N and the
- * constant-power loads S = P + jQ, the bus voltage V solves
+ * admittance A (sets and the constant-impedance load shares), the Norton current I_N, the
+ * constant-power load shares S_P = P + jQ and the constant-current shares S_I = P_I + jQ_I
+ * (their power at 1 pu; ZIP model, `sharing/bus-loads.ts`), the bus voltage V solves
  *
- *   A V + S* V / |V|² = I_N
+ *   A V + S_P* V / |V|² + S_I* V / |V| = I_N
  *
  * by Newton–Raphson on its real and imaginary parts, warm-started from the last
- * solution (2–3 iterations in practice). Constant-power loads turn into constant
- * impedance below `POWER_LOAD_BREAK_PU` (as stability programs do), so a collapsing
- * or building-up bus stays solvable.
+ * solution (2–3 iterations in practice). Below the break voltage b (the plant's
+ * `powerLoadBreakPct`) the constant-power and constant-current shares turn into constant
+ * impedance (S_P |V|²/b², S_I |V|²/b: continuous at b), as stability programs do, so a
+ * collapsing or building-up bus stays solvable; the run says how much load that leaves unserved.
  */
 
-/** Below this bus voltage (pu) constant-power loads behave as constant impedance. */
-export const POWER_LOAD_BREAK_PU = 0.7;
-const BREAK2 = POWER_LOAD_BREAK_PU * POWER_LOAD_BREAK_PU;
 const MAX_ITERATIONS = 30;
 
 /** The bus voltage (pu, system base), warm start and answer. */
@@ -32,11 +31,19 @@ export const NET_IN_RE = 2;
 export const NET_IN_IM = 3;
 export const NET_P = 4;
 export const NET_Q = 5;
+/** Constant-current load shares, pu at 1 pu voltage. */
+export const NET_PI = 6;
+export const NET_QI = 7;
+/** The break voltage, pu. */
+export const NET_BREAK = 8;
+/** Length of the bus solve's input array. */
+export const NET_LENGTH = 9;
 
 /**
  * Solves the bus voltage in place (`bus` holds the warm start and receives the answer).
- * `net` holds the total admittance A, the Norton current I_N and the constant-power load
- * P + jQ, all pu on the system base, at the `NET_*` offsets.
+ * `net` holds the total admittance A, the Norton current I_N, the constant-power load
+ * P + jQ, the constant-current load P_I + jQ_I, all pu on the system base, and the break
+ * voltage, at the `NET_*` offsets.
  */
 export function solveBus(net: Float64Array, bus: BusVoltage): void {
   const aRe = net[NET_A_RE]!;
@@ -45,6 +52,10 @@ export function solveBus(net: Float64Array, bus: BusVoltage): void {
   const inIm = net[NET_IN_IM]!;
   const p = net[NET_P]!;
   const q = net[NET_Q]!;
+  const pi = net[NET_PI]!;
+  const qi = net[NET_QI]!;
+  const brk = net[NET_BREAK]!;
+  const brk2 = brk * brk;
   let x = bus.re;
   let y = bus.im;
   if (!(x * x + y * y > 1e-4)) {
@@ -59,7 +70,9 @@ export function solveBus(net: Float64Array, bus: BusVoltage): void {
     const a = p * x + q * y;
     const b = p * y - q * x;
     let gr: number, gi: number, grx: number, gry: number, gix: number, giy: number;
-    if (r2 >= BREAK2) {
+    const ai = pi * x + qi * y;
+    const bi = pi * y - qi * x;
+    if (r2 >= brk2) {
       const r4 = r2 * r2;
       gr = a / r2;
       gi = b / r2;
@@ -67,14 +80,26 @@ export function solveBus(net: Float64Array, bus: BusVoltage): void {
       gry = (q * r2 - 2 * a * y) / r4;
       gix = (-q * r2 - 2 * b * x) / r4;
       giy = (p * r2 - 2 * b * y) / r4;
+      if (pi !== 0 || qi !== 0) {
+        // S_I* V / |V|: d(a_i / r)/dx = (p_i r² − a_i x) / r³, and alike.
+        const r = Math.sqrt(r2);
+        const r3 = r2 * r;
+        gr += ai / r;
+        gi += bi / r;
+        grx += (pi * r2 - ai * x) / r3;
+        gry += (qi * r2 - ai * y) / r3;
+        gix += (-qi * r2 - bi * x) / r3;
+        giy += (pi * r2 - bi * y) / r3;
+      }
     } else {
-      const c = 1 / BREAK2;
-      gr = a * c;
-      gi = b * c;
-      grx = p * c;
-      gry = q * c;
-      gix = -q * c;
-      giy = p * c;
+      const c = 1 / brk2;
+      const ci = 1 / brk;
+      gr = a * c + ai * ci;
+      gi = b * c + bi * ci;
+      grx = p * c + pi * ci;
+      gry = q * c + qi * ci;
+      gix = -q * c - qi * ci;
+      giy = p * c + pi * ci;
     }
     const fr = aRe * x - aIm * y + gr - inRe;
     const fi = aRe * y + aIm * x + gi - inIm;

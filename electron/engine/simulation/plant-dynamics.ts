@@ -9,9 +9,7 @@ import { GOV_ISO, REG_CROSS } from './codes';
 import { machineDerivatives } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
-import { NET_A_IM, NET_A_RE, NET_IN_IM, NET_IN_RE, NET_P, NET_Q, POWER_LOAD_BREAK_PU, solveBus } from './network';
-
-const BREAK2 = POWER_LOAD_BREAK_PU * POWER_LOAD_BREAK_PU;
+import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { BusVoltage } from './network';
 import type { SimModel } from './sim-model';
 
@@ -54,8 +52,9 @@ export interface Outputs {
   loadQ: number;
   feederLossP: number;
   /**
-   * Constant-power load the bus does not serve because the voltage is below
-   * `POWER_LOAD_BREAK_PU` (those loads then behave as constant impedance), pu.
+   * Load the bus does not serve because the voltage is below the break voltage (`m.breakPU`;
+   * the constant-power and constant-current shares then draw as constant impedance): what
+   * their own law would draw less what they draw, pu.
    */
   unservedP: number;
   unservedQ: number;
@@ -74,7 +73,7 @@ export function createOutputs(n: number): Outputs {
     pBarIso: 0.5,
     qBarCross: 0.5,
     bus: { re: 1, im: 0, iterations: 0, converged: true },
-    net: new Float64Array(6),
+    net: new Float64Array(NET_LENGTH),
     anyOnline: false,
     omegaBus: 1,
     loadP: 0,
@@ -132,29 +131,37 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   out.omegaBus = omegaBus;
   out.anyOnline = anyOnline;
 
-  // Loads: constant impedance joins A; constant power (with its frequency factor) stays apart.
+  // Loads (ZIP): the constant-impedance shares join A; constant-current and constant-power
+  // shares (with their frequency factors) stay apart.
   let pP = 0;
   let qP = 0;
+  let pI = 0;
+  let qI = 0;
   let pZ = 0;
   let qZ = 0;
   const loads = m.loads;
   for (let k = 0; k < loads.length; k++) {
     const l = loads[k]!;
     if (!l.on) continue;
-    let fp = 1;
+    let p = l.pPU;
+    let q = l.qPU;
     if (l.frequencySensitivity !== 0) {
-      fp = 1 + l.frequencySensitivity * (omegaBus - 1);
-      if (fp < 0) fp = 0;
+      const fp = 1 + l.frequencySensitivity * (omegaBus - 1);
+      p *= fp > 0 ? fp : 0;
     }
-    if (l.impedance) {
-      pZ += l.pPU * fp;
-      qZ += l.qPU;
-    } else {
-      pP += l.pPU * fp;
-      qP += l.qPU;
+    if (l.kVARFrequencySensitivity !== 0) {
+      const fq = 1 + l.kVARFrequencySensitivity * (omegaBus - 1);
+      q *= fq > 0 ? fq : 0;
     }
+    pZ += p * l.pZ;
+    pI += p * l.pI;
+    pP += p * l.pP;
+    qZ += q * l.qZ;
+    qI += q * l.qI;
+    qP += q * l.qP;
   }
   const bus = out.bus;
+  const brk = m.breakPU;
   if (anyOnline) {
     const net = out.net;
     net[NET_A_RE] = aRe + pZ;
@@ -163,6 +170,9 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
     net[NET_IN_IM] = inIm;
     net[NET_P] = pP;
     net[NET_Q] = qP;
+    net[NET_PI] = pI;
+    net[NET_QI] = qI;
+    net[NET_BREAK] = brk;
     solveBus(net, bus);
     if (!bus.converged) out.unconverged++;
   } else {
@@ -172,11 +182,15 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   const vr = bus.re;
   const vi = bus.im;
   const v2 = vr * vr + vi * vi;
-  const pScale = v2 >= BREAK2 ? 1 : v2 / BREAK2;
-  out.loadP = pZ * v2 + pP * pScale;
-  out.loadQ = qZ * v2 + qP * pScale;
-  out.unservedP = pP * (1 - pScale);
-  out.unservedQ = qP * (1 - pScale);
+  const v1 = Math.sqrt(v2);
+  // Above the break: constant power and |V| for the current shares; below it, impedance.
+  const below = v1 < brk;
+  const pScale = below ? v2 / (brk * brk) : 1;
+  const iScale = below ? v2 / brk : v1;
+  out.loadP = pZ * v2 + pI * iScale + pP * pScale;
+  out.loadQ = qZ * v2 + qI * iScale + qP * pScale;
+  out.unservedP = below ? pP * (1 - pScale) + pI * (v1 - iScale) : 0;
+  out.unservedQ = below ? qP * (1 - pScale) + qI * (v1 - iScale) : 0;
 
   // Pass 2: currents, terminal voltages, powers; group sums for the sharing links.
   let isoKW = 0;

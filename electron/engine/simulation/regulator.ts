@@ -14,8 +14,8 @@
  *                      terminal voltage, so in steady state the mean sits on V_set and kVAR is
  *                      exactly in proportion to ratedKVA (the cross-current definition the
  *                      sharing solver uses, also with unequal feeders)
- *     power factor:    V_ref = V_set + trim,  T_pf d(trim)/dt = P tan φ − Q
- *   error e = V_ref − V_t;  u = K_A (e + z), T_I dz/dt = e;   T_E dE_fd/dt = u − E_fd
+ *     power factor:    V_ref = V_set + trim,  T_pf d(trim)/dt = P tan φ − Q   (T_pf: `regulator.pfTrimS`)
+ *   error e = V_ref − V_t;  u = K_A (e + z), T_I dz/dt = e;   T_E dE_fd/dt = u − E_fd   (T_I: `regulator.resetS`)
  *   0 ≤ u ≤ ceiling · (V_t when shunt-excited, else 1), or the over-excitation limit while it acts
  *   V/Hz roll-off: below the knee f_k the reference falls by the slope: V_ref − s (f_k − f)
  *
@@ -27,12 +27,6 @@ import { AVR_INT, EFD, OMEGA, VAR_TRIM } from './layout';
 import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
 import type { SimModel } from './sim-model';
 import type { Outputs } from './plant-dynamics';
-
-/** Integral time of the voltage regulator, s (the plant file has no field for it; 1 s is common practice). */
-export const REGULATOR_RESET_S = 1;
-
-/** Time constant of the power-factor controller's trim of the voltage reference, s. */
-export const PF_TRIM_S = 5;
 
 /**
  * Under-frequency roll-off of the voltage reference, pu: below the knee the reference falls by
@@ -95,7 +89,7 @@ export function regulatorDerivatives(m: SimModel, i: number, o: number, y: Float
       u = 0;
       if (dz < 0) dz = 0;
     }
-    if (m.regMode[i] === REG_PF && m.online[i]) dTrim = (pOwn * m.tanPhi[i]! - qOwn) / PF_TRIM_S;
+    if (m.regMode[i] === REG_PF && m.online[i]) dTrim = (pOwn * m.tanPhi[i]! - qOwn) / m.pfTrimS[i]!;
   }
   dy[o + AVR_INT] = dz;
   dy[o + VAR_TRIM] = dTrim;

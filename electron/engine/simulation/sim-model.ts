@@ -9,33 +9,60 @@
  * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
  */
 import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
-import { SET_DEFAULTS } from '../../../shared-types';
-import type { Plant } from '../../../shared-types';
-import { REGULATOR_RESET_S } from './regulator';
+import { PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
+import type { Load, LoadModel, Plant, ZipShares } from '../../../shared-types';
 import { fieldCeiling } from './excitation';
 
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
 
 /**
- * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no
- * field for it. 0.03 s sits inside the 0.01–0.05 s typical of sets of this size
- * (typical data of engine-set alternators; value from memory).
+ * One load on the bus, in pu of `baseKVA` at rated voltage and frequency, with its ZIP
+ * shares (constant impedance, current, power; `bus-loads.ts` of the steady state has the law).
  */
-export const TDDO_S = 0.03;
-
-/** One load on the bus, in pu of `baseKVA` at rated voltage and frequency. */
-export interface LoadSlot {
+export interface LoadSlot extends ZipShares {
   id: string;
   on: boolean;
   pPU: number;
   qPU: number;
-  impedance: boolean;
   frequencySensitivity: number;
+  kVARFrequencySensitivity: number;
   /** Under-frequency shedding pickup, pu of rated frequency (0: never shed), and its delay, s. */
   shedPU: number;
   shedDelayS: number;
   /** Time the bus frequency has been below `shedPU`, s. */
   shedTimer: number;
+}
+
+/** A load slot of `kW`, `kVAR` on a system base of `baseKVA`, under one of the plain models (no shedding, no frequency dependence). */
+export function plainLoadSlot(id: string, kW: number, kVAR: number, baseKVA: number, model: LoadModel): LoadSlot {
+  return {
+    id,
+    on: true,
+    pPU: kW / baseKVA,
+    qPU: kVAR / baseKVA,
+    ...zipShares({ model }),
+    frequencySensitivity: 0,
+    kVARFrequencySensitivity: 0,
+    shedPU: 0,
+    shedDelayS: 0,
+    shedTimer: 0,
+  };
+}
+
+/** The load slot of a plant load. */
+function plantLoadSlot(l: Load, baseKVA: number): LoadSlot {
+  return {
+    id: l.id,
+    on: l.online,
+    pPU: l.kW / baseKVA,
+    qPU: l.kVAR / baseKVA,
+    ...zipShares(l),
+    frequencySensitivity: l.frequencySensitivity,
+    kVARFrequencySensitivity: l.kVARFrequencySensitivity ?? 0,
+    shedPU: (l.shedFrequencyPct ?? 0) / 100,
+    shedDelayS: l.shedDelayS ?? SET_DEFAULTS.shedDelayS,
+    shedTimer: 0,
+  };
 }
 
 /** Protection elements of a set, in the order checked (IEEE C37.2 device numbers). */
@@ -49,6 +76,8 @@ export interface SimModel {
   ratedVoltageV: number;
   /** System base, kVA. */
   baseKVA: number;
+  /** Below this bus voltage, pu, constant-power and constant-current load shares draw as constant impedance. */
+  breakPU: number;
   /** Rated angular speed ωs = 2π f_rated, rad/s. */
   omegaS: number;
 
@@ -86,6 +115,8 @@ export interface SimModel {
   actuatorS: Float64Array;
   engineS: Float64Array;
   resetS: Float64Array;
+  /** Isochronous proportional gain, pu power per pu speed error. */
+  isoGainPU: Float64Array;
   rampT0: Float64Array;
   rampT1: Float64Array;
   rampFrom: Float64Array;
@@ -112,14 +143,20 @@ export interface SimModel {
   gainPU: Float64Array;
   exciterS: Float64Array;
   avrResetS: Float64Array;
+  /** Time constant of the power-factor trim, s. */
+  pfTrimS: Float64Array;
   ceilingPU: Float64Array;
   shunt: Uint8Array;
   /** V/Hz roll-off knee (pu speed) and slope (pu voltage per pu speed below it); slope 0 = off. */
   vhzKneePU: Float64Array;
   vhzSlopePU: Float64Array;
-  /** Over-excitation limit, pu field (0 = off), its delay (s), and whether it holds the field now. */
+  /**
+   * Over-excitation limit, pu field (0 = off), its delay (s), the time the demand must stay
+   * below it before the limiter lets go (s), and whether it holds the field now.
+   */
   oelPU: Float64Array;
   oelDelayS: Float64Array;
+  oelResetS: Float64Array;
   oelActive: Uint8Array;
 
   // Breaker and engine status
@@ -150,16 +187,17 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     ratedFrequencyHz: fr,
     ratedVoltageV: vr,
     baseKVA,
+    breakPU: (plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct) / 100,
     omegaS: 2 * Math.PI * fr,
     ratedKVA: f(), kwPU: f(), qBasePU: f(), inertiaS: f(), dampingPU: f(),
     xdPU: f(), xd1PU: f(), xd2PU: f(), td0S: f(), td20S: f(), residualPU: f(),
     yRe: f(), yIm: f(), zfRe: f(), zfIm: f(),
     govMode: new Int8Array(n), isoLinked: new Uint8Array(n), droop: f(), noLoadPU: f(), setpointPU: f(),
-    basePU: f(), minPU: f(), maxPU: f(), actuatorS: f(), engineS: f(), resetS: f(),
+    basePU: f(), minPU: f(), maxPU: f(), actuatorS: f(), engineS: f(), resetS: f(), isoGainPU: f(),
     rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(), reverseDelayS: f(), motoringPU: f(),
     regMode: new Int8Array(n), regDroop: f(), noLoadVPU: f(), setpointVPU: f(), tanPhi: f(),
-    gainPU: f(), exciterS: f(), avrResetS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
-    vhzKneePU: f(), vhzSlopePU: f(), oelPU: f(), oelDelayS: f(), oelActive: new Uint8Array(n),
+    gainPU: f(), exciterS: f(), avrResetS: f(), pfTrimS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
+    vhzKneePU: f(), vhzSlopePU: f(), oelPU: f(), oelDelayS: f(), oelResetS: f(), oelActive: new Uint8Array(n),
     online: new Uint8Array(n), shutdown: new Uint8Array(n),
     protPickupPU: new Float64Array(4 * n), protDelayS: new Float64Array(4 * n),
     loads: [],
@@ -184,7 +222,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.xd1PU[i] = Math.min(mc.xdpPU, mc.xdPU);
     m.xd2PU[i] = Math.min(mc.xddpPU, m.xd1PU[i]!);
     m.td0S[i] = lag(mc.tdopS, `${s.id} machine.tdopS`);
-    m.td20S[i] = lag(TDDO_S, `${s.id} T''d0`);
+    m.td20S[i] = lag(mc.tddopS ?? SET_DEFAULTS.tddopS, `${s.id} machine.tddopS`);
     m.residualPU[i] = r.residualPU;
     const zfRe = s.feeder.rOhm / zBaseOhm;
     const zfIm = s.feeder.xOhm / zBaseOhm;
@@ -210,6 +248,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.actuatorS[i] = lag(g.actuatorLagS, `${s.id} governor.actuatorLagS`);
     m.engineS[i] = lag(g.engineLagS, `${s.id} governor.engineLagS`);
     m.resetS[i] = g.isoResetS;
+    m.isoGainPU[i] = g.isoGainPU ?? SET_DEFAULTS.isoGainPU;
     m.rampT0[i] = Infinity;
     m.rampT1[i] = Infinity;
     m.reverseTripPU[i] = s.reversePowerTripPct / 100;
@@ -230,28 +269,18 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
     m.gainPU[i] = r.gainPU;
     m.exciterS[i] = lag(r.exciterLagS, `${s.id} regulator.exciterLagS`);
-    m.avrResetS[i] = REGULATOR_RESET_S;
+    m.avrResetS[i] = r.resetS ?? SET_DEFAULTS.regulatorResetS;
+    m.pfTrimS[i] = r.pfTrimS ?? SET_DEFAULTS.pfTrimS;
     const fc = fieldCeiling(s);
     m.ceilingPU[i] = fc.ceilingPU;
     m.vhzKneePU[i] = 1 - (r.vhzKneeBelowHz ?? SET_DEFAULTS.vhzKneeBelowHz) / fr;
     m.vhzSlopePU[i] = ((r.vhzSlopePctPerHz ?? SET_DEFAULTS.vhzSlopePctPerHz) / 100) * fr;
     m.oelPU[i] = ((r.oelPct ?? SET_DEFAULTS.oelPct) / 100) * fc.ratedFieldPU;
     m.oelDelayS[i] = r.oelDelayS ?? SET_DEFAULTS.oelDelayS;
+    m.oelResetS[i] = r.oelResetS ?? SET_DEFAULTS.oelResetS;
     m.shunt[i] = r.shuntExcited ? 1 : 0;
     m.online[i] = s.online ? 1 : 0;
   });
-  for (const l of plant.loads) {
-    m.loads.push({
-      id: l.id,
-      on: l.online,
-      pPU: l.kW / baseKVA,
-      qPU: l.kVAR / baseKVA,
-      impedance: l.model === 'constant-impedance',
-      frequencySensitivity: l.frequencySensitivity,
-      shedPU: (l.shedFrequencyPct ?? 0) / 100,
-      shedDelayS: l.shedDelayS ?? SET_DEFAULTS.shedDelayS,
-      shedTimer: 0,
-    });
-  }
+  for (const l of plant.loads) m.loads.push(plantLoadSlot(l, baseKVA));
   return m;
 }

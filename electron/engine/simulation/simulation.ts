@@ -22,7 +22,6 @@ import type { EventTarget } from './events';
 import { Recorder } from './recorder';
 import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
-import { POWER_LOAD_BREAK_PU } from './network';
 import { steadyTarget } from './steady-target';
 import { fieldCeiling } from './excitation';
 
@@ -229,7 +228,7 @@ class Run implements Simulation {
 
   /**
    * Load the bus does not serve, said in the run: constant-power loads turn into constant
-   * impedance below `POWER_LOAD_BREAK_PU` (the bus solve needs it), and a dead bus serves
+   * impedance below the plant's break voltage (`m.breakPU`; the bus solve needs it), and a dead bus serves
    * nothing (log lines, warning, energy).
    */
   private watchLowVoltage(t: number): void {
@@ -252,7 +251,7 @@ class Run implements Simulation {
         text:
           kind === 'dead'
             ? `bus dead: ${kw.toFixed(0)} kW of load not served`
-            : `bus below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage: constant-power loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
+            : `bus below ${(this.m.breakPU * 100).toFixed(0)} % voltage: constant-power and constant-current loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
       });
     }
     if (kw > this.lowVMaxKW) this.lowVMaxKW = kw;
@@ -269,7 +268,7 @@ class Run implements Simulation {
       text:
         this.lowVKind === 'dead'
           ? `bus live again (${span})`
-          : `bus no longer below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage with constant-power loads drawing as impedance (${span})`,
+          : `bus no longer below ${(this.m.breakPU * 100).toFixed(0)} % voltage with constant-power and constant-current loads drawing as impedance (${span})`,
     });
     this.lowVStartS = null;
     this.lowVKind = null;
@@ -277,22 +276,35 @@ class Run implements Simulation {
 
   /**
    * Over-excitation limiter of each set: after the field has stayed above its limit for the
-   * delay, the regulator holds it at the limit for the rest of the run (a latching limiter;
-   * real limiters reset after a cool-down the model does not follow, and the run says so).
+   * delay, the regulator holds it at the limit; once the regulator's demand has let the field
+   * fall back below the limit and it has stayed there for the reset time (`oelResetS`), the
+   * limiter lets go and the field may force again (common practice, values from memory).
    */
   private limitExcitation(t: number): void {
     const m = this.m;
     for (let i = 0; i < m.n; i++) {
       const lim = m.oelPU[i]!;
       if (!(lim > 0) || m.shutdown[i]) continue;
-      const o = i * STATES_PER_SET;
-      if (m.oelActive[i]) continue;
-      if (this.y[o + EFD]! > lim) {
+      const efd = this.y[i * STATES_PER_SET + EFD]!;
+      if (m.oelActive[i]) {
+        // Held, the field sits on the limit; below it the demand has fallen back.
+        if (efd < lim * (1 - 1e-6)) {
+          this.oelTimer[i] = this.oelTimer[i]! + this.stepS;
+          if (this.oelTimer[i]! >= m.oelResetS[i]! - 1e-9) {
+            m.oelActive[i] = 0;
+            this.oelTimer[i] = 0;
+            this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter resets: field below ${lim.toFixed(2)} pu for ${m.oelResetS[i]} s` });
+          }
+        } else this.oelTimer[i] = 0;
+        continue;
+      }
+      if (efd > lim) {
         this.oelTimer[i] = this.oelTimer[i]! + this.stepS;
         if (this.oelTimer[i]! >= m.oelDelayS[i]! - 1e-9) {
           m.oelActive[i] = 1;
+          this.oelTimer[i] = 0;
           this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter acts: field held at ${lim.toFixed(2)} pu after ${m.oelDelayS[i]} s above it` });
-          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting (the limiter latches for the rest of the run).`);
+          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`);
         }
       } else this.oelTimer[i] = 0;
     }
@@ -486,7 +498,7 @@ class Run implements Simulation {
     if (this.lowVEpisodes > 0) {
       const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${this.lowVStartS.toFixed(2)} s).` : '';
       warnings.push(
-        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(POWER_LOAD_BREAK_PU * 100).toFixed(0)} % voltage where constant-power loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
+        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(this.m.breakPU * 100).toFixed(0)} % voltage where constant-power and constant-current loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
       );
     }
     const metrics = computeMetrics({

@@ -28,8 +28,14 @@ export function plantNow(m: SimModel, plant: Plant): Plant {
     online: l.on,
     kW: l.pPU * m.baseKVA,
     kVAR: l.qPU * m.baseKVA,
-    model: l.impedance ? 'constant-impedance' : 'constant-power',
+    // The slot's own shares, written back as a ZIP load (exact for every model).
+    model: 'zip',
+    kWImpedancePct: l.pZ * 100,
+    kWCurrentPct: l.pI * 100,
+    kVARImpedancePct: l.qZ * 100,
+    kVARCurrentPct: l.qI * 100,
     frequencySensitivity: l.frequencySensitivity,
+    kVARFrequencySensitivity: l.kVARFrequencySensitivity,
   }));
   return {
     ...plant,

@@ -3,6 +3,7 @@
  * governor, regulator, machine data, feeder, and the simulator's dynamics and protection. Each row names the field by its path inside
  * a set (the engine's issue path is `sets[i].` + this key) and shows its unit.
  */
+import { SET_DEFAULTS } from '../../../shared-types';
 import { TYPICAL_RANGES } from '../../stores/plant-draft';
 
 /** The modes of a set, which decide which of its fields are in use. */
@@ -172,8 +173,37 @@ export const SET_GROUPS: readonly SheetGroup[] = [
       { key: 'governor.actuatorLagS', label: 'Governor actuator lag', unit: 's', kind: 'number', step: 0.01, typical: '0.02–0.1' },
       { key: 'governor.engineLagS', label: 'Engine torque lag', unit: 's', kind: 'number', step: 0.05, typical: '0.1–0.5' },
       { key: 'governor.isoResetS', label: 'Isochronous reset time', unit: 's', kind: 'number', step: 0.5, typical: '1–5', unusedWhen: govUnused('isochronous', 'isochronous') },
+      {
+        key: 'governor.isoGainPU',
+        label: 'Isochronous gain',
+        unit: 'pu/pu',
+        kind: 'number',
+        step: 1,
+        typical: `10–40 (${SET_DEFAULTS.isoGainPU}: 5 % transient droop, common practice)`,
+        hint: 'Proportional gain of the isochronous governor, pu power per pu speed error; 20 is a 5 % transient droop (common practice, value from memory)',
+        unusedWhen: govUnused('isochronous', 'isochronous'),
+      },
       { key: 'regulator.gainPU', label: 'Regulator gain', unit: 'pu/pu', kind: 'number', step: 5, typical: '20–400' },
       { key: 'regulator.exciterLagS', label: 'Exciter lag', unit: 's', kind: 'number', step: 0.01, typical: '0.02–0.2' },
+      {
+        key: 'regulator.resetS',
+        label: 'Regulator reset (integral) time',
+        unit: 's',
+        kind: 'number',
+        step: 0.1,
+        typical: `0.5–3 (${SET_DEFAULTS.regulatorResetS} common practice)`,
+        hint: 'Integral time of the voltage regulator: how fast it removes a steady voltage error (common practice, value from memory)',
+      },
+      {
+        key: 'regulator.pfTrimS',
+        label: 'Power-factor trim time',
+        unit: 's',
+        kind: 'number',
+        step: 0.5,
+        typical: `2–20 (${SET_DEFAULTS.pfTrimS} common practice)`,
+        hint: 'Time constant of the power-factor controller’s trim of the voltage reference (common practice, value from memory)',
+        unusedWhen: regUnused('power-factor', 'power-factor'),
+      },
       {
         key: 'regulator.ceilingPU',
         label: 'Field ceiling (empty: derived)',
@@ -189,8 +219,26 @@ export const SET_GROUPS: readonly SheetGroup[] = [
       { key: 'regulator.vhzSlopePctPerHz', label: 'V/Hz roll-off slope (0: off)', unit: '% V/Hz', kind: 'number', step: 0.5, typical: 'a few % per Hz' },
       { key: 'regulator.oelPct', label: 'Over-excitation limit (0: off)', unit: '% field', kind: 'number', step: 5, typical: '105–120', hint: '% of the field at rated load' },
       { key: 'regulator.oelDelayS', label: 'Over-excitation delay', unit: 's', kind: 'number', step: 1, typical: '5–20' },
+      {
+        key: 'regulator.oelResetS',
+        label: 'Over-excitation reset time',
+        unit: 's',
+        kind: 'number',
+        step: 5,
+        typical: `10–60 (${SET_DEFAULTS.oelResetS} common practice)`,
+        hint: 'After the limiter acts, the field must stay below the limit this long before the limiter lets go and the field may force again (common practice, value from memory)',
+      },
       { key: 'machine.dampingPU', label: 'Damping D', unit: 'pu', kind: 'number', step: 0.5, typical: '0–5' },
       { key: 'machine.raPU', label: 'Armature resistance Ra', unit: 'pu', kind: 'number', step: 0.005, typical: '0.005–0.02' },
+      {
+        key: 'machine.tddopS',
+        label: "T''d0 subtransient open-circuit",
+        unit: 's',
+        kind: 'number',
+        step: 0.005,
+        typical: `0.01–0.05 (${SET_DEFAULTS.tddopS}, typical data, from memory)`,
+        hint: 'How fast the damper windings’ flux decays; must be less than T\'d0',
+      },
       { key: 'protection.underFrequencyPct', label: 'Under-frequency 81U pickup (0: off)', unit: '% f', kind: 'number', step: 0.5, typical: '90–96' },
       { key: 'protection.underFrequencyDelayS', label: 'Under-frequency 81U delay', unit: 's', kind: 'number', step: 0.5, typical: '2–10' },
       { key: 'protection.overFrequencyPct', label: 'Over-frequency 81O pickup (0: off)', unit: '% f', kind: 'number', step: 0.5, typical: '104–110' },

@@ -182,3 +182,25 @@ describe('buildReport input and control', () => {
     expect(r.sections.find((s) => s.id === 'sharing')!.problem).toBeNull();
   });
 });
+
+describe('report: the loads in the plant description', () => {
+  it('shows each load\'s voltage-law shares, frequency sensitivities and shedding stage', async () => {
+    const plant = demoPlant();
+    plant.loads[0] = { ...plant.loads[0]!, model: 'zip', kWImpedancePct: 30, kWCurrentPct: 20, kVARImpedancePct: 100, kVARFrequencySensitivity: -2, shedFrequencyPct: 97, shedDelayS: 0.3 };
+    const r = await call<ReportResult>('buildReport', { project: { plant }, date: '2026-12-02', loadsPct: [50] });
+    const t = table(r, 'loads');
+    expect(t.title).toContain('below 70 % voltage');
+    const row = t.rows[0]!;
+    const col = (name: string) => row[t.columns.indexOf(name)];
+    expect(col('kW shares Z / I / P (%)')).toBe('30 / 20 / 50');
+    expect(col('kVAR shares Z / I / P (%)')).toBe('100 / 0 / 0');
+    expect(col('kVAR f-sensitivity (%/%)')).toBe(-2);
+    // 97 % of the demo plant's rated frequency (closed form).
+    expectClose(col('Shed below (Hz)') as number, 0.97 * plant.ratedFrequencyHz, { rel: 1e-12 }, 'shedding frequency, Hz');
+    expect(col('Shed delay (s)')).toBe(0.3);
+    // A constant-power load without a stage: 0 / 0 / 100, never shed.
+    const other = t.rows.find((x) => x[5] === 'constant-power')!;
+    expect(other[6]).toBe('0 / 0 / 100');
+    expect(other[10]).toBeNull();
+  });
+});

@@ -93,7 +93,7 @@ describe('rated 0.8 PF load step on default data', () => {
     expect(r.metrics.unservedKWh).toBeGreaterThan(0);
     expect(r.metrics.maxUnservedKW).toBeGreaterThan(100);
     expect(r.warnings.join(' ')).toMatch(/Load was not served .* kWh in all\. Load is still not served at the end/);
-    expect(r.log.some((e) => /constant-power loads now draw as constant impedance/.test(e.text))).toBe(true);
+    expect(r.log.some((e) => /constant-power and constant-current loads now draw as constant impedance/.test(e.text))).toBe(true);
     const rec = r.metrics.classes.find((c) => c.quantity === 'voltage recovery time')!;
     expect(rec.pass).toEqual({ G1: false, G2: false, G3: false });
     expect(rec.note).toMatch(/below the 400\.0 V steady state of the final loads/);
@@ -121,5 +121,40 @@ describe('rated 0.8 PF load step on default data', () => {
     expect(acts).toBeDefined();
     expect(acts!.atS).toBeGreaterThan(1.2);
     expect(r.warnings.join(' ')).toMatch(/over-excitation limiter held the field at 2\.78 pu/);
+  });
+
+  it('the over-excitation limiter resets once the field has stayed below its limit for the reset time, and may act again', () => {
+    // Limit 110 % of the 2.7757 pu rated-load field (3.05 pu), delay 0.2 s, reset 2 s (values chosen
+    // for the test). The rated step (L2) goes on at 1 s: the field forces above the limit, is held,
+    // then settles at the full-load field below it. L2 goes off at 6 s and on again at 9 s.
+    const run = (oelResetS: number) =>
+      simulate({
+        plant: makePlant(
+          [{ id: 'G1', ratedKVA: 1000, ratedKW: 800, governor: { mode: 'droop' }, regulator: { mode: 'reactive-droop', oelPct: 110, oelDelayS: 0.2, oelResetS, vhzSlopePctPerHz: 0 }, protection: { underFrequencyPct: 0, underVoltagePct: 0 } }],
+          [{ id: 'L', kW: 400, kVAR: 300 }, { id: 'L2', kW: 400, kVAR: 300, online: false }],
+        ),
+        durationS: 14,
+        stepMs: 2,
+        events: [
+          { atS: 1, type: 'load-step', loadId: 'L2', online: true },
+          { atS: 6, type: 'load-step', loadId: 'L2', online: false },
+          { atS: 9, type: 'load-step', loadId: 'L2', online: true },
+        ],
+      });
+    const r = run(2);
+    const acts = r.log.filter((l) => /G1 over-excitation limiter acts: field held at 3\.05 pu after 0\.2 s above it/.test(l.text));
+    const resets = r.log.filter((l) => /G1 over-excitation limiter resets: field below 3\.05 pu for 2 s/.test(l.text));
+    expect(acts).toHaveLength(2);
+    expect(resets).toHaveLength(2);
+    // Released no sooner than the reset time after it acted (the field must stay below for 2 s).
+    expect(resets[0]!.atS).toBeGreaterThanOrEqual(acts[0]!.atS + 2);
+    expect(resets[0]!.atS).toBeLessThan(6);
+    // Free again, the field forces after the second step and the limiter needs its delay to act.
+    expect(acts[1]!.atS).toBeGreaterThanOrEqual(9 + 0.2);
+    expect(r.warnings.join(' ')).toMatch(/reset time/);
+    // A reset time longer than the run: the limiter holds to the end (acts once, never resets).
+    const latched = run(600);
+    expect(latched.log.filter((l) => /limiter acts/.test(l.text))).toHaveLength(1);
+    expect(latched.log.some((l) => /limiter resets/.test(l.text))).toBe(false);
   });
 });
