@@ -1,0 +1,63 @@
+/**
+ * The worker pool of the Node hosts (the CLI and Electron's main process): workerpool over worker_threads, one
+ * worker per core. Workers start on the first task and stay for the next ones; `close()` ends them.
+ */
+import { availableParallelism } from 'node:os';
+import workerpool from 'workerpool';
+import { Cancelled } from '../engine';
+import { engineErrorFromWorker } from '../handlers/pool';
+import type { ChunkPool, PoolTaskName, PoolTasks } from '../handlers/pool';
+
+/** A Node pool and its end. */
+export interface NodePool extends ChunkPool {
+  /** Ends the workers (running tasks are stopped). */
+  close(): Promise<void>;
+}
+
+export interface NodePoolOptions {
+  /** Workers (default: the machine's available parallelism). */
+  size?: number;
+  /** Node options of the worker threads (tests run the TypeScript entry with `['--import', 'tsx']`). */
+  execArgv?: string[];
+}
+
+/** A pool whose workers run `workerScript` (the built `pool-worker.mjs`, or its TypeScript source under tsx). */
+export function createNodePool(workerScript: string, options: NodePoolOptions = {}): NodePool {
+  const size = Math.max(1, Math.floor(options.size ?? availableParallelism()));
+  const pool = workerpool.pool(workerScript, {
+    workerType: 'thread',
+    maxWorkers: size,
+    ...(options.execArgv ? { workerThreadOpts: { execArgv: options.execArgv } } : {}),
+  });
+  return {
+    size,
+    run<K extends PoolTaskName>(task: K, args: Parameters<PoolTasks[K]>, signal: AbortSignal): Promise<ReturnType<PoolTasks[K]>> {
+      if (signal.aborted) return Promise.reject(new Cancelled());
+      const p = pool.exec(task, args as unknown[]);
+      const onAbort = () => {
+        // Stops the worker (workerpool ends it and starts a fresh one for the next task); the rejection below says so.
+        try {
+          p.cancel();
+        } catch {
+          // already settled
+        }
+      };
+      signal.addEventListener('abort', onAbort, { once: true });
+      return new Promise<ReturnType<PoolTasks[K]>>((resolve, reject) => {
+        void p.then(
+          (v: unknown) => {
+            signal.removeEventListener('abort', onAbort);
+            resolve(v as ReturnType<PoolTasks[K]>);
+          },
+          (err: unknown) => {
+            signal.removeEventListener('abort', onAbort);
+            reject(signal.aborted ? new Cancelled() : engineErrorFromWorker(err));
+          },
+        );
+      });
+    },
+    async close() {
+      await pool.terminate(true);
+    },
+  };
+}
