@@ -15,7 +15,7 @@ export interface NodePool extends ChunkPool {
 }
 
 export interface NodePoolOptions {
-  /** Workers (default: the machine's available parallelism). */
+  /** Workers (default: `DROOPLINE_WORKERS` when set to a whole number ≥ 1, else the machine's available parallelism). */
   size?: number;
   /** Node options of the worker threads (tests run the TypeScript entry with `['--import', 'tsx']`). */
   execArgv?: string[];
@@ -23,7 +23,8 @@ export interface NodePoolOptions {
 
 /** A pool whose workers run `workerScript` (the built `pool-worker.mjs`, or its TypeScript source under tsx). */
 export function createNodePool(workerScript: string, options: NodePoolOptions = {}): NodePool {
-  const size = Math.max(1, Math.floor(options.size ?? availableParallelism()));
+  const fromEnv = Number(process.env.DROOPLINE_WORKERS);
+  const size = Math.max(1, Math.floor(options.size ?? (Number.isInteger(fromEnv) && fromEnv >= 1 ? fromEnv : availableParallelism())));
   const pool = workerpool.pool(workerScript, {
     workerType: 'thread',
     maxWorkers: size,
