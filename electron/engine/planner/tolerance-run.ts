@@ -16,7 +16,7 @@
  */
 import type { GenSet, LoadOverride, Plant, ToleranceRequest, ToleranceResult } from '../../../shared-types';
 import { EngineError, NoSteadyState } from '../errors';
-import { solveSharing } from '../sharing';
+import { createSharingFigures, solveSharingFigures } from '../sharing';
 import { summarise } from './distribution-summary';
 import { exceedsOverload, exceedsRating, tripsReversePower } from './limit-breaches';
 import { kVARAtPF, onlineRatedKW } from './load-points';
@@ -88,6 +88,7 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
   const ratedKW = onlineRatedKW(plant);
   const pf = request.pf ?? TOLERANCE_DEFAULTS.pf;
   const len = to - from;
+  const fig = createSharingFigures(n);
   const out: ToleranceChunk = {
     from,
     to,
@@ -118,9 +119,8 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
       const p = (ratedKW * pct) / 100;
       load = { kW: p, kVAR: kVARAtPF(p, pf) };
     }
-    let r;
     try {
-      r = solveSharing(work, load);
+      solveSharingFigures(work, load, fig);
     } catch (err) {
       if (!(err instanceof EngineError)) throw err;
       out.failReason ??= err.message;
@@ -130,16 +130,16 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
     const row = k * n;
     for (let i = 0; i < n; i++) {
       const s = plant.sets[i]!;
-      const o = r.sets[i]!;
-      out.kW[row + i] = o.kW;
-      out.kVAR[row + i] = o.kVAR;
-      out.loadingPct[row + i] = o.loadingPct;
-      out.circulatingA[row + i] = o.circulatingA;
+      const kW = fig.kW[i]!;
+      out.kW[row + i] = kW;
+      out.kVAR[row + i] = fig.kVAR[i]!;
+      out.loadingPct[row + i] = fig.loadingPct[i]!;
+      out.circulatingA[row + i] = fig.circulatingA[i]!;
       if (!s.online) continue;
-      out.breaches[row + i] = (exceedsRating(s, o.kW, o.kVA) ? RATING : 0) | (exceedsOverload(s, o.kW) ? OVERLOAD : 0) | (tripsReversePower(s, o.kW) ? REVERSE : 0);
+      out.breaches[row + i] = (exceedsRating(s, kW, fig.kVA[i]!) ? RATING : 0) | (exceedsOverload(s, kW) ? OVERLOAD : 0) | (tripsReversePower(s, kW) ? REVERSE : 0);
     }
-    out.busHz[k] = r.bus.frequencyHz;
-    out.busV[k] = r.bus.voltageV;
+    out.busHz[k] = fig.frequencyHz;
+    out.busV[k] = fig.voltageV;
   }
   return out;
 }
