@@ -4,8 +4,12 @@
  *   - 10 000 tolerance samples of the sharing suite's 8-set plant with feeders (±0.1 Hz, ±0.5 %, ±5 % droop);
  *   - the 181 × 101 time-domain closing map of the demo plant (G3 onto G1 + G2, ±0.5 Hz).
  * The pools are started and warmed before timing (the app keeps its pool for the session); a cold start (workers
- * loading the engine) is timed apart. Workers run the TypeScript entry under tsx (the same code as the built one).
+ * loading the engine) is timed apart. The suite first builds the CLI bundle (`npm run build:cli`) and its workers
+ * run the shipped worker entry `out/cli/pool-worker.mjs`, as `droopline` does (the TypeScript entry under tsx carries
+ * tsx's helpers and runs about a fifth slower); the one-thread rows and the merge run under tsx.
  */
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { availableParallelism } from 'node:os';
 import { toleranceAnalysis } from '../../electron/engine';
@@ -14,7 +18,7 @@ import { runTolerance, toleranceRequestSchema } from '../../electron/handlers/pl
 import { closingMapRequestSchema, runClosingMap } from '../../electron/handlers/sync-handlers';
 import type { ClosingMapRequest, ToleranceRequest } from '../../shared-types';
 import { demoPlantJson } from '../helpers/plants';
-import { nodeTestPool } from '../helpers/pools';
+import { createNodePool } from '../../electron/pool/node-pool';
 import type { BenchResult } from './harness';
 import { benchPlant } from './sharing.bench';
 
@@ -36,7 +40,11 @@ async function median(runs: number, f: () => Promise<unknown> | unknown): Promis
   return { ms: wall[Math.floor(runs / 2)]!, cpuMs: cpu[Math.floor(runs / 2)]! };
 }
 
+const builtWorker = fileURLToPath(new URL('../../out/cli/pool-worker.mjs', import.meta.url));
+const nodeBuiltPool = (size: number) => createNodePool(builtWorker, { size });
+
 export async function run(): Promise<BenchResult[]> {
+  execFileSync('npx', ['vite', 'build', '--config', 'vite.cli.config.ts', '--logLevel', 'warn'], { stdio: 'ignore' });
   const out: BenchResult[] = [];
   const cores = availableParallelism();
   const samples = 10_000;
@@ -47,7 +55,7 @@ export async function run(): Promise<BenchResult[]> {
   out.push({ name: `toleranceAnalysis, 8 sets with feeders, ${samples} samples, one thread`, medianMs: one.ms, runs: 5, extra: { 'samples/s per core': Math.round(samples / (one.ms / 1000)), 'CPU ms': one.cpuMs.toFixed(0) } });
 
   for (const size of [1, cores]) {
-    const coldPool = nodeTestPool(size);
+    const coldPool = nodeBuiltPool(size);
     const t0 = performance.now();
     await runTolerance(tol, ctx(coldPool));
     const coldMs = performance.now() - t0;
@@ -80,7 +88,7 @@ export async function run(): Promise<BenchResult[]> {
   const oneMap = await median(3, () => runClosingMap(small, ctx()));
   const smallCells = 181 * 11;
   out.push({ name: `closingMap time-domain, 181 × 11 (demo plant), one thread`, medianMs: oneMap.ms, runs: 3, extra: { 'ms per cell': (oneMap.ms / smallCells).toFixed(3), 'CPU ms per cell': (oneMap.cpuMs / smallCells).toFixed(3) } });
-  const pool = nodeTestPool(cores);
+  const pool = nodeBuiltPool(cores);
   await runClosingMap({ ...map, slipSteps: 9 }, ctx(pool));
   const last = { map: null as unknown as Awaited<ReturnType<typeof runClosingMap>> };
   const pooled = await median(3, async () => {
