@@ -7,7 +7,8 @@ export default defineConfig({
   main: {
     build: {
       outDir: 'out/main',
-      lib: { entry: resolve('electron/main.ts') },
+      // The main process and the entry of its pool's worker threads (out/main/pool-worker.js).
+      lib: { entry: { main: resolve('electron/main.ts'), 'pool-worker': resolve('electron/pool/pool-worker.ts') } },
       rollupOptions: { external: ['electron'] },
     },
   },

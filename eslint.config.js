@@ -42,7 +42,8 @@ export default tseslint.config(
   },
   {
     files: ['renderer/**/*.ts', 'renderer/**/*.vue'],
-    ignores: ['renderer/transport/engine.worker.ts'],
+    // The engine worker and the pool it starts run the handlers themselves (off the UI thread).
+    ignores: ['renderer/transport/engine.worker.ts', 'renderer/transport/pool.worker.ts', 'renderer/transport/web-pool.ts'],
     rules: {
       'no-restricted-imports': [
         'error',

@@ -7,12 +7,16 @@ import { ipcMain } from 'electron';
 import { ENGINE_METHODS } from '../shared-types';
 import type { EngineControl, EngineEvents, EngineOutcome } from '../shared-types';
 import { dispatch } from './handlers';
+import type { ChunkPool } from './handlers';
 
 const PROGRESS: keyof EngineEvents = 'engineProgress';
 const CANCEL: keyof EngineControl = 'engineCancel';
 
-/** Registers the engine channels; `isTrusted` tells whether a sender is one of our windows. */
-export function setupEngineIpc(isTrusted: (sender: WebContents) => boolean): void {
+/**
+ * Registers the engine channels; `isTrusted` tells whether a sender is one of our windows. `pool` runs the long
+ * jobs' chunks on worker threads (without it they run in the main process).
+ */
+export function setupEngineIpc(isTrusted: (sender: WebContents) => boolean, pool?: ChunkPool): void {
   const running = new Map<number, AbortController>();
   for (const method of ENGINE_METHODS) {
     ipcMain.handle(method, async (event: IpcMainInvokeEvent, id: unknown, request: unknown): Promise<EngineOutcome<unknown>> => {
@@ -25,6 +29,7 @@ export function setupEngineIpc(isTrusted: (sender: WebContents) => boolean): voi
       try {
         return await dispatch(method, request, {
           signal: ctl.signal,
+          ...(pool ? { pool } : {}),
           progress: (fraction, label) => {
             if (!event.sender.isDestroyed()) event.sender.send(PROGRESS, { id: reqId, fraction, label });
           },

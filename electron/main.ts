@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { fileFromArgv, setupFiles } from './files/setup-files';
 import type { FilesService } from './files/setup-files';
 import { setupEngineIpc } from './ipc';
+import { createNodePool } from './pool/node-pool';
 import { setupMenu } from './menu';
 import { createMainWindow, guardWebContents, setupSessionSecurity } from './window';
 
@@ -35,7 +36,10 @@ app.on('web-contents-created', (_e, contents) => guardWebContents(contents));
 void app.whenReady().then(async () => {
   setupSessionSecurity();
   const isTrusted = (sender: Electron.WebContents) => mainWindow !== null && sender === mainWindow.webContents;
-  setupEngineIpc(isTrusted);
+  // Long engine jobs (tolerance samples, time-domain closing maps) on one worker thread per core, started on first use.
+  const pool = createNodePool(join(dirname(fileURLToPath(import.meta.url)), 'pool-worker.js'));
+  app.on('will-quit', () => void pool.close());
+  setupEngineIpc(isTrusted, pool);
   const service = setupFiles({
     userDataDir: app.getPath('userData'),
     documentsDir: app.getPath('documents'),

@@ -259,4 +259,19 @@ export interface ClosingMap {
   maxSurgeInWindowPU: number;
   /** How the map was made, in a sentence (time-domain maps say which bus state and window of time they use). */
   note?: string;
+  /** Time-domain maps: how long the cells ran (each stops once its surge and torque peaks are past). */
+  cellRun?: ClosingMapCellRun;
+}
+
+/** How long the cells of a time-domain closing map were simulated after contact. */
+export interface ClosingMapCellRun {
+  /** The stopping rule in a sentence. */
+  rule: string;
+  /** The longest a cell may run, ms (one cycle of the running bus). */
+  capMs: number;
+  /** Mean and longest run of the map's cells, ms after contact. */
+  meanMs: number;
+  longestMs: number;
+  /** Cells that ran to the cap (their peaks were still rising, or level, at its end). */
+  cellsAtCap: number;
 }

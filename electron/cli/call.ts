@@ -9,7 +9,7 @@ export async function callEngine<K extends EngineMethod>(
   method: K,
   request: unknown,
 ): Promise<{ ok: true; value: EngineResponse<K> } | { ok: false; exitCode: number }> {
-  const r = await dispatch(method, request);
+  const r = await dispatch(method, request, { progress: () => undefined, signal: new AbortController().signal, ...(io.pool ? { pool: io.pool } : {}) });
   if (r.ok) return { ok: true, value: r.value };
   const head = r.error.code === 'INVALID_INPUT' ? 'invalid input' : r.error.code === 'NO_STEADY_STATE' ? 'no steady state' : 'error';
   io.err(`droopline: ${head}:\n${r.error.message.split('\n').map((l) => `  ${l}`).join('\n')}\n`);

@@ -1,5 +1,8 @@
+import type { ChunkPool } from '../handlers';
 /** What a CLI command may touch: output streams and files. Injected so tests run in-process. */
 export interface CliIO {
+  /** Workers for long jobs (the Node entry gives one; tests in-process run without). */
+  pool?: ChunkPool;
   out(text: string): void;
   err(text: string): void;
   /** Reads a text file; failures carry a `code` (`ENOENT`, `EISDIR`, … or those of `file-errors.ts`). */

@@ -19,7 +19,11 @@ import { motoringKW, overloadLimitKW, reverseTripKW } from './sharing/set-limits
 /** Field EMF at rated kVA and rated power factor, pu (one-axis, round rotor, V = 1 pu). */
 export function ratedFieldEmfPU(xdPU: number, ratedPF: number): number {
   const sin = Math.sqrt(Math.max(0, 1 - ratedPF * ratedPF));
-  return Math.hypot(1 + xdPU * sin, xdPU * ratedPF);
+  // sqrt of the sum of squares rather than Math.hypot (several times slower in V8); the terms are of order 1,
+  // so nothing overflows or underflows.
+  const a = 1 + xdPU * sin;
+  const b = xdPU * ratedPF;
+  return Math.sqrt(a * a + b * b);
 }
 
 /**

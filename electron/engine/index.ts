@@ -1,6 +1,7 @@
 /** The engine's public face: pure computations over plain data. */
 export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
-export { solveSharing, solveSharingAtMost, sweepLoad, impliedPowerFactor } from './sharing';
+export { solveSharing, solveSharingAtMost, solveSharingFigures, createSharingFigures, sweepLoad, impliedPowerFactor } from './sharing';
+export type { SharingFigures } from './sharing';
 export type { ImpliedPowerFactor } from './sharing';
 export { settingWarnings, SETPOINT_BAND_PCT, DROOP_USUAL_MIN_PCT, DROOP_USUAL_MAX_PCT } from './setting-checks';
 export { setCapability, fieldLimitKVAR, leadingLimitKVAR, ratedFieldEmfPU } from './capability';

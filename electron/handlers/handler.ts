@@ -1,6 +1,7 @@
 /** Types of the handler table: one validating handler per `EngineApi` method. */
 import type { z } from 'zod';
 import type { EngineApi, EngineMethod, EngineRequest, EngineResponse } from '../../shared-types';
+import type { ChunkPool } from './pool';
 
 /** What a handler gets besides its request: progress reporting and cancellation. */
 export interface HandlerContext {
@@ -8,6 +9,8 @@ export interface HandlerContext {
   progress(fraction: number, label?: string): void;
   /** Aborted when the caller cancels. */
   signal: AbortSignal;
+  /** Workers for long jobs, when the host has them (see `pool.ts`); without, chunks run on this thread. */
+  pool?: ChunkPool;
 }
 
 /** One method: the schema its request must pass, and the engine call. */

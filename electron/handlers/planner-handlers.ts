@@ -1,12 +1,14 @@
 /**
  * Handlers for the droop planner, the sensitivity matrix and the setpoint-tolerance analysis.
- * The tolerance run goes in chunks of samples with progress and cancel.
+ * The tolerance run goes in chunks of samples, on the host's worker pool when it has one, with
+ * progress and cancel.
  */
 import { z } from 'zod';
-import { Cancelled, createToleranceRun, planDroop, sharingSensitivity, TOLERANCE_DEFAULTS } from '../engine';
+import { mergeToleranceChunks, planDroop, sharingSensitivity, TOLERANCE_DEFAULTS, toleranceSampleCount, toleranceSamples } from '../engine';
+import type { ToleranceChunk } from '../engine';
 import type { ToleranceRequest } from '../../shared-types';
-import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
+import { runChunks } from './pool';
 import { plantSchema } from './plant-schema';
 import { loadOverrideSchema } from './sharing-handlers';
 
@@ -80,23 +82,31 @@ export const toleranceRequestSchema = z
       });
   });
 
-/** Samples run between progress reports and cancel checks. */
-export const SAMPLES_PER_CHUNK = 250;
+/**
+ * Samples per chunk: the unit of progress, of cancel and of a pool worker's task. At about 25 µs a sample a chunk
+ * is some 10 ms of work, long beside a worker round trip (well under a millisecond) and short beside a cancel.
+ */
+export const SAMPLES_PER_CHUNK = 500;
 
-async function runTolerance(req: ToleranceRequest, ctx: HandlerContext) {
-  const run = createToleranceRun(req);
-  ctx.progress(0, 'tolerance samples');
-  while (run.done < run.total) {
-    if (ctx.signal.aborted) throw new Cancelled('The tolerance analysis was cancelled.');
-    run.step(SAMPLES_PER_CHUNK);
-    ctx.progress(run.done / run.total, 'tolerance samples');
-    if (run.done < run.total) await breathe();
-  }
-  return run.result();
+/** The tolerance analysis: chunks of samples (on the pool when there is one), merged in sample order. */
+export async function runTolerance(req: ToleranceRequest, ctx: HandlerContext, samplesPerChunk = SAMPLES_PER_CHUNK) {
+  const chunks: ToleranceChunk[] = [];
+  await runChunks<ToleranceChunk>(
+    {
+      total: toleranceSampleCount(req),
+      chunk: samplesPerChunk,
+      label: 'tolerance samples',
+      cancelled: 'The tolerance analysis was cancelled.',
+      run: (from, to, pool, signal) => (pool ? pool.run('toleranceSamples', [req, from, to], signal) : toleranceSamples(req, from, to)),
+      take: (c) => chunks.push(c),
+    },
+    ctx,
+  );
+  return mergeToleranceChunks(req, chunks);
 }
 
 export const plannerHandlers: HandlerGroup<'planDroop' | 'sharingSensitivity' | 'toleranceAnalysis'> = {
   planDroop: { schema: planRequestSchema, run: (r) => planDroop(r) },
   sharingSensitivity: { schema: sensitivityRequestSchema, run: ({ plant, load }) => sharingSensitivity(plant, load) },
-  toleranceAnalysis: { schema: toleranceRequestSchema, run: runTolerance },
+  toleranceAnalysis: { schema: toleranceRequestSchema, run: (r, ctx) => runTolerance(r, ctx) },
 };

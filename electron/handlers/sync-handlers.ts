@@ -6,9 +6,10 @@
 import { z } from 'zod';
 import { SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, TIME_DOMAIN_MAX_CELLS } from '../engine';
-import { breathe } from './handler';
+import { closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, putRows, TIME_DOMAIN_MAX_CELLS } from '../engine';
+import type { ClosingMapRows } from '../engine';
 import type { HandlerContext, HandlerGroup } from './handler';
+import { runChunks } from './pool';
 import { plantSchema } from './plant-schema';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
@@ -181,22 +182,41 @@ export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
       });
   }) as unknown as z.ZodType<ClosingMapRequest>;
 
-/** Cells computed between progress reports and cancel checks. */
+/** Cells computed between progress reports and cancel checks (closed form). */
 const CELLS_PER_CHUNK = 4096;
+/** Time-domain cells per chunk: a few rows of the default grid (each cell is a short simulation). */
+const TIME_DOMAIN_CELLS_PER_CHUNK = 800;
 
-async function runClosingMap(req: ClosingMapRequest, ctx: HandlerContext) {
+let mapSerial = 0;
+
+/**
+ * The closing map in chunks of slip rows with progress and cancel. A time-domain map's rows go to the host's
+ * worker pool when it has one (each worker sets the map up once and keeps it for the map's later chunks); the
+ * closed form, a few milliseconds in all, always runs here.
+ */
+export async function runClosingMap(req: ClosingMapRequest, ctx: HandlerContext, cellsPerChunk?: number) {
   const job = closingMapJobFor(req);
-  // A time-domain cell is a whole (short) simulation: report and check for cancel after every row.
-  const rowsPerChunk = req.method === 'time-domain' ? 1 : Math.max(1, Math.floor(CELLS_PER_CHUNK / req.angleSteps));
-  ctx.progress(0, 'closing map');
-  for (let row = 0; row < job.rows; row += rowsPerChunk) {
-    if (ctx.signal.aborted) throw new Cancelled('The closing map was cancelled.');
-    const end = Math.min(job.rows, row + rowsPerChunk);
-    job.fillRows(row, end);
-    ctx.progress(end / job.rows, 'closing map');
-    if (end < job.rows) await breathe();
-  }
-  return job.map;
+  const timeDomain = req.method === 'time-domain';
+  const perChunk = cellsPerChunk ?? (timeDomain ? TIME_DOMAIN_CELLS_PER_CHUNK : CELLS_PER_CHUNK);
+  const key = `map-${++mapSerial}-${Date.now()}`;
+  await runChunks<ClosingMapRows | null>(
+    {
+      total: job.rows,
+      chunk: Math.max(1, Math.floor(perChunk / req.angleSteps)),
+      label: 'closing map',
+      cancelled: 'The closing map was cancelled.',
+      run: (from, to, pool, signal) => {
+        if (timeDomain && pool) return pool.run('closingMapRows', [key, req, from, to], signal);
+        job.fillRows(from, to);
+        return null;
+      },
+      take: (rows) => {
+        if (rows) putRows(job, rows);
+      },
+    },
+    timeDomain ? ctx : { ...ctx, pool: undefined },
+  );
+  return job.finish();
 }
 
 export const syncHandlers: HandlerGroup<'evaluateSync' | 'listSyncPresets' | 'closingMap'> = {

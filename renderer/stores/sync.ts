@@ -264,8 +264,11 @@ export const useSyncStore = defineStore('sync', () => {
     { deep: true },
   );
 
-  /** Computes the closing map off the UI thread, with progress; a new request cancels the old. */
-  async function computeMap(voltageDifferencePct?: number, angleSteps = 181, slipSteps = 101): Promise<void> {
+  /**
+   * Computes the closing map off the UI thread, with progress; a new request cancels the old. `method`
+   * 'time-domain' simulates the plant for every cell (on the engine's pool of workers, one per core).
+   */
+  async function computeMap(voltageDifferencePct?: number, angleSteps = 181, slipSteps = 101, method: ClosingMap['method'] = 'closed-form'): Promise<void> {
     mapAbort?.abort();
     const abort = new AbortController();
     mapAbort = abort;
@@ -281,6 +284,7 @@ export const useSyncStore = defineStore('sync', () => {
           angleSteps,
           slipSteps,
           slipRangeHz: Number(range.toFixed(3)),
+          method,
           ...(voltageDifferencePct === undefined ? {} : { voltageDifferencePct }),
         },
         { signal: abort.signal, onProgress: (f) => (mapProgress.value = f) },

@@ -12,12 +12,16 @@ import * as simulationSuite from './simulation.bench';
 import * as trainerSuite from './trainer.bench';
 import * as sharingSuite from './sharing.bench';
 import * as plannerSuite from './planner.bench';
+import * as poolSuite from './pool.bench';
 
-const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }];
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'pool', run: poolSuite.run }];
 
+// `BENCH_SUITES=pool,planner npm run bench` runs only the suites named.
+const only = (process.env.BENCH_SUITES ?? '').split(',').filter((a) => a !== '');
+const chosen = only.length > 0 ? suites.filter((s) => only.includes(s.name)) : suites;
 const cpu = cpus()[0]?.model ?? 'unknown CPU';
 process.stdout.write(`Machine: ${cpu}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`);
 process.stdout.write('| case | median per call | calls |\n| --- | --- | --- |\n');
-for (const s of suites) {
+for (const s of chosen) {
   for (const r of await s.run()) process.stdout.write(formatResult(r) + '\n');
 }

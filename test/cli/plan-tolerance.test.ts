@@ -1,3 +1,9 @@
+import { execFile } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../electron/cli/run-cli';
 import { plantSchema } from '../../electron/handlers';
@@ -71,6 +77,20 @@ describe('droopline tolerance', () => {
     await runCli([...argv, '--normal', '--load-kw', '1200', '--load-kvar', '700'], c);
     expect(c.stdout()).not.toBe(a.stdout());
   });
+
+  it('runs as the installed bin on 1 and 2 worker threads with byte-identical JSON, equal to the run without a pool', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'droopline-tol-'));
+    writeFileSync(join(dir, 'plant.json'), JSON.stringify(demoPlantJson()));
+    const bin = fileURLToPath(new URL('../../electron/cli/droopline.mjs', import.meta.url));
+    const args = [bin, ...argv.map((a) => (a === 'plant.json' ? join(dir, 'plant.json') : a.replace(/^400$/, '2400')))];
+    const run = promisify(execFile);
+    const one = await run(process.execPath, args, { env: { ...process.env, DROOPLINE_WORKERS: '1' } });
+    const two = await run(process.execPath, args, { env: { ...process.env, DROOPLINE_WORKERS: '2' } });
+    expect(two.stdout).toBe(one.stdout);
+    const inProcess = memoryIO(files());
+    await runCli(argv.map((a) => a.replace(/^400$/, '2400')), inProcess);
+    expect(one.stdout).toBe(inProcess.stdout());
+  }, 60_000);
 
   it('exits 2 naming the field for a bad tolerance', async () => {
     const io = memoryIO(files());

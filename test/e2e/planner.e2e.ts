@@ -1,8 +1,8 @@
 /**
  * The Planner view in the browser preview (engine in the Web Worker): plan the demo plant over
  * its default 0–100 % load range (full load is inside the sets' overload limits), apply the proposal and read the new settings back in the Plant store's results,
- * compute the sensitivity matrix, run a tolerance analysis to the end (with progress) and
- * cancel a long one; screenshots to out/test-output/.
+ * compute the sensitivity matrix, run a tolerance analysis to the end (with progress, on the engine worker's pool
+ * of nested Web Workers) and cancel a long one; screenshots to out/test-output/.
  */
 import { describe, expect, inject, it } from 'vitest';
 import { join } from 'node:path';
@@ -34,6 +34,9 @@ describe('Planner view in the browser preview', () => {
     await page.getByTestId('tol-run').click();
     await page.locator('section.planner-view[data-tolerance-state="done"]').waitFor({ timeout: 60_000 });
     expect(await page.getByTestId('tol-probabilities').textContent()).toContain('2000 samples');
+    // The samples ran on the engine worker's pool: one nested worker per core (four chunks of 500 samples).
+    const cores = await page.evaluate(() => navigator.hardwareConcurrency);
+    expect(page.workers().filter((w) => w.url().includes('pool.worker')).length).toBe(Math.min(cores, 4));
     await page.getByTestId('tol-histogram').scrollIntoViewIfNeeded();
     await page.screenshot({ path: join(ARTIFACTS, 'planner-tolerance.png') });
 

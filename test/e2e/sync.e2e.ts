@@ -86,6 +86,13 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     await page.mouse.move(box2.x + box2.width * 0.5, box2.y + box2.height * 0.42);
     await expect.poll(() => page.getByTestId('map-hover').textContent()).toMatch(/surge/);
     await page.screenshot({ path: join(ARTIFACTS, 'sync-view.png'), fullPage: true });
+    // The time-domain map runs on the engine worker's pool of nested workers, with progress, and can be cancelled.
+    await page.getByTestId('map-method').selectOption('time-domain');
+    await page.getByTestId('map-compute').click();
+    await page.getByTestId('map-progress').waitFor();
+    await expect.poll(() => page.workers().filter((w) => w.url().includes('pool.worker')).length, { timeout: 20_000 }).toBeGreaterThan(0);
+    await page.getByTestId('map-cancel').click();
+    await expect.poll(() => page.locator('.map-bar').textContent()).toContain('Closing map cancelled.');
     expect(await page.getByTestId('caution').textContent()).toContain('planning and training only');
     expect(errors).toEqual([]);
     await page.close();

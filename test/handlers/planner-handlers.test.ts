@@ -35,10 +35,11 @@ describe('planner handlers', () => {
 
   it('toleranceAnalysis reports progress in chunks up to 1 and refuses bad tolerances by name', async () => {
     const fractions: number[] = [];
-    const r = await dispatch('toleranceAnalysis', { plant: demoPlantJson(), samples: 600, seed: 4, speedTolHz: 0.1 }, { progress: (f) => fractions.push(f), signal: new AbortController().signal });
+    const r = await dispatch('toleranceAnalysis', { plant: demoPlantJson(), samples: 1200, seed: 4, speedTolHz: 0.1 }, { progress: (f) => fractions.push(f), signal: new AbortController().signal });
     expect(r.ok).toBe(true);
-    expect((r as { value: ToleranceResult }).value.samples).toBe(600);
-    expect(fractions).toEqual([0, 250 / 600, 500 / 600, 1]);
+    expect((r as { value: ToleranceResult }).value.samples).toBe(1200);
+    // Chunks of SAMPLES_PER_CHUNK = 500.
+    expect(fractions).toEqual([0, 500 / 1200, 1000 / 1200, 1]);
     expect(await messageOf('toleranceAnalysis', { plant: demoPlantJson(), droopTolPct: 60 })).toContain('droopTolPct: must be 0 % or more and below 50 %');
     expect(await messageOf('toleranceAnalysis', { plant: demoPlantJson(), samples: 2.5 })).toContain('samples: must be a whole number');
     expect(await messageOf('toleranceAnalysis', { plant: demoPlantJson(), load: { kW: 1, kVAR: 0 }, loadRangePct: { min: 0, max: 50 } })).toContain('loadRangePct: give either load or loadRangePct, not both');

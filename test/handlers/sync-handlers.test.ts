@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { plantSchema } from '../../electron/handlers/plant-schema';
 import { dispatch } from '../../electron/handlers';
+import { closingMapRequestSchema, runClosingMap } from '../../electron/handlers/sync-handlers';
 import type { ClosingMap, Plant, SyncResult } from '../../shared-types';
 import { solveSharing } from '../../electron/engine';
 import { demoPlantJson } from '../helpers/plants';
@@ -178,7 +179,13 @@ describe('closingMap handler', () => {
     const r = await dispatch('closingMap', payload, { progress: (f) => fractions.push(f), signal: new AbortController().signal });
     expect(r.ok).toBe(true);
     expect((r as { value: ClosingMap }).value.method).toBe('time-domain');
-    expect(fractions).toEqual([0, 1 / 3, 2 / 3, 1]);
+    // 15 cells fit one chunk of 800.
+    expect(fractions).toEqual([0, 1]);
+    // Five cells (one row) per chunk: progress after every row.
+    const rows: number[] = [];
+    const parsed = closingMapRequestSchema.parse(payload);
+    await runClosingMap(parsed, { progress: (f) => rows.push(f), signal: new AbortController().signal }, 5);
+    expect(rows).toEqual([0, 1 / 3, 2 / 3, 1]);
   });
 
   it('refuses the time-domain method without a plant, by field', async () => {

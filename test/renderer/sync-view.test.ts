@@ -207,6 +207,20 @@ describe('SynchronizingView with the engine', () => {
     w.unmount();
   });
 
+  it('computes the time-domain map of the plant and says how long its cells ran', async () => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    expect(w.get('[data-test="map-method"]').text()).toContain('time-domain');
+    await sync.computeMap(0, 9, 3, 'time-domain');
+    await flushPromises();
+    expect(sync.map!.method).toBe('time-domain');
+    expect(sync.map!.cellRun!.capMs).toBeGreaterThan(0);
+    expect(w.get('[data-test="map-cell-run"]').text()).toContain('climb back to its peak');
+    w.unmount();
+  });
+
   it('cancels a running map and says so', async () => {
     await usePlantStore().loadDemo();
     const sync = useSyncStore();

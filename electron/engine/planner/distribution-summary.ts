@@ -8,7 +8,9 @@ import type { Distribution } from '../../../shared-types';
 
 /** Summary of `values` (the first `count` entries are used; at least one). */
 export function summarise(values: Float64Array, count: number, bins: number): Distribution {
-  const sorted = Array.from(values.subarray(0, count)).sort((a, b) => a - b);
+  // A typed array sorts numerically without a comparator, several times faster than an array of
+  // numbers with one; simple-statistics reads any indexable list of numbers.
+  const sorted = values.slice(0, count).sort() as unknown as number[];
   const min = sorted[0]!;
   const max = sorted[count - 1]!;
   // A figure that does not move gets one narrow bin span around its value.

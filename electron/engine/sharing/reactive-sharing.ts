@@ -90,7 +90,8 @@ export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array,
     let b = qPF - constant;
     for (let i = 0; i < m.n; i++) {
       if (m.reg[i] !== REG_DROOP) continue;
-      const raw = droopKVAR(m, i, vAt);
+      // vAt = NaN: the plain droop lines (comparing NaN with itself would say "held" for every set).
+      const raw = Number.isNaN(vAt) ? 0 : droopKVAR(m, i, vAt);
       const held = Number.isNaN(vAt) ? raw : limitKVAR(m, i, p[i]!, raw);
       if (held !== raw) b += held;
       else {

@@ -64,6 +64,56 @@ function offlineResult(plant: Plant, idx: number): SetResult {
   };
 }
 
+/**
+ * The figures of `op` a Monte-Carlo run reads, per plant set (offline sets 0), without the result's words (flags,
+ * notes, warnings): the same formulas as `buildSharingResult`, which a test keeps equal.
+ */
+export interface SharingFigures {
+  frequencyHz: number;
+  voltageV: number;
+  kW: Float64Array;
+  kVAR: Float64Array;
+  kVA: Float64Array;
+  loadingPct: Float64Array;
+  circulatingA: Float64Array;
+}
+
+/** Empty figures for a plant of `sets` sets. */
+export function createSharingFigures(sets: number): SharingFigures {
+  return { frequencyHz: 0, voltageV: 0, kW: new Float64Array(sets), kVAR: new Float64Array(sets), kVA: new Float64Array(sets), loadingPct: new Float64Array(sets), circulatingA: new Float64Array(sets) };
+}
+
+/** Writes the figures of `op` into `out`. */
+export function writeSharingFigures(m: SharingModel, op: OperatingPoint, out: SharingFigures): void {
+  out.kW.fill(0);
+  out.kVAR.fill(0);
+  out.kVA.fill(0);
+  out.loadingPct.fill(0);
+  out.circulatingA.fill(0);
+  let ratedKVASum = 0;
+  let iqSum = 0;
+  for (let i = 0; i < m.n; i++) {
+    ratedKVASum += m.ratedKVA[i]!;
+    const vt = op.terminalV[i]!;
+    if (vt > 0) iqSum += (op.kVAR[i]! * 1000) / (SQRT3 * vt);
+  }
+  for (let i = 0; i < m.n; i++) {
+    const s = m.sets[i]!;
+    const kW = op.kW[i]!;
+    const kVAR = op.kVAR[i]!;
+    const vt = op.terminalV[i]!;
+    const iq = vt > 0 ? (kVAR * 1000) / (SQRT3 * vt) : 0;
+    const k = m.plantIndex[i]!;
+    out.kW[k] = kW;
+    out.kVAR[k] = kVAR;
+    out.kVA[k] = Math.hypot(kW, kVAR);
+    out.loadingPct[k] = (100 * kW) / s.ratedKW;
+    out.circulatingA[k] = iq - (iqSum * s.ratedKVA) / ratedKVASum;
+  }
+  out.frequencyHz = op.frequencyHz;
+  out.voltageV = op.busVoltageV;
+}
+
 /** Builds the full result of `op` for `plant` (offline sets are listed with zeros and the `offline` flag). */
 export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingPoint): SharingResult {
   const warnings: string[] = [...m.notes, ...settingWarnings(plant)];

@@ -7,8 +7,8 @@ import { solveClosedForm } from './closed-form';
 import { solveNetwork } from './network-solve';
 import { buildSharingModel } from './sharing-model';
 import type { SharingModel } from './sharing-model';
-import { buildSharingResult } from './sharing-result';
-import type { OperatingPoint } from './sharing-result';
+import { buildSharingResult, writeSharingFigures } from './sharing-result';
+import type { OperatingPoint, SharingFigures } from './sharing-result';
 import { Diverged, NoSteadyState } from '../errors';
 
 /**
@@ -29,6 +29,23 @@ export function solveSharing(plant: Plant, load?: LoadOverride): SharingResult {
     m.holdField = false;
     return buildSharingResult(plant, m, solveModel(m));
   }
+}
+
+/**
+ * `solveSharing`'s operating point as bare figures written into `out` (see `createSharingFigures`): no flags, notes
+ * or warnings are built, so a Monte-Carlo of thousands of solves pays only for the solve. Same errors.
+ */
+export function solveSharingFigures(plant: Plant, load: LoadOverride | undefined, out: SharingFigures): void {
+  const m = buildSharingModel(plant, load);
+  let op: OperatingPoint;
+  try {
+    op = solveModel(m);
+  } catch (e) {
+    if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
+    m.holdField = false;
+    op = solveModel(m);
+  }
+  writeSharingFigures(m, op, out);
 }
 
 function solveModel(m: SharingModel): OperatingPoint {

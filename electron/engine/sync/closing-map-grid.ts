@@ -14,6 +14,61 @@ export interface ClosingMapJob {
   /** Number of slip rows. */
   rows: number;
   fillRows(from: number, to: number): void;
+  /** Time-domain maps: each cell's run after contact, ms (filled with the rows). */
+  runMs?: Float64Array;
+  /** Completes the map once every row is in (the time-domain map's run lengths) and returns it. */
+  finish(): ClosingMap;
+}
+
+/**
+ * Slip rows [from, to) of a map as plain typed arrays (row-major, as in the map): what a pool
+ * worker sends back, to be put into the host's own job with `putRows`.
+ */
+export interface ClosingMapRows {
+  from: number;
+  to: number;
+  surgeCurrentPU: Float64Array;
+  peakCurrentPU: Float64Array;
+  torqueStepPU: Float64Array;
+  peakTorquePU: Float64Array;
+  runMs?: Float64Array;
+}
+
+/** Copies filled rows [from, to) out of `job`. */
+export function takeRows(job: ClosingMapJob, from: number, to: number): ClosingMapRows {
+  const nA = job.map.anglesDeg.length;
+  const lo = from * nA;
+  const hi = to * nA;
+  const m = job.map;
+  return {
+    from,
+    to,
+    surgeCurrentPU: Float64Array.from(m.surgeCurrentPU.slice(lo, hi)),
+    peakCurrentPU: Float64Array.from(m.peakCurrentPU.slice(lo, hi)),
+    torqueStepPU: Float64Array.from(m.torqueStepPU.slice(lo, hi)),
+    peakTorquePU: Float64Array.from(m.peakTorquePU.slice(lo, hi)),
+    ...(job.runMs ? { runMs: job.runMs.slice(lo, hi) } : {}),
+  };
+}
+
+/** Puts rows computed elsewhere (by the same request) into `job`, with the map's maxima. */
+export function putRows(job: ClosingMapJob, rows: ClosingMapRows): void {
+  const m = job.map;
+  const nA = m.anglesDeg.length;
+  const lo = rows.from * nA;
+  for (let k = 0; k < rows.surgeCurrentPU.length; k++) {
+    const cell = lo + k;
+    const iPU = rows.surgeCurrentPU[k]!;
+    m.surgeCurrentPU[cell] = iPU;
+    m.peakCurrentPU[cell] = rows.peakCurrentPU[k]!;
+    m.torqueStepPU[cell] = rows.torqueStepPU[k]!;
+    m.peakTorquePU[cell] = rows.peakTorquePU[k]!;
+    if (iPU > m.maxSurgeCurrentPU) m.maxSurgeCurrentPU = iPU;
+    const s = m.slipsHz[Math.floor(cell / nA)]!;
+    const a = m.anglesDeg[cell % nA]!;
+    if (iPU > m.maxSurgeInWindowPU && inWindow(m, s, a)) m.maxSurgeInWindowPU = iPU;
+  }
+  if (rows.runMs && job.runMs) job.runMs.set(rows.runMs, lo);
 }
 
 /** What both variants start from: an empty map, the bases and the closing loop at the map's voltage difference. */

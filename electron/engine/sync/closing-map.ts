@@ -13,7 +13,8 @@ import { setUpClosingMap } from './closing-map-grid';
 import type { ClosingMapJob } from './closing-map-grid';
 import { timeDomainClosingMapJob } from './closing-map-time-domain';
 
-export type { ClosingMapJob } from './closing-map-grid';
+export type { ClosingMapJob, ClosingMapRows } from './closing-map-grid';
+export { putRows, takeRows } from './closing-map-grid';
 
 /**
  * Sets up a closed-form closing map for `req` (nothing computed yet). Pure with respect to `req`.
@@ -69,6 +70,7 @@ export function closingMapJob(req: ClosingMapRequest): ClosingMapJob {
       map.maxSurgeCurrentPU = maxAll;
       map.maxSurgeInWindowPU = maxWin;
     },
+    finish: () => map,
   };
 }
 
@@ -81,5 +83,5 @@ export function closingMapJobFor(req: ClosingMapRequest): ClosingMapJob {
 export function closingMap(req: ClosingMapRequest): ClosingMap {
   const job = closingMapJobFor(req);
   job.fillRows(0, job.rows);
-  return job.map;
+  return job.finish();
 }

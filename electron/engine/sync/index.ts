@@ -7,9 +7,9 @@ export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerS
 export type { SurgeCircuit } from './closing-surge';
 export { busEquivalent, incomingBranch, fictitiousROverX } from './bus-equivalent';
 export type { ImpedancePU } from './bus-equivalent';
-export { closingMap, closingMapJob, closingMapJobFor } from './closing-map';
-export { timeDomainClosingMapJob, TIME_DOMAIN_MAX_CELLS, TIME_DOMAIN_STEP_MS } from './closing-map-time-domain';
-export type { ClosingMapJob } from './closing-map';
+export { closingMap, closingMapJob, closingMapJobFor, putRows, takeRows } from './closing-map';
+export { timeDomainClosingMapJob, TIME_DOMAIN_MAX_CELLS, TIME_DOMAIN_STEP_MS, PEAK_PAST_MARGIN } from './closing-map-time-domain';
+export type { ClosingMapJob, ClosingMapRows } from './closing-map';
 export { syncBasis } from './sync-basis';
 export type { SyncBasis } from './sync-basis';
 export { incomingFromSet, plantBus } from './plant-case';

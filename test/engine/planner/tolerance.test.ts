@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createToleranceRun, solveSharing, toleranceAnalysis } from '../../../electron/engine';
+import { createToleranceRun, mergeToleranceChunks, solveSharing, toleranceAnalysis, toleranceSamples } from '../../../electron/engine';
 import { exceedsOverload, exceedsRating, tripsReversePower } from '../../../electron/engine/planner/limit-breaches';
 import { demoPlant, makePlant, rawSet } from '../../helpers/plants';
 import { expectClose } from '../../helpers/expect-close';
@@ -90,5 +90,22 @@ describe('toleranceAnalysis', () => {
 
   it('toleranceAnalysis with no steady state in any sample says so', () => {
     expect(() => toleranceAnalysis({ plant: twin(), samples: 20, seed: 1, load: { kW: 5000, kVAR: 0 } })).toThrow('None of the 20 samples has a steady state');
+  });
+});
+
+describe('tolerance samples in chunks', () => {
+  it('chunks of any size, merged in any order, give the whole run exactly; each sample depends only on (seed, index)', () => {
+    const req = { plant: demoPlant(), samples: 300, seed: 5, speedTolHz: 0.1, voltageTolPct: 1, droopTolPct: 5 };
+    const whole = JSON.stringify(toleranceAnalysis(req));
+    const cuts = [0, 7, 64, 65, 200, 300];
+    const chunks = cuts.slice(1).map((to, k) => toleranceSamples(req, cuts[k]!, to));
+    expect(JSON.stringify(mergeToleranceChunks(req, [...chunks].reverse()))).toBe(whole);
+    // Sample 64 run alone equals sample 64 inside a longer chunk.
+    const alone = toleranceSamples(req, 64, 65);
+    const inside = toleranceSamples(req, 60, 70);
+    expect(Array.from(alone.kW)).toEqual(Array.from(inside.kW.subarray(4 * alone.sets, 5 * alone.sets)));
+    // Missing or repeated samples are refused, not merged.
+    expect(() => mergeToleranceChunks(req, chunks.slice(1))).toThrow(RangeError);
+    expect(() => mergeToleranceChunks(req, [...chunks, chunks[2]!])).toThrow(RangeError);
   });
 });

@@ -1,0 +1,130 @@
+/**
+ * Work on all cores. The engine offers chunked pure functions (tolerance samples [from, to), closing-map rows
+ * [from, to)); a host (the CLI, Electron's main process, the preview's engine worker) may hand the handlers a
+ * `ChunkPool` in their context, whose workers run `poolTasks`. Without one the chunks run here, one after another.
+ * Either way the result is the same: each chunk depends only on the request and its range, and the chunks are
+ * merged in order.
+ */
+import { Cancelled, Diverged, EngineError, InvalidInput, NoSteadyState, closingMapJobFor, takeRows, toleranceSamples } from '../engine';
+import type { ClosingMapJob, ClosingMapRows, ToleranceChunk } from '../engine';
+import type { ClosingMapRequest, EngineErrorCode, ToleranceRequest } from '../../shared-types';
+import { breathe } from './handler';
+import type { HandlerContext } from './handler';
+
+/** The job a worker keeps between chunks of one closing map (set up once, not once per chunk). */
+let mapJob: { key: string; job: ClosingMapJob } | null = null;
+
+/** What a pool worker runs: plain data in, plain data (typed arrays) out. */
+export const poolTasks = {
+  /** Tolerance samples [from, to) of a validated request. */
+  toleranceSamples(request: ToleranceRequest, from: number, to: number): ToleranceChunk {
+    return toleranceSamples(request, from, to);
+  },
+  /** Closing-map rows [from, to) of a validated request; `key` names the map, so a worker sets it up once. */
+  closingMapRows(key: string, request: ClosingMapRequest, from: number, to: number): ClosingMapRows {
+    if (mapJob?.key !== key) mapJob = { key, job: closingMapJobFor(request) };
+    mapJob.job.fillRows(from, to);
+    return takeRows(mapJob.job, from, to);
+  },
+};
+
+export type PoolTasks = typeof poolTasks;
+export type PoolTaskName = keyof PoolTasks;
+
+/** A pool of workers running `poolTasks` (workerpool over worker_threads in Node, Web Workers in the browser). */
+export interface ChunkPool {
+  /** Workers the pool runs at most. */
+  readonly size: number;
+  /**
+   * Runs `task` on a worker. When `signal` aborts, the worker's task is stopped and the promise rejects with
+   * `Cancelled`; an engine error thrown in the worker comes back as the same typed error.
+   */
+  run<K extends PoolTaskName>(task: K, args: Parameters<PoolTasks[K]>, signal: AbortSignal): Promise<ReturnType<PoolTasks[K]>>;
+}
+
+const ERRORS: Partial<Record<EngineErrorCode, new (message: string) => EngineError>> = {
+  NO_STEADY_STATE: NoSteadyState,
+  DIVERGED: Diverged,
+  INVALID_INPUT: InvalidInput,
+  CANCELLED: Cancelled,
+};
+
+/** The typed engine error a worker threw (its `code` crosses the boundary), or the error as it came. */
+export function engineErrorFromWorker(err: unknown): unknown {
+  const code = (err as { code?: unknown } | null)?.code;
+  const message = err instanceof Error ? err.message : String(err);
+  const Type = typeof code === 'string' ? ERRORS[code as EngineErrorCode] : undefined;
+  return Type ? new Type(message) : err;
+}
+
+/** How `runChunks` cuts and reports a job. */
+export interface ChunkPlan<R> {
+  /** Units of work (samples, rows). */
+  total: number;
+  /** Units per chunk. */
+  chunk: number;
+  /** Progress label. */
+  label: string;
+  /** Sentence of the `Cancelled` error. */
+  cancelled: string;
+  /** Runs units [from, to): on the pool when there is one, else here. */
+  run(from: number, to: number, pool: ChunkPool | undefined, signal: AbortSignal): R | Promise<R>;
+  /** Takes a finished chunk (in any order). */
+  take(result: R, from: number, to: number): void;
+}
+
+/**
+ * Runs a plan's chunks: on `ctx.pool` with as many in flight as it has workers (two per worker, so none waits
+ * for the next), else here one by one with a breath between them. Progress after every chunk; on cancel no new
+ * chunk starts, running ones are stopped, and `Cancelled` is thrown.
+ */
+export async function runChunks<R>(plan: ChunkPlan<R>, ctx: HandlerContext): Promise<void> {
+  const { total, label } = plan;
+  const chunk = Math.max(1, Math.floor(plan.chunk));
+  const pool = ctx.pool;
+  ctx.progress(0, label);
+  let done = 0;
+  if (!pool) {
+    for (let from = 0; from < total; from += chunk) {
+      if (ctx.signal.aborted) throw new Cancelled(plan.cancelled);
+      const to = Math.min(total, from + chunk);
+      plan.take(await plan.run(from, to, undefined, ctx.signal), from, to);
+      done = to;
+      ctx.progress(done / total, label);
+      if (to < total) await breathe();
+    }
+    return;
+  }
+  // One controller for this job's chunks: aborted by the caller's cancel or by a failed chunk.
+  const stop = new AbortController();
+  const onAbort = () => stop.abort();
+  ctx.signal.addEventListener('abort', onAbort, { once: true });
+  if (ctx.signal.aborted) stop.abort();
+  let next = 0;
+  let failure: unknown = null;
+  const worker = async () => {
+    while (next < total && !stop.signal.aborted) {
+      const from = next;
+      const to = Math.min(total, from + chunk);
+      next = to;
+      try {
+        const r = await plan.run(from, to, pool, stop.signal);
+        if (stop.signal.aborted) return;
+        plan.take(r, from, to);
+        done += to - from;
+        ctx.progress(done / total, label);
+      } catch (err) {
+        failure ??= err;
+        stop.abort();
+        return;
+      }
+    }
+  };
+  try {
+    await Promise.all(Array.from({ length: Math.max(1, 2 * pool.size) }, worker));
+  } finally {
+    ctx.signal.removeEventListener('abort', onAbort);
+  }
+  if (ctx.signal.aborted) throw new Cancelled(plan.cancelled);
+  if (failure !== null) throw failure instanceof Cancelled ? new Cancelled(plan.cancelled) : failure;
+}
