@@ -10,12 +10,12 @@
 #include <time.h>
 
 #define PER 5 /* δ, ω, E'q, mechanical power, field voltage */
-#define NPAR 10 /* 1/(2H), D, Xd − X'd, 1/T'd0, 1/R, 1/Tg, Ka, 1/Te, Kq, X'd */
 
 static int sets;
-static double *par, *yRe, *yIm, *eRe, *eIm;
+typedef struct { double H, D, xd, xdp, tdo, R, tg, ka, te, kq, vref, pref, r, x; } Set;
+static Set *par;
+static double *yRe, *yIm, *eRe, *eIm;
 static double loadG, loadB;
-static const double pref = 0.6, vref = 1.05;
 
 static void derivatives(const double *x, double *dx) {
   const double omegaS = 2 * M_PI * 50;
@@ -33,20 +33,21 @@ static void derivatives(const double *x, double *dx) {
   double den2 = denRe * denRe + denIm * denIm;
   double vRe = (numRe * denRe + numIm * denIm) / den2, vIm = (numIm * denRe - numRe * denIm) / den2;
   for (int i = 0; i < sets; i++) {
-    const double *s = x + PER * i, *p = par + NPAR * i;
+    const double *s = x + PER * i;
+    const Set *p = par + i;
     double *d = dx + PER * i;
     double slip = s[1] - 1;
     double ar = eRe[i] - vRe, ai = eIm[i] - vIm;
     double cr = ar * yRe[i] - ai * yIm[i], ci = ar * yIm[i] + ai * yRe[i];
-    double tr = eRe[i] + p[9] * ci, ti = eIm[i] - p[9] * cr;
+    double tr = eRe[i] + p->xdp * ci, ti = eIm[i] - p->xdp * cr;
     double kvar = ti * cr - tr * ci;
     double pe = eRe[i] * cr + eIm[i] * ci;
     double iD = cr * sin(s[0]) - ci * cos(s[0]);
     d[0] = omegaS * slip;
-    d[1] = (s[3] - pe - p[1] * slip) * p[0];
-    d[2] = (s[4] - s[2] - p[2] * iD) * p[3];
-    d[3] = (pref - slip * p[4] - s[3]) * p[5];
-    d[4] = (p[6] * (vref - sqrt(tr * tr + ti * ti) - p[8] * kvar) - s[4]) * p[7];
+    d[1] = (s[3] - pe - p->D * slip) / (2 * p->H);
+    d[2] = (s[4] - s[2] - (p->xd - p->xdp) * iD) / p->tdo;
+    d[3] = (p->pref - slip / p->R - s[3]) / p->tg;
+    d[4] = (p->ka * (p->vref - sqrt(tr * tr + ti * ti) - p->kq * kvar) - s[4]) / p->te;
   }
 }
 
@@ -56,17 +57,15 @@ int main(int argc, char **argv) {
   if (sets < 1 || steps < 1) { fprintf(stderr, "usage: yardstick [sets >= 1] [steps >= 1]\n"); return 2; }
   const double h = 1e-3;
   int size = PER * sets;
-  par = calloc(NPAR * sets, sizeof(double));
+  par = calloc(sets, sizeof(Set));
   yRe = calloc(sets, sizeof(double)); yIm = calloc(sets, sizeof(double));
   eRe = calloc(sets, sizeof(double)); eIm = calloc(sets, sizeof(double));
   double *x = calloc(size, sizeof(double)), *k1 = calloc(size, sizeof(double)), *k2 = calloc(size, sizeof(double));
   double *k3 = calloc(size, sizeof(double)), *k4 = calloc(size, sizeof(double)), *w = calloc(size, sizeof(double));
   for (int i = 0; i < sets; i++) {
-    double H = 1 + 0.05 * i, xd = 2.5, xdp = 0.25;
-    double row[NPAR] = {1 / (2 * H), 2, xd - xdp, 1.0 / 3, 1 / 0.04, 1 / 0.2, 50, 1 / 0.1, 0.04, xdp};
-    for (int k = 0; k < NPAR; k++) par[NPAR * i + k] = row[k];
-    double r = 0.001, xx = 0.01 + xdp, m2 = r * r + xx * xx;
-    yRe[i] = r / m2;
+    par[i] = (Set){1 + 0.05 * i, 2, 2.5, 0.25, 3, 0.04, 0.2, 50, 0.1, 0.04, 1.05, 0.6, 0.001, 0.01};
+    double xx = par[i].x + par[i].xdp, m2 = par[i].r * par[i].r + xx * xx;
+    yRe[i] = par[i].r / m2;
     yIm[i] = -xx / m2;
     double init[PER] = {0.3, 1, 1.1, 0.6, 2.0};
     for (int k = 0; k < PER; k++) x[PER * i + k] = init[k];

@@ -1,7 +1,7 @@
 // Speed yardstick for the simulator (JavaScript). A deliberately small time-domain model written the careful way:
 // per set a one-axis machine (rotor angle, speed, E'q), a droop governor with one lag and a voltage regulator with
 // reactive droop and one lag, all sets on a star network into a constant-impedance load, classical RK4 at 1 ms.
-// State and parameters live in Float64Arrays; the stepping loop allocates nothing and unrolls the complex sums.
+// State lives in Float64Arrays; the stepping loop allocates nothing and unrolls the complex sums.
 // It models far less than Droopline's simulator (no dampers, isochronous/base-load modes, protection, recording);
 // `npm run bench` runs it beside the simulator on the same machine as a floor the simulator should reach.
 //
@@ -14,23 +14,17 @@ const PER = 5; // δ, ω, E'q, mechanical power, field voltage
 const size = PER * sets;
 const omegaS = 2 * Math.PI * 50;
 
-// Per-set parameters, one row of 10 per set: 1/(2H), D, Xd − X'd, 1/T'd0, 1/R, 1/Tg, Ka, 1/Te, Kq, X'd.
-const P = 10;
-const par = new Float64Array(P * sets);
-const pref = 0.6;
-const vref = 1.05;
+// Per-set parameters as plain records, used as written in the model (divisions by the time constants and
+// inertia, the terminal voltage magnitude with Math.hypot): the simple way a careful hand loop reads.
+const par = [];
 const yRe = new Float64Array(sets); // admittance of X'd plus the feeder, per set
 const yIm = new Float64Array(sets);
 for (let i = 0; i < sets; i++) {
-  const H = 1 + 0.05 * i;
-  const xd = 2.5;
-  const xdp = 0.25;
-  const row = [1 / (2 * H), 2, xd - xdp, 1 / 3, 1 / 0.04, 1 / 0.2, 50, 1 / 0.1, 0.04, xdp];
-  par.set(row, P * i);
-  const r = 0.001;
-  const x = 0.01 + xdp;
-  const m2 = r * r + x * x;
-  yRe[i] = r / m2;
+  const p = { H: 1 + 0.05 * i, D: 2, xd: 2.5, xdp: 0.25, tdo: 3, R: 0.04, tg: 0.2, ka: 50, te: 0.1, kq: 0.04, vref: 1.05, pref: 0.6, r: 0.001, x: 0.01 };
+  par.push(p);
+  const x = p.x + p.xdp;
+  const m2 = p.r * p.r + x * x;
+  yRe[i] = p.r / m2;
   yIm[i] = -x / m2;
 }
 // The load: a constant admittance that grows with the number of sets.
@@ -65,7 +59,7 @@ function derivatives(x, dx) {
   const vIm = (numIm * denRe - numRe * denIm) / den2;
   for (let i = 0; i < sets; i++) {
     const o = PER * i;
-    const q0 = P * i;
+    const p = par[i];
     const delta = x[o];
     const slip = x[o + 1] - 1;
     const er = eRe[i];
@@ -76,17 +70,16 @@ function derivatives(x, dx) {
     const ai = ei - vIm;
     const cr = ar * gr - ai * gi; // stator current
     const ci = ar * gi + ai * gr;
-    const xdp = par[q0 + 9];
-    const tr = er + xdp * ci; // terminal voltage E' − jX'd I
-    const ti = ei - xdp * cr;
+    const tr = er + p.xdp * ci; // terminal voltage E' − jX'd I
+    const ti = ei - p.xdp * cr;
     const kvar = ti * cr - tr * ci;
     const pe = er * cr + ei * ci;
     const iD = cr * Math.sin(delta) - ci * Math.cos(delta);
     dx[o] = omegaS * slip;
-    dx[o + 1] = (x[o + 3] - pe - par[q0 + 1] * slip) * par[q0];
-    dx[o + 2] = (x[o + 4] - x[o + 2] - par[q0 + 2] * iD) * par[q0 + 3];
-    dx[o + 3] = (pref - slip * par[q0 + 4] - x[o + 3]) * par[q0 + 5];
-    dx[o + 4] = (par[q0 + 6] * (vref - Math.sqrt(tr * tr + ti * ti) - par[q0 + 8] * kvar) - x[o + 4]) * par[q0 + 7];
+    dx[o + 1] = (x[o + 3] - pe - p.D * slip) / (2 * p.H);
+    dx[o + 2] = (x[o + 4] - x[o + 2] - (p.xd - p.xdp) * iD) / p.tdo;
+    dx[o + 3] = (p.pref - slip / p.R - x[o + 3]) / p.tg;
+    dx[o + 4] = (p.ka * (p.vref - Math.hypot(tr, ti) - p.kq * kvar) - x[o + 4]) / p.te;
   }
 }
 

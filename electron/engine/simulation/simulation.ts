@@ -110,10 +110,10 @@ class Run implements Simulation {
     const n = this.m.n;
     this.y = new Float64Array(n * STATES_PER_SET);
     this.out = createOutputs(n);
-    this.rk = createRk4(this.y.length);
+    this.rk = createRk4(this.y.length, this.stepS);
     const m = this.m;
     const out = this.out;
-    this.rhs = (t, y, dy) => evaluatePlant(m, t, y, dy, out);
+    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out);
     const deExcited = new Set(scenario.startDeExcited ?? []);
     for (const id of deExcited) {
       const i = m.ids.indexOf(id);
@@ -148,11 +148,17 @@ class Run implements Simulation {
       if (w) this.warnings.push(`${s.id}: ${w}`);
     }
     if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
-    this.rhs(0, this.y, this.rk.k1);
+    this.evaluateAt(0);
     this.initialF = this.frequencyHz();
     this.initialV = this.voltageV();
     this.lastF = this.initialF;
     this.lastV = this.initialV;
+  }
+
+  /** Evaluates the plant at time `t` and the present state: outputs into `out`, f(t, y) into `rk.k1`. */
+  private evaluateAt(t: number): void {
+    this.out.t = t;
+    evaluatePlant(this.m, this.y, this.rk.k1, this.out);
   }
 
   get timeS(): number {
@@ -164,7 +170,7 @@ class Run implements Simulation {
   }
 
   private voltageV(): number {
-    return Math.hypot(this.out.bus.re, this.out.bus.im) * this.m.ratedVoltageV;
+    return Math.sqrt(this.out.bus.re * this.out.bus.re + this.out.bus.im * this.out.bus.im) * this.m.ratedVoltageV;
   }
 
   private markDisturbance(t: number): void {
@@ -184,7 +190,7 @@ class Run implements Simulation {
     const duePending = this.pending.length > 0 && this.pending[0]!.atS <= t + half;
     if (!dueEvent && !duePending) return;
     // Fresh outputs at this exact state (bus angle for a close, present kW for a ramp).
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     if (dueEvent) this.markDisturbance(t);
     while (this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half) {
       applyEvent(this.target, this.events[this.nextEvent++]!, t);
@@ -400,10 +406,11 @@ class Run implements Simulation {
   private step(): void {
     const t = this.timeS;
     this.applyDue(t);
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.observe(t, false);
-    if (this.protect(t)) this.rhs(t, this.y, this.rk.k1);
-    rk4StepFromK1(this.rhs, t, this.stepS, this.y, this.rk);
+    if (this.protect(t)) this.evaluateAt(t);
+    this.out.t = t;
+    rk4StepFromK1(this.rhs, this.out, this.y, this.rk);
     this.k++;
     this.checkFinite(this.timeS);
   }
@@ -428,14 +435,14 @@ class Run implements Simulation {
 
   applyEvent(event: ScenarioEvent): void {
     const t = this.timeS;
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.markDisturbance(t);
     applyEvent(this.target, event, t);
   }
 
   snapshot(): SimulationSnapshot {
     const t = this.timeS;
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     const m = this.m;
     const out = this.out;
     const busAngle = Math.atan2(out.bus.im, out.bus.re);
@@ -473,7 +480,7 @@ class Run implements Simulation {
   result(): SimulationResult {
     const t = this.timeS;
     this.applyDue(t);
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.observe(t, true);
     const m = this.m;
     const out = this.out;
