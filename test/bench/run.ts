@@ -12,12 +12,18 @@ import * as simulationSuite from './simulation.bench';
 import * as trainerSuite from './trainer.bench';
 import * as sharingSuite from './sharing.bench';
 import * as plannerSuite from './planner.bench';
+import * as yardstickSuite from './yardstick.bench';
 
-const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }];
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'yardstick', run: yardstickSuite.run }];
+
+// `npm run bench -- --only simulation,yardstick` runs the named suites only.
+const onlyAt = process.argv.indexOf('--only');
+const only = onlyAt >= 0 ? new Set((process.argv[onlyAt + 1] ?? '').split(',')) : null;
 
 const cpu = cpus()[0]?.model ?? 'unknown CPU';
 process.stdout.write(`Machine: ${cpu}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`);
 process.stdout.write('| case | median per call | calls |\n| --- | --- | --- |\n');
 for (const s of suites) {
+  if (only && !only.has(s.name)) continue;
   for (const r of await s.run()) process.stdout.write(formatResult(r) + '\n');
 }
