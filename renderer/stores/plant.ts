@@ -82,7 +82,14 @@ export const usePlantStore = defineStore('plant', () => {
   /** Validates `candidate`; on success it becomes the plant and the draft, and undo history restarts. */
   async function load(candidate: unknown, from: string): Promise<boolean> {
     try {
-      const valid = await engine().call('validatePlant', { plant: candidate });
+      // With the sharing store attached, the same request solves the plant (one round trip).
+      let valid: Plant;
+      if (solver) {
+        const pct = solver.loadPct();
+        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        valid = checked.plant;
+        solver.take(checked, pct);
+      } else valid = await engine().call('validatePlant', { plant: candidate });
       plant.value = valid;
       draft.value = draftOf(valid);
       checkedDraft.value = draft.value;

@@ -13,8 +13,9 @@ import * as trainerSuite from './trainer.bench';
 import * as sharingSuite from './sharing.bench';
 import * as plannerSuite from './planner.bench';
 import * as yardstickSuite from './yardstick.bench';
+import * as browserSuite from './browser.bench';
 
-const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'yardstick', run: yardstickSuite.run }];
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'yardstick', run: yardstickSuite.run }, { name: 'browser', run: browserSuite.run }];
 
 // `npm run bench -- --only simulation,yardstick` runs the named suites only.
 const onlyAt = process.argv.indexOf('--only');
