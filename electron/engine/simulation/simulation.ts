@@ -326,36 +326,45 @@ class Run implements Simulation {
     const h = this.stepS;
     const fr = m.ratedFrequencyHz;
     const vr = m.ratedVoltageV;
+    const online = m.online;
+    const reverseTrip = m.reverseTripPU;
+    const kwPU = m.kwPU;
+    const pOwn = this.out.pOwn;
+    const vt = this.out.vt;
+    const y = this.y;
+    const reverseTimer = this.reverseTimer;
+    const protTimer = this.protTimer;
+    const pickup = m.protPickupPU;
     let operated = false;
     for (let i = 0; i < n; i++) {
-      if (!m.online[i]) {
-        this.reverseTimer[i] = 0;
-        for (let d = 0; d < 4; d++) this.protTimer[d * n + i] = 0;
+      if (!online[i]) {
+        reverseTimer[i] = 0;
+        for (let d = 0; d < 4; d++) protTimer[d * n + i] = 0;
         continue;
       }
-      const limit = m.reverseTripPU[i]! * m.kwPU[i]!;
-      if (limit > 0 && this.out.pOwn[i]! < -limit) {
-        this.reverseTimer[i] = this.reverseTimer[i]! + h;
-        if (this.reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
+      const limit = reverseTrip[i]! * kwPU[i]!;
+      if (limit > 0 && pOwn[i]! < -limit) {
+        reverseTimer[i] = reverseTimer[i]! + h;
+        if (reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
           const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
           this.trip(i, t, '32', `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`);
           operated = true;
           continue;
         }
-      } else this.reverseTimer[i] = 0;
-      const f = this.y[i * STATES_PER_SET + OMEGA]!;
-      const v = this.out.vt[i]!;
+      } else reverseTimer[i] = 0;
+      const f = y[i * STATES_PER_SET + OMEGA]!;
+      const v = vt[i]!;
       for (let d = 0; d < 4; d++) {
         const k = d * n + i;
-        const p = m.protPickupPU[k]!;
+        const p = pickup[k]!;
         const x = d < 2 ? f : v;
         const picked = p > 0 && (d % 2 === 0 ? x < p : x > p);
         if (!picked) {
-          this.protTimer[k] = 0;
+          protTimer[k] = 0;
           continue;
         }
-        this.protTimer[k] = this.protTimer[k]! + h;
-        if (this.protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
+        protTimer[k] = protTimer[k]! + h;
+        if (protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
           const dev = PROTECTION_DEVICES[d]!;
           const what = ['under-frequency', 'over-frequency', 'undervoltage', 'overvoltage'][d]!;
           const pick = d < 2 ? `${(p * fr).toFixed(2)} Hz` : `${(p * vr).toFixed(0)} V`;
