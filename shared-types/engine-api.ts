@@ -4,7 +4,7 @@
  */
 import type { Plant } from './plant';
 import type { PlantDescription } from './describe';
-import type { LoadSweep, SharingResult, SolveSharingRequest, SweepLoadRequest } from './sharing';
+import type { CheckedPlant, CheckPlantRequest, LoadSweep, SharingResult, SolveSharingRequest, SweepLoadRequest } from './sharing';
 import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from './sync';
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
@@ -25,6 +25,11 @@ export interface EngineApi {
   describePlant: Method<{ plant: Plant }, PlantDescription>;
   /** Validate a plant file and return it with defaults filled in. */
   validatePlant: Method<{ plant: unknown }, Plant>;
+  /**
+   * An edit in one round trip: validate the plant (parsed once) and solve where it settles,
+   * at the load slider's position when given.
+   */
+  checkPlant: Method<CheckPlantRequest, CheckedPlant>;
   /** Steady-state kW/kVAR split, bus frequency and voltage. */
   solveSharing: Method<SolveSharingRequest, SharingResult>;
   /** The operating point over a range of load. */
@@ -68,6 +73,7 @@ export type EngineResponse<K extends EngineMethod> = EngineApi[K]['response'];
 export const ENGINE_METHODS = [
   'describePlant',
   'validatePlant',
+  'checkPlant',
   'solveSharing',
   'sweepLoad',
   'evaluateSync',

@@ -15,3 +15,4 @@ export type * from './report';
 export type * from './planner';
 export * from './host-api';
 export * from './presentation';
+export * from './load-slider';

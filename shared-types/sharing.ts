@@ -39,6 +39,29 @@ export interface SolveSharingRequest {
   atMost?: boolean;
 }
 
+/**
+ * Request of `checkPlant`: a plant as edited (checked like `validatePlant`) and, when the load
+ * slider is away from the plant's own loads, its position (% of the online sets' kW rating).
+ */
+export interface CheckPlantRequest {
+  plant: unknown;
+  loadPct?: number;
+}
+
+/**
+ * Answer of `checkPlant`: the plant with defaults filled in and, from the same request, its
+ * operating point (as `solveSharing` gives it, at most what the sets can carry when `loadPct`
+ * is given) or the sentence saying why it has none. An invalid plant is refused as
+ * `validatePlant` refuses it (field issues), with no operating point.
+ */
+export interface CheckedPlant {
+  plant: Plant;
+  /** The load solved for (null: the plant's own loads). */
+  load: LoadOverride | null;
+  sharing: SharingResult | null;
+  sharingError: string | null;
+}
+
 /** A load the sets could not carry, and what was solved instead (`SolveSharingRequest.atMost`). */
 export interface CappedLoad {
   requestedKW: number;

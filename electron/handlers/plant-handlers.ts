@@ -1,11 +1,30 @@
-/** Handlers for plant-level methods: validation and rated figures. */
+/** Handlers for plant-level methods: validation, an edit's check-and-solve, and rated figures. */
 import { z } from 'zod';
-import { describePlant } from '../engine';
+import { EngineError, describePlant, solveSharing, solveSharingAtMost } from '../engine';
+import { loadAtPct } from '../../shared-types';
+import type { CheckedPlant, Plant } from '../../shared-types';
 import { plantSchema } from './plant-schema';
 import type { HandlerGroup } from './handler';
 import { parseOrThrow } from './validate';
 
-export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant'> = {
+/**
+ * `checkPlant`: the plant is parsed once, then solved from that parse (the sharing solver takes
+ * a validated plant; no second schema pass). A plant without an operating point is still a valid
+ * plant: the reason comes back in `sharingError`.
+ */
+export function checkPlant(raw: unknown, loadPct: number | undefined): CheckedPlant {
+  const plant: Plant = parseOrThrow(plantSchema, raw);
+  const load = loadPct === undefined ? null : loadAtPct(plant, loadPct);
+  try {
+    const sharing = load ? solveSharingAtMost(plant, load) : solveSharing(plant);
+    return { plant, load, sharing, sharingError: null };
+  } catch (e) {
+    if (e instanceof EngineError) return { plant, load, sharing: null, sharingError: e.message };
+    throw e;
+  }
+}
+
+export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant' | 'checkPlant'> = {
   describePlant: {
     schema: z.object({ plant: plantSchema }),
     run: ({ plant }) => describePlant(plant),
@@ -13,5 +32,18 @@ export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant'> = {
   validatePlant: {
     schema: z.object({ plant: z.unknown() }),
     run: ({ plant }) => parseOrThrow(plantSchema, plant),
+  },
+  checkPlant: {
+    schema: z
+      .object({
+        plant: z.unknown(),
+        loadPct: z
+          .number({ error: 'must be a number (%)' })
+          .refine(Number.isFinite, 'must be a finite number')
+          .refine((v) => v >= 0 && v <= 500, 'must be from 0 to 500 %')
+          .optional(),
+      })
+      .strict(),
+    run: ({ plant, loadPct }) => checkPlant(plant, loadPct),
   },
 };

@@ -9,7 +9,7 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
-import type { FieldIssue, Plant, PlantDescription } from '../../shared-types';
+import type { CheckedPlant, FieldIssue, Plant, PlantDescription } from '../../shared-types';
 import demoPlant from '../demo/water-works.plant.json';
 import { EngineCallError, engine, messageOf } from '../transport';
 import { latestOnly } from './latest-only';
@@ -19,7 +19,22 @@ import type { PlantDraft } from './plant-draft';
 /** How many steps undo keeps. */
 export const UNDO_DEPTH = 200;
 
+/**
+ * Where an edit's operating point goes (the sharing store): `checkPlant` validates the draft and
+ * solves it in one request, at the slider position `loadPct()` gives (null: the plant's own loads).
+ */
+export interface PlantSolver {
+  loadPct(): number | null;
+  take(checked: CheckedPlant, loadPct: number | null): void;
+}
+
 export const usePlantStore = defineStore('plant', () => {
+  let solver: PlantSolver | null = null;
+  /** The sharing store registers itself here (once). */
+  function attachSolver(s: PlantSolver): void {
+    solver = s;
+  }
+
   /** The last valid plant (defaults filled in by the schema). */
   const plant = shallowRef<Plant | null>(null);
   const description = shallowRef<PlantDescription | null>(null);
@@ -67,7 +82,14 @@ export const usePlantStore = defineStore('plant', () => {
   /** Validates `candidate`; on success it becomes the plant and the draft, and undo history restarts. */
   async function load(candidate: unknown, from: string): Promise<boolean> {
     try {
-      const valid = await engine().call('validatePlant', { plant: candidate });
+      // With the sharing store attached, the same request solves the plant (one round trip).
+      let valid: Plant;
+      if (solver) {
+        const pct = solver.loadPct();
+        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        valid = checked.plant;
+        solver.take(checked, pct);
+      } else valid = await engine().call('validatePlant', { plant: candidate });
       plant.value = valid;
       draft.value = draftOf(valid);
       checkedDraft.value = draft.value;
@@ -98,12 +120,23 @@ export const usePlantStore = defineStore('plant', () => {
 
   const describer = latestOnly(describe);
 
-  // Validation of the draft: one request at a time, always for the newest draft.
+  // Validation of the draft: one request at a time, always for the newest draft. With the sharing
+  // store attached, the same request solves the plant (`checkPlant`): one round trip per edit.
   const validator = latestOnly(async (candidate: PlantDraft) => {
     if (candidate !== draft.value) return; // an older draft: a newer one is queued or done
     try {
-      const valid = await engine().call('validatePlant', { plant: candidate });
-      if (candidate !== draft.value) return;
+      let valid: Plant;
+      if (solver) {
+        const pct = solver.loadPct();
+        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        if (candidate !== draft.value) return;
+        valid = checked.plant;
+        checkedDraft.value = candidate;
+        solver.take(checked, pct);
+      } else {
+        valid = await engine().call('validatePlant', { plant: candidate });
+        if (candidate !== draft.value) return;
+      }
       plant.value = valid;
       checkedDraft.value = candidate;
       // Replaced only when there were some: every field watches this list.
@@ -239,6 +272,7 @@ export const usePlantStore = defineStore('plant', () => {
     undo,
     redo,
     closeStep,
+    attachSolver,
     issueAt,
     snapshot,
     markSaved,

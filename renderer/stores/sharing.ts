@@ -6,7 +6,8 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef, watch } from 'vue';
-import type { LoadOverride, LoadSweep, Plant, SharingResult } from '../../shared-types';
+import { connectedLoad, loadAtPct, onlineRatedKW } from '../../shared-types';
+import type { CheckedPlant, LoadOverride, LoadSweep, Plant, SharingResult } from '../../shared-types';
 import { engine, messageOf } from '../transport';
 import { latestOnly } from './latest-only';
 import { usePlantStore } from './plant';
@@ -17,36 +18,8 @@ export const SWEEP_STEPS = 45;
 export const LOAD_PCT_MAX = 110;
 /** Below this total kVA, % of the online kVA rating, the total PF is shown as "—". */
 export const PF_SHOWN_ABOVE_PCT = 0.5;
-/** kVAR per kW of the swept load when the plant has no load to take it from (PF 0.8 lagging). */
-const DEFAULT_Q_PER_P = 0.75;
-
-/** Sum of the online sets' rated kW. */
-export function onlineRatedKW(plant: Plant): number {
-  return plant.sets.reduce((sum, s) => sum + (s.online ? s.ratedKW : 0), 0);
-}
-
-/** The plant's online loads at rated voltage and frequency, kW and kVAR. */
-export function connectedLoad(plant: Plant): LoadOverride {
-  let kW = 0;
-  let kVAR = 0;
-  for (const l of plant.loads) {
-    if (!l.online) continue;
-    kW += l.kW;
-    kVAR += l.kVAR;
-  }
-  return { kW, kVAR };
-}
-
-/**
- * The aggregate load at `pct` % of the online kW rating, with the kVAR/kW ratio of the
- * plant's own loads (or PF 0.8 lagging when they draw no kW).
- */
-export function loadAtPct(plant: Plant, pct: number): LoadOverride {
-  const own = connectedLoad(plant);
-  const qPerP = own.kW > 0 ? own.kVAR / own.kW : DEFAULT_Q_PER_P;
-  const kW = (pct / 100) * onlineRatedKW(plant);
-  return { kW, kVAR: kW * qPerP };
-}
+// The slider's arithmetic is shared with the engine's `checkPlant` handler.
+export { connectedLoad, loadAtPct, onlineRatedKW };
 
 interface SolveInput {
   plant: Plant;
@@ -86,9 +59,12 @@ export const useSharingStore = defineStore('sharing', () => {
       // The slider goes up to the overload limit; a load the sets cannot carry (feeder losses on top, a
       // set that saturates early) is answered at the most they can carry, and the result says so.
       const r = await engine().call('solveSharing', load ? { plant, load, atMost: true } : { plant });
+      // A newer plant came while this one was solving: its own answer is (or will be) the one shown.
+      if (plant !== plantStore.plant) return;
       result.value = r;
       error.value = null;
     } catch (e) {
+      if (plant !== plantStore.plant) return;
       result.value = null;
       error.value = messageOf(e);
     }
@@ -123,11 +99,29 @@ export const useSharingStore = defineStore('sharing', () => {
     void sweeper.push(plant);
   }
 
+  /**
+   * An edit's check brings the operating point with it (`checkPlant`, one round trip): the plant
+   * store asks here for the slider position to solve at, and hands the answer over just before
+   * the plant changes, so the watcher below finds it already solved.
+   */
+  plantStore.attachSolver({
+    loadPct: () => loadPct.value,
+    take(checked: CheckedPlant, pct: number | null) {
+      result.value = checked.sharing;
+      error.value = checked.sharingError;
+      resultPlant.value = checked.plant;
+      resultLoad.value = checked.load;
+      resultLoadPct.value = pct;
+      solves.value++;
+    },
+  });
+
   watch(
     () => plantStore.plant,
     (plant) => {
       if (!plant) return;
-      void solver.push({ plant, loadPct: loadPct.value });
+      // Solved in the same request as the edit's check (unless the slider has moved since).
+      if (resultPlant.value !== plant || resultLoadPct.value !== loadPct.value) void solver.push({ plant, loadPct: loadPct.value });
       sweepIfShown();
     },
     // Synchronous: the request leaves in the same tick as the edit that changed the plant.

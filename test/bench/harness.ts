@@ -27,7 +27,7 @@ export function bench(name: string, fn: () => unknown, opts: { minMs?: number; b
 
 /** Formats a result line for the console and the README. */
 export function formatResult(r: BenchResult): string {
-  const t = r.medianMs < 1 ? `${(r.medianMs * 1000).toFixed(1)} µs` : `${r.medianMs.toFixed(2)} ms`;
+  const t = Number.isNaN(r.medianMs) ? '—' : r.medianMs < 1 ? `${(r.medianMs * 1000).toFixed(1)} µs` : `${r.medianMs.toFixed(2)} ms`;
   const extra = r.extra ? '  ' + Object.entries(r.extra).map(([k, v]) => `${k} ${v}`).join(', ') : '';
   return `| ${r.name} | ${t} | ${r.runs}${extra ? ` |${extra}` : ' |'}`;
 }

@@ -1,47 +1,60 @@
 /**
  * Fixed-step classical Runge–Kutta (RK4). The right-hand side writes its derivatives
- * into a caller-supplied array; the stage arrays are allocated once, so a step
- * allocates nothing.
+ * into a caller-supplied array and reads the time of the stage from a clock object the
+ * integrator sets (a number passed to a call that is not inlined is boxed on the heap,
+ * four times a step; a field write is not); the stage arrays are allocated once, so a
+ * step allocates nothing.
  */
 
-/** Right-hand side dy/dt = f(t, y), written into `dy`. */
-export type Rhs = (t: number, y: Float64Array, dy: Float64Array) => void;
+/** Right-hand side dy/dt = f(clock.t, y), written into `dy`. */
+export type Rhs = (y: Float64Array, dy: Float64Array) => void;
 
-/** Work arrays of one RK4 integrator. */
+/** Where the integrator puts the time of each stage for the right-hand side, s. */
+export interface Clock {
+  t: number;
+}
+
+/** Work arrays and step of one RK4 integrator. */
 export interface Rk4 {
   readonly k1: Float64Array;
   readonly k2: Float64Array;
   readonly k3: Float64Array;
   readonly k4: Float64Array;
   readonly tmp: Float64Array;
+  /** Step, s. */
+  readonly h: number;
 }
 
-/** Allocates the work arrays for a state of `size` entries. */
-export function createRk4(size: number): Rk4 {
-  return { k1: new Float64Array(size), k2: new Float64Array(size), k3: new Float64Array(size), k4: new Float64Array(size), tmp: new Float64Array(size) };
+/** Allocates the work arrays for a state of `size` entries and a step of `h` seconds. */
+export function createRk4(size: number, h: number): Rk4 {
+  return { k1: new Float64Array(size), k2: new Float64Array(size), k3: new Float64Array(size), k4: new Float64Array(size), tmp: new Float64Array(size), h };
 }
 
 /**
- * Advances `y` in place from `t` to `t + h`. `w.k1` must already hold f(t, y): the
- * caller evaluates it to read the outputs at `t` (see `Simulation`), so it is not
- * computed twice.
+ * Advances `y` in place from `clock.t` to `clock.t + h` (and leaves `clock.t` at the start
+ * time). `w.k1` must already hold f(t, y): the caller evaluates it to read the outputs at
+ * `t` (see `Simulation`), so it is not computed twice.
  */
-export function rk4StepFromK1(f: Rhs, t: number, h: number, y: Float64Array, w: Rk4): void {
-  const { k1, k2, k3, k4, tmp } = w;
+export function rk4StepFromK1(f: Rhs, clock: Clock, y: Float64Array, w: Rk4): void {
+  const { k1, k2, k3, k4, tmp, h } = w;
+  const t = clock.t;
   const n = y.length;
   const h2 = 0.5 * h;
   for (let j = 0; j < n; j++) tmp[j] = y[j]! + h2 * k1[j]!;
-  f(t + h2, tmp, k2);
+  clock.t = t + h2;
+  f(tmp, k2);
   for (let j = 0; j < n; j++) tmp[j] = y[j]! + h2 * k2[j]!;
-  f(t + h2, tmp, k3);
+  f(tmp, k3);
   for (let j = 0; j < n; j++) tmp[j] = y[j]! + h * k3[j]!;
-  f(t + h, tmp, k4);
+  clock.t = t + h;
+  f(tmp, k4);
   const h6 = h / 6;
   for (let j = 0; j < n; j++) y[j] = y[j]! + h6 * (k1[j]! + 2 * k2[j]! + 2 * k3[j]! + k4[j]!);
+  clock.t = t;
 }
 
 /** One full RK4 step (evaluates k1 itself). */
-export function rk4Step(f: Rhs, t: number, h: number, y: Float64Array, w: Rk4): void {
-  f(t, y, w.k1);
-  rk4StepFromK1(f, t, h, y, w);
+export function rk4Step(f: Rhs, clock: Clock, y: Float64Array, w: Rk4): void {
+  f(y, w.k1);
+  rk4StepFromK1(f, clock, y, w);
 }

@@ -12,9 +12,12 @@ import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { BusVoltage } from './network';
 import type { SimModel } from './sim-model';
+import { P_GOV_MODE, P_INERTIA_KVA, P_ISO_LINKED, P_KW_PU, P_ONLINE, P_OWN_SCALE, P_RATED_KVA, P_REG_MODE, P_SHUTDOWN, P_Y_IM, P_Y_RE, P_ZF_IM, P_ZF_RE, OUT_COLUMNS, O_COS_D, O_E_IM, O_E_RE, O_ID, O_IQ, O_I_IM, O_I_RE, O_P_OWN, O_Q_OWN, O_SIN_D, O_VT, O_VT_IM, O_VT_RE, O_V_SENSED } from './par-layout';
 
 /** What one evaluation computes besides the derivatives (system base unless noted). */
 export interface Outputs {
+  /** The per-set outputs below in one array, column by column (`O_*`). */
+  buf: Float64Array;
   /** E'' of each set, network frame. */
   eRe: Float64Array;
   eIm: Float64Array;
@@ -35,7 +38,7 @@ export interface Outputs {
   iq: Float64Array;
   /** Voltage each regulator compares with its reference, pu (its own terminal voltage, or the cross-current group's mean). */
   vSensed: Float64Array;
-  /** Time of this evaluation, s. */
+  /** Time of this evaluation, s (set by the caller before it evaluates). */
   t: number;
   /** Linked isochronous group's loading, pu of ratedKW. */
   pBarIso: number;
@@ -64,10 +67,12 @@ export interface Outputs {
 
 /** Allocates the output arrays for `n` sets. */
 export function createOutputs(n: number): Outputs {
-  const f = () => new Float64Array(n);
+  const buf = new Float64Array(OUT_COLUMNS * n);
+  const f = (k: number) => buf.subarray(k * n, (k + 1) * n);
   return {
-    eRe: f(), eIm: f(), sinD: f(), cosD: f(), iRe: f(), iIm: f(), vtRe: f(), vtIm: f(), vt: f(), pOwn: f(), qOwn: f(),
-    id: f(), iq: f(), vSensed: f(),
+    buf,
+    eRe: f(O_E_RE), eIm: f(O_E_IM), sinD: f(O_SIN_D), cosD: f(O_COS_D), iRe: f(O_I_RE), iIm: f(O_I_IM), vtRe: f(O_VT_RE), vtIm: f(O_VT_IM),
+    vt: f(O_VT), pOwn: f(O_P_OWN), qOwn: f(O_Q_OWN), id: f(O_ID), iq: f(O_IQ), vSensed: f(O_V_SENSED),
     // Non-integer starting values keep these fields stored as doubles.
     t: 0.5,
     pBarIso: 0.5,
@@ -86,12 +91,44 @@ export function createOutputs(n: number): Outputs {
 }
 
 /**
- * Evaluates the plant at time `t`, state `y`: writes dy/dt into `dy` and the algebraic
- * outputs into `out`. Allocates nothing.
+ * Evaluates the plant at time `out.t` (the caller sets it), state `y`: writes dy/dt into `dy` and the algebraic
+ * outputs into `out`. Allocates nothing. Runs four times per step (the RK4 stages), so
+ * every per-set parameter array is read into a local once per call and each pass is one
+ * plain loop over the sets; the machine, governor and regulator each take the whole plant
+ * in one call.
  */
-export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float64Array, out: Outputs): void {
+export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs): void {
   const n = m.n;
-  const { eRe, eIm, sinD, cosD, iRe, iIm, vtRe, vtIm, vt, pOwn, qOwn } = out;
+  const P = m.par;
+  const O = out.buf;
+  // Column offsets, in locals once per call.
+  const oCosD = O_COS_D * n;
+  const oEIm = O_E_IM * n;
+  const oERe = O_E_RE * n;
+  const oId = O_ID * n;
+  const oIq = O_IQ * n;
+  const oIIm = O_I_IM * n;
+  const oIRe = O_I_RE * n;
+  const oPOwn = O_P_OWN * n;
+  const oQOwn = O_Q_OWN * n;
+  const oSinD = O_SIN_D * n;
+  const oVt = O_VT * n;
+  const oVtIm = O_VT_IM * n;
+  const oVtRe = O_VT_RE * n;
+  const oVSensed = O_V_SENSED * n;
+  const pGovMode = P_GOV_MODE * n;
+  const pInertiaKva = P_INERTIA_KVA * n;
+  const pIsoLinked = P_ISO_LINKED * n;
+  const pKwPu = P_KW_PU * n;
+  const pOnline = P_ONLINE * n;
+  const pOwnScale = P_OWN_SCALE * n;
+  const pRatedKva = P_RATED_KVA * n;
+  const pRegMode = P_REG_MODE * n;
+  const pShutdown = P_SHUTDOWN * n;
+  const pYIm = P_Y_IM * n;
+  const pYRe = P_Y_RE * n;
+  const pZfIm = P_ZF_IM * n;
+  const pZfRe = P_ZF_RE * n;
   // Pass 1: internal voltages in the network frame, bus speed, Norton sums.
   let hw = 0;
   let hsum = 0;
@@ -100,27 +137,26 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   let inRe = 0;
   let inIm = 0;
   let anyOnline = false;
-  for (let i = 0; i < n; i++) {
-    const o = i * STATES_PER_SET;
+  for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
     const d = y[o + DELTA]!;
     const s = Math.sin(d);
     const c = Math.cos(d);
-    sinD[i] = s;
-    cosD[i] = c;
+    O[oSinD + i] = s;
+    O[oCosD + i] = c;
     const ed = y[o + ED2]!;
     const eq = y[o + EQ2]!;
     // (E''d + jE''q) e^{j(δ − π/2)} = (E''d + jE''q)(sin δ − j cos δ)
     const er = ed * s + eq * c;
     const ei = eq * s - ed * c;
-    eRe[i] = er;
-    eIm[i] = ei;
-    if (m.online[i]) {
+    O[oERe + i] = er;
+    O[oEIm + i] = ei;
+    if (P[pOnline + i]) {
       anyOnline = true;
-      const hi = m.inertiaS[i]! * m.ratedKVA[i]!;
+      const hi = P[pInertiaKva + i]!;
       hw += hi * y[o + OMEGA]!;
       hsum += hi;
-      const yr = m.yRe[i]!;
-      const yi = m.yIm[i]!;
+      const yr = P[pYRe + i]!;
+      const yi = P[pYIm + i]!;
       aRe += yr;
       aIm += yi;
       inRe += yr * er - yi * ei;
@@ -192,80 +228,87 @@ export function evaluatePlant(m: SimModel, t: number, y: Float64Array, dy: Float
   out.unservedP = below ? pP * (1 - pScale) + pI * (v1 - iScale) : 0;
   out.unservedQ = below ? qP * (1 - pScale) + qI * (v1 - iScale) : 0;
 
-  // Pass 2: currents, terminal voltages, powers; group sums for the sharing links.
+  // Pass 2: currents, terminal voltages, powers, the current on each rotor's d- and q-axes;
+  // group sums for the sharing links.
   let isoKW = 0;
   let isoRated = 0;
   let crossKVAR = 0;
   let crossKVA = 0;
   let crossV = 0;
   let loss = 0;
+  let anyCross = false;
   for (let i = 0; i < n; i++) {
-    const sk = m.ratedKVA[i]!;
-    if (m.online[i]) {
-      const dr = eRe[i]! - vr;
-      const di = eIm[i]! - vi;
-      const yr = m.yRe[i]!;
-      const yi = m.yIm[i]!;
+    const er = O[oERe + i]!;
+    const ei = O[oEIm + i]!;
+    if (P[pOnline + i]) {
+      const dr = er - vr;
+      const di = ei - vi;
+      const yr = P[pYRe + i]!;
+      const yi = P[pYIm + i]!;
       const ir = yr * dr - yi * di;
       const ii = yr * di + yi * dr;
-      iRe[i] = ir;
-      iIm[i] = ii;
-      const zr = m.zfRe[i]!;
-      const zi = m.zfIm[i]!;
+      O[oIRe + i] = ir;
+      O[oIIm + i] = ii;
+      const zr = P[pZfRe + i]!;
+      const zi = P[pZfIm + i]!;
       const tr = vr + zr * ir - zi * ii;
       const ti = vi + zr * ii + zi * ir;
-      vtRe[i] = tr;
-      vtIm[i] = ti;
-      vt[i] = Math.sqrt(tr * tr + ti * ti);
-      const scale = m.baseKVA / sk;
+      O[oVtRe + i] = tr;
+      O[oVtIm + i] = ti;
+      const vmag = Math.sqrt(tr * tr + ti * ti);
+      O[oVt + i] = vmag;
+      const scale = P[pOwnScale + i]!;
       const p = (tr * ir + ti * ii) * scale;
       const q = (ti * ir - tr * ii) * scale;
-      pOwn[i] = p;
-      qOwn[i] = q;
+      O[oPOwn + i] = p;
+      O[oQOwn + i] = q;
       loss += zr * (ir * ir + ii * ii);
-      if (m.govMode[i] === GOV_ISO && m.isoLinked[i] && !m.shutdown[i]) {
-        isoKW += p * sk;
-        isoRated += m.kwPU[i]! * sk;
-      }
-      if (m.regMode[i] === REG_CROSS && !m.shutdown[i]) {
-        crossKVAR += q * sk;
-        crossV += vt[i]! * sk;
-        crossKVA += sk;
+      // Rotor frame: x_dq = x (sin δ + j cos δ).
+      const irOwn = ir * scale;
+      const iiOwn = ii * scale;
+      const s = O[oSinD + i]!;
+      const c = O[oCosD + i]!;
+      O[oId + i] = irOwn * s - iiOwn * c;
+      O[oIq + i] = irOwn * c + iiOwn * s;
+      if (!P[pShutdown + i]) {
+        const sk = P[pRatedKva + i]!;
+        if (P[pGovMode + i] === GOV_ISO && P[pIsoLinked + i]) {
+          isoKW += p * sk;
+          isoRated += P[pKwPu + i]! * sk;
+        }
+        if (P[pRegMode + i] === REG_CROSS) {
+          anyCross = true;
+          crossKVAR += q * sk;
+          crossV += vmag * sk;
+          crossKVA += sk;
+        }
       }
     } else {
-      iRe[i] = 0;
-      iIm[i] = 0;
-      vtRe[i] = eRe[i]!;
-      vtIm[i] = eIm[i]!;
-      vt[i] = Math.sqrt(eRe[i]! * eRe[i]! + eIm[i]! * eIm[i]!);
-      pOwn[i] = 0;
-      qOwn[i] = 0;
+      O[oIRe + i] = 0;
+      O[oIIm + i] = 0;
+      O[oVtRe + i] = er;
+      O[oVtIm + i] = ei;
+      O[oVt + i] = Math.sqrt(er * er + ei * ei);
+      O[oPOwn + i] = 0;
+      O[oQOwn + i] = 0;
+      O[oId + i] = 0;
+      O[oIq + i] = 0;
     }
   }
   out.feederLossP = loss;
-  out.t = t;
   out.pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
   out.qBarCross = crossKVA > 0 ? crossKVAR / crossKVA : 0;
   const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
+  // The voltage each regulator compares with its reference: its own, or the cross-current group's mean.
+  if (anyCross) {
+    for (let i = 0; i < n; i++) {
+      const cross = P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i];
+      O[oVSensed + i] = cross ? vBarCross : O[oVt + i]!;
+    }
+  } else O.copyWithin(oVSensed, oVt, (O_VT + 1) * n);
 
-  // Pass 3: derivatives. Per-set inputs go through the typed arrays of `out`, not as
-  // number arguments, so no value is boxed per call.
-  const { id, iq, vSensed } = out;
-  for (let i = 0; i < n; i++) {
-    const scale = m.baseKVA / m.ratedKVA[i]!;
-    const ir = iRe[i]! * scale;
-    const ii = iIm[i]! * scale;
-    // Rotor frame: x_dq = x (sin δ + j cos δ).
-    const s = sinD[i]!;
-    const c = cosD[i]!;
-    id[i] = ir * s - ii * c;
-    iq[i] = ir * c + ii * s;
-    vSensed[i] = m.online[i] && m.regMode[i] === REG_CROSS && !m.shutdown[i] ? vBarCross : vt[i]!;
-  }
-  for (let i = 0; i < n; i++) {
-    const o = i * STATES_PER_SET;
-    machineDerivatives(m, i, o, y, dy, out);
-    governorDerivatives(m, i, o, y, dy, out);
-    regulatorDerivatives(m, i, o, y, dy, out);
-  }
+  // Pass 3: derivatives, one call per block for the whole plant (inputs through `out`).
+  machineDerivatives(m, y, dy, out);
+  governorDerivatives(m, y, dy, out);
+  regulatorDerivatives(m, y, dy, out);
 }

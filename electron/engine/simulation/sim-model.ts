@@ -11,9 +11,12 @@
 import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
 import { PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
 import type { Load, LoadModel, Plant, ZipShares } from '../../../shared-types';
+import { crossCurrentGain } from './regulator';
 import { fieldCeiling } from './excitation';
 
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
+import { PAR_COLUMNS, PAR_FIELDS } from './par-layout';
+import type { ParField } from './par-layout';
 
 /**
  * One load on the bus, in pu of `baseKVA` at rated voltage and frequency, with its ZIP
@@ -71,6 +74,11 @@ export const PROTECTION_DEVICES = ['81U', '81O', '27', '59'] as const;
 /** The simulator's working model of a plant. */
 export interface SimModel {
   n: number;
+  /**
+   * Every per-set parameter and status below in one array, column by column (`par-layout.ts`):
+   * the named per-set fields are views of its columns.
+   */
+  par: Float64Array;
   ids: string[];
   ratedFrequencyHz: number;
   ratedVoltageV: number;
@@ -102,8 +110,9 @@ export interface SimModel {
   zfIm: Float64Array;
 
   // Governor
-  govMode: Int8Array;
-  isoLinked: Uint8Array;
+  /** `codes.ts` governor mode, and 1 when in the isochronous load-sharing link. */
+  govMode: Float64Array;
+  isoLinked: Float64Array;
   droop: Float64Array;
   /** Speed references, pu of rated frequency. */
   noLoadPU: Float64Array;
@@ -134,7 +143,8 @@ export interface SimModel {
   protDelayS: Float64Array;
 
   // Regulator
-  regMode: Int8Array;
+  /** `codes.ts` regulator mode. */
+  regMode: Float64Array;
   regDroop: Float64Array;
   /** Voltage references, pu of rated voltage. */
   noLoadVPU: Float64Array;
@@ -146,7 +156,8 @@ export interface SimModel {
   /** Time constant of the power-factor trim, s. */
   pfTrimS: Float64Array;
   ceilingPU: Float64Array;
-  shunt: Uint8Array;
+  /** 1 when shunt (self) excited. */
+  shunt: Float64Array;
   /** V/Hz roll-off knee (pu speed) and slope (pu voltage per pu speed below it); slope 0 = off. */
   vhzKneePU: Float64Array;
   vhzSlopePU: Float64Array;
@@ -157,11 +168,37 @@ export interface SimModel {
   oelPU: Float64Array;
   oelDelayS: Float64Array;
   oelResetS: Float64Array;
-  oelActive: Uint8Array;
+  oelActive: Float64Array;
 
-  // Breaker and engine status
-  online: Uint8Array;
-  shutdown: Uint8Array;
+  // Breaker and engine status (1 or 0)
+  online: Float64Array;
+  shutdown: Float64Array;
+
+  // Constants derived once from the fields above for the hot loop (none of them changes
+  // with an event): reciprocals turn the per-stage divisions into multiplications.
+  /** 1 / (2H), 1/s. */
+  inv2H: Float64Array;
+  /** H · ratedKVA, the weight of each set in the bus speed, kVA·s. */
+  inertiaKVA: Float64Array;
+  /** baseKVA / ratedKVA: system-base pu to the set's own base. */
+  ownScale: Float64Array;
+  /** Xd − X'd and X'd − X''d, pu own base. */
+  xdMinusXd1: Float64Array;
+  xd1MinusXd2: Float64Array;
+  /** 1 / T'd0 and 1 / T''d0, 1/s. */
+  invTd0: Float64Array;
+  invTd20: Float64Array;
+  /** 1 / droop (pu), and the reciprocals of the governor lags and isochronous reset, 1/s. */
+  invDroop: Float64Array;
+  invActuatorS: Float64Array;
+  invEngineS: Float64Array;
+  invResetS: Float64Array;
+  /** Cross-current loop gain (`crossCurrentGain`), and the reciprocals of the regulator's reset and exciter lag, 1/s. */
+  crossGain: Float64Array;
+  invAvrResetS: Float64Array;
+  invExciterS: Float64Array;
+  /** 1 / the power-factor trim's time constant, 1/s. */
+  invPfTrimS: Float64Array;
 
   loads: LoadSlot[];
   /** Time constants raised to two steps so the fixed-step integrator stays stable. */
@@ -175,7 +212,9 @@ export interface SimModel {
  */
 export function buildSimModel(plant: Plant, stepS: number): SimModel {
   const n = plant.sets.length;
-  const f = () => new Float64Array(n);
+  const par = new Float64Array(PAR_COLUMNS * n);
+  const views = {} as Record<ParField, Float64Array>;
+  for (const [name, k] of Object.entries(PAR_FIELDS)) views[name as ParField] = par.subarray(k * n, (k + 1) * n);
   let baseKVA = 0;
   for (const s of plant.sets) baseKVA += s.ratedKVA;
   const vr = plant.ratedVoltageV;
@@ -189,16 +228,8 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     baseKVA,
     breakPU: (plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct) / 100,
     omegaS: 2 * Math.PI * fr,
-    ratedKVA: f(), kwPU: f(), qBasePU: f(), inertiaS: f(), dampingPU: f(),
-    xdPU: f(), xd1PU: f(), xd2PU: f(), td0S: f(), td20S: f(), residualPU: f(),
-    yRe: f(), yIm: f(), zfRe: f(), zfIm: f(),
-    govMode: new Int8Array(n), isoLinked: new Uint8Array(n), droop: f(), noLoadPU: f(), setpointPU: f(),
-    basePU: f(), minPU: f(), maxPU: f(), actuatorS: f(), engineS: f(), resetS: f(), isoGainPU: f(),
-    rampT0: f(), rampT1: f(), rampFrom: f(), rampTo: f(), reverseTripPU: f(), reverseDelayS: f(), motoringPU: f(),
-    regMode: new Int8Array(n), regDroop: f(), noLoadVPU: f(), setpointVPU: f(), tanPhi: f(),
-    gainPU: f(), exciterS: f(), avrResetS: f(), pfTrimS: f(), ceilingPU: f(), shunt: new Uint8Array(n),
-    vhzKneePU: f(), vhzSlopePU: f(), oelPU: f(), oelDelayS: f(), oelResetS: f(), oelActive: new Uint8Array(n),
-    online: new Uint8Array(n), shutdown: new Uint8Array(n),
+    par,
+    ...views,
     protPickupPU: new Float64Array(4 * n), protDelayS: new Float64Array(4 * n),
     loads: [],
     raised: [],
@@ -280,6 +311,22 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.oelResetS[i] = r.oelResetS ?? SET_DEFAULTS.oelResetS;
     m.shunt[i] = r.shuntExcited ? 1 : 0;
     m.online[i] = s.online ? 1 : 0;
+
+    m.inv2H[i] = 1 / (2 * m.inertiaS[i]!);
+    m.inertiaKVA[i] = m.inertiaS[i]! * m.ratedKVA[i]!;
+    m.ownScale[i] = baseKVA / s.ratedKVA;
+    m.xdMinusXd1[i] = m.xdPU[i]! - m.xd1PU[i]!;
+    m.xd1MinusXd2[i] = m.xd1PU[i]! - m.xd2PU[i]!;
+    m.invTd0[i] = 1 / m.td0S[i]!;
+    m.invTd20[i] = 1 / m.td20S[i]!;
+    m.invDroop[i] = 1 / m.droop[i]!;
+    m.invActuatorS[i] = 1 / m.actuatorS[i]!;
+    m.invEngineS[i] = 1 / m.engineS[i]!;
+    m.invResetS[i] = 1 / m.resetS[i]!;
+    m.crossGain[i] = crossCurrentGain(m, i);
+    m.invAvrResetS[i] = 1 / m.avrResetS[i]!;
+    m.invExciterS[i] = 1 / m.exciterS[i]!;
+    m.invPfTrimS[i] = 1 / m.pfTrimS[i]!;
   });
   for (const l of plant.loads) m.loads.push(plantLoadSlot(l, baseKVA));
   return m;

@@ -109,10 +109,10 @@ class Run implements Simulation {
     const n = this.m.n;
     this.y = new Float64Array(n * STATES_PER_SET);
     this.out = createOutputs(n);
-    this.rk = createRk4(this.y.length);
+    this.rk = createRk4(this.y.length, this.stepS);
     const m = this.m;
     const out = this.out;
-    this.rhs = (t, y, dy) => evaluatePlant(m, t, y, dy, out);
+    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out);
     const deExcited = new Set(scenario.startDeExcited ?? []);
     for (const id of deExcited) {
       const i = m.ids.indexOf(id);
@@ -147,11 +147,17 @@ class Run implements Simulation {
       if (w) this.warnings.push(`${s.id}: ${w}`);
     }
     if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
-    this.rhs(0, this.y, this.rk.k1);
+    this.evaluateAt(0);
     this.initialF = this.frequencyHz();
     this.initialV = this.voltageV();
     this.lastF = this.initialF;
     this.lastV = this.initialV;
+  }
+
+  /** Evaluates the plant at time `t` and the present state: outputs into `out`, f(t, y) into `rk.k1`. */
+  private evaluateAt(t: number): void {
+    this.out.t = t;
+    evaluatePlant(this.m, this.y, this.rk.k1, this.out);
   }
 
   get timeS(): number {
@@ -163,7 +169,7 @@ class Run implements Simulation {
   }
 
   private voltageV(): number {
-    return Math.hypot(this.out.bus.re, this.out.bus.im) * this.m.ratedVoltageV;
+    return Math.sqrt(this.out.bus.re * this.out.bus.re + this.out.bus.im * this.out.bus.im) * this.m.ratedVoltageV;
   }
 
   private markDisturbance(t: number): void {
@@ -183,7 +189,7 @@ class Run implements Simulation {
     const duePending = this.pending.length > 0 && this.pending[0]!.atS <= t + half;
     if (!dueEvent && !duePending) return;
     // Fresh outputs at this exact state (bus angle for a close, present kW for a ramp).
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     if (dueEvent) this.markDisturbance(t);
     while (this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half) {
       applyEvent(this.target, this.events[this.nextEvent++]!, t);
@@ -332,36 +338,45 @@ class Run implements Simulation {
     const h = this.stepS;
     const fr = m.ratedFrequencyHz;
     const vr = m.ratedVoltageV;
+    const online = m.online;
+    const reverseTrip = m.reverseTripPU;
+    const kwPU = m.kwPU;
+    const pOwn = this.out.pOwn;
+    const vt = this.out.vt;
+    const y = this.y;
+    const reverseTimer = this.reverseTimer;
+    const protTimer = this.protTimer;
+    const pickup = m.protPickupPU;
     let operated = false;
     for (let i = 0; i < n; i++) {
-      if (!m.online[i]) {
-        this.reverseTimer[i] = 0;
-        for (let d = 0; d < 4; d++) this.protTimer[d * n + i] = 0;
+      if (!online[i]) {
+        reverseTimer[i] = 0;
+        for (let d = 0; d < 4; d++) protTimer[d * n + i] = 0;
         continue;
       }
-      const limit = m.reverseTripPU[i]! * m.kwPU[i]!;
-      if (limit > 0 && this.out.pOwn[i]! < -limit) {
-        this.reverseTimer[i] = this.reverseTimer[i]! + h;
-        if (this.reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
+      const limit = reverseTrip[i]! * kwPU[i]!;
+      if (limit > 0 && pOwn[i]! < -limit) {
+        reverseTimer[i] = reverseTimer[i]! + h;
+        if (reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
           const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
           this.trip(i, t, '32', `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`);
           operated = true;
           continue;
         }
-      } else this.reverseTimer[i] = 0;
-      const f = this.y[i * STATES_PER_SET + OMEGA]!;
-      const v = this.out.vt[i]!;
+      } else reverseTimer[i] = 0;
+      const f = y[i * STATES_PER_SET + OMEGA]!;
+      const v = vt[i]!;
       for (let d = 0; d < 4; d++) {
         const k = d * n + i;
-        const p = m.protPickupPU[k]!;
+        const p = pickup[k]!;
         const x = d < 2 ? f : v;
         const picked = p > 0 && (d % 2 === 0 ? x < p : x > p);
         if (!picked) {
-          this.protTimer[k] = 0;
+          protTimer[k] = 0;
           continue;
         }
-        this.protTimer[k] = this.protTimer[k]! + h;
-        if (this.protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
+        protTimer[k] = protTimer[k]! + h;
+        if (protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
           const dev = PROTECTION_DEVICES[d]!;
           const what = ['under-frequency', 'over-frequency', 'undervoltage', 'overvoltage'][d]!;
           const pick = d < 2 ? `${(p * fr).toFixed(2)} Hz` : `${(p * vr).toFixed(0)} V`;
@@ -412,10 +427,11 @@ class Run implements Simulation {
   private step(): void {
     const t = this.timeS;
     this.applyDue(t);
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.observe(t, false);
-    if (this.protect(t)) this.rhs(t, this.y, this.rk.k1);
-    rk4StepFromK1(this.rhs, t, this.stepS, this.y, this.rk);
+    if (this.protect(t)) this.evaluateAt(t);
+    this.out.t = t;
+    rk4StepFromK1(this.rhs, this.out, this.y, this.rk);
     this.k++;
     this.checkFinite(this.timeS);
   }
@@ -440,14 +456,14 @@ class Run implements Simulation {
 
   applyEvent(event: ScenarioEvent): void {
     const t = this.timeS;
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.markDisturbance(t);
     applyEvent(this.target, event, t);
   }
 
   snapshot(): SimulationSnapshot {
     const t = this.timeS;
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     const m = this.m;
     const out = this.out;
     const busAngle = Math.atan2(out.bus.im, out.bus.re);
@@ -485,7 +501,7 @@ class Run implements Simulation {
   result(): SimulationResult {
     const t = this.timeS;
     this.applyDue(t);
-    this.rhs(t, this.y, this.rk.k1);
+    this.evaluateAt(t);
     this.observe(t, true);
     const m = this.m;
     const out = this.out;

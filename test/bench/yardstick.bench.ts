@@ -1,0 +1,114 @@
+/**
+ * The simulator against the speed yardstick, in the same run on the same machine: 8 sets, 60 s at 1 ms.
+ *
+ * - The simulator is measured as it ships: the engine bundled by Vite (as the app's worker and the CLI are) into
+ *   `out/bench/engine.mjs`, the run timed in this process on CPU time (what the run costs one core, whatever else
+ *   shares the machine) and on wall time.
+ * - `test/bench/yardstick.mjs` (JavaScript) runs as a child process; `test/bench/yardstick.c` is compiled with `cc`
+ *   when a C compiler is on the path, else skipped with a line that says so.
+ * - `--reference "<command>"` times any other command the same way (it must print `set-steps/s=<number>` or
+ *   `set_steps_per_s=<number>`); its figure is wall time, compared with the simulator's wall time.
+ * Rounds alternate (simulator, yardsticks, reference) so a busy machine slows all alike; medians of the rounds.
+ */
+import { execFileSync, execSync } from 'node:child_process';
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { build } from 'vite';
+import type { Scenario } from '../../shared-types';
+import { benchScenario } from './simulation.bench';
+import type { BenchResult } from './harness';
+
+const SETS = 8;
+const STEPS = 60_000;
+const ROUNDS = 5;
+
+interface Rate {
+  wall: number;
+  cpu: number | null;
+}
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)]!;
+}
+
+function parseRate(text: string): Rate {
+  const cpu = /cpu_set_steps_per_s=([0-9.e+]+)/.exec(text);
+  const wall = /set[-_]steps(?:\/s|_per_s)=([0-9.e+]+)/.exec(text.replace(/cpu_set_steps_per_s=[0-9.e+]+/, ''));
+  if (!wall) throw new Error(`no set-steps/s in the output: ${text.trim().slice(0, 200)}`);
+  return { wall: Number(wall[1]), cpu: cpu ? Number(cpu[1]) : null };
+}
+
+/** Bundles the engine the way the app and the CLI are bundled, and loads it. */
+async function shippedSimulate(): Promise<(s: Scenario) => unknown> {
+  const outDir = join(process.cwd(), 'out/bench');
+  await build({
+    logLevel: 'warn',
+    configFile: false,
+    build: { ssr: 'electron/engine/index.ts', outDir, emptyOutDir: true, target: 'node20', minify: false, rolldownOptions: { output: { entryFileNames: 'engine.mjs', format: 'es' } } },
+    ssr: { noExternal: true },
+  });
+  const mod = (await import(pathToFileURL(join(outDir, 'engine.mjs')).href)) as { simulate(s: Scenario): unknown };
+  return mod.simulate;
+}
+
+function compileC(): string | null {
+  try {
+    execSync('command -v cc', { stdio: 'ignore' });
+  } catch {
+    return null;
+  }
+  mkdirSync('out/bench', { recursive: true });
+  const exe = join(process.cwd(), 'out/bench/yardstick');
+  execFileSync('cc', ['-O3', '-march=native', '-ffast-math', 'test/bench/yardstick.c', '-lm', '-o', exe]);
+  return exe;
+}
+
+function referenceArg(): string | null {
+  const i = process.argv.indexOf('--reference');
+  if (i < 0) return null;
+  const cmd = process.argv[i + 1];
+  if (!cmd) throw new Error('--reference needs a command in quotes, e.g. --reference "node my-loop.mjs 8 60000"');
+  return cmd;
+}
+
+export async function run(): Promise<BenchResult[]> {
+  const simulate = await shippedSimulate();
+  const sc = benchScenario(SETS, STEPS / 1000);
+  simulate(benchScenario(SETS, 5));
+  const cExe = compileC();
+  const reference = referenceArg();
+  const sim: Rate[] = [];
+  const js: Rate[] = [];
+  const c: Rate[] = [];
+  const ref: Rate[] = [];
+  for (let r = 0; r < ROUNDS; r++) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    simulate(sc);
+    const wall = (performance.now() - t0) / 1000;
+    const cu = process.cpuUsage(c0);
+    sim.push({ wall: (SETS * STEPS) / wall, cpu: (SETS * STEPS) / ((cu.user + cu.system) / 1e6) });
+    js.push(parseRate(execFileSync(process.execPath, ['test/bench/yardstick.mjs', String(SETS), String(STEPS)], { encoding: 'utf8' })));
+    if (cExe) c.push(parseRate(execFileSync(cExe, [String(SETS), String(STEPS)], { encoding: 'utf8' })));
+    if (reference) ref.push(parseRate(execSync(reference, { encoding: 'utf8' })));
+  }
+  const M = (xs: Rate[], k: 'wall' | 'cpu') => median(xs.map((x) => x[k] ?? Number.NaN));
+  const fmt = (v: number) => `${(v / 1e6).toFixed(2)} M`;
+  const simCpu = M(sim, 'cpu');
+  const simWall = M(sim, 'wall');
+  const out: BenchResult[] = [];
+  const row = (name: string, rate: Rate[], extra: Record<string, string>): BenchResult => ({
+    name,
+    medianMs: ((SETS * STEPS) / M(rate, 'wall')) * 1000,
+    runs: rate.length,
+    extra: { 'set-steps/s (wall)': fmt(M(rate, 'wall')), ...(rate[0]?.cpu != null ? { 'set-steps/s (CPU time)': fmt(M(rate, 'cpu')) } : {}), ...extra },
+  });
+  out.push(row(`simulate as shipped (bundled), ${SETS} sets, 60 s at 1 ms`, sim, {}));
+  out.push(row('yardstick, JavaScript (test/bench/yardstick.mjs)', js, { 'simulator ÷ yardstick (CPU time)': `${(simCpu / M(js, 'cpu')).toFixed(2)}×` }));
+  if (cExe) out.push(row('yardstick, C (test/bench/yardstick.c, cc -O3 -march=native -ffast-math)', c, { 'simulator ÷ C (CPU time)': `${(simCpu / M(c, 'cpu')).toFixed(2)}×` }));
+  else out.push({ name: 'yardstick, C: skipped (no C compiler `cc` on the path)', medianMs: Number.NaN, runs: 0 });
+  if (reference) out.push(row(`reference: ${reference}`, ref, { 'simulator ÷ reference (wall)': `${(simWall / M(ref, 'wall')).toFixed(2)}×` }));
+  return out;
+}

@@ -1,0 +1,82 @@
+/** An edit reaches the sharing table in one engine request (`checkPlant`), and a stale answer never wins. */
+import { beforeEach, describe, expect, it } from 'vitest';
+import { createPinia, setActivePinia } from 'pinia';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { useSharingStore } from '../../renderer/stores/sharing';
+import { setEngineClient } from '../../renderer/transport';
+import type { EngineClient } from '../../renderer/transport';
+import { directClient } from '../helpers/direct-client';
+
+function countingClient(): { client: EngineClient; calls: string[] } {
+  const inner = directClient();
+  const calls: string[] = [];
+  return {
+    calls,
+    client: {
+      call(method, request, options) {
+        calls.push(method);
+        return inner.call(method, request, options);
+      },
+    },
+  };
+}
+
+describe('edit → sharing table', () => {
+  let calls: string[];
+  beforeEach(() => {
+    setActivePinia(createPinia());
+    const c = countingClient();
+    calls = c.calls;
+    setEngineClient(c.client);
+  });
+
+  it('costs one request that validates and solves; the table is up to date with the edited plant', async () => {
+    const plant = usePlantStore();
+    const sharing = useSharingStore();
+    await plant.loadDemo();
+    await sharing.settled();
+    const before = sharing.result!.sets[1]!.kW;
+    calls.length = 0;
+    await plant.edit('sets[1].governor.noLoadHz', 51.4);
+    await sharing.settled();
+    const tableCalls = calls.filter((m) => m !== 'describePlant');
+    expect(tableCalls).toEqual(['checkPlant']);
+    expect(sharing.upToDate).toBe(true);
+    expect(sharing.resultPlant).toBe(plant.plant);
+    expect(plant.plant!.sets[1]!.governor.noLoadHz).toBe(51.4);
+    // A higher no-load speed on the droop line takes more of the load (the droop definition).
+    expect(sharing.result!.sets[1]!.kW).toBeGreaterThan(before);
+  });
+
+  it('solves the edit at the slider position when the slider is away from the plant load', async () => {
+    const plant = usePlantStore();
+    const sharing = useSharingStore();
+    await plant.loadDemo();
+    await sharing.setLoadPct(80);
+    await sharing.settled();
+    calls.length = 0;
+    await plant.edit('sets[0].governor.droopPct', 5);
+    await sharing.settled();
+    expect(calls.filter((m) => m !== 'describePlant')).toEqual(['checkPlant']);
+    expect(sharing.resultLoadPct).toBe(80);
+    expect(sharing.upToDate).toBe(true);
+    // 80 % of the demo plant's 2040 kW on line (the slider's definition); the sets also cover the feeder losses.
+    expect(sharing.resultLoad!.kW).toBeCloseTo(0.8 * 2040, 6);
+    expect(sharing.result!.totals.kW).toBeGreaterThan(0.8 * 2040);
+    expect(sharing.result!.totals.kW).toBeLessThan(0.8 * 2040 * 1.03);
+  });
+
+  it('a slider move answered after a newer edit does not replace the edited plant’s result', async () => {
+    const plant = usePlantStore();
+    const sharing = useSharingStore();
+    await plant.loadDemo();
+    await sharing.settled();
+    const slider = sharing.setLoadPct(60);
+    const edit = plant.edit('sets[2].governor.noLoadHz', 51.3);
+    await Promise.all([slider, edit]);
+    await sharing.settled();
+    expect(sharing.resultPlant).toBe(plant.plant);
+    expect(sharing.resultLoadPct).toBe(60);
+    expect(sharing.upToDate).toBe(true);
+  });
+});
