@@ -9,3 +9,4 @@ export * from './planner';
 export * from './sync';
 export * from './simulation';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';
+export * from './commissioning';
