@@ -256,3 +256,31 @@ export interface CommissioningRecord {
   csv: string;
   html: string;
 }
+
+/** A parameter a fit may change: unit, the bounds no fit may pass, and a default search range. */
+export interface FitParameterInfo {
+  key: FitParameterKey;
+  unit: string;
+  /** Bounds no fit may pass (physical sense, within the plant schema). */
+  lowest: number;
+  highest: number;
+  /** A default search range (typical engine sets; common practice, values from memory). */
+  defaultMin: number;
+  defaultMax: number;
+}
+
+/** Every fittable parameter, in a fixed order (the order the screens list them). */
+export const FIT_PARAMETERS: readonly FitParameterInfo[] = [
+  { key: 'governor.actuatorLagS', unit: 's', lowest: 0.005, highest: 5, defaultMin: 0.01, defaultMax: 0.5 },
+  { key: 'governor.engineLagS', unit: 's', lowest: 0.005, highest: 10, defaultMin: 0.05, defaultMax: 2 },
+  { key: 'governor.droopPct', unit: '%', lowest: 0.1, highest: 20, defaultMin: 1, defaultMax: 8 },
+  { key: 'governor.isoResetS', unit: 's', lowest: 0.05, highest: 60, defaultMin: 0.2, defaultMax: 10 },
+  { key: 'machine.inertiaS', unit: 's', lowest: 0.05, highest: 30, defaultMin: 0.3, defaultMax: 5 },
+  { key: 'machine.dampingPU', unit: 'pu', lowest: 0, highest: 50, defaultMin: 0, defaultMax: 10 },
+  { key: 'machine.tdopS', unit: 's', lowest: 0.1, highest: 20, defaultMin: 0.5, defaultMax: 8 },
+  { key: 'regulator.gainPU', unit: 'pu', lowest: 0.5, highest: 1000, defaultMin: 5, defaultMax: 200 },
+  { key: 'regulator.exciterLagS', unit: 's', lowest: 0.001, highest: 5, defaultMin: 0.01, defaultMax: 1 },
+  { key: 'regulator.ceilingPU', unit: 'pu', lowest: 0.5, highest: 20, defaultMin: 1.2, defaultMax: 6 },
+  { key: 'regulator.vhzKneeBelowHz', unit: 'Hz', lowest: 0, highest: 10, defaultMin: 0, defaultMax: 5 },
+];
+

@@ -13,6 +13,6 @@ export type * from './trainer';
 export * from './project';
 export type * from './report';
 export type * from './planner';
-export type * from './commissioning';
+export * from './commissioning';
 export * from './host-api';
 export * from './presentation';

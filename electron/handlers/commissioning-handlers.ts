@@ -3,7 +3,8 @@
  * rounds, with progress and cancel), and the commissioning record of a set.
  */
 import { z } from 'zod';
-import { buildCommissioningRecord, Cancelled, FIT_PARAMETERS, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
+import { FIT_PARAMETERS } from '../../shared-types';
+import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';

@@ -10,6 +10,7 @@ export const VIEWS = [
   { id: 'synchronizing', label: 'Synchronizing' },
   { id: 'transients', label: 'Transients' },
   { id: 'trainer', label: 'Trainer' },
+  { id: 'commissioning', label: 'Commissioning' },
   { id: 'report', label: 'Report' },
 ] as const;
 

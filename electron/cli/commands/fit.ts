@@ -4,9 +4,8 @@
  * residual, the record's own ISO 8528-5 verdict and (with --json) the fitted plant. Exit 2 on
  * a bad record, with the line and the reason.
  */
-import { EXIT_CODES, isoClassName } from '../../../shared-types';
+import { EXIT_CODES, FIT_PARAMETERS, isoClassName } from '../../../shared-types';
 import type { FitParameterChoice, FitParameterKey, FitResult, RecordColumns, RecordUnits } from '../../../shared-types';
-import { FIT_PARAMETERS } from '../../engine';
 import { dispatch } from '../../handlers';
 import { numberFlag } from '../args';
 import { callEngine } from '../call';

@@ -1,7 +1,6 @@
 /** Commissioning: test records, the fit of the model to them, the record of a set. */
 export { inspectTestRecord, parseTestRecord, MAX_RECORD_ROWS, MAX_RECORD_S } from './test-record';
-export { FIT_PARAMETERS, fitParameterInfo, parameterValue, withParameters } from './fit-parameters';
-export type { FitParameterInfo } from './fit-parameters';
+export { fitParameterInfo, parameterValue, withParameters } from './fit-parameters';
 export { recordVerdict } from './record-verdict';
 export type { VerdictInput } from './record-verdict';
 export type { FitHooks } from './fit-model';
