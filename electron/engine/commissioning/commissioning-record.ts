@@ -5,7 +5,7 @@
  * (for the screen), CSV (caution line first, `#`) and self-contained HTML (no scripts).
  */
 import type { ClassCheck, CommissioningRecord, CommissioningRecordRequest, CommissioningRow, PerformanceClass, RecordVerdict } from '../../../shared-types';
-import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, formatNumber, isoClassName, pathInWords } from '../../../shared-types';
+import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { escapeHtml } from '../report/format';
 import { fieldCeiling } from '../simulation/excitation';
@@ -119,7 +119,7 @@ export function buildCommissioningRecord(req: CommissioningRecordRequest): Commi
     add(sec, 'step at', 's', f(t.stepAtS, 2));
     rows.push(...verdictRows(req.fit.measuredVerdict, req.fit.modelVerdict, fr, vr));
     sec = 'Fitted parameters';
-    for (const q of req.fit.parameters) add(sec, pathInWords(q.key), q.unit, `${formatSig(q.value)} (was ${formatSig(q.start)})`, q.confidence);
+    for (const q of req.fit.parameters) add(sec, fitParameterLabel(q.key), q.unit, `${formatSig(q.value)} (was ${formatSig(q.start)})`, q.confidence);
     add(sec, 'RMS error frequency / voltage', '% of rated', `${f(req.fit.residual.frequencyPct, 3)} / ${f(req.fit.residual.voltagePct, 3)}`);
   }
 

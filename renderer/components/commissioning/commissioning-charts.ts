@@ -34,7 +34,7 @@ export function recordChart(record: TestRecord, quantity: 'frequency' | 'voltage
   return config([{ label: `measured ${quantity}`, data: points(record.tS, y), showLine: true, borderColor: st.color, backgroundColor: st.color, borderWidth: 1.5, pointRadius: 0 }], quantity === 'frequency' ? 'frequency, Hz' : 'voltage, V', theme);
 }
 
-/** Measured (markers), fitted model (heavy line) and the model with the start values (thin dashed). */
+/** Measured (faint dots, drawn beneath), fitted model (line on top) and the model with the start values (thin dashed). */
 export function overlayChart(fit: FitResult, quantity: 'frequency' | 'voltage', theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
   const pick = (tr: FitResult['fitted']) => (quantity === 'frequency' ? tr.frequencyHz : tr.voltageV);
   const measured = seriesStyle(0, theme);
@@ -42,9 +42,9 @@ export function overlayChart(fit: FitResult, quantity: 'frequency' | 'voltage', 
   const start = seriesStyle(2, theme);
   return config(
     [
-      { label: 'measured', data: points(fit.measured.tS, pick(fit.measured)), showLine: false, borderColor: measured.color, backgroundColor: withAlpha(measured.color, 0.5), pointRadius: 1.5, pointStyle: 'circle' },
-      { label: 'model, fitted', data: points(fit.fitted.tS, pick(fit.fitted)), showLine: true, borderColor: model.color, backgroundColor: model.color, borderWidth: 2.5, pointRadius: 0, pointStyle: 'line' },
-      { label: 'model, start values', data: points(fit.startTrace.tS, pick(fit.startTrace)), showLine: true, borderColor: withAlpha(start.color, 0.8), backgroundColor: start.color, borderDash: [5, 4], borderWidth: 1.2, pointRadius: 0, pointStyle: 'line' },
+      { label: 'measured', data: points(fit.measured.tS, pick(fit.measured)), showLine: false, borderColor: withAlpha(measured.color, 0.55), backgroundColor: withAlpha(measured.color, 0.35), pointRadius: 1.2, pointStyle: 'circle', order: 3 },
+      { label: 'model, fitted', data: points(fit.fitted.tS, pick(fit.fitted)), showLine: true, borderColor: model.color, backgroundColor: model.color, borderWidth: 2, pointRadius: 0, pointStyle: 'line', order: 1 },
+      { label: 'model, start values', data: points(fit.startTrace.tS, pick(fit.startTrace)), showLine: true, borderColor: withAlpha(start.color, 0.8), backgroundColor: start.color, borderDash: [5, 4], borderWidth: 1.2, pointRadius: 0, pointStyle: 'line', order: 2 },
     ],
     quantity === 'frequency' ? 'frequency, Hz' : 'voltage, V',
     theme,
