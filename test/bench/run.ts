@@ -12,8 +12,9 @@ import * as simulationSuite from './simulation.bench';
 import * as trainerSuite from './trainer.bench';
 import * as sharingSuite from './sharing.bench';
 import * as plannerSuite from './planner.bench';
+import * as commissioningSuite from './commissioning.bench';
 
-const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }];
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'commissioning', run: commissioningSuite.run }];
 
 const cpu = cpus()[0]?.model ?? 'unknown CPU';
 process.stdout.write(`Machine: ${cpu}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}\n\n`);

@@ -8,7 +8,7 @@ const demo = (name: string) => readFileSync(new URL(`../../renderer/demo/${name}
 const ARGS = ['--set', 'G1', '--start-kw', '250', '--start-kvar', '150', '--step-kw', '500', '--step-kvar', '300', '--step-at', '2'];
 
 describe('droopline fit', () => {
-  it('fits the example record and prints the fitted plant with the caution (--json)', async () => {
+  it('fits the example record and prints the fitted plant with the caution (--json)', { timeout: 120_000 }, async () => {
     const io = memoryIO({ 'p.json': demo('water-works.plant.json'), 'r.csv': demo('example.load-bank.csv') });
     expect(await runCli(['fit', 'p.json', 'r.csv', ...ARGS, '--params', 'inertiaS,engineLagS', '--json'], io)).toBe(0);
     const out = JSON.parse(io.stdout()) as { parameters: { key: string; value: number }[]; residual: { totalPct: number }; plant: { sets: { machine: { inertiaS: number } }[] }; caution: string };

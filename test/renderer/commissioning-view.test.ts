@@ -34,7 +34,7 @@ describe('Commissioning view', () => {
     expect(store.parsed).toBeNull();
   });
 
-  it('imports the example record, fits it, shows the verdict and applies the values as one undoable edit', async () => {
+  it('imports the example record, fits it, shows the verdict and applies the values as one undoable edit', { timeout: 120_000 }, async () => {
     const store = useCommissioningStore();
     const plant = usePlantStore();
     await w.get('[data-test="record-example"]').trigger('click');

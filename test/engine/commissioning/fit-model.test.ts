@@ -74,7 +74,7 @@ describe('fitting the model to a load-bank record', () => {
     // The measured verdict is the record's: a 500 kW step on a 1000 kW set dips the frequency.
     expect(r.measuredVerdict.frequencyNadirHz).toBeLessThan(r.measuredVerdict.initialFrequencyHz);
     expect(r.measuredVerdict.classes.length).toBe(9);
-  });
+  }, 120_000);
 
   it('gives the same answer whatever the order of the parameters', () => {
     const a = fitTestRecord({ plant: basePlant(), record, test: TEST, params: choices(KEYS), maxIterations: 40 });
@@ -83,5 +83,5 @@ describe('fitting the model to a load-bank record', () => {
       const other = b.parameters.find((x) => x.key === q.key)!;
       expect(Math.abs(other.value - q.value) / q.value, q.key).toBeLessThan(1e-3);
     }
-  });
+  }, 120_000);
 });
