@@ -106,11 +106,50 @@ const syncLimits = z
   .object({ slipHz: num('Hz').gte(0, 'must be 0 or more'), angleDeg: num('°').gte(0, 'must be 0 or more'), voltagePct: num('%').gte(0, 'must be 0 or more'), incomingFaster: z.boolean().optional(), incomingHigher: z.boolean().optional() })
   .strip();
 
+const finite = () => z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
+const nullableNumber = () => z.union([finite(), z.null()], { error: 'must be a number or null' });
+const classRow = z
+  .object({
+    quantity: text(),
+    unit: text(),
+    measured: nullableNumber(),
+    limits: z.object({ G1: finite(), G2: finite(), G3: finite() }),
+    pass: z.object({ G1: z.boolean().nullable(), G2: z.boolean().nullable(), G3: z.boolean().nullable() }),
+  })
+  .loose();
+const verdictSchema = z
+  .object({
+    initialFrequencyHz: finite(),
+    initialVoltageV: finite(),
+    frequencyNadirHz: finite(),
+    frequencyPeakHz: finite(),
+    voltageMinV: finite(),
+    voltageMaxV: finite(),
+    settledFrequencyHz: finite(),
+    settledVoltageV: finite(),
+    frequencyRecoveryS: nullableNumber(),
+    voltageRecoveryS: nullableNumber(),
+    classes: z.array(classRow).max(20, 'must have at most 20 rows'),
+  })
+  .loose();
+/** The parts of a fit result the commissioning record prints (a result of `fitTestRecord`, passed back). */
+const fitResultSchema = z
+  .object({
+    setId: text(),
+    parameters: z
+      .array(z.object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: finite(), value: finite(), confidence: text() }).loose())
+      .max(KEYS.length, `at most ${KEYS.length} parameters`),
+    residual: z.object({ frequencyPct: finite(), voltagePct: finite(), totalPct: finite() }).loose(),
+    measuredVerdict: verdictSchema,
+    modelVerdict: verdictSchema,
+  })
+  .loose() as unknown as z.ZodType<FitResult>;
+
 export const commissioningRecordSchema: z.ZodType<CommissioningRecordRequest> = z
   .object({
     plant: plantSchema,
     setId: text().min(1, 'must not be empty'),
-    fit: z.custom<FitResult>((v) => v !== null && typeof v === 'object', 'must be a fit result').optional(),
+    fit: fitResultSchema.optional(),
     test: testSchema.optional(),
     syncCheck: z.object({ limits: syncLimits, breakerClosingMs: num('ms').gte(0, 'must be 0 or more') }).strict().optional(),
     signOff: z.object({ by: text().max(200, 'must be 200 characters or fewer'), date: text().max(100, 'must be 100 characters or fewer'), remarks: text().max(5000, 'must be 5000 characters or fewer') }).strict(),

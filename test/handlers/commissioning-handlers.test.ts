@@ -53,3 +53,36 @@ describe('commissioning handlers', () => {
     expect(await messageOf('buildCommissioningRecord', { plant: demoPlantJson(), setId: 'G7', signOff: { by: '', date: '', remarks: '' }, date: '' })).toContain('setId: there is no set "G7"');
   });
 });
+
+describe('commissioning record with a fit', () => {
+  it('refuses a fit result that lacks what the record prints, naming the field', async () => {
+    const r = await dispatch('buildCommissioningRecord', {
+      plant: demoPlantJson(),
+      setId: 'G1',
+      fit: { setId: 'G1', parameters: [{ key: 'machine.inertiaS' }] },
+      signOff: { by: '', date: '', remarks: '' },
+      date: '2026-12-02',
+    });
+    expect(r.ok).toBe(false);
+    const issues = r.ok ? [] : (r.error.issues ?? []).map((i) => i.path);
+    expect(issues).toContain('fit.parameters[0].value');
+    expect(issues).toContain('fit.measuredVerdict');
+  });
+});
+
+describe('a fit passed back into the commissioning record', () => {
+  it('is accepted, and its measured figures stand beside the model\'s', { timeout: 120_000 }, async () => {
+    const { readFileSync } = await import('node:fs');
+    const text = readFileSync('renderer/demo/example.load-bank.csv', 'utf8');
+    const parsed = await dispatch('parseTestRecord', { text, columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' }, units: { time: 's', frequency: 'Hz', voltage: 'V' }, ratedFrequencyHz: 50, ratedVoltageV: 400 });
+    if (!parsed.ok) throw new Error(parsed.error.message);
+    const t = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2 };
+    const fit = await dispatch('fitTestRecord', { plant: demoPlantJson(), record: parsed.value.record, test: t, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }], maxIterations: 2 });
+    if (!fit.ok) throw new Error(fit.error.message);
+    const r = await dispatch('buildCommissioningRecord', { plant: demoPlantJson(), setId: 'G1', fit: JSON.parse(JSON.stringify(fit.value)) as unknown, test: t, signOff: { by: 'x', date: 'y', remarks: '' }, date: '2026-12-02' });
+    if (!r.ok) throw new Error(r.error.message + JSON.stringify(r.error.issues));
+    const nadir = r.value.rows.find((x) => x.item === 'frequency nadir')!;
+    expect(Number(nadir.measured)).toBeCloseTo(fit.value.measuredVerdict.frequencyNadirHz, 3);
+    expect(r.value.rows.some((x) => x.section === 'Fitted parameters' && x.item === 'inertia constant H')).toBe(true);
+  });
+});
