@@ -119,7 +119,7 @@ export function buildCommissioningRecord(req: CommissioningRecordRequest): Commi
     add(sec, 'step at', 's', f(t.stepAtS, 2));
     rows.push(...verdictRows(req.fit.measuredVerdict, req.fit.modelVerdict, fr, vr));
     sec = 'Fitted parameters';
-    for (const q of req.fit.parameters) add(sec, fitParameterLabel(q.key), q.unit, `${formatSig(q.value)} (was ${formatSig(q.start)})`, q.confidence);
+    for (const q of req.fit.parameters) add(sec, fitParameterLabel(q.key), q.unit, `${formatSig(q.value)} (was ${formatSig(q.start)})`, `fit: ${q.confidence}`);
     add(sec, 'RMS error frequency / voltage', '% of rated', `${f(req.fit.residual.frequencyPct, 3)} / ${f(req.fit.residual.voltagePct, 3)}`);
   }
 
