@@ -11,6 +11,7 @@ import type { ProgressEvent } from './progress';
 import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject, Project } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
+import type { CommissioningRecord, CommissioningRecordRequest, FitRequest, FitResult, InspectRecordRequest, ParseRecordRequest, ParsedTestRecord, RecordInspection } from './commissioning';
 import type { PlanRequest, PlanResult, SensitivityRequest, SensitivityResult, ToleranceRequest, ToleranceResult } from './planner';
 
 /** A method's request and response types. */
@@ -62,6 +63,14 @@ export interface EngineApi {
   sharingSensitivity: Method<SensitivityRequest, SensitivityResult>;
   /** Seeded Monte-Carlo of setpoint and droop tolerances (long; progress). */
   toleranceAnalysis: Method<ToleranceRequest, ToleranceResult>;
+  /** The header of a load-bank test record, a preview and a guess at its columns and units. */
+  inspectTestRecord: Method<InspectRecordRequest, RecordInspection>;
+  /** A test record read with the chosen columns and units (a malformed file refused with the line). */
+  parseTestRecord: Method<ParseRecordRequest, ParsedTestRecord>;
+  /** Least-squares fit of chosen set parameters to a test record on the simulator's response (long; progress). */
+  fitTestRecord: Method<FitRequest, FitResult>;
+  /** The commissioning record of a set: settings, measured beside model, sign-off (rows, CSV, HTML). */
+  buildCommissioningRecord: Method<CommissioningRecordRequest, CommissioningRecord>;
 }
 
 /** A method name, which is also its channel name. */
@@ -90,6 +99,10 @@ export const ENGINE_METHODS = [
   'planDroop',
   'sharingSensitivity',
   'toleranceAnalysis',
+  'inspectTestRecord',
+  'parseTestRecord',
+  'fitTestRecord',
+  'buildCommissioningRecord',
 ] as const satisfies readonly EngineMethod[];
 
 /** Events the host pushes to the renderer; keys are channel names. */

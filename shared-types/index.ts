@@ -13,6 +13,7 @@ export type * from './trainer';
 export * from './project';
 export type * from './report';
 export type * from './planner';
+export * from './commissioning';
 export * from './host-api';
 export * from './presentation';
 export * from './load-slider';

@@ -10,3 +10,4 @@ export * from './planner';
 export * from './sync';
 export * from './simulation';
 export { EngineError, NoSteadyState, Diverged, Cancelled, InvalidInput } from './errors';
+export * from './commissioning';

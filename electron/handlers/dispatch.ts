@@ -14,6 +14,7 @@ import { trainerHandlers } from './trainer-handlers';
 import { projectHandlers } from './project-handlers';
 import { reportHandlers } from './report-handlers';
 import { plannerHandlers } from './planner-handlers';
+import { commissioningHandlers } from './commissioning-handlers';
 import { parseOrThrow, ValidationError } from './validate';
 
 /** Every contract method mapped to its schema and engine call. */
@@ -26,6 +27,7 @@ export const handlers: HandlerTable = {
   ...projectHandlers,
   ...reportHandlers,
   ...plannerHandlers,
+  ...commissioningHandlers,
 };
 
 /** The outcome of a call, as it crosses a process or worker boundary. */

@@ -2,14 +2,18 @@
 import { defineStore } from 'pinia';
 import { ref, watch } from 'vue';
 
-/** The app's views, in navigation order. */
+/**
+ * The app's views, in navigation order. Labels are short so eight fit on one line of the top bar
+ * at 1360 px ("Sync" is the Synchronizing view; `title` gives the full name).
+ */
 export const VIEWS = [
   { id: 'plant', label: 'Plant' },
   { id: 'sharing', label: 'Sharing' },
   { id: 'planner', label: 'Planner' },
-  { id: 'synchronizing', label: 'Synchronizing' },
+  { id: 'synchronizing', label: 'Sync', title: 'Synchronizing' },
   { id: 'transients', label: 'Transients' },
   { id: 'trainer', label: 'Trainer' },
+  { id: 'commissioning', label: 'Commissioning' },
   { id: 'report', label: 'Report' },
 ] as const;
 

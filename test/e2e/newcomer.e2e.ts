@@ -4,7 +4,7 @@ import { describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openPage, useBrowser } from './chromium';
 
-const VIEWS = ['plant', 'sharing', 'synchronizing', 'transients', 'trainer', 'report'] as const;
+const VIEWS = ['plant', 'sharing', 'synchronizing', 'transients', 'trainer', 'commissioning', 'report'] as const;
 
 /** The project's save state in words ("not saved to a file", "unsaved changes", "saved") and whether it is marked dirty. */
 async function projectState(page: Page): Promise<{ text: string; dirty: boolean }> {

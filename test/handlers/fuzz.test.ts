@@ -14,7 +14,7 @@ import { demoPlantJson } from '../helpers/plants';
 import { rawProject } from '../helpers/projects';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 120);
-const SLOW = new Set<EngineMethod>(['simulate', 'closingMap', 'buildReport', 'toleranceAnalysis', 'trainerClose', 'planDroop']);
+const SLOW = new Set<EngineMethod>(['simulate', 'closingMap', 'buildReport', 'toleranceAnalysis', 'trainerClose', 'planDroop', 'fitTestRecord']);
 const runsFor = (m: EngineMethod) => (SLOW.has(m) ? Math.max(5, Math.round(RUNS / 10)) : RUNS);
 
 type Json = unknown;
@@ -59,6 +59,7 @@ function shrinkWork(method: EngineMethod, p: Record<string, unknown>): void {
     if (p.method === 'time-domain') p.method = 'closed-form';
   }
   if (method === 'toleranceAnalysis') cap('samples', 20);
+  if (method === 'fitTestRecord') cap('maxIterations', 1);
   if (method === 'sweepLoad') cap('steps', 12);
 }
 
@@ -99,7 +100,18 @@ beforeAll(async () => {
   const closed = await dispatch('trainerStep', { state: cmd.value, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 });
   if (!closed.ok) throw new Error(closed.error.message);
   const syncCase = { plant, incomingSetId: 'G3', incoming: { frequencyHz: 50.1, voltageV: 405, angleDeg: -8 }, bus: { frequencyHz: 50, voltageV: 400 }, breakerClosingMs: 80, limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 } };
+  // A short load-bank record (0.6 s at 20 ms) for the commissioning methods.
+  const recordText = ['time_s,frequency_Hz,voltage_V', ...Array.from({ length: 31 }, (_, k) => `${(k * 0.02).toFixed(2)},${k < 10 ? 50 : 49.8 + 0.005 * (k - 10)},${k < 10 ? 400 : 392 + 0.3 * (k - 10)}`)].join('\n');
+  const recordRequest = { text: recordText, columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' }, units: { time: 's', frequency: 'Hz', voltage: 'V' }, ratedFrequencyHz: 50, ratedVoltageV: 400 };
+  const parsed = await dispatch('parseTestRecord', recordRequest);
+  if (!parsed.ok) throw new Error(parsed.error.message);
+  const loadBankTest = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 300, stepKVAR: 200, stepAtS: 0.2 };
   Object.assign(seeds, {
+    checkPlant: { plant, loadPct: 60 },
+    inspectTestRecord: { text: recordText },
+    parseTestRecord: recordRequest,
+    fitTestRecord: { plant, record: parsed.value.record, test: loadBankTest, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }], maxIterations: 1 },
+    buildCommissioningRecord: { plant, setId: 'G2', syncCheck: { limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 }, breakerClosingMs: 80 }, signOff: { by: 'A. Fitter', date: '2026-12-02', remarks: '' }, date: '2026-12-02' },
     describePlant: { plant },
     validatePlant: { plant },
     solveSharing: { plant, load: { kW: 900, kVAR: 500 }, atMost: false },
@@ -157,7 +169,9 @@ describe('fuzz: every contract method', () => {
         if (e.code === 'INVALID_INPUT') {
           // A project text that is not a project at all (not JSON, another format) is refused as a whole file.
           const wholeFile = method === 'parseProject' && /file|line \d+/i.test(e.message);
-          const named = e.issues ? e.issues.length > 0 && e.issues.every((i) => i.path.length > 0) : FIELD_PATH.test(e.message) || wholeFile;
+          // A test record's text is refused by the line it breaks on (the CLI adds the file's name).
+          const recordLine = (method === 'inspectTestRecord' || method === 'parseTestRecord' || method === 'fitTestRecord') && /^line \d+: /.test(e.message);
+          const named = e.issues ? e.issues.length > 0 && e.issues.every((i) => i.path.length > 0) : FIELD_PATH.test(e.message) || wholeFile || recordLine;
           if (!named) throw new Error(`refusal names no field: ${e.message}`);
         }
       }),

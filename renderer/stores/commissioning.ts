@@ -1,0 +1,367 @@
+/**
+ * The Commissioning view's store: the test record (text, column and unit choice, the parsed
+ * record), the test description, the parameters to fit with their bounds, the fit (progress,
+ * cancel), applying the fitted values to the plant as one undoable edit, and the
+ * commissioning record (sign-off, CSV and HTML).
+ */
+import { defineStore } from 'pinia';
+import { computed, ref, shallowRef } from 'vue';
+import { FIT_PARAMETERS } from '../../shared-types';
+import type {
+  CommissioningRecord,
+  FitParameterKey,
+  FitResult,
+  ParsedTestRecord,
+  RecordColumns,
+  RecordInspection,
+  RecordUnits,
+  SignOff,
+  TestDescription,
+} from '../../shared-types';
+import exampleRecord from '../demo/example.load-bank.csv?raw';
+import { EngineCallError, engine, messageOf } from '../transport';
+import type { PlantDraft } from './plant-draft';
+import { usePlantStore } from './plant';
+import { useSyncStore } from './sync';
+
+export type RunState = 'idle' | 'running' | 'done' | 'error' | 'cancelled';
+
+/** One row of the parameter choice. */
+export interface ParamChoice {
+  key: FitParameterKey;
+  unit: string;
+  chosen: boolean;
+  min: number;
+  max: number;
+}
+
+/** The example record's test (it says so in its own comment lines). */
+export const EXAMPLE_TEST: TestDescription = {
+  setId: 'G1',
+  onlineSetIds: ['G1'],
+  startKW: 250,
+  startKVAR: 150,
+  stepKW: 500,
+  stepKVAR: 300,
+  stepAtS: 2,
+  measuredAt: 'set',
+};
+
+/** Parameters chosen at first: the ones a load step shows best. */
+const FIRST_CHOICE: FitParameterKey[] = ['machine.inertiaS', 'governor.engineLagS', 'regulator.gainPU', 'regulator.exciterLagS'];
+
+/**
+ * A guess at the test from a record with a kW column: the step is where kW jumps most between
+ * samples; the load before and after are the means of kW (and kVAR) on either side.
+ */
+export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
+  const r = p.record;
+  if (!r.kW || r.kW.length < 3) return {};
+  let k = 1;
+  let jump = 0;
+  for (let i = 1; i < r.kW.length; i++) {
+    const d = Math.abs(r.kW[i]! - r.kW[i - 1]!);
+    if (d > jump) {
+      jump = d;
+      k = i;
+    }
+  }
+  const mean = (x: number[], a: number, b: number) => x.slice(a, b).reduce((s, v) => s + v, 0) / Math.max(1, b - a);
+  const n = r.kW.length;
+  const startKW = mean(r.kW, 0, k);
+  const guess: Partial<TestDescription> = { stepAtS: r.tS[k]!, startKW: Math.round(startKW), stepKW: Math.round(mean(r.kW, k, n) - startKW) };
+  if (r.kVAR) {
+    const q0 = mean(r.kVAR, 0, k);
+    guess.startKVAR = Math.round(q0);
+    guess.stepKVAR = Math.round(mean(r.kVAR, k, n) - q0);
+  }
+  return guess;
+}
+
+export const useCommissioningStore = defineStore('commissioning', () => {
+  const plantStore = usePlantStore();
+
+  // The record.
+  const fileName = ref<string | null>(null);
+  const text = ref<string | null>(null);
+  const inspection = shallowRef<RecordInspection | null>(null);
+  const columns = ref<Partial<RecordColumns>>({});
+  const units = ref<RecordUnits>({ time: 's', frequency: 'Hz', voltage: 'V' });
+  /** The record as the dialog reads it now (preview), and the one in use. */
+  const preview = shallowRef<ParsedTestRecord | null>(null);
+  const parsed = shallowRef<ParsedTestRecord | null>(null);
+  const importError = ref<string | null>(null);
+  const dialogOpen = ref(false);
+
+  // The test.
+  const test = ref<TestDescription>({ setId: '', onlineSetIds: [], startKW: 0, startKVAR: 0, stepKW: 0, stepKVAR: 0, stepAtS: 0, measuredAt: 'set' });
+
+  // The parameters.
+  const params = ref<ParamChoice[]>(FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax })));
+  const maxIterations = ref(30);
+
+  // The fit.
+  const fitState = ref<RunState>('idle');
+  const fitProgress = ref(0);
+  const fit = shallowRef<FitResult | null>(null);
+  const fitTest = shallowRef<TestDescription | null>(null);
+  const fitError = ref<string | null>(null);
+  const applied = ref(false);
+  let abort: AbortController | null = null;
+  /** The test a record comes with (the example's), used instead of a guess when it is accepted. */
+  let knownTest: TestDescription | null = null;
+
+  // The commissioning record.
+  const signOff = ref<SignOff>({ by: '', date: '', remarks: '' });
+  const recordSetId = ref('');
+  const record = shallowRef<CommissioningRecord | null>(null);
+  const recordError = ref<string | null>(null);
+
+  const setIds = computed(() => plantStore.plant?.sets.map((s) => s.id) ?? []);
+
+  /** Sentences naming what stops a fit (empty when it may run). */
+  const fitProblems = computed(() => {
+    const out: string[] = [];
+    const plant = plantStore.plant;
+    if (!parsed.value) out.push('Import a test record first.');
+    if (!plant) out.push('The plant has a refused field; correct it in the Plant view.');
+    const t = test.value;
+    if (plant && !plant.sets.some((s) => s.id === t.setId)) out.push('Test: choose the set the record is of.');
+    if (!t.onlineSetIds.includes(t.setId)) out.push('Test: the set the record is of must be among the sets on line.');
+    for (const [name, v] of [
+      ['load before the step, kW', t.startKW],
+      ['load before the step, kVAR', t.startKVAR],
+      ['load step, kW', t.stepKW],
+      ['load step, kVAR', t.stepKVAR],
+      ['step time', t.stepAtS],
+    ] as const)
+      if (!Number.isFinite(v)) out.push(`Test: ${name} must be a number.`);
+    if (t.startKW < 0) out.push('Test: load before the step, kW, must be 0 or more.');
+    const rec = parsed.value?.record;
+    if (rec && !(t.stepAtS >= rec.tS[0]! && t.stepAtS < rec.tS[rec.tS.length - 1]!)) out.push(`Test: the step time must lie inside the record (${rec.tS[0]} s to ${rec.tS[rec.tS.length - 1]} s).`);
+    const chosen = params.value.filter((p) => p.chosen);
+    if (chosen.length === 0) out.push('Parameters: choose at least one to fit.');
+    for (const p of chosen) {
+      const info = FIT_PARAMETERS.find((x) => x.key === p.key)!;
+      if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${p.key} must be numbers.`);
+      else if (!(p.max > p.min)) out.push(`Parameters: the highest value of ${p.key} must be above its lowest.`);
+      else if (p.min < info.lowest || p.max > info.highest) out.push(`Parameters: the bounds of ${p.key} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
+    }
+    if (!(Number.isInteger(maxIterations.value) && maxIterations.value >= 1 && maxIterations.value <= 200)) out.push('Iteration cap: a whole number from 1 to 200.');
+    return out;
+  });
+
+  /** Opens the import dialog on a file's text: header, guessed columns and units, preview. */
+  async function openText(name: string, content: string, withTest: TestDescription | null = null): Promise<void> {
+    knownTest = withTest;
+    fileName.value = name;
+    text.value = content;
+    importError.value = null;
+    preview.value = null;
+    inspection.value = null;
+    dialogOpen.value = true;
+    try {
+      const i = await engine().call('inspectTestRecord', { text: content });
+      inspection.value = i;
+      columns.value = { ...i.guess.columns };
+      units.value = { ...i.guess.units };
+      await reread();
+    } catch (e) {
+      importError.value = messageOf(e);
+    }
+  }
+
+  /** Reads the record again with the dialog's columns and units (the preview). */
+  async function reread(): Promise<void> {
+    const plant = plantStore.plant;
+    if (text.value === null) return;
+    const c = columns.value;
+    if (c.time === undefined || c.frequency === undefined || c.voltage === undefined) {
+      preview.value = null;
+      importError.value = 'Choose the time, frequency and voltage columns.';
+      return;
+    }
+    const u: RecordUnits = { time: units.value.time, frequency: units.value.frequency, voltage: units.value.voltage };
+    if (c.kW !== undefined) u.kW = units.value.kW ?? 'kW';
+    if (c.kVAR !== undefined) u.kVAR = units.value.kVAR ?? 'kVAR';
+    if (c.current !== undefined) u.current = units.value.current ?? 'A';
+    try {
+      preview.value = await engine().call('parseTestRecord', {
+        text: text.value,
+        columns: c as RecordColumns,
+        units: u,
+        ratedFrequencyHz: plant?.ratedFrequencyHz ?? 50,
+        ratedVoltageV: plant?.ratedVoltageV ?? 400,
+      });
+      importError.value = null;
+    } catch (e) {
+      preview.value = null;
+      importError.value = messageOf(e);
+    }
+  }
+
+  function setColumn(field: keyof RecordColumns, value: string): Promise<void> {
+    const next = { ...columns.value };
+    if (value === '') delete next[field];
+    else next[field] = value;
+    columns.value = next;
+    return reread();
+  }
+
+  function setUnit<K extends keyof RecordUnits>(field: K, value: RecordUnits[K]): Promise<void> {
+    units.value = { ...units.value, [field]: value };
+    return reread();
+  }
+
+  /** Takes the previewed record into use; the test is guessed from its kW column where it has one. */
+  function acceptImport(): void {
+    if (!preview.value) return;
+    parsed.value = preview.value;
+    dialogOpen.value = false;
+    fit.value = null;
+    fitState.value = 'idle';
+    applied.value = false;
+    const first = setIds.value[0] ?? '';
+    const setId = setIds.value.includes(test.value.setId) ? test.value.setId : first;
+    if (knownTest) test.value = { ...knownTest, onlineSetIds: [...knownTest.onlineSetIds] };
+    else test.value = { ...test.value, setId, onlineSetIds: test.value.onlineSetIds.includes(setId) ? test.value.onlineSetIds : [setId], ...guessTest(preview.value) };
+  }
+
+  function cancelImport(): void {
+    dialogOpen.value = false;
+  }
+
+  /** The example record shipped with the demo (invented data) and its test. */
+  async function openExample(): Promise<void> {
+    await openText('example.load-bank.csv', exampleRecord, EXAMPLE_TEST);
+  }
+
+  async function runFit(): Promise<void> {
+    const plant = plantStore.plant;
+    const rec = parsed.value;
+    if (fitProblems.value.length || !plant || !rec) {
+      fitState.value = 'error';
+      fitError.value = fitProblems.value.join(' ');
+      return;
+    }
+    abort?.abort();
+    abort = new AbortController();
+    const t = { ...test.value, onlineSetIds: [...test.value.onlineSetIds] };
+    fitState.value = 'running';
+    fitProgress.value = 0;
+    fitError.value = null;
+    applied.value = false;
+    try {
+      const r = await engine().call(
+        'fitTestRecord',
+        {
+          plant,
+          record: rec.record,
+          test: t,
+          params: params.value.filter((p) => p.chosen).map((p) => ({ key: p.key, min: p.min, max: p.max })),
+          maxIterations: maxIterations.value,
+        },
+        { signal: abort.signal, onProgress: (f) => (fitProgress.value = f) },
+      );
+      fit.value = r;
+      fitTest.value = t;
+      fitState.value = 'done';
+      recordSetId.value = r.setId;
+    } catch (e) {
+      if (e instanceof EngineCallError && e.code === 'CANCELLED') fitState.value = 'cancelled';
+      else {
+        fitState.value = 'error';
+        fitError.value = messageOf(e);
+      }
+    } finally {
+      abort = null;
+    }
+  }
+
+  function cancelFit(): void {
+    abort?.abort();
+  }
+
+  /** Writes the fitted values into the set: one undoable edit of the plant. */
+  async function applyFit(): Promise<void> {
+    const r = fit.value;
+    if (!r) return;
+    await plantStore.change((d: PlantDraft) => ({
+      ...d,
+      sets: d.sets.map((s) => {
+        if (s.id !== r.setId) return s;
+        const next = { ...s, governor: { ...s.governor }, regulator: { ...s.regulator }, machine: { ...s.machine } } as typeof s;
+        for (const q of r.parameters) {
+          const [part, field] = q.key.split('.') as ['governor' | 'regulator' | 'machine', string];
+          (next[part] as unknown as Record<string, number>)[field] = Number(q.value.toPrecision(6));
+        }
+        return next;
+      }),
+    }));
+    applied.value = true;
+  }
+
+  /** The commissioning record of the chosen set (with the fit when it is of that set). */
+  async function buildRecord(date: string): Promise<void> {
+    const plant = plantStore.plant;
+    if (!plant) {
+      recordError.value = 'The plant has a refused field; correct it in the Plant view.';
+      return;
+    }
+    const setId = recordSetId.value || plant.sets[0]?.id || '';
+    const sync = useSyncStore().snapshot();
+    const withFit = fit.value && fit.value.setId === setId && fitTest.value;
+    try {
+      record.value = await engine().call('buildCommissioningRecord', {
+        plant,
+        setId,
+        ...(withFit ? { fit: fit.value!, test: fitTest.value! } : {}),
+        ...(sync ? { syncCheck: { limits: { slipHz: sync.limits.slipHz, angleDeg: sync.limits.angleDeg, voltagePct: sync.limits.voltagePct }, breakerClosingMs: sync.breakerClosingMs } } : {}),
+        signOff: { ...signOff.value },
+        date,
+      });
+      recordError.value = null;
+    } catch (e) {
+      record.value = null;
+      recordError.value = messageOf(e);
+    }
+  }
+
+  return {
+    fileName,
+    text,
+    inspection,
+    columns,
+    units,
+    preview,
+    parsed,
+    importError,
+    dialogOpen,
+    test,
+    params,
+    maxIterations,
+    fitState,
+    fitProgress,
+    fit,
+    fitTest,
+    fitError,
+    applied,
+    signOff,
+    recordSetId,
+    record,
+    recordError,
+    setIds,
+    fitProblems,
+    openText,
+    reread,
+    setColumn,
+    setUnit,
+    acceptImport,
+    cancelImport,
+    openExample,
+    runFit,
+    cancelFit,
+    applyFit,
+    buildRecord,
+  };
+});

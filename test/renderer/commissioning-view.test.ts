@@ -1,0 +1,84 @@
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { mount, flushPromises } from '@vue/test-utils';
+import type { VueWrapper } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import CommissioningView from '../../renderer/views/CommissioningView.vue';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { guessTest, useCommissioningStore } from '../../renderer/stores/commissioning';
+import { setEngineClient } from '../../renderer/transport';
+import { directClient } from '../helpers/direct-client';
+
+async function settle(): Promise<void> {
+  await flushPromises();
+  await usePlantStore().settled();
+  await flushPromises();
+}
+
+describe('Commissioning view', () => {
+  let w: VueWrapper;
+  beforeEach(async () => {
+    setActivePinia(createPinia());
+    setEngineClient(directClient());
+    await usePlantStore().loadDemo();
+    w = mount(CommissioningView, { attachTo: document.body });
+    await settle();
+  });
+  afterEach(() => w.unmount());
+
+  it('refuses a malformed file in the dialog with the line, and imports nothing', async () => {
+    const store = useCommissioningStore();
+    await store.openText('bad.csv', 'time_s,frequency_Hz,voltage_V\n0,50,400\n0.1,abc,400\n');
+    await settle();
+    expect(w.get('[data-test="import-error"]').text()).toContain('line 3: frequency ("frequency_Hz"): "abc" is not a number');
+    expect(w.get('[data-test="import-accept"]').attributes('disabled')).toBeDefined();
+    expect(store.parsed).toBeNull();
+  });
+
+  it('imports the example record, fits it, shows the verdict and applies the values as one undoable edit', { timeout: 120_000 }, async () => {
+    const store = useCommissioningStore();
+    const plant = usePlantStore();
+    await w.get('[data-test="record-example"]').trigger('click');
+    await settle();
+    expect(w.get('[data-test="import-ok"]').text()).toContain('401 samples over 8 s');
+    await w.get('[data-test="import-accept"]').trigger('click');
+    await settle();
+    expect(store.test).toMatchObject({ setId: 'G1', startKW: 250, stepKW: 500, stepAtS: 2 });
+    // Two parameters keep the component test quick; the engine tests fit four.
+    for (const p of store.params) p.chosen = p.key === 'machine.inertiaS' || p.key === 'governor.engineLagS';
+    await settle();
+    await w.get('form').trigger('submit');
+    await settle();
+    expect(store.fitState).toBe('done');
+    expect(w.get('[data-test="fit-values"]').text()).toContain('inertia constant H');
+    expect(w.get('[data-test="measured-verdict"]').text()).toContain('class G2');
+    expect(w.text()).not.toContain('NaN');
+    const before = plant.plant!.sets[0]!.machine.inertiaS;
+    const fitted = store.fit!.parameters.find((p) => p.key === 'machine.inertiaS')!.value;
+    await w.get('[data-test="fit-apply"]').trigger('click');
+    await settle();
+    expect(plant.plant!.sets[0]!.machine.inertiaS).toBeCloseTo(fitted, 4);
+    expect(plant.plant!.sets[0]!.governor.engineLagS).not.toBe(0.3);
+    await plant.undo();
+    await settle();
+    expect(plant.plant!.sets[0]!.machine.inertiaS).toBe(before);
+    expect(plant.plant!.sets[0]!.governor.engineLagS).toBe(0.3);
+  });
+
+  it('makes the commissioning record with the sign-off and the caution', async () => {
+    const store = useCommissioningStore();
+    store.recordSetId = 'G3';
+    store.signOff = { by: 'R. Tester', date: '2026-12-02', remarks: 'witnessed' };
+    await w.get('[data-test="record-build"]').trigger('submit');
+    await settle();
+    const text = w.get('[data-test="record"]').text();
+    expect(text).toContain('Caution');
+    expect(text).toContain('R. Tester');
+    expect(text).toContain('51.10'); // G3's no-load frequency in the demo plant
+    expect(store.record!.csv.startsWith('# Caution:')).toBe(true);
+  });
+
+  it('guesses the step from the kW column', () => {
+    const g = guessTest({ record: { tS: [0, 1, 2, 3], frequencyHz: [50, 50, 50, 50], voltageV: [400, 400, 400, 400], kW: [100, 100, 400, 400], kVAR: [50, 50, 250, 250] }, rows: 4, skippedLines: 0, notes: [] });
+    expect(g).toEqual({ stepAtS: 2, startKW: 100, stepKW: 300, startKVAR: 50, stepKVAR: 200 });
+  });
+});
