@@ -13,10 +13,14 @@ import { computed, ref, shallowRef } from 'vue';
 import { angleAfterDeg } from '../../shared-types';
 import type { SyncLimits, TrainerAttempt, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
 import { engine, messageOf } from '../transport';
+import type { PlaneSample } from '../components/sync/window-plane';
 import { usePlantStore } from './plant';
 
 /** Longest wall time one step may cover, s (the engine refuses more than 0.25 s). */
 const MAX_STEP_S = 0.2;
+/** The trainee's path on the window plane: a sample every this many seconds of exercise time, at most `PATH_MAX` kept. */
+const PATH_EVERY_S = 0.05;
+const PATH_MAX = 4000;
 
 
 /** Keyboard bindings: key → control (shown on the buttons too). */
@@ -42,6 +46,8 @@ export const useTrainerStore = defineStore('trainer', () => {
   /** Wall time (ms) of the last step's state. */
   const stateAtMs = ref(0);
   const verdict = shallowRef<TrainerVerdict | null>(null);
+  /** The trainee's path in angle and slip since the exercise started (exercise time), up to the contact. */
+  const path = shallowRef<PlaneSample[]>([]);
   const attempts = ref<TrainerAttempt[]>([]);
   const error = ref<string | null>(null);
   /** Controls held now (keys or buttons). */
@@ -99,6 +105,7 @@ export const useTrainerStore = defineStore('trainer', () => {
       });
       if (g !== generation) return;
       state.value = s;
+      path.value = [{ tS: s.tS, angleDeg: s.angleDeg, slipHz: s.incomingFrequencyHz - s.busFrequencyHz }];
       error.value = null;
     } catch (e) {
       error.value = messageOf(e);
@@ -167,10 +174,23 @@ export const useTrainerStore = defineStore('trainer', () => {
       if (g !== generation) return;
       state.value = next;
       stateAtMs.value = nowMs;
+      record(next);
       if (next.phase === 'closed') await judge(next);
     } catch (e) {
       error.value = messageOf(e);
     }
+  }
+
+  /** Adds the state to the path (every `PATH_EVERY_S`, and always the contact). */
+  function record(st: TrainerState): void {
+    const last = path.value.at(-1);
+    const atContact = st.phase === 'closed' && st.contact;
+    if (last && !atContact && st.tS - last.tS < PATH_EVERY_S) return;
+    const sample = atContact
+      ? { tS: st.contact!.atS, angleDeg: st.contact!.angleDeg, slipHz: st.contact!.slipHz }
+      : { tS: st.tS, angleDeg: st.angleDeg, slipHz: st.incomingFrequencyHz - st.busFrequencyHz };
+    const next = [...path.value, sample];
+    path.value = next.length > PATH_MAX ? next.slice(next.length - PATH_MAX) : next;
   }
 
   async function judge(s: TrainerState): Promise<void> {
@@ -230,6 +250,7 @@ export const useTrainerStore = defineStore('trainer', () => {
     state,
     stateAtMs,
     verdict,
+    path,
     attempts,
     error,
     held,
