@@ -1,7 +1,7 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type { SyncLimits, TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
+import type { SyncLimits, TrainerBus, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
 import type { HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
 
@@ -55,6 +55,27 @@ const levelSchema: z.ZodType<TrainerLevel> = z
   })
   .strict();
 
+/** Faults an instructor scripts: each within a range a real plant could show. */
+export const trainerFaultsSchema: z.ZodType<TrainerFaults> = z
+  .object({
+    breakerSlowMs: nonNegative('ms').lte(1000, 'must be 1000 ms or less'),
+    wrongWindow: limitsSchema,
+    busDriftHz: nonNegative('Hz').lte(1, 'must be 1 Hz or less'),
+    deadBus: z.boolean({ error: 'must be true or false' }),
+    voltageMismatchPct: num('%').gte(-15, 'must be −15 % or more').lte(15, 'must be 15 % or less'),
+  })
+  .partial()
+  .strict();
+
+/** Pass criteria of an instructor's exercise. */
+export const trainerPassSchema: z.ZodType<TrainerPassCriteria> = z
+  .object({
+    minScore: num('points').gte(0, 'must be 0 or more').lte(100, 'must be 100 or less'),
+    insideWindow: z.boolean({ error: 'must be true or false' }),
+    withinMachineLimits: z.boolean({ error: 'must be true or false' }),
+  })
+  .strict();
+
 const contactSchema = z
   .object({
     atS: num('s'),
@@ -79,7 +100,8 @@ const stateSchema: z.ZodType<TrainerState> = z
     phase: z.enum(['running', 'closing', 'closed'], { error: 'must be "running", "closing" or "closed"' }),
     tS: nonNegative('s'),
     busFrequencyHz: positive('Hz'),
-    busVoltageV: positive('V'),
+    // 0 V: a dead bus (an instructor's fault).
+    busVoltageV: nonNegative('V'),
     busBaseFrequencyHz: positive('Hz'),
     drift: z.object({ phase1: num('rad'), phase2: num('rad'), period1S: positive('s'), period2S: positive('s') }).strict(),
     incomingFrequencyHz: positive('Hz'),
@@ -95,6 +117,7 @@ const stateSchema: z.ZodType<TrainerState> = z
     closeCommandAngleDeg: num('°').nullable(),
     incomingSetId: z.string().nullable(),
     contact: contactSchema.nullable(),
+    faults: trainerFaultsSchema.optional(),
   })
   .strict();
 
@@ -118,6 +141,7 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
         plant: plantSchema.optional(),
         incomingSetId: z.string({ error: 'must be text' }).optional(),
         window: limitsSchema.optional(),
+        faults: trainerFaultsSchema.optional(),
       })
       .strict(),
     run: (request) => startExercise(request),
@@ -133,7 +157,7 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
     run: ({ state, inputs, dtS }) => stepTrainer(state, inputs, dtS),
   },
   trainerClose: {
-    schema: z.object({ state: stateSchema, plant: plantSchema.optional() }).strict(),
-    run: ({ state, plant }) => judgeClose(state, {}, plant),
+    schema: z.object({ state: stateSchema, plant: plantSchema.optional(), pass: trainerPassSchema.optional() }).strict(),
+    run: ({ state, plant, pass }) => judgeClose(state, {}, plant, pass),
   },
 };
