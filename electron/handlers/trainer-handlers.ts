@@ -1,7 +1,7 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type { SyncLimits, TrainerBus, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
+import type { SyncLimits, TrainerBus, TrainerExercise, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
 import type { HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
 
@@ -126,7 +126,20 @@ const inputsSchema: z.ZodType<TrainerInputs> = z
   .object({ speed: direction, voltage: direction, close: z.boolean({ error: 'must be true or false' }).optional(), window: limitsSchema.optional() })
   .strict();
 
-export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose'> = {
+/** The fields of an instructor's exercise: the project file keeps it with these rules and the Trainer checks it with them. */
+export const trainerExerciseShape = {
+    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    name: z.string({ error: 'must be text' }),
+    levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
+    seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+    faults: trainerFaultsSchema,
+    pass: trainerPassSchema,
+};
+
+/** An instructor's exercise as the Trainer checks it (nothing extra). */
+export const trainerExerciseSchema: z.ZodType<TrainerExercise> = z.object(trainerExerciseShape).strict();
+
+export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose' | 'checkTrainerExercise'> = {
   trainerLevels: {
     schema: z.object({}).strict(),
     run: () => TRAINER_LEVELS.map((l) => ({ ...l })),
@@ -159,5 +172,9 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
   trainerClose: {
     schema: z.object({ state: stateSchema, plant: plantSchema.optional(), pass: trainerPassSchema.optional() }).strict(),
     run: ({ state, plant, pass }) => judgeClose(state, {}, plant, pass),
+  },
+  checkTrainerExercise: {
+    schema: z.object({ exercise: trainerExerciseSchema }).strict(),
+    run: () => ({ ok: true as const }),
   },
 };

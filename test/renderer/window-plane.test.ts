@@ -26,7 +26,7 @@ import { directClient } from '../helpers/direct-client';
 import { expectClose } from '../helpers/expect-close';
 
 /** The (angle, slip) a drawn marker stands for, read back through the plane's inverse. */
-function drawnPoint(w: VueWrapper, test: string): { angleDeg: number; slipHz: number } {
+function drawnPoint(w: Pick<VueWrapper, 'get'>, test: string): { angleDeg: number; slipHz: number } {
   const span = Number(w.get('svg').attributes('data-slip-span'));
   const f = planeFrame(span);
   const el = w.get(`[data-test="${test}"]`);
