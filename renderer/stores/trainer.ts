@@ -224,7 +224,7 @@ export const useTrainerStore = defineStore('trainer', () => {
   function record(st: TrainerState): void {
     const last = path.value.at(-1);
     const atContact = st.phase === 'closed' && st.contact;
-    if (last && !atContact && st.tS - last.tS < PATH_EVERY_S) return;
+    if (last && !atContact && st.tS - last.tS < PATH_EVERY_S - 1e-9) return;
     const sample = atContact
       ? { tS: st.contact!.atS, angleDeg: st.contact!.angleDeg, slipHz: st.contact!.slipHz }
       : { tS: st.tS, angleDeg: st.angleDeg, slipHz: st.incomingFrequencyHz - st.busFrequencyHz };
@@ -396,6 +396,23 @@ export const useTrainerStore = defineStore('trainer', () => {
     return angleAfterDeg(s.angleDeg, s.incomingFrequencyHz - s.busFrequencyHz, ahead);
   }
 
+  /**
+   * Where to give the close command so contact lands in phase, by the breaker time the trainee is told (the level's
+   * setting): −360° × slip × t (the advance-angle law the sync engine uses); null when not running or without slip.
+   */
+  function commandAngleDeg(): number | null {
+    const s = state.value;
+    if (!s || s.phase !== 'running' || Math.abs(slipHz.value) <= 1e-4) return null;
+    return angleAfterDeg(0, slipHz.value, -s.level.breakerClosingMs / 1000);
+  }
+
+  /** Where contact would land if the command went at `nowMs` (by the told breaker time); null when not running. */
+  function displayContactAngleDeg(nowMs: number): number | null {
+    const s = state.value;
+    if (!s || s.phase !== 'running') return null;
+    return angleAfterDeg(displayAngleDeg(nowMs), slipHz.value, s.level.breakerClosingMs / 1000);
+  }
+
   function clearLog(): void {
     attempts.value = [];
   }
@@ -456,6 +473,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     frame,
     pause,
     displayAngleDeg,
+    commandAngleDeg,
+    displayContactAngleDeg,
     clearLog,
     snapshot,
     restore,

@@ -146,6 +146,26 @@ describe('TrainerView driven by key presses', () => {
     expect(w!.get('[data-test="attempt-0"] [data-test="attempt-trainee"]').text()).toBe('R. Okafor');
   }, 30_000);
 
+  it("draws the trainee's path on the window plane and, after the close, the command and contact points", async () => {
+    const trainer = await setUp(2024);
+    const op = operator(trainer);
+    await op.frames(10);
+    // 0.05 s frames, a sample every 0.05 s: the start and ten steps.
+    expect(trainer.path.length).toBe(11);
+    // Closed form: command at −360° × slip × 0.08 s for the level's 80 ms breaker.
+    expect(trainer.commandAngleDeg()).toBeCloseTo(-360 * trainer.slipHz * 0.08, 9);
+    expect(w!.find('[data-test="plane-trace"]').exists()).toBe(true);
+    op.down(' ');
+    await op.frames(4);
+    await flushPromises();
+    const c = trainer.state!.contact!;
+    expect(trainer.path.at(-1)).toEqual({ tS: c.atS, angleDeg: c.angleDeg, slipHz: c.slipHz });
+    expect(trainer.commandAngleDeg()).toBeNull();
+    expect(w!.find('[data-test="plane-command"]').exists()).toBe(true);
+    expect(w!.find('[data-test="plane-contact"]').exists()).toBe(true);
+    expect(w!.get('[data-test="plane-now"]').text()).toContain(`At contact: ${c.angleDeg < 0 ? '−' : '+'}${Math.abs(c.angleDeg).toFixed(1)}°`);
+  }, 30_000);
+
   it('repeats the same start from the same seed', async () => {
     const trainer = await setUp(77);
     const first = trainer.state!;
