@@ -88,6 +88,8 @@ export const useTrainerStore = defineStore('trainer', () => {
   let closeRequested = false;
   let windowRequested: SyncLimits | null = null;
   let inFlight = false;
+  /** A start is on its way: no step may begin (it would step the old exercise and land after the new one). */
+  let starting = 0;
   let lastStepMs: number | null = null;
   let generation = 0;
 
@@ -127,6 +129,7 @@ export const useTrainerStore = defineStore('trainer', () => {
   async function start(withSeed?: number, withFaults?: TrainerFaults): Promise<void> {
     faults = withFaults;
     const g = ++generation;
+    starting++;
     seed.value = withSeed ?? Math.floor(Math.random() * 1_000_000);
     verdict.value = null;
     closeRequested = false;
@@ -148,6 +151,8 @@ export const useTrainerStore = defineStore('trainer', () => {
       error.value = null;
     } catch (e) {
       error.value = messageOf(e);
+    } finally {
+      starting--;
     }
   }
 
@@ -203,7 +208,7 @@ export const useTrainerStore = defineStore('trainer', () => {
    */
   async function advance(dtS: number, nowMs = 0): Promise<void> {
     const s = state.value;
-    if (!s || s.phase === 'closed') return;
+    if (!s || s.phase === 'closed' || starting > 0) return;
     const g = generation;
     const i = inputs(dtS);
     closeRequested = false;

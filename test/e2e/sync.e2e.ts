@@ -143,7 +143,7 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     const base = inject('previewUrl');
     const { page, errors } = await openPage(browser(), `${base}?measure-frames#/trainer`);
     await page.getByTestId('trainer-view').waitFor();
-    await expect.poll(() => page.getByTestId('trainer-state').textContent()).toMatch(/window/);
+    await expect.poll(() => page.getByTestId('trainer-state').textContent(), { timeout: 15_000 }).toMatch(/window/);
     expect(await page.getByTestId('trainer-caution').textContent()).toContain('not an authorisation to operate');
     figures.push(await measureFrames(page, 'trainer', 8));
     // Hold raise speed for a second: the set speeds up.
@@ -167,7 +167,7 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     const base = inject('previewUrl');
     const { page, errors } = await openPage(browser(), `${base}#/trainer`);
     await page.getByTestId('trainer-view').waitFor();
-    await expect.poll(() => page.getByTestId('trainer-state').textContent()).toMatch(/window/);
+    await expect.poll(() => page.getByTestId('trainer-state').textContent(), { timeout: 15_000 }).toMatch(/window/);
     await page.getByTestId('instructor').locator('summary').click();
     await page.getByTestId('instructor-add-set').click();
     await page.getByTestId('set-name').fill('Shift B, week 1');

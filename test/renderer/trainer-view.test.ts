@@ -166,6 +166,17 @@ describe('TrainerView driven by key presses', () => {
     expect(w!.get('[data-test="plane-now"]').text()).toContain(`At contact: ${c.angleDeg < 0 ? '−' : '+'}${Math.abs(c.angleDeg).toFixed(1)}°`);
   }, 30_000);
 
+  it('never lets a step of the old exercise land after a new one has started', async () => {
+    const trainer = await setUp(12);
+    // A frame asks for a step while a new exercise (with a fault) is starting: the step must not overwrite it.
+    const starting = trainer.start(13, { breakerSlowMs: 100 });
+    const step = trainer.advance(0.05);
+    await Promise.all([starting, step]);
+    expect(trainer.state!.seed).toBe(13);
+    expect(trainer.state!.faults).toEqual({ breakerSlowMs: 100 });
+    expect(trainer.state!.tS).toBe(0);
+  });
+
   it('repeats the same start from the same seed', async () => {
     const trainer = await setUp(77);
     const first = trainer.state!;
