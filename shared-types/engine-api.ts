@@ -8,7 +8,7 @@ import type { CheckedPlant, CheckPlantRequest, LoadSweep, SharingResult, SolveSh
 import type { ClosingMap, ClosingMapRequest, SyncCase, SyncPreset, SyncResult } from './sync';
 import type { Scenario, SimulationResult } from './simulation';
 import type { ProgressEvent } from './progress';
-import type { TrainerCloseRequest, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
+import type { TrainerCloseRequest, TrainerExercise, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject, Project } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
 import type { CommissioningRecord, CommissioningRecordRequest, FitRequest, FitResult, InspectRecordRequest, ParseRecordRequest, ParsedTestRecord, RecordInspection } from './commissioning';
@@ -51,6 +51,8 @@ export interface EngineApi {
   trainerStep: Method<TrainerStepRequest, TrainerState>;
   /** Verdict, score and after-close traces of a closed exercise. */
   trainerClose: Method<TrainerCloseRequest, TrainerVerdict>;
+  /** Checks an instructor's exercise (level, seed, faults, pass criteria) by the rules the project file uses; refusals name the field. */
+  checkTrainerExercise: Method<{ exercise: TrainerExercise }, { ok: true }>;
   /** Read a project file's text: migrate older files forward, validate, fill defaults. */
   parseProject: Method<{ text: string }, ParsedProject>;
   /** The file text of a project (validated), ending with its content checksum. */
@@ -93,6 +95,7 @@ export const ENGINE_METHODS = [
   'trainerStart',
   'trainerStep',
   'trainerClose',
+  'checkTrainerExercise',
   'parseProject',
   'serializeProject',
   'buildReport',

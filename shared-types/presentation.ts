@@ -4,6 +4,7 @@
  * Pure constants and tiny pure functions only (no DOM, no Node, no clock).
  */
 import type { SetFlag } from './sharing';
+import type { TrainerFaults } from './trainer';
 
 /** The caution every screen, report, export and CLI output carries. */
 export const CAUTION =
@@ -221,4 +222,16 @@ export function issueInWords(issue: { path: string; message: string }): string {
  */
 export function isoClassName(cls: string): string {
   return `class ${cls}`;
+}
+
+/** An instructor's trainer faults in words, joined by "; " ("" when none): the session log, its CSV and the screens. */
+export function faultWords(f: TrainerFaults | undefined): string {
+  if (!f) return '';
+  const out: string[] = [];
+  if (f.breakerSlowMs) out.push(`breaker ${f.breakerSlowMs} ms slower than its setting`);
+  if (f.wrongWindow) out.push(`window shown wrong (±${f.wrongWindow.angleDeg}°, ${f.wrongWindow.slipHz} Hz, ${f.wrongWindow.voltagePct} %)`);
+  if (f.busDriftHz !== undefined) out.push(`droop bus drifting ±${f.busDriftHz} Hz`);
+  if (f.deadBus) out.push('dead bus to energise');
+  if (f.voltageMismatchPct !== undefined) out.push(`incoming voltage ${f.voltageMismatchPct > 0 ? '+' : ''}${f.voltageMismatchPct} % off the bus`);
+  return out.join('; ');
 }

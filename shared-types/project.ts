@@ -5,7 +5,7 @@
 import type { Plant } from './plant';
 import type { ScenarioEvent } from './simulation';
 import type { DeadPermissives, SyncLimits } from './sync';
-import type { TrainerAttempt } from './trainer';
+import type { TrainerAttempt, TrainerExerciseSet } from './trainer';
 
 export const PROJECT_FORMAT = 'droopline.project' as const;
 export const PROJECT_VERSION = 1 as const;
@@ -39,6 +39,8 @@ export interface Project {
   scenarios: ProjectScenario[];
   sync: ProjectSyncSettings | null;
   trainerLog: TrainerAttempt[];
+  /** An instructor's exercise sets (levels, seeds, faults, pass criteria), run as sessions in the Trainer. */
+  trainerExercises: TrainerExerciseSet[];
   /** View settings (current view, slider positions, chart choices). */
   view: Record<string, unknown>;
 }

@@ -19,6 +19,67 @@ export interface TrainerAttempt {
   /** 0..100 */
   score: number;
   verdict: string;
+  /** Exercise of an instructor's set this attempt ran (absent outside a session). */
+  exerciseSetId?: string;
+  exerciseId?: string;
+  exerciseName?: string;
+  /** Session the attempt belongs to (ISO time the session started). */
+  session?: string;
+  /** Judged against the exercise's pass criteria (absent outside a session). */
+  passed?: boolean;
+  /** Faults the exercise scripted, in words (absent when none). */
+  faults?: string;
+}
+
+/**
+ * Faults an instructor scripts into an exercise. The trainee is told the settings as they are meant to be;
+ * the model runs with the fault.
+ */
+export interface TrainerFaults {
+  /** The breaker closes this many ms slower than its setting (the level's breaker time, which the trainee is told). */
+  breakerSlowMs?: number;
+  /** The sync-check window the trainee is shown is this wrong one; the close is graded to the exercise's window. */
+  wrongWindow?: SyncLimits;
+  /** The droop bus wanders by up to this much, Hz (in place of the level's drift). */
+  busDriftHz?: number;
+  /** The bus is dead: the trainee energises it with a dead-bus close (no synchronizing). */
+  deadBus?: boolean;
+  /** The incoming set starts this far from the bus voltage, % (in place of the seeded 2–8 %). */
+  voltageMismatchPct?: number;
+}
+
+/** What an exercise of a set must reach to pass. */
+export interface TrainerPassCriteria {
+  /** Lowest score that passes, 0..100. */
+  minScore: number;
+  /** The contact must be inside the graded window (for a dead bus: the dead-bus checks). */
+  insideWindow: boolean;
+  /** Surge, torques and swing within the machine's limits. */
+  withinMachineLimits: boolean;
+}
+
+/** One exercise of an instructor's set. */
+export interface TrainerExercise {
+  id: string;
+  name: string;
+  levelId: string;
+  seed: number;
+  faults: TrainerFaults;
+  pass: TrainerPassCriteria;
+}
+
+/** An instructor's exercise set, kept with the project and run as a session. */
+export interface TrainerExerciseSet {
+  id: string;
+  name: string;
+  exercises: TrainerExercise[];
+}
+
+/** An attempt judged against pass criteria. */
+export interface TrainerPassResult {
+  passed: boolean;
+  /** A sentence for every criterion not met (empty when passed). */
+  reasons: string[];
 }
 
 /** A difficulty level: what makes the exercise harder. */
@@ -90,6 +151,8 @@ export interface TrainerStartRequest {
   bus?: TrainerBus;
   /** Window given to the trainee (ignored when the level asks them to set it). Default ±10°, 0.1 Hz, 5 %. */
   window?: SyncLimits;
+  /** Faults an instructor scripted (none by default). */
+  faults?: TrainerFaults;
 }
 
 /** Where an exercise is. */
@@ -158,6 +221,8 @@ export interface TrainerState {
   /** Plant set the exercise was built from (null: the standard set). */
   incomingSetId: string | null;
   contact: TrainerContact | null;
+  /** Faults scripted into this exercise (absent: none). */
+  faults?: TrainerFaults;
 }
 
 /** Request of `trainerStep`. */
@@ -199,6 +264,8 @@ export interface TrainerCloseRequest {
   state: TrainerState;
   /** The plant the exercise came from: the traces then come from its simulator. */
   plant?: Plant;
+  /** Judge the attempt against these criteria too (an instructor's exercise). */
+  pass?: TrainerPassCriteria;
 }
 
 /** Result of `trainerClose`. */
@@ -226,6 +293,10 @@ export interface TrainerVerdict {
   grade: 'good' | 'fair' | 'rough' | 'harmful';
   /** Plain-language verdict, a few sentences. */
   verdict: string;
+  /** Against the exercise's pass criteria, when the request gave them. */
+  pass?: TrainerPassResult;
+  /** A dead bus was energised: no synchronizing surge or swing (the checks are the dead-bus ones). */
+  deadBusClose?: boolean;
   traces: TrainerTraces;
   /** Why the traces fell back to the two-machine model, when they did. */
   tracesNote: string | null;

@@ -6,9 +6,10 @@
  */
 import { z } from 'zod';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
-import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt } from '../../shared-types';
+import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt, TrainerExerciseSet } from '../../shared-types';
 import { plantSchema } from './plant-schema';
 import { projectEventSchema } from './simulation-handlers';
+import { trainerExerciseShape } from './trainer-handlers';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
 const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
@@ -53,6 +54,12 @@ const trainerAttemptSchema = z.looseObject({
   verdict: text(),
 });
 
+const trainerExerciseSetSchema = z.looseObject({
+  id: text().min(1, 'must not be empty'),
+  name: text(),
+  exercises: z.array(z.looseObject(trainerExerciseShape), { error: 'must be a list of exercises' }),
+});
+
 /**
  * Zod schema of a current-version project file. `name` defaults to the plant's name;
  * the parts around the plant default to empty.
@@ -66,6 +73,8 @@ export const projectSchema = z
     scenarios: z.array(scenarioSchema, { error: 'must be a list of scenarios' }).default([]),
     sync: syncSettingsSchema.nullable().default(null),
     trainerLog: z.array(trainerAttemptSchema, { error: 'must be a list of attempts' }).default([]),
+    // Files saved before exercise sets existed have none.
+    trainerExercises: z.array(trainerExerciseSetSchema, { error: 'must be a list of exercise sets' }).default([]),
     view: z.record(z.string(), z.unknown(), { error: 'must be an object' }).default({}),
   })
   .strict()
@@ -85,6 +94,7 @@ export const projectSchema = z
       scenarios: p.scenarios as unknown as ProjectScenario[],
       sync: p.sync as ProjectSyncSettings | null,
       trainerLog: p.trainerLog as TrainerAttempt[],
+      trainerExercises: p.trainerExercises as TrainerExerciseSet[],
       view: p.view,
     }),
   );

@@ -1,7 +1,7 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type { SyncLimits, TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
+import type { SyncLimits, TrainerBus, TrainerExercise, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
 import type { HandlerGroup } from './handler';
 import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from './plant-schema';
 
@@ -59,6 +59,27 @@ const levelSchema: z.ZodType<TrainerLevel> = z
   })
   .strict();
 
+/** Faults an instructor scripts: each within a range a real plant could show. */
+export const trainerFaultsSchema: z.ZodType<TrainerFaults> = z
+  .object({
+    breakerSlowMs: nonNegative('ms').lte(1000, 'must be 1000 ms or less'),
+    wrongWindow: limitsSchema,
+    busDriftHz: nonNegative('Hz').lte(1, 'must be 1 Hz or less'),
+    deadBus: z.boolean({ error: 'must be true or false' }),
+    voltageMismatchPct: num('%').gte(-15, 'must be −15 % or more').lte(15, 'must be 15 % or less'),
+  })
+  .partial()
+  .strict();
+
+/** Pass criteria of an instructor's exercise. */
+export const trainerPassSchema: z.ZodType<TrainerPassCriteria> = z
+  .object({
+    minScore: num('points').gte(0, 'must be 0 or more').lte(100, 'must be 100 or less'),
+    insideWindow: z.boolean({ error: 'must be true or false' }),
+    withinMachineLimits: z.boolean({ error: 'must be true or false' }),
+  })
+  .strict();
+
 const contactSchema = z
   .object({
     atS: num('s'),
@@ -83,7 +104,8 @@ const stateSchema: z.ZodType<TrainerState> = z
     phase: z.enum(['running', 'closing', 'closed'], { error: 'must be "running", "closing" or "closed"' }),
     tS: nonNegative('s'),
     busFrequencyHz: positive('Hz'),
-    busVoltageV: positive('V'),
+    // 0 V: a dead bus (an instructor's fault).
+    busVoltageV: nonNegative('V'),
     busBaseFrequencyHz: positive('Hz'),
     drift: z.object({ phase1: num('rad'), phase2: num('rad'), period1S: positive('s'), period2S: positive('s') }).strict(),
     incomingFrequencyHz: positive('Hz'),
@@ -99,6 +121,7 @@ const stateSchema: z.ZodType<TrainerState> = z
     closeCommandAngleDeg: num('°').nullable(),
     incomingSetId: z.string().nullable(),
     contact: contactSchema.nullable(),
+    faults: trainerFaultsSchema.optional(),
   })
   .strict()
   .superRefine((st, ctx) => {
@@ -122,7 +145,20 @@ const inputsSchema: z.ZodType<TrainerInputs> = z
   .object({ speed: direction, voltage: direction, close: z.boolean({ error: 'must be true or false' }).optional(), window: limitsSchema.optional() })
   .strict();
 
-export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose'> = {
+/** The fields of an instructor's exercise: the project file keeps it with these rules and the Trainer checks it with them. */
+export const trainerExerciseShape = {
+    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    name: z.string({ error: 'must be text' }),
+    levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
+    seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+    faults: trainerFaultsSchema,
+    pass: trainerPassSchema,
+};
+
+/** An instructor's exercise as the Trainer checks it (nothing extra). */
+export const trainerExerciseSchema: z.ZodType<TrainerExercise> = z.object(trainerExerciseShape).strict();
+
+export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose' | 'checkTrainerExercise'> = {
   trainerLevels: {
     schema: z.object({}).strict(),
     run: () => TRAINER_LEVELS.map((l) => ({ ...l })),
@@ -137,6 +173,7 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
         plant: plantSchema.optional(),
         incomingSetId: z.string({ error: 'must be text' }).optional(),
         window: limitsSchema.optional(),
+        faults: trainerFaultsSchema.optional(),
       })
       .strict(),
     run: (request) => startExercise(request),
@@ -152,7 +189,11 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
     run: ({ state, inputs, dtS }) => stepTrainer(state, inputs, dtS),
   },
   trainerClose: {
-    schema: z.object({ state: stateSchema, plant: plantSchema.optional() }).strict(),
-    run: ({ state, plant }) => judgeClose(state, {}, plant),
+    schema: z.object({ state: stateSchema, plant: plantSchema.optional(), pass: trainerPassSchema.optional() }).strict(),
+    run: ({ state, plant, pass }) => judgeClose(state, {}, plant, pass),
+  },
+  checkTrainerExercise: {
+    schema: z.object({ exercise: trainerExerciseSchema }).strict(),
+    run: () => ({ ok: true as const }),
   },
 };

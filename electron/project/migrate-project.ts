@@ -78,6 +78,7 @@ function projectAround(name: unknown, plant: unknown, rest: Partial<RawObject> =
     scenarios: [],
     sync: null,
     trainerLog: [],
+    trainerExercises: [],
     view: {},
     ...rest,
   };

@@ -15,7 +15,7 @@ export interface ProjectPart<K extends PartKey> {
 }
 
 /** The project's parts besides the plant (the plant store is wired in the project store). */
-export type PartKey = 'scenarios' | 'sync' | 'trainerLog';
+export type PartKey = 'scenarios' | 'sync' | 'trainerLog' | 'trainerExercises';
 
 /** The stores that own parts (call inside a Pinia-enabled context). */
 export function projectParts(): { [K in PartKey]?: ProjectPart<K> } {
@@ -26,5 +26,6 @@ export function projectParts(): { [K in PartKey]?: ProjectPart<K> } {
     scenarios: { snapshot: () => transients.snapshot(), restore: (list) => transients.restore(list) },
     sync: { snapshot: () => sync.snapshot(), restore: (settings) => sync.restore(settings) },
     trainerLog: { snapshot: () => trainer.snapshot(), restore: (log) => trainer.restore(log) },
+    trainerExercises: { snapshot: () => trainer.snapshotExercises(), restore: (sets) => trainer.restoreExercises(sets) },
   };
 }

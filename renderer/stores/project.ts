@@ -45,7 +45,7 @@ interface Origin {
 }
 
 type Held = Pick<Project, PartKey | 'view'>;
-const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], view: {} };
+const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], trainerExercises: [], view: {} };
 
 export const useProjectStore = defineStore('project', () => {
   const plantStore = usePlantStore();
@@ -90,6 +90,7 @@ export const useProjectStore = defineStore('project', () => {
       scenarios: part('scenarios'),
       sync: part('sync'),
       trainerLog: part('trainerLog'),
+      trainerExercises: part('trainerExercises'),
       view: { ...held.value.view, view: ui.view },
     };
   }
@@ -150,10 +151,10 @@ export const useProjectStore = defineStore('project', () => {
       notice.value = { tone: 'error', text: `Could not open "${label}": ${plantStore.error ?? 'the plant was refused'}` };
       return false;
     }
-    for (const key of ['scenarios', 'sync', 'trainerLog'] as const) {
+    for (const key of ['scenarios', 'sync', 'trainerLog', 'trainerExercises'] as const) {
       (parts[key] as { restore(v: unknown): void } | undefined)?.restore(project[key]);
     }
-    held.value = { scenarios: project.scenarios, sync: project.sync, trainerLog: project.trainerLog, view: project.view };
+    held.value = { scenarios: project.scenarios, sync: project.sync, trainerLog: project.trainerLog, trainerExercises: project.trainerExercises, view: project.view };
     const view = project.view.view;
     if (typeof view === 'string' && VIEWS.some((v) => v.id === view)) ui.show(view as ViewId);
     name.value = project.name;

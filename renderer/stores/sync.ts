@@ -15,6 +15,8 @@ import { computed, ref, shallowRef, watch } from 'vue';
 import { angleAfterDeg, wrapAngleDeg } from '../../shared-types';
 import type { ClosingMap, DeadPermissives, ProjectSyncSettings, SyncCase, SyncLimits, SyncPreset, SyncResult } from '../../shared-types';
 import { EngineCallError, engine, messageOf } from '../transport';
+import { keepRecent } from '../components/sync/window-plane';
+import type { PlaneSample } from '../components/sync/window-plane';
 import { usePlantStore } from './plant';
 
 /** Default window: the trade's common practice for generating sets (the preset of the same id). */
@@ -38,6 +40,8 @@ export interface SyncLive {
 
 /** Seconds between engine evaluations while the scope turns (the angle is interpolated in between). */
 export const EVALUATE_EVERY_S = 0.2;
+/** Seconds of the operating point's trace kept for the window plane. */
+export const TRACE_SECONDS = 6;
 
 /** The case's fields a user types, by their path in the sync case (the engine names refused fields by it). */
 export const SYNC_FIELDS = [
@@ -70,6 +74,8 @@ export const useSyncStore = defineStore('sync', () => {
   /** Wall time (ms) the last result's `angleNowDeg` belongs to. */
   const resultAtMs = ref(0);
   const error = ref<string | null>(null);
+  /** The engine's operating points (angle, slip) over the last `TRACE_SECONDS`, oldest first (time in s of wall clock). */
+  const trace = shallowRef<PlaneSample[]>([]);
   /** Fields the engine refused, with its rule in words ("must be greater than 0"); empty when all are accepted. */
   const fieldErrors = ref<Partial<Record<SyncField, string>>>({});
   /** A field is refused: there is no verdict until it is put right. */
@@ -146,6 +152,25 @@ export const useSyncStore = defineStore('sync', () => {
     return angleAfterDeg(r.angleNowDeg, r.slipHz, (nowMs - resultAtMs.value) / 1000);
   }
 
+  /**
+   * Where contact would land if the command went at `nowMs`: the engine's own contact angle for a command at its
+   * verdict, run on at the engine's slip like the displayed angle (null without a verdict for this case).
+   */
+  function displayContactAngleDeg(nowMs: number): number | null {
+    const r = result.value;
+    if (!r || resultRev !== liveRev || r.deadBusClose || r.deadLineClose) return null;
+    if (!turning.value) return r.closeNow.angleAtContactDeg;
+    return angleAfterDeg(r.closeNow.angleAtContactDeg, r.slipHz, (nowMs - resultAtMs.value) / 1000);
+  }
+
+  /** The trace for the window plane at `nowMs`: the engine's points of the last seconds and the point drawn now. */
+  function traceAt(nowMs: number): PlaneSample[] {
+    const r = result.value;
+    const kept = keepRecent(trace.value, nowMs / 1000, TRACE_SECONDS);
+    if (!r || resultRev !== liveRev || !turning.value) return kept;
+    return [...kept, { tS: nowMs / 1000, angleDeg: displayAngleDeg(nowMs), slipHz: r.slipHz }];
+  }
+
   /** Asks the engine for the verdict at the angle the case has at `nowMs`. */
   async function evaluate(nowMs: number): Promise<void> {
     if (evaluating) {
@@ -161,6 +186,10 @@ export const useSyncStore = defineStore('sync', () => {
       if (rev === liveRev) {
         result.value = r;
         resultAtMs.value = nowMs;
+        const last = trace.value.at(-1);
+        const sample = { tS: nowMs / 1000, angleDeg: r.angleNowDeg, slipHz: r.slipHz };
+        // A frozen scope or a late result adds nothing new to the trace.
+        if (!last || sample.tS > last.tS + 1e-6) trace.value = keepRecent([...trace.value, sample], sample.tS, TRACE_SECONDS);
         resultRev = rev;
         error.value = null;
         fieldErrors.value = {};
@@ -321,6 +350,7 @@ export const useSyncStore = defineStore('sync', () => {
     live,
     result,
     resultAtMs,
+    trace,
     error,
     fieldErrors,
     invalid,
@@ -333,6 +363,8 @@ export const useSyncStore = defineStore('sync', () => {
     incomingSet,
     buildCase,
     displayAngleDeg,
+    displayContactAngleDeg,
+    traceAt,
     evaluate,
     tick,
     setTurning,

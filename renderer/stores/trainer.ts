@@ -11,12 +11,17 @@
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import { angleAfterDeg } from '../../shared-types';
-import type { SyncLimits, TrainerAttempt, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
-import { engine, messageOf } from '../transport';
+import { faultWords } from '../../shared-types';
+import type { SyncLimits, TrainerAttempt, TrainerExercise, TrainerExerciseSet, TrainerFaults, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
+import { EngineCallError, engine, messageOf } from '../transport';
+import type { PlaneSample } from '../components/sync/window-plane';
 import { usePlantStore } from './plant';
 
 /** Longest wall time one step may cover, s (the engine refuses more than 0.25 s). */
 const MAX_STEP_S = 0.2;
+/** The trainee's path on the window plane: a sample every this many seconds of exercise time, at most `PATH_MAX` kept. */
+const PATH_EVERY_S = 0.05;
+const PATH_MAX = 4000;
 
 
 /** Keyboard bindings: key → control (shown on the buttons too). */
@@ -28,6 +33,27 @@ export const TRAINER_KEYS = {
 } as const;
 /** Key that gives the close command. */
 export const CLOSE_KEY = ' ';
+
+/** Pass criteria of a new exercise: a score of 70, inside the window and within the machine's limits (our own default). */
+export const DEFAULT_PASS = { minScore: 70, insideWindow: true, withinMachineLimits: true } as const;
+
+/** A session: one run of an exercise set, exercise by exercise. */
+export interface TrainerSession {
+  setId: string;
+  setName: string;
+  /** ISO time the session started (its name in the log). */
+  startedAt: string;
+  exercises: TrainerExercise[];
+  /** Index of the exercise on the scope. */
+  index: number;
+  /** Every exercise has been closed once. */
+  finished: boolean;
+}
+
+const copyExercise = (e: TrainerExercise): TrainerExercise => structuredClone({ ...e, faults: { ...e.faults }, pass: { ...e.pass } });
+const copySet = (x: TrainerExerciseSet): TrainerExerciseSet => ({ id: x.id, name: x.name, exercises: x.exercises.map(copyExercise) });
+let idCounter = 0;
+const newId = (prefix: string): string => `${prefix}-${Date.now().toString(36)}-${(idCounter++).toString(36)}`;
 
 export const useTrainerStore = defineStore('trainer', () => {
   const plantStore = usePlantStore();
@@ -42,7 +68,18 @@ export const useTrainerStore = defineStore('trainer', () => {
   /** Wall time (ms) of the last step's state. */
   const stateAtMs = ref(0);
   const verdict = shallowRef<TrainerVerdict | null>(null);
+  /** The trainee's path in angle and slip since the exercise started (exercise time), up to the contact. */
+  const path = shallowRef<PlaneSample[]>([]);
   const attempts = ref<TrainerAttempt[]>([]);
+  /** The instructor's exercise sets (kept with the project). */
+  const exerciseSets = ref<TrainerExerciseSet[]>([]);
+  /** Refused fields of an exercise, by exercise id, then field path (`faults.breakerSlowMs`) → rule in words. */
+  const exerciseErrors = ref<Record<string, Record<string, string>>>({});
+  /** The last accepted copy of each exercise (what the project keeps while a field is refused). */
+  const goodExercises = new Map<string, TrainerExercise>();
+  const session = ref<TrainerSession | null>(null);
+  /** Faults of the exercise on the scope (a session's; none otherwise). */
+  let faults: TrainerFaults | undefined;
   const error = ref<string | null>(null);
   /** Controls held now (keys or buttons). */
   const held = ref<{ speed: -1 | 0 | 1; voltage: -1 | 0 | 1 }>({ speed: 0, voltage: 0 });
@@ -51,12 +88,20 @@ export const useTrainerStore = defineStore('trainer', () => {
   let closeRequested = false;
   let windowRequested: SyncLimits | null = null;
   let inFlight = false;
+  /** A start is on its way: no step may begin (it would step the old exercise and land after the new one). */
+  let starting = 0;
   let lastStepMs: number | null = null;
   let generation = 0;
 
   const level = computed(() => state.value?.level ?? levels.value.find((l) => l.id === levelId.value) ?? null);
   const slipHz = computed(() => (state.value ? state.value.incomingFrequencyHz - state.value.busFrequencyHz : 0));
-  const voltageDifferencePct = computed(() => (state.value ? 100 * (state.value.incomingVoltageV / state.value.busVoltageV - 1) : 0));
+  /** A dead bus (an instructor's fault) is energised, not synchronized: slip and voltage then read against rated. */
+  const deadBus = computed(() => state.value?.faults?.deadBus === true);
+  const voltageDifferencePct = computed(() => {
+    const st = state.value;
+    if (!st) return 0;
+    return 100 * (st.incomingVoltageV / (deadBus.value ? st.machine.ratedVoltageV : st.busVoltageV) - 1);
+  });
   const canClose = computed(() => state.value?.phase === 'running' && state.value.window !== null);
   /** Best and mean score of the log. */
   const summary = computed(() => {
@@ -81,8 +126,10 @@ export const useTrainerStore = defineStore('trainer', () => {
   }
 
   /** Starts an exercise (a new random seed unless one is given). */
-  async function start(withSeed?: number): Promise<void> {
+  async function start(withSeed?: number, withFaults?: TrainerFaults): Promise<void> {
+    faults = withFaults;
     const g = ++generation;
+    starting++;
     seed.value = withSeed ?? Math.floor(Math.random() * 1_000_000);
     verdict.value = null;
     closeRequested = false;
@@ -96,12 +143,16 @@ export const useTrainerStore = defineStore('trainer', () => {
         seed: seed.value,
         levelId: levelId.value,
         ...(useSet && p ? { plant: p, incomingSetId: incomingSetId.value ?? undefined } : {}),
+        ...(faults && Object.keys(faults).length ? { faults } : {}),
       });
       if (g !== generation) return;
       state.value = s;
+      path.value = [{ tS: s.tS, angleDeg: s.angleDeg, slipHz: s.incomingFrequencyHz - s.busFrequencyHz }];
       error.value = null;
     } catch (e) {
       error.value = messageOf(e);
+    } finally {
+      starting--;
     }
   }
 
@@ -157,7 +208,7 @@ export const useTrainerStore = defineStore('trainer', () => {
    */
   async function advance(dtS: number, nowMs = 0): Promise<void> {
     const s = state.value;
-    if (!s || s.phase === 'closed') return;
+    if (!s || s.phase === 'closed' || starting > 0) return;
     const g = generation;
     const i = inputs(dtS);
     closeRequested = false;
@@ -167,18 +218,162 @@ export const useTrainerStore = defineStore('trainer', () => {
       if (g !== generation) return;
       state.value = next;
       stateAtMs.value = nowMs;
+      record(next);
       if (next.phase === 'closed') await judge(next);
     } catch (e) {
       error.value = messageOf(e);
     }
   }
 
+  /** Adds the state to the path (every `PATH_EVERY_S`, and always the contact). */
+  function record(st: TrainerState): void {
+    const last = path.value.at(-1);
+    const atContact = st.phase === 'closed' && st.contact;
+    if (last && !atContact && st.tS - last.tS < PATH_EVERY_S - 1e-9) return;
+    const sample = atContact
+      ? { tS: st.contact!.atS, angleDeg: st.contact!.angleDeg, slipHz: st.contact!.slipHz }
+      : { tS: st.tS, angleDeg: st.angleDeg, slipHz: st.incomingFrequencyHz - st.busFrequencyHz };
+    const next = [...path.value, sample];
+    path.value = next.length > PATH_MAX ? next.slice(next.length - PATH_MAX) : next;
+  }
+
   async function judge(s: TrainerState): Promise<void> {
     const p = plantStore.plant;
-    const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}) });
+    const ses = session.value;
+    const ex = ses && !ses.finished ? ses.exercises[ses.index] : undefined;
+    const v = await engine().call('trainerClose', { state: s, ...(s.incomingSetId && p ? { plant: p } : {}), ...(ex ? { pass: ex.pass } : {}) });
     verdict.value = v;
     const name = trainee.value.trim();
-    attempts.value = [{ at: new Date().toISOString(), ...(name ? { trainee: name } : {}), ...v.attempt }, ...attempts.value];
+    const words = faultWords(s.faults);
+    const inSession: Partial<TrainerAttempt> =
+      ses && ex
+        ? { exerciseSetId: ses.setId, exerciseId: ex.id, exerciseName: ex.name, session: ses.startedAt, passed: v.pass?.passed ?? false, ...(words ? { faults: words } : {}) }
+        : {};
+    attempts.value = [{ at: new Date().toISOString(), ...(name ? { trainee: name } : {}), ...v.attempt, ...inSession }, ...attempts.value];
+    if (ses && ex && ses.index === ses.exercises.length - 1) session.value = { ...ses, finished: true };
+  }
+
+  // ---- Instructor: exercise sets and sessions ----
+
+  /** Adds an exercise set with one exercise (the current level and seed, no faults); returns its id. */
+  function addExerciseSet(name = `Exercise set ${exerciseSets.value.length + 1}`): string {
+    const id = newId('set');
+    exerciseSets.value = [...exerciseSets.value, { id, name, exercises: [] }];
+    addExercise(id);
+    return id;
+  }
+
+  function removeExerciseSet(id: string): void {
+    exerciseSets.value = exerciseSets.value.filter((x) => x.id !== id);
+  }
+
+  function renameExerciseSet(id: string, name: string): void {
+    exerciseSets.value = exerciseSets.value.map((x) => (x.id === id ? { ...x, name } : x));
+  }
+
+  /** Adds an exercise to a set; returns its id. */
+  function addExercise(setId: string): string {
+    const id = newId('ex');
+    const set = exerciseSets.value.find((x) => x.id === setId);
+    const ex: TrainerExercise = { id, name: `Exercise ${(set?.exercises.length ?? 0) + 1}`, levelId: levelId.value, seed: seed.value, faults: {}, pass: { ...DEFAULT_PASS } };
+    goodExercises.set(id, copyExercise(ex));
+    exerciseSets.value = exerciseSets.value.map((x) => (x.id === setId ? { ...x, exercises: [...x.exercises, ex] } : x));
+    return id;
+  }
+
+  function removeExercise(setId: string, id: string): void {
+    goodExercises.delete(id);
+    const { [id]: _gone, ...rest } = exerciseErrors.value;
+    void _gone;
+    exerciseErrors.value = rest;
+    exerciseSets.value = exerciseSets.value.map((x) => (x.id === setId ? { ...x, exercises: x.exercises.filter((e) => e.id !== id) } : x));
+  }
+
+  /**
+   * Changes an exercise as typed (a blank number is NaN) and has the engine check it by the project file's rules:
+   * a refused field keeps its value with the rule beside it, and the project keeps the last accepted exercise.
+   */
+  async function editExercise(setId: string, id: string, recipe: (e: TrainerExercise) => TrainerExercise): Promise<void> {
+    let edited: TrainerExercise | null = null;
+    exerciseSets.value = exerciseSets.value.map((x) =>
+      x.id === setId ? { ...x, exercises: x.exercises.map((e) => (e.id === id ? (edited = recipe(copyExercise(e))) : e)) } : x,
+    );
+    if (edited) await checkExercise(edited);
+  }
+
+  async function checkExercise(ex: TrainerExercise): Promise<void> {
+    const errors: Record<string, string> = {};
+    try {
+      await engine().call('checkTrainerExercise', { exercise: ex });
+      goodExercises.set(ex.id, copyExercise(ex));
+    } catch (e) {
+      const issues = e instanceof EngineCallError ? e.issues : [];
+      for (const i of issues) errors[i.path.replace(/^exercise\./, '')] ??= i.message;
+      if (!issues.length) errors[''] = messageOf(e);
+    }
+    const { [ex.id]: _old, ...rest } = exerciseErrors.value;
+    void _old;
+    exerciseErrors.value = Object.keys(errors).length ? { ...rest, [ex.id]: errors } : rest;
+  }
+
+  /** Why a set cannot run as a session (null: it can). */
+  function setProblem(setId: string): string | null {
+    const set = exerciseSets.value.find((x) => x.id === setId);
+    if (!set) return 'No such exercise set.';
+    if (!set.exercises.length) return 'The set has no exercises.';
+    const bad = set.exercises.filter((e) => exerciseErrors.value[e.id]);
+    if (bad.length) return `Put right the refused fields of ${bad.map((e) => `"${e.name}"`).join(', ')} first.`;
+    return null;
+  }
+
+  /** Runs a set as a session from its first exercise (its level, seed and faults). */
+  async function startSession(setId: string): Promise<void> {
+    const set = exerciseSets.value.find((x) => x.id === setId);
+    if (!set || setProblem(setId)) return;
+    session.value = { setId, setName: set.name, startedAt: new Date().toISOString(), exercises: set.exercises.map(copyExercise), index: 0, finished: false };
+    await startSessionExercise();
+  }
+
+  async function startSessionExercise(): Promise<void> {
+    const ses = session.value;
+    const ex = ses?.exercises[ses.index];
+    if (!ex) return;
+    levelId.value = ex.levelId;
+    await start(ex.seed, ex.faults);
+  }
+
+  /** The next exercise of the session (after a close). */
+  async function nextInSession(): Promise<void> {
+    const ses = session.value;
+    if (!ses || ses.index >= ses.exercises.length - 1) return;
+    session.value = { ...ses, index: ses.index + 1 };
+    await startSessionExercise();
+  }
+
+  /** Ends the session; the exercise on the scope stays, without faults from then on. */
+  function endSession(): void {
+    session.value = null;
+    faults = undefined;
+  }
+
+  /** The attempts of the session on the scope (oldest first). */
+  const sessionAttempts = computed(() => {
+    const ses = session.value;
+    if (!ses) return [];
+    return attempts.value.filter((a) => a.session === ses.startedAt && a.exerciseSetId === ses.setId).slice().reverse();
+  });
+
+  /** The sets to keep with a project: every exercise as last accepted. */
+  function snapshotExercises(): TrainerExerciseSet[] {
+    return exerciseSets.value.map((x) => ({ id: x.id, name: x.name, exercises: x.exercises.map((e) => copyExercise(goodExercises.get(e.id) ?? e)) }));
+  }
+
+  function restoreExercises(sets: TrainerExerciseSet[]): void {
+    exerciseSets.value = sets.map(copySet);
+    goodExercises.clear();
+    for (const x of sets) for (const e of x.exercises) goodExercises.set(e.id, copyExercise(e));
+    exerciseErrors.value = {};
+    session.value = null;
   }
 
   /** Called every animation frame: starts a step when none is in flight. */
@@ -206,6 +401,23 @@ export const useTrainerStore = defineStore('trainer', () => {
     return angleAfterDeg(s.angleDeg, s.incomingFrequencyHz - s.busFrequencyHz, ahead);
   }
 
+  /**
+   * Where to give the close command so contact lands in phase, by the breaker time the trainee is told (the level's
+   * setting): −360° × slip × t (the advance-angle law the sync engine uses); null when not running or without slip.
+   */
+  function commandAngleDeg(): number | null {
+    const s = state.value;
+    if (!s || s.phase !== 'running' || Math.abs(slipHz.value) <= 1e-4) return null;
+    return angleAfterDeg(0, slipHz.value, -s.level.breakerClosingMs / 1000);
+  }
+
+  /** Where contact would land if the command went at `nowMs` (by the told breaker time); null when not running. */
+  function displayContactAngleDeg(nowMs: number): number | null {
+    const s = state.value;
+    if (!s || s.phase !== 'running') return null;
+    return angleAfterDeg(displayAngleDeg(nowMs), slipHz.value, s.level.breakerClosingMs / 1000);
+  }
+
   function clearLog(): void {
     attempts.value = [];
   }
@@ -230,11 +442,29 @@ export const useTrainerStore = defineStore('trainer', () => {
     state,
     stateAtMs,
     verdict,
+    path,
     attempts,
+    exerciseSets,
+    exerciseErrors,
+    session,
+    sessionAttempts,
+    addExerciseSet,
+    removeExerciseSet,
+    renameExerciseSet,
+    addExercise,
+    removeExercise,
+    editExercise,
+    setProblem,
+    startSession,
+    nextInSession,
+    endSession,
+    snapshotExercises,
+    restoreExercises,
     error,
     held,
     level,
     slipHz,
+    deadBus,
     voltageDifferencePct,
     canClose,
     summary,
@@ -248,6 +478,8 @@ export const useTrainerStore = defineStore('trainer', () => {
     frame,
     pause,
     displayAngleDeg,
+    commandAngleDeg,
+    displayContactAngleDeg,
     clearLog,
     snapshot,
     restore,

@@ -5,7 +5,7 @@
  * measurement, not a test).
  */
 import { afterAll, describe, expect, inject, it } from 'vitest';
-import { writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { ARTIFACTS, openPage, useBrowser } from './chromium';
@@ -113,6 +113,8 @@ describe('Synchronizing and Trainer in the browser preview', () => {
       ['limit-slip', '-0.2', 'limits.slipHz', 'must be greater than 0', '0.2'],
       ['incoming-voltage', '', 'incoming.voltageV', 'must be a number', '404'],
       ['dead-dead', '90', 'dead.deadPct', 'must be below the live threshold', '20'],
+      ['dead-live', '200', 'dead.livePct', 'must be 150 % or less', '80'],
+      ['bus-voltage', '-400', 'bus.voltageV', 'must be 0 or more', '400'],
     ];
     for (const [field, bad, path, rule, good] of cases) {
       const input = page.getByTestId(field);
@@ -123,10 +125,23 @@ describe('Synchronizing and Trainer in the browser preview', () => {
       await expect.poll(() => page.getByTestId(`error-${path}`).textContent()).toContain(rule);
       expect(await page.getByTestId('permissive').textContent()).toContain('Settings invalid');
       expect(await page.getByTestId('permissive').textContent()).not.toContain('Permissive');
+      // The window plane withdraws its operating point with the verdict.
+      expect(await page.getByTestId('plane-point').count()).toBe(0);
       await input.fill(good);
       await input.press('Tab');
       await expect.poll(state, { message: `${field} put right` }).toMatch(/^(permissive|blocked)$/);
     }
+    // The phase angle is typed on a frozen diagram: a blank one is refused too.
+    await page.getByTestId('turn-toggle').click();
+    const angle = page.getByTestId('angle-input');
+    await angle.fill('');
+    await angle.press('Tab');
+    await expect.poll(state, { message: 'blank phase angle withdraws the verdict' }).toBe('invalid');
+    await expect.poll(() => page.getByTestId('error-incoming.angleDeg').textContent()).toContain('must be a number');
+    expect(await page.getByTestId('permissive').textContent()).not.toContain('Permissive');
+    await angle.fill('3');
+    await angle.press('Tab');
+    await expect.poll(state, { message: 'phase angle put right' }).toMatch(/^(permissive|blocked)$/);
     expect(errors).toEqual([]);
     await page.close();
   });
@@ -135,7 +150,7 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     const base = inject('previewUrl');
     const { page, errors } = await openPage(browser(), `${base}?measure-frames#/trainer`);
     await page.getByTestId('trainer-view').waitFor();
-    await expect.poll(() => page.getByTestId('trainer-state').textContent()).toMatch(/window/);
+    await expect.poll(() => page.getByTestId('trainer-state').textContent(), { timeout: 15_000 }).toMatch(/window/);
     expect(await page.getByTestId('trainer-caution').textContent()).toContain('not an authorisation to operate');
     figures.push(await measureFrames(page, 'trainer', 8));
     // Hold raise speed for a second: the set speeds up.
@@ -151,6 +166,48 @@ describe('Synchronizing and Trainer in the browser preview', () => {
     expect(await page.getByTestId('verdict-text').textContent()).toMatch(/Surge [\d.]+ pu/);
     expect(await page.getByTestId('attempt-log').textContent()).toContain('1 attempt');
     await page.screenshot({ path: join(ARTIFACTS, 'trainer-verdict.png'), fullPage: true });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('builds an exercise set with a scripted fault, runs it as a session and exports the session log as CSV', async () => {
+    const base = inject('previewUrl');
+    const { page, errors } = await openPage(browser(), `${base}#/trainer`);
+    await page.getByTestId('trainer-view').waitFor();
+    await expect.poll(() => page.getByTestId('trainer-state').textContent(), { timeout: 15_000 }).toMatch(/window/);
+    await page.getByTestId('instructor').locator('summary').click();
+    await page.getByTestId('instructor-add-set').click();
+    await page.getByTestId('set-name').fill('Shift B, week 1');
+    await page.getByTestId('set-name').press('Tab');
+    await page.getByTestId('fault-breaker').check();
+    await page.getByTestId('fault-breaker-ms').fill('250');
+    await page.getByTestId('fault-breaker-ms').press('Tab');
+    await page.getByTestId('set-add-exercise').click();
+    await page.getByTestId('fault-dead').nth(1).check();
+    await page.setViewportSize({ width: 1360, height: 1500 });
+    await page.screenshot({ path: join(ARTIFACTS, 'trainer-instructor.png'), fullPage: true });
+    await page.getByTestId('set-run').click();
+    await expect.poll(() => page.getByTestId('session-bar').textContent()).toContain('exercise 1 of 2');
+    await page.keyboard.press(' ');
+    await page.getByTestId('trainer-verdict').waitFor({ timeout: 10_000 });
+    await expect.poll(() => page.getByTestId('verdict-text').textContent()).toContain('250 ms slower than its 80 ms setting');
+    await expect.poll(() => page.getByTestId('session-pass').textContent()).toMatch(/Passed|Not passed/);
+    await page.getByTestId('session-next').click();
+    await expect.poll(() => page.getByTestId('session-bar').textContent()).toContain('exercise 2 of 2');
+    await expect.poll(() => page.getByTestId('trainer-state').textContent()).toContain('Dead bus');
+    await page.keyboard.press(' ');
+    await expect.poll(() => page.getByTestId('verdict-text').textContent(), { timeout: 10_000 }).toContain('Dead bus energised');
+    await expect.poll(() => page.getByTestId('session-summary').textContent()).toContain('Session finished');
+    const download = page.waitForEvent('download');
+    await page.getByTestId('session-csv').click();
+    const file = await (await download).path();
+    const csv = readFileSync(file, 'utf8');
+    const lines = csv.split('\r\n');
+    expect(lines[0]).toMatch(/^# Caution: planning and training only/);
+    expect(lines[1]).toContain('Set "Shift B, week 1": 2 attempts');
+    expect(lines[2]).toContain('score (0-100)');
+    expect(lines).toHaveLength(6);
+    await page.screenshot({ path: join(ARTIFACTS, 'trainer-session.png'), fullPage: true });
     expect(errors).toEqual([]);
     await page.close();
   });

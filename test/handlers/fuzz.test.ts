@@ -108,6 +108,7 @@ beforeAll(async () => {
   const loadBankTest = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 300, stepKVAR: 200, stepAtS: 0.2 };
   Object.assign(seeds, {
     checkPlant: { plant, loadPct: 60 },
+    checkTrainerExercise: { exercise: { id: 'x1', name: 'Slow breaker', levelId: 'steady', seed: 4, faults: { breakerSlowMs: 60, voltageMismatchPct: 3 }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: true } } },
     inspectTestRecord: { text: recordText },
     parseTestRecord: recordRequest,
     fitTestRecord: { plant, record: parsed.value.record, test: loadBankTest, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }], maxIterations: 1 },

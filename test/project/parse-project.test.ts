@@ -76,6 +76,34 @@ describe('parseProject', () => {
     expect(project.view).toEqual({});
   });
 
+  it('opens a project saved before exercise sets existed with none, and keeps a set through save and open', () => {
+    const old = rawProject();
+    expect(old.trainerExercises).toBeUndefined();
+    expect(parseProject(JSON.stringify(old)).project.trainerExercises).toEqual([]);
+    const set = {
+      id: 'set-1',
+      name: 'Night shift, week 2',
+      exercises: [
+        { id: 'ex-1', name: 'Slow breaker', levelId: 'slow-breaker', seed: 41, faults: { breakerSlowMs: 150 }, pass: { minScore: 70, insideWindow: true, withinMachineLimits: true } },
+        { id: 'ex-2', name: 'Dead bus', levelId: 'steady', seed: 7, faults: { deadBus: true, voltageMismatchPct: -6 }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: false } },
+      ],
+    };
+    const { project } = parseProject(JSON.stringify({ ...old, trainerExercises: [set] }));
+    expect(project.trainerExercises).toEqual([set]);
+    expect(parseProject(serializeProject(project)).project.trainerExercises).toEqual([set]);
+  });
+
+  it('refuses an exercise set with a fault out of range or an unknown level, naming the field', () => {
+    const bad = {
+      id: 'set-1',
+      name: 'x',
+      exercises: [{ id: 'ex-1', name: 'x', levelId: 'nightmare', seed: 1, faults: { breakerSlowMs: -1 }, pass: { minScore: 70, insideWindow: true, withinMachineLimits: true } }],
+    };
+    const e = failure(projectText({ trainerExercises: [bad] }));
+    expect(e.issues).toContainEqual({ path: 'trainerExercises[0].exercises[0].levelId', message: 'must be one of the trainer levels' });
+    expect(e.issues).toContainEqual({ path: 'trainerExercises[0].exercises[0].faults.breakerSlowMs', message: 'must be 0 or more' });
+  });
+
   it('ignores a byte-order mark at the start', () => {
     expect(parseProject(`\uFEFF${projectText()}`).project.name).toBe('Kestrel Ford study');
   });

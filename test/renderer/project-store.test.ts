@@ -195,6 +195,13 @@ describe('project store', () => {
     const saved = parseProject(readFileSync(file, 'utf8')).project;
     expect(saved.trainerLog).toEqual([]);
     expect(saved.scenarios).toEqual([]);
+    // An instructor's exercise set is a change and is saved with the project.
+    const setId = useTrainerStore().addExerciseSet('Week 1');
+    expect(project.dirty).toBe(true);
+    await project.save();
+    const withSet = parseProject(readFileSync(file, 'utf8')).project;
+    expect(withSet.trainerExercises.map((x) => x.id)).toEqual([setId]);
+    expect(withSet.trainerExercises[0]!.exercises).toHaveLength(1);
   });
 
   it('opens a version-1 plant file as a new, unsaved-to-file project; Save asks where', async () => {

@@ -92,7 +92,7 @@ describe('SynchronizingView with the engine', () => {
     const r = sync.result!;
     const engineResult = evaluateSync(sync.buildCase(-73.4));
     expect(r.angleNowDeg).toBe(engineResult.angleNowDeg);
-    expectClose(drawnAngle(w, 'scope-incoming-A', 340), engineResult.angleNowDeg, { abs: 1e-9 }, 'drawn angle = engine angle');
+    expectClose(drawnAngle(w, 'scope-incoming-A', 300), engineResult.angleNowDeg, { abs: 1e-9 }, 'drawn angle = engine angle');
     expect(w.get('[data-test="permissive"]').text()).toContain('Blocked: closing is not allowed now');
     expect(w.get('[data-test="readout-angle"]').text()).toContain('-73.4 °');
     expect(w.get('[data-test="readout-angle"]').text()).toContain('✗ outside');
@@ -103,7 +103,7 @@ describe('SynchronizingView with the engine', () => {
     sync.setLive({ angleDeg: -2 }, 0);
     await flushPromises();
     expect(w.get('[data-test="permissive"]').text()).toContain('Permissive: closing is allowed now');
-    expectClose(drawnAngle(w, 'scope-incoming-A', 340), -2, { abs: 1e-9 }, 'drawn angle after edit');
+    expectClose(drawnAngle(w, 'scope-incoming-A', 300), -2, { abs: 1e-9 }, 'drawn angle after edit');
     w.unmount();
   });
 

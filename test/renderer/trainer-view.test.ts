@@ -9,6 +9,8 @@ import { useTrainerStore } from '../../renderer/stores/trainer';
 import { setEngineClient } from '../../renderer/transport';
 import { directClient } from '../helpers/direct-client';
 import type { TrainerAttempt } from '../../shared-types';
+import { CSV_CAUTION_LINE } from '../../shared-types';
+import { sessionCsv } from '../../renderer/components/trainer/session-csv';
 
 /** The operator looks and acts every 50 ms (the live view steps every animation frame; the model is the same). */
 const FRAME_S = 0.05;
@@ -144,6 +146,37 @@ describe('TrainerView driven by key presses', () => {
     expect(w!.get('[data-test="attempt-0"] [data-test="attempt-trainee"]').text()).toBe('R. Okafor');
   }, 30_000);
 
+  it("draws the trainee's path on the window plane and, after the close, the command and contact points", async () => {
+    const trainer = await setUp(2024);
+    const op = operator(trainer);
+    await op.frames(10);
+    // 0.05 s frames, a sample every 0.05 s: the start and ten steps.
+    expect(trainer.path.length).toBe(11);
+    // Closed form: command at −360° × slip × 0.08 s for the level's 80 ms breaker.
+    expect(trainer.commandAngleDeg()).toBeCloseTo(-360 * trainer.slipHz * 0.08, 9);
+    expect(w!.find('[data-test="plane-trace"]').exists()).toBe(true);
+    op.down(' ');
+    await op.frames(4);
+    await flushPromises();
+    const c = trainer.state!.contact!;
+    expect(trainer.path.at(-1)).toEqual({ tS: c.atS, angleDeg: c.angleDeg, slipHz: c.slipHz });
+    expect(trainer.commandAngleDeg()).toBeNull();
+    expect(w!.find('[data-test="plane-command"]').exists()).toBe(true);
+    expect(w!.find('[data-test="plane-contact"]').exists()).toBe(true);
+    expect(w!.get('[data-test="plane-now"]').text()).toContain(`At contact: ${c.angleDeg < 0 ? '−' : '+'}${Math.abs(c.angleDeg).toFixed(1)}°`);
+  }, 30_000);
+
+  it('never lets a step of the old exercise land after a new one has started', async () => {
+    const trainer = await setUp(12);
+    // A frame asks for a step while a new exercise (with a fault) is starting: the step must not overwrite it.
+    const starting = trainer.start(13, { breakerSlowMs: 100 });
+    const step = trainer.advance(0.05);
+    await Promise.all([starting, step]);
+    expect(trainer.state!.seed).toBe(13);
+    expect(trainer.state!.faults).toEqual({ breakerSlowMs: 100 });
+    expect(trainer.state!.tS).toBe(0);
+  });
+
   it('repeats the same start from the same seed', async () => {
     const trainer = await setUp(77);
     const first = trainer.state!;
@@ -183,6 +216,95 @@ describe('TrainerView driven by key presses', () => {
     expect(trainer.canClose).toBe(true);
     await trainer.advance(FRAME_S);
     expect(trainer.state!.window).toEqual({ slipHz: 0.1, angleDeg: 10, voltagePct: 5 });
+  });
+
+  it('runs an instructor\'s exercise with a slow breaker: the trainee commands by the setting, contact lands late, and the verdict says why it failed', async () => {
+    const trainer = await setUp(2024);
+    // The instructor builds a one-exercise set in the panel: level 1 (80 ms breaker), seed 2024, breaker 400 ms slower.
+    await w!.get('[data-test="instructor-add-set"]').trigger('click');
+    const set = trainer.exerciseSets[0]!;
+    const row = w!.get(`[data-test="exercise-${set.exercises[0]!.id}"]`);
+    await row.get('[data-test="ex-level"]').setValue('steady');
+    await row.get('[data-test="ex-seed"]').setValue('2024');
+    await row.get('[data-test="fault-breaker"]').setValue(true);
+    await flushPromises();
+    await w!.get('[data-test="fault-breaker-ms"]').setValue('400');
+    await flushPromises();
+    expect(trainer.exerciseSets[0]!.exercises[0]!.faults).toEqual({ breakerSlowMs: 400 });
+    await w!.get('[data-test="set-run"]').trigger('click');
+    await flushPromises();
+    expect(trainer.state!.faults).toEqual({ breakerSlowMs: 400 });
+    expect(trainer.state!.level.breakerClosingMs).toBe(80);
+    expect(w!.get('[data-test="session-bar"]').text()).toContain('exercise 1 of 1');
+
+    // The trainee knows only the 80 ms setting: commands one 80 ms advance short of zero.
+    const op = operator(trainer);
+    await op.match(0.09);
+    const adv = 360 * trainer.slipHz * 0.08;
+    await op.waitForAngle(-adv - 1, -adv + 0.5);
+    op.down(' ');
+    await op.frames(14);
+    await flushPromises();
+    const v = trainer.verdict!;
+    // Contact 480 ms after the command: the angle moved 360 × slip × 0.48 s ≈ 15° (closed form), past the ±10° window.
+    expect(v.contact.atS - trainer.state!.closeCommandAtS!).toBeCloseTo(0.48, 9);
+    expect(v.contact.angleDeg).toBeGreaterThan(10);
+    expect(v.insideWindow).toBe(false);
+    expect(v.verdict).toContain('The breaker took 480 ms, 400 ms slower than its 80 ms setting');
+    expect(v.pass).toEqual({ passed: false, reasons: expect.arrayContaining(['The contact was outside the graded window.']) });
+    expect(w!.get('[data-test="session-pass"]').text()).toContain('Not passed');
+    const a = trainer.attempts[0]!;
+    expect(a.passed).toBe(false);
+    expect(a.faults).toBe('breaker 400 ms slower than its setting');
+    expect(a.exerciseSetId).toBe(set.id);
+    expect(w!.get('[data-test="session-summary"]').text()).toContain('Session finished: 0 of 1 passed');
+    const csv = sessionCsv(trainer.session!.setName, trainer.sessionAttempts);
+    const lines = csv.split('\r\n');
+    expect(lines[0]).toBe(CSV_CAUTION_LINE);
+    expect(lines[1]).toContain('1 attempt, 0 passed');
+    expect(lines[2]).toContain('score (0-100),passed');
+    expect(lines[3]).toContain(`,${v.score},no,`);
+  }, 60_000);
+
+  it('runs a dead-bus exercise: the trainee brings the set to rated and energises the bus, and passes', async () => {
+    const trainer = await setUp(606);
+    const setId = trainer.addExerciseSet('Dead bus');
+    const exId = trainer.exerciseSets[0]!.exercises[0]!.id;
+    await trainer.editExercise(setId, exId, (e) => ({ ...e, levelId: 'steady', seed: 606, faults: { deadBus: true }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: true } }));
+    await trainer.startSession(setId);
+    await flushPromises();
+    expect(trainer.state!.busVoltageV).toBe(0);
+    expect(w!.get('[data-test="trainer-state"]').text()).toContain('Dead bus');
+    const op = operator(trainer);
+    // Slip here reads the distance from rated frequency; voltage difference the distance from rated voltage.
+    await op.match(0);
+    op.down(' ');
+    await op.frames(6);
+    await flushPromises();
+    const v = trainer.verdict!;
+    expect(v.deadBusClose).toBe(true);
+    expect(v.insideWindow).toBe(true);
+    expect(v.pass!.passed).toBe(true);
+    expect(w!.get('[data-test="session-pass"]').text()).toContain('Passed');
+    expect(w!.find('[data-test="traces-source"]').exists()).toBe(false);
+  }, 60_000);
+
+  it('refuses an exercise field beside it, stops the set from running and keeps the last accepted exercise for the project', async () => {
+    const trainer = await setUp(3);
+    await w!.get('[data-test="instructor-add-set"]').trigger('click');
+    const set = trainer.exerciseSets[0]!;
+    const good = trainer.snapshotExercises();
+    const row = w!.get(`[data-test="exercise-${set.exercises[0]!.id}"]`);
+    await row.get('[data-test="pass-score"]').setValue('120');
+    await flushPromises();
+    expect(w!.get('[data-test="ex-error-pass.minScore"]').text()).toContain('pass mark must be 100 or less');
+    expect(w!.get('[data-test="set-run"]').attributes('disabled')).toBeDefined();
+    expect(w!.get('[data-test="set-problem"]').text()).toContain('Put right the refused fields');
+    expect(trainer.snapshotExercises()).toEqual(good);
+    await row.get('[data-test="pass-score"]').setValue('80');
+    await flushPromises();
+    expect(w!.find('[data-test="ex-error-pass.minScore"]').exists()).toBe(false);
+    expect(trainer.snapshotExercises()[0]!.exercises[0]!.pass.minScore).toBe(80);
   });
 
   it('keeps the log with the project: snapshot and restore', () => {

@@ -82,3 +82,10 @@ export const DEFAULT_TRAINER_MACHINE: TrainerMachine = {
 
 /** A running bus of 2000 kVA of sets with X''d about 0.15 pu (invented for the demo). */
 export const DEFAULT_TRAINER_BUS: TrainerBus = { ratedKVA: 2000, xPU: 0.15, inertiaS: 1.2 };
+
+/**
+ * How close to rated a set must be to energise a dead bus: voltage within ±5 % and frequency within ±0.5 Hz
+ * (1 % of 50 Hz) of rated — common practice for a set closing onto a dead bus (a rule of thumb, not a standard's
+ * figure; verify against the plant's own dead-bus closing settings).
+ */
+export const DEAD_BUS_CLOSE_LIMITS = { voltagePct: 5, frequencyHz: 0.5 } as const;

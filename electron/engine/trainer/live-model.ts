@@ -29,6 +29,11 @@ export function governorDroopPU(machine: TrainerMachine): number {
 }
 
 
+/** The breaker's real closing time, ms: the level's setting plus any slow-down scripted as a fault. */
+export function breakerActualMs(state: TrainerState): number {
+  return state.level.breakerClosingMs + (state.faults?.breakerSlowMs ?? 0);
+}
+
 /** Bus frequency at time `tS` with its drift (two slow sines of seeded phase), Hz. */
 export function busFrequencyAt(state: TrainerState, tS: number): number {
   const a = state.level.busDriftHz;
@@ -67,7 +72,8 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
   const fMax = 1.1 * fr;
   const vMin = 0.85 * vr;
   const vMax = 1.15 * vr;
-  const contactAtS = s.closeCommandAtS === null ? Infinity : s.closeCommandAtS + s.level.breakerClosingMs / 1000;
+  // The breaker's real closing time: its setting, plus the slow-down an instructor scripted.
+  const contactAtS = s.closeCommandAtS === null ? Infinity : s.closeCommandAtS + breakerActualMs(s) / 1000;
   const endS = Math.min(s.tS + dtS, contactAtS);
 
   let t = s.tS;
@@ -122,7 +128,18 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
   s.voltageReferenceV = vRef;
   s.busFrequencyHz = fBus;
 
-  if (t >= contactAtS - 1e-9) {
+  if (t >= contactAtS - 1e-9 && s.faults?.deadBus) {
+    // Energising a dead bus: no angle across the breaker; the incoming set's voltage and frequency against rated.
+    s.phase = 'closed';
+    s.contact = {
+      atS: t,
+      angleDeg: 0,
+      slipHz: s.incomingFrequencyHz - fr,
+      voltageDifferencePct: 100 * (s.incomingVoltageV / vr - 1),
+      deltaVPU: s.incomingVoltageV / vr,
+      commandAngleDeg: 0,
+    };
+  } else if (t >= contactAtS - 1e-9) {
     const vb = s.busVoltageV;
     const ratio = s.incomingVoltageV / vb;
     const rad = (angle * Math.PI) / 180;

@@ -3,14 +3,15 @@
  * the surge and torque step against the machine's limits, a score and a plain-language
  * verdict, plus the traces of the first seconds after closing.
  */
-import type { Plant, SyncLimits, TrainerCheck, TrainerState, TrainerTraces, TrainerVerdict } from '../../../shared-types';
+import type { Plant, SyncLimits, TrainerCheck, TrainerPassCriteria, TrainerState, TrainerTraces, TrainerVerdict } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { afterCloseTraces } from './after-close';
 import { afterClosePlantTraces } from './after-close-plant';
 import type { AfterCloseOptions } from './after-close';
 import { contactStress } from './contact-stress';
-import { MACHINE_STANDARD_WINDOW } from './levels';
-import { governorDroopPU } from './live-model';
+import { DEAD_BUS_CLOSE_LIMITS, MACHINE_STANDARD_WINDOW } from './levels';
+import { breakerActualMs, governorDroopPU } from './live-model';
+import { judgePass } from './pass';
 import { wrapAngleDeg } from '../sync/phasor';
 
 const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
@@ -63,9 +64,98 @@ function looserWindow(set: SyncLimits | null, ref: SyncLimits): string[] {
  * traces come from the plant's simulator, else from the two-machine swing model.
  * @throws InvalidInput when the breaker has not closed yet.
  */
-export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptions> = {}, plant?: Plant): TrainerVerdict {
+export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptions> = {}, plant?: Plant, pass?: TrainerPassCriteria): TrainerVerdict {
+  const v = judgeContact(state, options, plant);
+  return pass ? { ...v, pass: judgePass(v, pass) } : v;
+}
+
+/** Sentences about the faults the instructor scripted, said after the close (the trainee was not told before). */
+function faultSentences(state: TrainerState): string[] {
+  const fault = state.faults;
+  if (!fault) return [];
+  const out: string[] = [];
+  if (fault.breakerSlowMs) {
+    const set = state.level.breakerClosingMs;
+    const c = state.contact;
+    const s = c ? c.slipHz : 0;
+    out.push(
+      `The breaker took ${f(breakerActualMs(state), 0)} ms, ${f(fault.breakerSlowMs, 0)} ms slower than its ${f(set, 0)} ms setting: ` +
+        `at this slip the angle moved ${f(Math.abs(360 * s * (fault.breakerSlowMs / 1000)), 1)}° more than the advance the setting allows for.`,
+    );
+  }
+  if (fault.wrongWindow && !state.level.mustSetWindow) {
+    const w = fault.wrongWindow;
+    const r = state.referenceWindow;
+    out.push(
+      `The sync-check window you were shown (±${f(w.angleDeg, 1)}°, ${f(w.slipHz, 3)} Hz, ${f(w.voltagePct, 1)} %) was set wrong; ` +
+        `the close is graded to ±${f(r.angleDeg, 1)}°, ${f(r.slipHz, 3)} Hz, ${f(r.voltagePct, 1)} %.`,
+    );
+  }
+  if (fault.busDriftHz !== undefined && fault.busDriftHz > 0 && !fault.deadBus) out.push(`The droop bus wandered by up to ±${f(fault.busDriftHz, 2)} Hz.`);
+  return out;
+}
+
+/** The verdict of a dead-bus close: the incoming set's voltage and frequency against rated; no surge, no swing. */
+function judgeDeadBus(state: TrainerState, c: NonNullable<TrainerState['contact']>): TrainerVerdict {
+  const L = DEAD_BUS_CLOSE_LIMITS;
+  const source = 'dead-bus close (common practice)';
+  const checks: TrainerCheck[] = [
+    { quantity: 'Incoming voltage from rated', unit: '%', value: c.voltageDifferencePct, limit: L.voltagePct, source, within: Math.abs(c.voltageDifferencePct) <= L.voltagePct },
+    { quantity: 'Incoming frequency from rated', unit: 'Hz', value: c.slipHz, limit: L.frequencyHz, source, within: Math.abs(c.slipHz) <= L.frequencyHz },
+  ];
+  const insideWindow = checks.every((k) => k.within);
+  const rv = Math.abs(c.voltageDifferencePct) / L.voltagePct;
+  const rf = Math.abs(c.slipHz) / L.frequencyHz;
+  const raw = insideWindow ? 100 - 25 * rv - 25 * rf : 50 * Math.pow(0.5, Math.max(rv, rf, 1) - 1);
+  const score = Math.round(Math.min(100, Math.max(0, raw)));
+  const grade: TrainerVerdict['grade'] = !insideWindow ? 'rough' : score >= 80 ? 'good' : 'fair';
+  const m = state.machine;
+  const at = `${f(m.ratedVoltageV * (1 + c.voltageDifferencePct / 100), 0)} V (${signed(c.voltageDifferencePct, 1)} % of rated), ${f(m.ratedFrequencyHz + c.slipHz, 2)} Hz (${signed(c.slipHz, 2)} Hz from rated)`;
+  const parts = [
+    insideWindow ? `Dead bus energised at ${at}: the bus takes rated voltage and frequency.` : `Dead bus energised off rated, at ${at}.`,
+    ...checks.filter((k) => !k.within).map((k) => `${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 2 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 2 : 1)} ${k.unit} a dead-bus close allows.`),
+    'A dead bus has no voltage to synchronize to: no surge from an angle or slip; the loads the bus then picks up are not modelled here.',
+    ...faultSentences(state),
+  ];
+  const verdict = parts.join(' ');
+  const none: TrainerTraces = { tS: [], angleDeg: [], currentPU: [], powerPU: [], speedHz: [], source: 'two-machine' };
+  return {
+    contact: { ...c },
+    surgeCurrentPU: 0,
+    surgeCurrentA: 0,
+    peakCurrentA: 0,
+    torqueStepPU: 0,
+    torqueStepKNm: 0,
+    peakTorquePU: 0,
+    peakTorqueKNm: 0,
+    machineLimits: { surgeCurrentPU: 0, torqueStepPU: 0, peakTorquePU: 0, peakCurrentPU: 0, peakPowerPU: 0, source: 'none: a dead-bus close has no synchronizing surge' },
+    checks,
+    insideWindow,
+    withinMachineLimits: true,
+    score,
+    grade,
+    verdict,
+    deadBusClose: true,
+    traces: none,
+    tracesNote: 'A dead-bus close has no synchronizing swing: no traces.',
+    attempt: {
+      seed: state.seed,
+      level: state.levelId,
+      angleAtContactDeg: c.angleDeg,
+      slipAtContactHz: c.slipHz,
+      voltageDifferencePct: c.voltageDifferencePct,
+      surgeCurrentPU: 0,
+      torqueStepPU: 0,
+      score,
+      verdict,
+    },
+  };
+}
+
+function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, plant?: Plant): TrainerVerdict {
   const c = state.contact;
   if (state.phase !== 'closed' || !c) throw new InvalidInput('state: the breaker has not closed yet; give the close command and step until contact.');
+  if (state.faults?.deadBus) return judgeDeadBus(state, c);
   const m = state.machine;
   const ref = state.referenceWindow;
   const busPU = state.busVoltageV / m.ratedVoltageV;
@@ -195,10 +285,11 @@ export function judgeClose(state: TrainerState, options: Partial<AfterCloseOptio
   const travel = wrapAngleDeg(c.angleDeg - c.commandAngleDeg);
   if (Math.abs(c.slipHz) > 1e-6 && Math.abs(c.angleDeg) > 3) {
     parts.push(
-      `The command went at ${signed(c.commandAngleDeg, 1)}°; during the breaker's ${state.level.breakerClosingMs} ms the angle moved ${signed(travel, 1)}° (the incoming set ran ${c.slipHz > 0 ? 'fast' : 'slow'}), to ${signed(c.angleDeg, 1)}° at contact.`,
+      `The command went at ${signed(c.commandAngleDeg, 1)}°; during the breaker's ${f(breakerActualMs(state), 0)} ms the angle moved ${signed(travel, 1)}° (the incoming set ran ${c.slipHz > 0 ? 'fast' : 'slow'}), to ${signed(c.angleDeg, 1)}° at contact.`,
     );
   }
   if (loose.length) parts.push(`The window you set was too loose: ${loose.join('; ')}.`);
+  parts.push(...faultSentences(state));
 
   const verdict = parts.join(' ');
   return {

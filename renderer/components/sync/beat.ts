@@ -1,8 +1,11 @@
 /**
- * Samples for the beat display: one phase of bus and incoming voltage and their
- * difference, reduced to a min/max band per pixel column so 50 Hz over tens of seconds
- * draws honestly (the band is the waveform's extent in that column).
+ * The beat: the envelope of the voltage across the open breaker, |ΔV|(t) = |V_inc − V_bus| as
+ * phasors (law of cosines), over a few slip cycles; the stretches where the phase angle is
+ * inside the window; the moments the close command is due; and a few mains cycles of both
+ * waveforms around one close command, where the individual cycles are readable. Pure functions
+ * of the case; the angle at time t is the case's angle run on at the slip (`angleAfterDeg`).
  */
+import { angleAfterDeg } from '../../../shared-types';
 
 /** The two sources, per unit peak; angle of the incoming relative to the bus at t = 0, degrees. */
 export interface BeatCase {
@@ -13,70 +16,87 @@ export interface BeatCase {
   angleDeg: number;
 }
 
-/** Min/max per column for bus, incoming and difference, and the difference's envelope. */
-export interface BeatBands {
-  spanS: number;
-  busMin: Float64Array;
-  busMax: Float64Array;
-  incMin: Float64Array;
-  incMax: Float64Array;
-  diffMin: Float64Array;
-  diffMax: Float64Array;
-  /** Peak of the difference, |V_inc − V_bus| as phasors, at each column's centre. */
-  envelope: Float64Array;
-}
-
 /** Time span covering `cycles` slip cycles (1 s at zero slip, at most `maxS`). */
 export function beatSpanS(slipHz: number, cycles = 3, maxS = 60): number {
   const s = Math.abs(slipHz);
   return s < 1e-6 ? 1 : Math.min(maxS, cycles / s);
 }
 
-/** Bands over [0, spanS] in `columns` columns, `perColumn` samples in each. */
-export function beatBands(c: BeatCase, spanS: number, columns: number, perColumn = 24): BeatBands {
-  const mk = (): Float64Array => new Float64Array(columns);
-  const b: BeatBands = { spanS, busMin: mk(), busMax: mk(), incMin: mk(), incMax: mk(), diffMin: mk(), diffMax: mk(), envelope: mk() };
-  const wb = 2 * Math.PI * c.busFrequencyHz;
-  const wi = 2 * Math.PI * c.incomingFrequencyHz;
-  const phi = (c.angleDeg * Math.PI) / 180;
-  const dt = spanS / columns;
-  const env = (t: number): number => Math.sqrt(Math.max(0, c.busPU ** 2 + c.incomingPU ** 2 - 2 * c.busPU * c.incomingPU * Math.cos(phi + (wi - wb) * t)));
-  // A column spanning a whole mains cycle or more holds every value of the sinusoid: its band is ± the
-  // amplitude (for the difference, ± the largest envelope in the column). Sampling there would alias.
-  const wholeCycles = dt * Math.min(c.busFrequencyHz, c.incomingFrequencyHz) >= 1;
-  for (let k = 0; k < columns; k++) {
-    if (wholeCycles) {
-      const e = Math.max(env(k * dt), env((k + 0.5) * dt), env((k + 1) * dt));
-      b.busMin[k] = -c.busPU;
-      b.busMax[k] = c.busPU;
-      b.incMin[k] = -c.incomingPU;
-      b.incMax[k] = c.incomingPU;
-      b.diffMin[k] = -e;
-      b.diffMax[k] = e;
-      b.envelope[k] = env((k + 0.5) * dt);
-      continue;
-    }
-    let bMin = Infinity, bMax = -Infinity, iMin = Infinity, iMax = -Infinity, dMin = Infinity, dMax = -Infinity;
-    for (let n = 0; n < perColumn; n++) {
-      // Jitter-free, evenly spread samples; a column covers many mains cycles when the span is long.
-      const t = (k + n / perColumn) * dt;
-      const vb = c.busPU * Math.sin(wb * t);
-      const vi = c.incomingPU * Math.sin(wi * t + phi);
-      const d = vi - vb;
-      if (vb < bMin) bMin = vb;
-      if (vb > bMax) bMax = vb;
-      if (vi < iMin) iMin = vi;
-      if (vi > iMax) iMax = vi;
-      if (d < dMin) dMin = d;
-      if (d > dMax) dMax = d;
-    }
-    b.busMin[k] = bMin;
-    b.busMax[k] = bMax;
-    b.incMin[k] = iMin;
-    b.incMax[k] = iMax;
-    b.diffMin[k] = dMin;
-    b.diffMax[k] = dMax;
-    b.envelope[k] = env((k + 0.5) * dt);
+const slipOf = (c: BeatCase): number => c.incomingFrequencyHz - c.busFrequencyHz;
+
+/** |ΔV| at time `tS`, pu: sqrt(Vb² + Vi² − 2 Vb Vi cos θ(t)) (law of cosines, closed form). */
+export function envelopeAt(c: BeatCase, tS: number): number {
+  const th = (angleAfterDeg(c.angleDeg, slipOf(c), tS) * Math.PI) / 180;
+  return Math.sqrt(Math.max(0, c.busPU ** 2 + c.incomingPU ** 2 - 2 * c.busPU * c.incomingPU * Math.cos(th)));
+}
+
+/** The envelope at `n` evenly spaced times over [0, spanS] (both ends included). */
+export function beatEnvelope(c: BeatCase, spanS: number, n: number): { tS: Float64Array; dvPU: Float64Array } {
+  const tS = new Float64Array(n);
+  const dvPU = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    tS[k] = (spanS * k) / Math.max(1, n - 1);
+    dvPU[k] = envelopeAt(c, tS[k]!);
   }
-  return b;
+  return { tS, dvPU };
+}
+
+/**
+ * The stretches of [0, spanS] where the phase angle is inside ±windowDeg (closed form: the unwrapped angle
+ * a0 + 360 s t within k·360° ± W), in time order. At zero slip: all of it or none.
+ */
+export function windowOpenSpans(c: BeatCase, spanS: number, windowDeg: number): [number, number][] {
+  const s = slipOf(c);
+  const w = Math.min(Math.max(windowDeg, 0), 180);
+  if (!Number.isFinite(s) || !Number.isFinite(c.angleDeg) || !(spanS > 0)) return [];
+  if (Math.abs(s) < 1e-9) return Math.abs(angleAfterDeg(c.angleDeg, 0, 0)) <= w ? [[0, spanS]] : [];
+  const a0 = c.angleDeg;
+  const a1 = a0 + 360 * s * spanS;
+  const lo = Math.min(a0, a1);
+  const hi = Math.max(a0, a1);
+  const out: [number, number][] = [];
+  for (let k = Math.floor((lo - w) / 360); k * 360 - w <= hi; k++) {
+    const t0 = (k * 360 - w - a0) / (360 * s);
+    const t1 = (k * 360 + w - a0) / (360 * s);
+    const from = Math.max(0, Math.min(t0, t1));
+    const to = Math.min(spanS, Math.max(t0, t1));
+    if (to > from) out.push([from, to]);
+  }
+  return out.sort((x, y) => x[0] - y[0]);
+}
+
+/** The times in [0, spanS] when the angle reaches `commandAngleDeg` (the close command is due), in order. */
+export function commandTimes(c: BeatCase, spanS: number, commandAngleDeg: number): number[] {
+  const s = slipOf(c);
+  if (!Number.isFinite(s) || Math.abs(s) < 1e-9 || !Number.isFinite(commandAngleDeg)) return [];
+  const period = 1 / Math.abs(s);
+  // First time the wrapped angle difference closes: (cmd − a0) / (360 s), taken modulo the slip period.
+  let t = ((commandAngleDeg - c.angleDeg) / (360 * s)) % period;
+  if (t < 0) t += period;
+  const out: number[] = [];
+  for (; t <= spanS + 1e-12; t += period) out.push(t);
+  return out;
+}
+
+/** Both phase-A waveforms and their difference over `cycles` mains cycles centred on `centreS`, `n` points. */
+export function waveformsAround(
+  c: BeatCase,
+  centreS: number,
+  cycles: number,
+  n: number,
+): { tS: Float64Array; bus: Float64Array; incoming: Float64Array; difference: Float64Array } {
+  const half = cycles / (2 * Math.max(1e-6, c.busFrequencyHz));
+  const tS = new Float64Array(n);
+  const bus = new Float64Array(n);
+  const incoming = new Float64Array(n);
+  const difference = new Float64Array(n);
+  const phi = (c.angleDeg * Math.PI) / 180;
+  for (let k = 0; k < n; k++) {
+    const t = centreS - half + (2 * half * k) / Math.max(1, n - 1);
+    tS[k] = t;
+    bus[k] = c.busPU * Math.sin(2 * Math.PI * c.busFrequencyHz * t);
+    incoming[k] = c.incomingPU * Math.sin(2 * Math.PI * c.incomingFrequencyHz * t + phi);
+    difference[k] = incoming[k]! - bus[k]!;
+  }
+  return { tS, bus, incoming, difference };
 }

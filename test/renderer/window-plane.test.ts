@@ -1,0 +1,178 @@
+import 'vitest-canvas-mock';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { flushPromises, mount } from '@vue/test-utils';
+import type { VueWrapper } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import WindowPlane from '../../renderer/components/sync/WindowPlane.vue';
+import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
+import {
+  angleAtX,
+  keepRecent,
+  planeFrame,
+  planeSlipSpanHz,
+  planeX,
+  planeY,
+  slipAtY,
+  tracePath,
+  windowRect,
+  windowSlipEdges,
+} from '../../renderer/components/sync/window-plane';
+import { usePlantStore } from '../../renderer/stores/plant';
+import { useSyncStore } from '../../renderer/stores/sync';
+import { setEngineClient } from '../../renderer/transport';
+import { evaluateSync } from '../../electron/engine';
+import type { SyncCase } from '../../shared-types';
+import { directClient } from '../helpers/direct-client';
+import { expectClose } from '../helpers/expect-close';
+
+/** The (angle, slip) a drawn marker stands for, read back through the plane's inverse. */
+function drawnPoint(w: Pick<VueWrapper, 'get'>, test: string): { angleDeg: number; slipHz: number } {
+  const span = Number(w.get('svg').attributes('data-slip-span'));
+  const f = planeFrame(span);
+  const el = w.get(`[data-test="${test}"]`);
+  return { angleDeg: angleAtX(f, Number(el.attributes('cx'))), slipHz: slipAtY(f, Number(el.attributes('cy'))) };
+}
+
+const CASE: SyncCase = {
+  bus: { frequencyHz: 50, voltageV: 400 },
+  incoming: { frequencyHz: 50.12, voltageV: 408, angleDeg: -41.3, ratedKVA: 500, xddpPU: 0.15 },
+  busSource: { ratedKVA: 2000, xPU: 0.15 },
+  breakerClosingMs: 120,
+  limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5, incomingFaster: true },
+};
+
+describe('window plane geometry', () => {
+  it('puts −180° at the left edge, +180° at the right, zero slip in the middle, and inverts exactly', () => {
+    const f = planeFrame(0.5);
+    // Closed form of the frame: plot from pad.l to width − pad.r across, pad.t to height − pad.b down.
+    expect(planeX(f, -180)).toBe(f.pad.l);
+    expect(planeX(f, 180)).toBe(f.width - f.pad.r);
+    expectClose(planeY(f, 0), f.pad.t + (f.height - f.pad.t - f.pad.b) / 2, { abs: 1e-12 }, 'zero slip mid-height');
+    expect(planeY(f, 0.5)).toBe(f.pad.t);
+    for (const a of [-179.5, -37.2, 0, 12.5, 180]) expectClose(angleAtX(f, planeX(f, a)), a, { abs: 1e-9 }, `angle ${a}`);
+    for (const s of [-0.5, -0.013, 0, 0.2, 0.47]) expectClose(slipAtY(f, planeY(f, s)), s, { abs: 1e-12 }, `slip ${s}`);
+  });
+
+  it('sizes the slip axis for 2.5 × the limit, the slip now and the map, on a round value', () => {
+    expect(planeSlipSpanHz(0.2, 0.1)).toBe(0.5);
+    expect(planeSlipSpanHz(0.2, 0.9)).toBeGreaterThanOrEqual(1.125);
+    expect(planeSlipSpanHz(0.1, 0.05, 0.6)).toBeGreaterThanOrEqual(0.6);
+    expect(planeSlipSpanHz(null, null)).toBe(0.2);
+  });
+
+  it('draws a one-sided window from zero slip up when the incoming set must run faster', () => {
+    const f = planeFrame(0.5);
+    const r = windowRect(f, { angleDeg: 10, ...windowSlipEdges({ slipHz: 0.2, incomingFaster: true }) });
+    expectClose(r.x, planeX(f, -10), { abs: 1e-9 }, 'left edge');
+    expectClose(r.x + r.w, planeX(f, 10), { abs: 1e-9 }, 'right edge');
+    expectClose(r.y, planeY(f, 0.2), { abs: 1e-9 }, 'top edge at the limit');
+    expectClose(r.y + r.h, planeY(f, 0), { abs: 1e-9 }, 'bottom edge at zero slip');
+    const two = windowRect(f, { angleDeg: 10, ...windowSlipEdges({ slipHz: 0.2 }) });
+    expectClose(two.y + two.h, planeY(f, -0.2), { abs: 1e-9 }, 'two-sided bottom edge');
+  });
+
+  it('breaks the trace where the angle wraps through ±180° and keeps a fast slip turning the right way', () => {
+    const f = planeFrame(2);
+    // 1 Hz slip sampled every 0.2 s: 72° a sample, from 150° across +180° to −138°.
+    const d = tracePath(f, [
+      { tS: 0, angleDeg: 150, slipHz: 1 },
+      { tS: 0.2, angleDeg: -138, slipHz: 1 },
+    ]);
+    const moves = d.match(/M/g)!.length;
+    expect(moves).toBe(2);
+    expect(d).toContain(`L ${planeX(f, 180).toFixed(1)}`);
+    expect(d).toContain(`M ${planeX(f, -180).toFixed(1)}`);
+    // Slow incoming (−1 Hz): from −150° back across −180° to +138°.
+    const back = tracePath(f, [
+      { tS: 0, angleDeg: -150, slipHz: -1 },
+      { tS: 0.2, angleDeg: 138, slipHz: -1 },
+    ]);
+    expect(back).toContain(`L ${planeX(f, -180).toFixed(1)}`);
+    expect(back).toContain(`M ${planeX(f, 180).toFixed(1)}`);
+    // A 3 Hz slip sampled every 0.2 s turns 216° a sample: the unwrap follows the slip, crossing once, not going back.
+    const fast = tracePath(f, [
+      { tS: 0, angleDeg: 0, slipHz: 3 },
+      { tS: 0.2, angleDeg: -144, slipHz: 3 },
+    ]);
+    expect(fast.match(/M/g)!.length).toBe(2);
+    expect(keepRecent([{ tS: 1, angleDeg: 0, slipHz: 0 }, { tS: 5, angleDeg: 0, slipHz: 0 }], 6, 3)).toHaveLength(1);
+  });
+});
+
+describe('window plane component', () => {
+  it("draws the operating point at the engine's angle and slip, and the command and contact points on its slip line", () => {
+    const r = evaluateSync(CASE);
+    const w = mount(WindowPlane, {
+      props: {
+        angleDeg: r.angleNowDeg,
+        slipHz: r.slipHz,
+        window: { angleDeg: r.limits.angleDeg, ...windowSlipEdges(r.limits) },
+        commandAngleDeg: r.closeCommandAngleDeg,
+        contactAngleDeg: r.closeNow.angleAtContactDeg,
+      },
+    });
+    const p = drawnPoint(w, 'plane-point');
+    expectClose(p.angleDeg, r.angleNowDeg, { abs: 1e-9 }, 'drawn angle = engine angle');
+    expectClose(p.slipHz, r.slipHz, { abs: 1e-9 }, 'drawn slip = engine slip');
+    // Closed form: slip 0.12 Hz, breaker 120 ms → advance 360 × 0.12 × 0.12 = 5.184°; contact now = −41.3 + 5.184.
+    const contact = w.get('[data-test="plane-contact"] circle');
+    const span = Number(w.get('svg').attributes('data-slip-span'));
+    expectClose(angleAtX(planeFrame(span), Number(contact.attributes('cx'))), -41.3 + 5.184, { abs: 1e-9 }, 'contact if commanded now');
+    const cmd = w.get('[data-test="plane-command"] path').attributes('d')!;
+    const cmdX = Number(cmd.split(' ')[1]);
+    expectClose(angleAtX(planeFrame(span), cmdX), -5.184, { abs: 1e-9 }, 'command point one advance angle before the in-phase moment');
+    expect(w.get('[data-test="plane-now"]').text()).toContain('outside the window');
+    expect(w.find('[data-test="plane-window"]').exists()).toBe(true);
+  });
+
+  it('draws no point without a verdict and says so', () => {
+    const w = mount(WindowPlane, { props: { angleDeg: null, slipHz: null } });
+    expect(w.find('[data-test="plane-point"]').exists()).toBe(false);
+    expect(w.get('[data-test="plane-now"]').text()).toContain('No operating point');
+  });
+});
+
+describe('window plane in the Synchronizing view', () => {
+  beforeEach(() => {
+    setActivePinia(createPinia());
+    setEngineClient(directClient());
+    vi.stubGlobal('requestAnimationFrame', () => 1);
+    vi.stubGlobal('cancelAnimationFrame', () => undefined);
+  });
+  afterEach(() => vi.unstubAllGlobals());
+
+  it("draws the store's verdict: the point is the engine's angle and slip for the case on the scope", async () => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    sync.setTurning(false, 0);
+    sync.setLive({ busFrequencyHz: 50, incomingFrequencyHz: 49.93, busVoltageV: 400, incomingVoltageV: 398, angleDeg: 121.7 }, 0);
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    const engineResult = evaluateSync(sync.buildCase(121.7));
+    const plane = w.getComponent(WindowPlane);
+    const p = drawnPoint(plane, 'plane-point');
+    expectClose(p.angleDeg, engineResult.angleNowDeg, { abs: 1e-9 }, 'drawn angle = engine angle');
+    expectClose(p.slipHz, engineResult.slipHz, { abs: 1e-9 }, 'drawn slip = engine slip');
+    expect(plane.get('[data-test="plane-now"]').text()).toContain('outside the window');
+
+    // A refused field withdraws the point along with the verdict.
+    sync.setBreakerClosingMs(-5);
+    await flushPromises();
+    expect(sync.invalid).toBe(true);
+    expect(plane.find('[data-test="plane-point"]').exists()).toBe(false);
+    w.unmount();
+  });
+
+  it('shades the closing map beneath the plane once it is computed', async () => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    expect(w.find('[data-test="plane-map"]').exists()).toBe(false);
+    await sync.computeMap(0, 19, 11);
+    await flushPromises();
+    expect(w.find('[data-test="plane-map"]').exists()).toBe(true);
+    expect(w.get('[data-test="plane-map-legend"]').text()).toContain('surge current');
+    w.unmount();
+  });
+});
