@@ -1,5 +1,5 @@
 /** The engine's public face: pure computations over plain data. */
-export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
+export { describePlant } from './describe-plant';
 export { solveSharing, solveSharingAtMost, sweepLoad, impliedPowerFactor } from './sharing';
 export type { ImpliedPowerFactor } from './sharing';
 export { settingWarnings, SETPOINT_BAND_PCT, DROOP_USUAL_MIN_PCT, DROOP_USUAL_MAX_PCT } from './setting-checks';

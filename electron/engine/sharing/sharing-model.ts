@@ -4,6 +4,7 @@
  * frequency-dependent terms. Built once per solve; the solvers only read it.
  */
 import type { GenSet, LoadOverride, Plant } from '../../../shared-types';
+import { kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz, tanPhi } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
 import { leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, overloadLimitKW } from './set-limits';
@@ -158,20 +159,20 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
       );
     if (g.mode === 'droop') {
       m.gov[i] = GOV_DROOP;
-      m.slopeKWPerHz[i] = s.ratedKW / ((g.droopPct / 100) * fr);
+      m.slopeKWPerHz[i] = speedDroopKWPerHz(s.ratedKW, g.droopPct, fr);
     } else if (g.mode === 'isochronous') {
       m.gov[i] = GOV_ISO;
       if (g.loadSharingLink === false) isoUnlinked.push(i);
       else m.isoGroup.push(i);
     } else m.gov[i] = GOV_BASE;
-    const qBase = s.ratedKVA * Math.sqrt(1 - s.ratedPF * s.ratedPF);
+    const qBase = kVARBase(s.ratedKVA, s.ratedPF);
     m.noLoadV[i] = r.noLoadV;
-    m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    m.tanPhi[i] = tanPhi(r.pf);
     m.leadKVAR[i] = leadingLimitKVAR(s);
     m.limited[i] = r.mode === 'reactive-droop' || r.mode === 'power-factor' ? 1 : 0;
     if (r.mode === 'reactive-droop') {
       m.reg[i] = REG_DROOP;
-      m.slopeKVARPerV[i] = qBase / ((r.droopPct / 100) * vr);
+      m.slopeKVARPerV[i] = reactiveDroopKVARPerV(qBase, r.droopPct, vr);
     } else if (r.mode === 'cross-current') {
       m.reg[i] = REG_CROSS;
       crossSets.push(i);

@@ -8,6 +8,7 @@
 import type { CloseRecord, ProtectionTrip, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { wrapAngleDeg } from '../../../shared-types/angle';
+import { ratedCurrentA } from '../../../shared-types/laws';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_DROOP } from './codes';
 import { PROTECTION_DEVICES, buildSimModel } from './sim-model';
@@ -130,7 +131,7 @@ class Run implements Simulation {
     this.reverseTimer = new Float64Array(n);
     this.protTimer = new Float64Array(PROTECTION_DEVICES.length * n);
     this.oelTimer = new Float64Array(n);
-    this.currentScaleA = (m.baseKVA * 1000) / (Math.sqrt(3) * m.ratedVoltageV);
+    this.currentScaleA = ratedCurrentA(m.baseKVA, m.ratedVoltageV);
     this.target = {
       m,
       y: this.y,

@@ -4,6 +4,7 @@
  */
 import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
 import type { Band, Distribution, PlanCheck, Plant } from '../../../shared-types';
+import { kVARBase } from '../../../shared-types';
 import { reactiveDroopLine, speedDroopLine } from '../charts/droop-lines';
 import type { XY } from '../charts/droop-lines';
 import { seriesStyle, withAlpha } from '../charts/series-style';
@@ -23,7 +24,7 @@ export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed
     const st = seriesStyle(i, theme);
     for (const [plant, when] of [[now, 'now'], [proposed, 'proposed']] as const) {
       const set = plant.sets[i]!;
-      const qTop = set.ratedKVA * Math.sqrt(1 - set.ratedPF * set.ratedPF);
+      const qTop = kVARBase(set.ratedKVA, set.ratedPF);
       const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
       if (c.kind !== 'segment') continue;
       datasets.push({
