@@ -6,19 +6,10 @@
 import type { GenSet, LoadOverride, Plant } from '../../../shared-types';
 import { kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz, tanPhi } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
+import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
 import { leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, overloadLimitKW } from './set-limits';
 
-/** Governor law of an online set, as a small integer code for the hot loops. */
-export const GOV_DROOP = 0;
-export const GOV_ISO = 1;
-export const GOV_BASE = 2;
-
-/** Regulator law of an online set. */
-export const REG_DROOP = 0;
-export const REG_CROSS = 1;
-export const REG_VOLTAGE = 2;
-export const REG_PF = 3;
 
 /** One load term on the common bus (powers at rated voltage and frequency). */
 export interface LoadTerm {

@@ -18,7 +18,7 @@
  * isochronous or base-load set holds `setpointHz` (speed control before paralleling).
  */
 import { ACTUATOR, GOV_INT, OMEGA, PMECH } from './layout';
-import { GOV_BASE, GOV_DROOP } from './codes';
+import { GOV_BASE, GOV_DROOP } from '../mode-codes';
 import type { SimModel } from './sim-model';
 import type { Outputs } from './plant-dynamics';
 

@@ -8,7 +8,7 @@
 import type { Plant, SharingResult } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { ACTUATOR, AVR_INT, DELTA, ED2, EFD, EQ1, EQ2, GOV_INT, OMEGA, PMECH, STATES_PER_SET, VAR_TRIM } from './layout';
-import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from './codes';
+import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from '../mode-codes';
 import { ISO_GAIN_PU } from './governor';
 import { voltageReference } from './regulator';
 import type { SimModel } from './sim-model';

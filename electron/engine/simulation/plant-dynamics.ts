@@ -5,7 +5,7 @@
  * arrays (the simulator reads them after the first RK4 stage of each step).
  */
 import { DELTA, ED2, EQ2, OMEGA, STATES_PER_SET } from './layout';
-import { GOV_ISO, REG_CROSS } from './codes';
+import { GOV_ISO, REG_CROSS } from '../mode-codes';
 import { machineDerivatives } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';

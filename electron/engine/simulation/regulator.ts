@@ -24,7 +24,7 @@
  * gain `ceilingPU` exceeds one, and not at all without residual magnetism.
  */
 import { AVR_INT, EFD, OMEGA, VAR_TRIM } from './layout';
-import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
+import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
 import type { SimModel } from './sim-model';
 import type { Outputs } from './plant-dynamics';
 

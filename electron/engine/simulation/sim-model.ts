@@ -14,7 +14,7 @@ import type { Plant } from '../../../shared-types';
 import { REGULATOR_RESET_S } from './regulator';
 import { fieldCeiling } from './excitation';
 
-import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from './codes';
+import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
 
 /**
  * Subtransient open-circuit time constant T''d0, s, for every set: the plant file has no

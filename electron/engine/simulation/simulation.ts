@@ -10,7 +10,7 @@ import { Diverged, InvalidInput } from '../errors';
 import { wrapAngleDeg } from '../../../shared-types/angle';
 import { ratedCurrentA } from '../../../shared-types/laws';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
-import { GOV_DROOP } from './codes';
+import { GOV_DROOP } from '../mode-codes';
 import { PROTECTION_DEVICES, buildSimModel } from './sim-model';
 import type { SimModel } from './sim-model';
 import { createOutputs, evaluatePlant } from './plant-dynamics';

@@ -8,7 +8,7 @@
 import type { Governor, Load, Plant } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { EngineError } from '../errors';
-import { GOV_DROOP, GOV_ISO } from './codes';
+import { GOV_DROOP, GOV_ISO } from '../mode-codes';
 import type { SimModel } from './sim-model';
 
 /** The steady state the final plant should settle at, or why there is none. */
