@@ -3,10 +3,11 @@ import { z } from 'zod';
 import { parseProject, serializeProject } from '../project';
 import { projectSchema } from './project-schema';
 import type { HandlerGroup } from './handler';
+import { text } from './schema-kit';
 
 export const projectHandlers: HandlerGroup<'parseProject' | 'serializeProject'> = {
   parseProject: {
-    schema: z.object({ text: z.string({ error: 'must be text' }) }).strict(),
+    schema: z.object({ text: text() }).strict(),
     run: ({ text }) => parseProject(text),
   },
   serializeProject: {

@@ -4,17 +4,14 @@
  * in chunks with progress and cancelling.
  */
 import { z } from 'zod';
-import { SCENARIO_FORMAT, SCENARIO_VERSION } from '../../shared-types';
+import { LOAD_MODELS, SCENARIO_FORMAT, SCENARIO_VERSION } from '../../shared-types';
 import type { Scenario, SimulationResult } from '../../shared-types';
 import { Cancelled, createSimulation, MAX_STEP_MS, MIN_CHUNK_STEPS } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from './plant-schema';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
-const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
-const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
-const id = () => z.string({ error: 'must be text' }).min(1, 'must not be empty');
+import { flag, id, nonNegative, num, oneOf, positive, text } from './schema-kit';
 
 /** Longest simulated time accepted, s. */
 export const MAX_DURATION_S = 3600;
@@ -33,10 +30,10 @@ const loadStep = z
     atS: atS(),
     type: z.literal('load-step'),
     loadId: id().optional(),
-    online: z.boolean({ error: 'must be true or false' }).optional(),
+    online: flag().optional(),
     kW: num('kW').optional(),
     kVAR: num('kVAR').optional(),
-    model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).optional(),
+    model: oneOf(LOAD_MODELS).optional(),
   })
   .strict();
 
@@ -45,8 +42,8 @@ const trip = z
     atS: atS(),
     type: z.literal('trip'),
     setId: id(),
-    shutdown: z.boolean({ error: 'must be true or false' }).optional(),
-    openBreaker: z.boolean({ error: 'must be true or false' }).optional(),
+    shutdown: flag().optional(),
+    openBreaker: flag().optional(),
   })
   .strict();
 
@@ -100,9 +97,9 @@ export const scenarioSchema: z.ZodType<Scenario> = z
   .object({
     format: z.literal(SCENARIO_FORMAT, { error: `must be "${SCENARIO_FORMAT}"` }).optional(),
     version: z.literal(SCENARIO_VERSION, { error: `must be ${SCENARIO_VERSION} (this version of Droopline reads scenarios of version ${SCENARIO_VERSION})` }).optional(),
-    name: z.string({ error: 'must be text' }).optional(),
+    name: text().optional(),
     plant: plantSchema.optional(),
-    plantFile: z.string({ error: 'must be text' }).optional(),
+    plantFile: text().optional(),
     durationS: positive('s').lte(MAX_DURATION_S, `must be ${MAX_DURATION_S} s or less`),
     stepMs: positive('ms').gte(0.01, 'must be 0.01 ms or more').lte(MAX_STEP_MS, `must be ${MAX_STEP_MS} ms or less`).default(1),
     outputPoints: num('points').int('must be a whole number').gte(10, 'must be 10 or more').lte(100_000, 'must be 100 000 or less').default(2000),
