@@ -10,8 +10,7 @@ import { InvalidInput } from '../errors';
 import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
 import { GOV_BASE, GOV_DROOP, REG_DROOP } from '../mode-codes';
 import { initialiseOffline } from './initialise';
-import type { Outputs } from './plant-dynamics';
-import type { LoadSlot, SimModel } from './sim-model';
+import type { LoadSlot, Outputs, SimModel } from './sim-types';
 
 /** What an event may touch. */
 export interface EventTarget {

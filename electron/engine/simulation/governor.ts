@@ -19,8 +19,7 @@
  */
 import { ACTUATOR, GOV_INT, OMEGA, PMECH } from './layout';
 import { GOV_BASE, GOV_DROOP } from '../mode-codes';
-import type { SimModel } from './sim-model';
-import type { Outputs } from './plant-dynamics';
+import type { Outputs, SimModel } from './sim-types';
 
 /**
  * Proportional gain of the isochronous governor, pu power per pu speed error: a 5 %

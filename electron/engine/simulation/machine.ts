@@ -25,8 +25,7 @@
  * Saturation is not modelled.
  */
 import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH } from './layout';
-import type { SimModel } from './sim-model';
-import type { Outputs } from './plant-dynamics';
+import type { Outputs, SimModel } from './sim-types';
 
 /** Speeds below this (pu) are taken as this when power is turned into torque. */
 export const MIN_TORQUE_SPEED_PU = 0.1;

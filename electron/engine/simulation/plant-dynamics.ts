@@ -12,56 +12,8 @@ import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_IN_IM, NET_IN_RE, NET_P, NET_Q, POWER_LOAD_BREAK_PU, solveBus } from './network';
 
 const BREAK2 = POWER_LOAD_BREAK_PU * POWER_LOAD_BREAK_PU;
-import type { BusVoltage } from './network';
-import type { SimModel } from './sim-model';
+import type { Outputs, SimModel } from './sim-types';
 
-/** What one evaluation computes besides the derivatives (system base unless noted). */
-export interface Outputs {
-  /** E'' of each set, network frame. */
-  eRe: Float64Array;
-  eIm: Float64Array;
-  sinD: Float64Array;
-  cosD: Float64Array;
-  /** Stator current into the network. */
-  iRe: Float64Array;
-  iIm: Float64Array;
-  /** Terminal voltage phasor and magnitude. */
-  vtRe: Float64Array;
-  vtIm: Float64Array;
-  vt: Float64Array;
-  /** Electrical power and terminal kVAR, pu on the set's own base. */
-  pOwn: Float64Array;
-  qOwn: Float64Array;
-  /** Stator current on the rotor's d- and q-axes, pu on the set's own base. */
-  id: Float64Array;
-  iq: Float64Array;
-  /** Voltage each regulator compares with its reference, pu (its own terminal voltage, or the cross-current group's mean). */
-  vSensed: Float64Array;
-  /** Time of this evaluation, s. */
-  t: number;
-  /** Linked isochronous group's loading, pu of ratedKW. */
-  pBarIso: number;
-  /** Cross-current group's mean kVAR, pu of ratedKVA. */
-  qBarCross: number;
-  bus: BusVoltage;
-  /** Inputs of the bus solve (see `network.ts`). */
-  net: Float64Array;
-  anyOnline: boolean;
-  /** Bus speed: inertia-weighted mean speed of the on-line sets, pu. */
-  omegaBus: number;
-  /** Power taken by the loads and lost in the feeders, pu. */
-  loadP: number;
-  loadQ: number;
-  feederLossP: number;
-  /**
-   * Constant-power load the bus does not serve because the voltage is below
-   * `POWER_LOAD_BREAK_PU` (those loads then behave as constant impedance), pu.
-   */
-  unservedP: number;
-  unservedQ: number;
-  /** Evaluations whose bus solve did not converge. */
-  unconverged: number;
-}
 
 /** Allocates the output arrays for `n` sets. */
 export function createOutputs(n: number): Outputs {

@@ -25,8 +25,7 @@
  */
 import { AVR_INT, EFD, OMEGA, VAR_TRIM } from './layout';
 import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
-import type { SimModel } from './sim-model';
-import type { Outputs } from './plant-dynamics';
+import type { Outputs, SimModel } from './sim-types';
 
 /** Integral time of the voltage regulator, s (the plant file has no field for it; 1 s is common practice). */
 export const REGULATOR_RESET_S = 1;
