@@ -14,7 +14,7 @@ import { trainerHandlers } from './trainer-handlers';
 import { projectHandlers } from './project-handlers';
 import { reportHandlers } from './report-handlers';
 import { plannerHandlers } from './planner-handlers';
-import { parseOrThrow, ValidationError } from './validate';
+import { parseOrThrow, ValidationError } from '../schemas/validate';
 
 /** Every contract method mapped to its schema and engine call. */
 export const handlers: HandlerTable = {

@@ -2,8 +2,8 @@
 export { dispatch, handlers, toErrorShape } from './dispatch';
 export type { DispatchResult } from './dispatch';
 export type { HandlerContext, Handler, HandlerTable } from './handler';
-export { plantSchema } from './plant-schema';
+export { plantSchema } from '../schemas/plant-schema';
 /** The power factor a load given only in kW takes (the CLI's `--load-kw` alone). */
 export { impliedPowerFactor } from '../engine';
-export { projectSchema } from './project-schema';
-export { formatPath, parseOrThrow, ValidationError } from './validate';
+export { projectSchema } from '../schemas/project-schema';
+export { formatPath, parseOrThrow, ValidationError } from '../schemas/validate';

@@ -7,11 +7,11 @@ import { Cancelled, createToleranceRun, planDroop, sharingSensitivity, TOLERANCE
 import type { ToleranceRequest } from '../../shared-types';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import { loadOverrideSchema } from './sharing-handlers';
 
 import { PLAN_FIELDS, TOLERANCE_DISTRIBUTIONS } from '../../shared-types';
-import { id, num, oneOf, powerFactor, whole } from './schema-kit';
+import { id, num, oneOf, powerFactor, whole } from '../schemas/schema-kit';
 
 /** A min–max band whose min is below its max. */
 const band = (unit: string) =>

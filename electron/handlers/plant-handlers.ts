@@ -1,9 +1,9 @@
 /** Handlers for plant-level methods: validation and rated figures. */
 import { z } from 'zod';
 import { describePlant } from '../engine';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import type { HandlerGroup } from './handler';
-import { parseOrThrow } from './validate';
+import { parseOrThrow } from '../schemas/validate';
 
 export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant'> = {
   describePlant: {

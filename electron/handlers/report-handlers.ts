@@ -9,13 +9,13 @@ import { buildReport } from '../engine/report';
 import type { ReportEngine } from '../engine/report';
 import { breathe } from './handler';
 import type { Handler, HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
-import { projectScenarioSchema, projectSyncSettingsSchema } from './project-schema';
-import { id, num, positive, text } from './schema-kit';
+import { plantSchema } from '../schemas/plant-schema';
+import { projectScenarioSchema, projectSyncSettingsSchema } from '../schemas/project-schema';
+import { id, num, positive, text } from '../schemas/schema-kit';
 import { sharingHandlers } from './sharing-handlers';
 import { simulationHandlers } from './simulation-handlers';
 import { syncHandlers } from './sync-handlers';
-import { parseOrThrow } from './validate';
+import { parseOrThrow } from '../schemas/validate';
 
 const requestSchema: z.ZodType<BuildReportRequest> = z.object({
   project: z.object({

@@ -1,10 +1,10 @@
 /** Handlers for steady-state sharing: the operating point and the load sweep. */
 import { z } from 'zod';
 import { solveSharing, solveSharingAtMost, sweepLoad } from '../engine';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import type { HandlerGroup } from './handler';
 
-import { flag, num, powerFactor, whole } from './schema-kit';
+import { flag, num, powerFactor, whole } from '../schemas/schema-kit';
 
 /** The `load` override: one constant-power load replacing the plant's loads. */
 export const loadOverrideSchema = z

@@ -9,9 +9,9 @@ import type { Scenario, SimulationResult } from '../../shared-types';
 import { Cancelled, createSimulation, MAX_STEP_MS, MIN_CHUNK_STEPS } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 
-import { flag, id, nonNegative, num, oneOf, positive, text } from './schema-kit';
+import { flag, id, nonNegative, num, oneOf, positive, text } from '../schemas/schema-kit';
 
 /** Longest simulated time accepted, s. */
 export const MAX_DURATION_S = 3600;

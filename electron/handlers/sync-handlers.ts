@@ -9,9 +9,9 @@ import type { ClosingMapRequest, SyncCase } from '../../shared-types';
 import { Cancelled, closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, TIME_DOMAIN_MAX_CELLS } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 
-import { breakerClosingMs, deadFields, id, nonNegative, num, oneOf, positive, syncLimitsSchema as limitsSchema, text } from './schema-kit';
+import { breakerClosingMs, deadFields, id, nonNegative, num, oneOf, positive, syncLimitsSchema as limitsSchema, text } from '../schemas/schema-kit';
 
 const deadSchema = z
   .object({

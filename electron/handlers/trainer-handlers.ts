@@ -4,8 +4,8 @@ import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } f
 import type { TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
 import { TRAINER_PHASES } from '../../shared-types';
 import type { HandlerGroup } from './handler';
-import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from './plant-schema';
-import { between as range, flag, oneOf, nonNegative, num, positive, syncLimitsSchema as limitsSchema, text, whole } from './schema-kit';
+import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from '../schemas/plant-schema';
+import { between as range, flag, oneOf, nonNegative, num, positive, syncLimitsSchema as limitsSchema, text, whole } from '../schemas/schema-kit';
 
 const machineSchema: z.ZodType<TrainerMachine> = z
   .object({

@@ -1,6 +1,7 @@
 /**
  * The import graph has no loop: no source file reaches itself through its relative imports (type-only imports
- * count, since a loop of types is a loop of ideas too). A loop makes the load order decide what a module sees, and two modules in a loop are one idea in two files.
+ * count, since a loop of types is a loop of ideas too), and `project/` and `handlers/` do not import each other both
+ * ways. A loop makes the load order decide what a module sees, and two modules in a loop are one idea in two files.
  */
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
@@ -98,6 +99,19 @@ describe('import graph', () => {
 
   it('has no loop between source files', () => {
     expect(importLoops(graph)).toEqual([]);
+  });
+
+  it('has project/ and handlers/ importing each other at most one way (the schemas both read live in schemas/)', () => {
+    const folderOf = (f: string) => (f.startsWith('electron/project/') ? 'project' : f.startsWith('electron/handlers/') ? 'handlers' : null);
+    const ways = new Set<string>();
+    for (const [file, deps] of graph) {
+      const from = folderOf(file);
+      for (const d of deps) {
+        const to = folderOf(d);
+        if (from && to && from !== to) ways.add(`${from} → ${to}`);
+      }
+    }
+    expect([...ways]).toEqual(['handlers → project']);
   });
 
 });
