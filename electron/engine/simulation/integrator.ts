@@ -39,9 +39,3 @@ export function rk4StepFromK1(f: Rhs, t: number, h: number, y: Float64Array, w: 
   const h6 = h / 6;
   for (let j = 0; j < n; j++) y[j] = y[j]! + h6 * (k1[j]! + 2 * k2[j]! + 2 * k3[j]! + k4[j]!);
 }
-
-/** One full RK4 step (evaluates k1 itself). */
-export function rk4Step(f: Rhs, t: number, h: number, y: Float64Array, w: Rk4): void {
-  f(t, y, w.k1);
-  rk4StepFromK1(f, t, h, y, w);
-}
