@@ -75,38 +75,48 @@ export interface EngineApi {
   buildCommissioningRecord: Method<CommissioningRecordRequest, CommissioningRecord>;
 }
 
+/** The keys of a method record, typed (the one way the run-time method lists are derived). */
+export function keysOf<K extends string>(record: Readonly<Record<K, true>>): K[] {
+  return Object.keys(record) as K[];
+}
+
 /** A method name, which is also its channel name. */
 export type EngineMethod = keyof EngineApi;
 export type EngineRequest<K extends EngineMethod> = EngineApi[K]['request'];
 export type EngineResponse<K extends EngineMethod> = EngineApi[K]['response'];
 
-/** Every method name at run time (a type test checks it lists every key). */
-export const ENGINE_METHODS = [
-  'describePlant',
-  'validatePlant',
-  'checkPlant',
-  'solveSharing',
-  'sweepLoad',
-  'evaluateSync',
-  'listSyncPresets',
-  'closingMap',
-  'simulate',
-  'trainerLevels',
-  'trainerStart',
-  'trainerStep',
-  'trainerClose',
-  'checkTrainerExercise',
-  'parseProject',
-  'serializeProject',
-  'buildReport',
-  'planDroop',
-  'sharingSensitivity',
-  'toleranceAnalysis',
-  'inspectTestRecord',
-  'parseTestRecord',
-  'fitTestRecord',
-  'buildCommissioningRecord',
-] as const satisfies readonly EngineMethod[];
+/**
+ * Every contract method, once: `satisfies Record<EngineMethod, true>` makes a missing or an unknown key a type error,
+ * so the run-time list below cannot drift from the contract.
+ */
+const ENGINE_METHODS_LISTED = {
+  describePlant: true,
+  validatePlant: true,
+  solveSharing: true,
+  sweepLoad: true,
+  evaluateSync: true,
+  listSyncPresets: true,
+  closingMap: true,
+  simulate: true,
+  trainerLevels: true,
+  trainerStart: true,
+  trainerStep: true,
+  trainerClose: true,
+  parseProject: true,
+  serializeProject: true,
+  buildReport: true,
+  planDroop: true,
+  sharingSensitivity: true,
+  toleranceAnalysis: true,
+  checkPlant: true,
+  checkTrainerExercise: true,
+  inspectTestRecord: true,
+  parseTestRecord: true,
+  fitTestRecord: true,
+  buildCommissioningRecord: true,
+} as const satisfies Record<EngineMethod, true>;
+/** Every method name at run time, derived from the record above. */
+export const ENGINE_METHODS: readonly EngineMethod[] = keysOf(ENGINE_METHODS_LISTED);
 
 /** Events the host pushes to the renderer; keys are channel names. */
 export interface EngineEvents {

@@ -8,6 +8,7 @@
  * File System Access API; recovery and recent copies in `localStorage`).
  */
 import type { Method } from './engine-api';
+import { keysOf } from './engine-api';
 
 /** A file the user opened: where it came from and its raw text (parsed by `parseProject`). */
 export interface OpenedFile {
@@ -101,21 +102,23 @@ export type HostMethod = keyof HostApi;
 export type HostRequest<K extends HostMethod> = HostApi[K]['request'];
 export type HostResponse<K extends HostMethod> = HostApi[K]['response'];
 
-/** Every host method name at run time (a type test checks it lists every key). */
-export const HOST_METHODS = [
-  'fileOpenDialog',
-  'fileOpenPath',
-  'fileSave',
-  'fileSaveAs',
-  'recentList',
-  'recentClear',
-  'recoveryRead',
-  'recoveryWrite',
-  'recoveryDiscard',
-  'documentState',
-  'windowClose',
-  'reportSavePdf',
-] as const satisfies readonly HostMethod[];
+/** Every host method, once (`satisfies Record<HostMethod, true>`: a missing or unknown key is a type error). */
+const HOST_METHODS_LISTED = {
+  fileOpenDialog: true,
+  fileOpenPath: true,
+  fileSave: true,
+  fileSaveAs: true,
+  recentList: true,
+  recentClear: true,
+  recoveryRead: true,
+  recoveryWrite: true,
+  recoveryDiscard: true,
+  documentState: true,
+  windowClose: true,
+  reportSavePdf: true,
+} as const satisfies Record<HostMethod, true>;
+/** Every host method name at run time, derived from the record above. */
+export const HOST_METHODS: readonly HostMethod[] = keysOf(HOST_METHODS_LISTED);
 
 /**
  * Channels the preload calls itself and never forwards for the page: the page cannot name

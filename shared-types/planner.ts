@@ -12,7 +12,8 @@ export interface Band {
 }
 
 /** A setting the planner may be told to keep as it is on one set. */
-export type PlanField = 'droopPct' | 'noLoadHz' | 'reactiveDroopPct' | 'noLoadV';
+export const PLAN_FIELDS = ['droopPct', 'noLoadHz', 'reactiveDroopPct', 'noLoadV'] as const;
+export type PlanField = (typeof PLAN_FIELDS)[number];
 
 /** Limits the planner keeps each set's settings within. */
 export interface PlanLimits {
@@ -158,7 +159,8 @@ export interface SensitivityResult {
 }
 
 /** How a tolerance is spread. */
-export type ToleranceDistribution = 'uniform' | 'normal';
+export const TOLERANCE_DISTRIBUTIONS = ['uniform', 'normal'] as const;
+export type ToleranceDistribution = (typeof TOLERANCE_DISTRIBUTIONS)[number];
 
 /** Request of `toleranceAnalysis`. */
 export interface ToleranceRequest {

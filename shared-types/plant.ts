@@ -105,12 +105,15 @@ export const PLANT_DEFAULTS = {
   powerLoadBreakPct: 70,
 } as const;
 
-/** How a set's governor controls speed. */
-export type GovernorMode = 'droop' | 'isochronous' | 'baseload';
+/** How a set's governor controls speed (one list: the type and the plant schema use it). */
+export const GOVERNOR_MODES = ['droop', 'isochronous', 'baseload'] as const;
+export type GovernorMode = (typeof GOVERNOR_MODES)[number];
 /** How a set's voltage regulator controls terminal voltage. */
-export type RegulatorMode = 'reactive-droop' | 'cross-current' | 'voltage' | 'power-factor';
+export const REGULATOR_MODES = ['reactive-droop', 'cross-current', 'voltage', 'power-factor'] as const;
+export type RegulatorMode = (typeof REGULATOR_MODES)[number];
 /** How a load responds to voltage. */
-export type LoadModel = 'constant-power' | 'constant-impedance' | 'zip';
+export const LOAD_MODELS = ['constant-power', 'constant-impedance', 'zip'] as const;
+export type LoadModel = (typeof LOAD_MODELS)[number];
 
 /** Governor (speed control) settings of one set. */
 export interface Governor {

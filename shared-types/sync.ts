@@ -209,6 +209,13 @@ export interface SyncResult {
   base: { voltageV: number; currentA: number; torqueKNm: number; ratedFrequencyHz: number; ratedSpeedRpm: number };
 }
 
+/** How the closing map is computed: closed forms, or a time-domain run per cell. */
+export const CLOSING_MAP_METHODS = ['closed-form', 'time-domain'] as const;
+export type ClosingMapMethod = (typeof CLOSING_MAP_METHODS)[number];
+/** What the closing map's angle axis means: the angle at the close command or at contact. */
+export const CLOSING_MAP_ANGLE_AXES = ['command', 'contact'] as const;
+export type ClosingMapAngleAxis = (typeof CLOSING_MAP_ANGLE_AXES)[number];
+
 /**
  * The closing map's angle axis in words, one wording for the view, the report and the CLI: the phase angle when
  * the close command is given (contact lands one breaker time later) or at contact.
@@ -216,7 +223,7 @@ export interface SyncResult {
 export const CLOSING_MAP_ANGLE_AXIS_LABEL = {
   command: 'phase angle at the close command',
   contact: 'phase angle at contact',
-} as const satisfies Record<'command' | 'contact', string>;
+} as const satisfies Record<ClosingMapAngleAxis, string>;
 
 /** Request of `closingMap`. */
 export interface ClosingMapRequest {
@@ -226,12 +233,12 @@ export interface ClosingMapRequest {
   /** Rows over −slipRangeHz…+slipRangeHz. */
   slipSteps: number;
   slipRangeHz: number;
-  method?: 'closed-form' | 'time-domain';
+  method?: ClosingMapMethod;
   /**
    * What the angle axis means: the phase angle when the close command is issued (default; contact lands
    * 360 s t later, so slip matters) or the angle at contact.
    */
-  angleAxis?: 'command' | 'contact';
+  angleAxis?: ClosingMapAngleAxis;
   /** Voltage difference for the whole map, % of base (default: the case's own). */
   voltageDifferencePct?: number;
 }
@@ -248,8 +255,8 @@ export interface ClosingMap {
   peakTorquePU: number[];
   /** The sync-check window: ±angleDeg × ±slipHz (half-widths), with its actual edges (one-sided when the incoming must run faster). */
   window: { angleDeg: number; slipHz: number; slipMinHz: number; slipMaxHz: number };
-  method: 'closed-form' | 'time-domain';
-  angleAxis: 'command' | 'contact';
+  method: ClosingMapMethod;
+  angleAxis: ClosingMapAngleAxis;
   voltageDifferencePct: number;
   /** Multiply pu current by this for amperes; pu torque by `torqueBaseKNm` for kN·m. */
   baseCurrentA: number;

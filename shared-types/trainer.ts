@@ -156,7 +156,8 @@ export interface TrainerStartRequest {
 }
 
 /** Where an exercise is. */
-export type TrainerPhase = 'running' | 'closing' | 'closed';
+export const TRAINER_PHASES = ['running', 'closing', 'closed'] as const;
+export type TrainerPhase = (typeof TRAINER_PHASES)[number];
 
 /** Held controls for one step: −1 lower, 0 none, +1 raise. */
 export interface TrainerInputs {

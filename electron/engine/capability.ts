@@ -14,6 +14,7 @@
  * Pure; the renderer draws these curves.
  */
 import type { GenSet, SetCapability, CapabilityPoint } from '../../shared-types';
+import { kVARBase } from '../../shared-types';
 import { motoringKW, overloadLimitKW, reverseTripKW } from './sharing/set-limits';
 
 /** Field EMF at rated kVA and rated power factor, pu (one-axis, round rotor, V = 1 pu). */
@@ -94,7 +95,7 @@ export function setCapability(set: GenSet): SetCapability {
     reverseTripKW: tripKW,
     leadingKVAR: leadKVAR,
     fieldEmfPU: e,
-    ratedKVAR: s * Math.sqrt(1 - set.ratedPF * set.ratedPF),
+    ratedKVAR: kVARBase(s, set.ratedPF),
     minChartKW,
     maxChartKW,
     stator,

@@ -1,22 +1,8 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
+import { kVARBase, ratedCurrentA, ratedSpeedRpm } from '../../shared-types';
 import { setCapability } from './capability';
 import { settingWarnings } from './setting-checks';
 import { fieldCeiling } from './simulation/excitation';
-
-/** Rated speed `n = 120 f / poles`, rpm. */
-export function ratedSpeedRpm(frequencyHz: number, poles: number): number {
-  return (120 * frequencyHz) / poles;
-}
-
-/** Rated line current of a three-phase set `I = S / (sqrt(3) V)`, A (kVA, V line-to-line). */
-export function ratedCurrentA(ratedKVA: number, voltageV: number): number {
-  return (ratedKVA * 1000) / (Math.sqrt(3) * voltageV);
-}
-
-/** Reactive base `Qbase = S sqrt(1 - pf^2)`, kVAR: the kVAR at rated current and rated PF. */
-export function kVARBase(ratedKVA: number, ratedPF: number): number {
-  return ratedKVA * Math.sqrt(1 - ratedPF * ratedPF);
-}
 
 /** Rated figures of every set and the plant totals. Pure; does not touch `plant`. */
 export function describePlant(plant: Plant): PlantDescription {

@@ -1,5 +1,5 @@
 /** The engine's public face: pure computations over plain data. */
-export { describePlant, ratedSpeedRpm, ratedCurrentA, kVARBase } from './describe-plant';
+export { describePlant } from './describe-plant';
 export { solveSharing, solveSharingAtMost, solveSharingFigures, createSharingFigures, sweepLoad, impliedPowerFactor } from './sharing';
 export type { SharingFigures } from './sharing';
 export type { ImpliedPowerFactor } from './sharing';

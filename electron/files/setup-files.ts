@@ -11,7 +11,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { HOST_METHODS, HOST_OPEN_DROPPED, PROJECT_FILE_SUFFIX } from '../../shared-types';
 import type { DocumentState, HostCommand, HostEvents, HostMethod, HostOutcome, HostRequest, HostResponse, OpenedFile, RecentFile, SavedFile } from '../../shared-types';
-import { formatPath } from '../handlers/validate';
+import { formatPath } from '../schemas/validate';
 import { parseProject } from '../project';
 import { backupPathOf, nodeSaveSteps, removeStaleTemps, writeFileAtomic } from './atomic-write';
 import type { SaveSteps } from './atomic-write';

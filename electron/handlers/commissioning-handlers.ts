@@ -7,7 +7,7 @@ import { FIT_PARAMETERS } from '../../shared-types';
 import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 
 const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
 const text = () => z.string({ error: 'must be text' });

@@ -15,7 +15,7 @@ import { projectHandlers } from './project-handlers';
 import { reportHandlers } from './report-handlers';
 import { plannerHandlers } from './planner-handlers';
 import { commissioningHandlers } from './commissioning-handlers';
-import { parseOrThrow, ValidationError } from './validate';
+import { parseOrThrow, ValidationError } from '../schemas/validate';
 
 /** Every contract method mapped to its schema and engine call. */
 export const handlers: HandlerTable = {

@@ -1,7 +1,7 @@
 /** Types of the handler table: one validating handler per `EngineApi` method. */
 import type { z } from 'zod';
 import type { EngineApi, EngineMethod, EngineRequest, EngineResponse } from '../../shared-types';
-import type { ChunkPool } from './pool';
+import type { ChunkPool } from './pool-tasks';
 
 /** What a handler gets besides its request: progress reporting and cancellation. */
 export interface HandlerContext {

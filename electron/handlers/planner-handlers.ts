@@ -9,10 +9,11 @@ import type { ToleranceChunk } from '../engine';
 import type { ToleranceRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { runChunks } from './pool';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import { loadOverrideSchema } from './sharing-handlers';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
+import { PLAN_FIELDS, TOLERANCE_DISTRIBUTIONS } from '../../shared-types';
+import { id, num, oneOf, powerFactor, whole } from '../schemas/schema-kit';
 
 /** A min–max band whose min is below its max. */
 const band = (unit: string) =>
@@ -21,7 +22,7 @@ const band = (unit: string) =>
     .strict()
     .refine((b) => b.min < b.max, { message: 'min must be below max', path: ['max'] });
 
-const pfSchema = z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less');
+const pfSchema = powerFactor();
 
 const loadRangeSchema = band('%').refine((b) => b.min >= 0 && b.max <= 200, { message: 'must lie within 0–200 %', path: ['max'] });
 
@@ -34,7 +35,7 @@ export const planRequestSchema = z
     loadRangePct: loadRangeSchema.optional(),
     pf: pfSchema.optional(),
     fixed: z
-      .array(z.object({ setId: z.string({ error: 'must be a set id' }), fields: z.array(z.enum(['droopPct', 'noLoadHz', 'reactiveDroopPct', 'noLoadV'], { error: 'must be droopPct, noLoadHz, reactiveDroopPct or noLoadV' })) }).strict())
+      .array(z.object({ setId: id(), fields: z.array(oneOf(PLAN_FIELDS, { quoted: false })) }).strict())
       .optional(),
     limits: z
       .object({
@@ -58,16 +59,16 @@ export const MAX_TOLERANCE_SET_SAMPLES = 4_000_000;
 export const toleranceRequestSchema = z
   .object({
     plant: plantSchema,
-    samples: z.number({ error: 'must be a number' }).int('must be a whole number').gte(10, 'must be 10 or more').lte(1_000_000, 'must be 1 000 000 or fewer').optional(),
-    seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(2 ** 31 - 1, 'must be below 2³¹').optional(),
+    samples: whole().gte(10, 'must be 10 or more').lte(1_000_000, 'must be 1 000 000 or fewer').optional(),
+    seed: whole().gte(0, 'must be 0 or more').lte(2 ** 31 - 1, 'must be below 2³¹').optional(),
     speedTolHz: num('Hz').refine((v) => v >= 0 && v <= 5, 'must be 0–5 Hz').optional(),
     voltageTolPct: num('%').refine((v) => v >= 0 && v <= 20, 'must be 0–20 %').optional(),
     droopTolPct: num('%').refine((v) => v >= 0 && v < 50, 'must be 0 % or more and below 50 %').optional(),
-    distribution: z.enum(['uniform', 'normal'], { error: 'must be uniform or normal' }).optional(),
+    distribution: oneOf(TOLERANCE_DISTRIBUTIONS, { quoted: false }).optional(),
     load: loadOverrideSchema.optional(),
     loadRangePct: loadRangeSchema.optional(),
     pf: pfSchema.optional(),
-    bins: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(200, 'must be 200 or fewer').optional(),
+    bins: whole().gte(2, 'must be 2 or more').lte(200, 'must be 200 or fewer').optional(),
   })
   .strict()
   .refine((r) => !(r.load && r.loadRangePct), { message: 'give either load or loadRangePct, not both', path: ['loadRangePct'] })

@@ -3,9 +3,9 @@ import { z } from 'zod';
 import { EngineError, describePlant, solveSharing, solveSharingAtMost } from '../engine';
 import { loadAtPct } from '../../shared-types';
 import type { CheckedPlant, Plant } from '../../shared-types';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import type { HandlerGroup } from './handler';
-import { parseOrThrow } from './validate';
+import { parseOrThrow } from '../schemas/validate';
 
 /**
  * `checkPlant`: the plant is parsed once, then solved from that parse (the sharing solver takes

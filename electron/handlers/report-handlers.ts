@@ -4,61 +4,38 @@
  * numbers as the app's views and the CLI.
  */
 import { z } from 'zod';
-import type { BuildReportRequest, EngineMethod, EngineRequest, EngineResponse, ProjectScenario, ProjectSyncSettings } from '../../shared-types';
+import type { BuildReportRequest, EngineMethod, EngineRequest, EngineResponse } from '../../shared-types';
 import { buildReport } from '../engine/report';
 import type { ReportEngine } from '../engine/report';
 import { breathe } from './handler';
 import type { Handler, HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
+import { projectScenarioSchema, projectSyncSettingsSchema } from '../schemas/project-schema';
+import { id, num, positive, text } from '../schemas/schema-kit';
 import { sharingHandlers } from './sharing-handlers';
 import { simulationHandlers } from './simulation-handlers';
 import { syncHandlers } from './sync-handlers';
-import { parseOrThrow } from './validate';
-
-const positive = z.number().positive({ message: 'must be greater than 0' });
-
-const scenarioSchema: z.ZodType<ProjectScenario> = z.object({
-  id: z.string().min(1, { message: 'must not be empty' }),
-  name: z.string(),
-  durationS: positive,
-  stepMs: positive,
-  // The simulator's own schema checks each event when the scenario runs.
-  events: z.array(z.custom<ProjectScenario['events'][number]>((e) => typeof e === 'object' && e !== null, { message: 'must be an object' })),
-});
-
-const syncSchema: z.ZodType<ProjectSyncSettings> = z.object({
-  presetId: z.string().nullable(),
-  limits: z.object({
-    slipHz: positive,
-    angleDeg: positive.max(180, { message: 'must be at most 180' }),
-    voltagePct: z.number().min(0, { message: 'must be 0 or more' }),
-    incomingFaster: z.boolean().optional(),
-    incomingHigher: z.boolean().optional(),
-  }),
-  breakerClosingMs: z.number().min(0, { message: 'must be 0 or more' }),
-  dead: z.object({ deadBus: z.boolean(), deadLine: z.boolean(), livePct: z.number(), deadPct: z.number() }),
-  incomingSetId: z.string().nullable(),
-});
+import { parseOrThrow } from '../schemas/validate';
 
 const requestSchema: z.ZodType<BuildReportRequest> = z.object({
   project: z.object({
-    name: z.string().optional(),
+    name: text().optional(),
     plant: plantSchema,
-    scenarios: z.array(scenarioSchema).optional(),
-    sync: syncSchema.nullable().optional(),
+    scenarios: z.array(projectScenarioSchema).optional(),
+    sync: projectSyncSettingsSchema.nullable().optional(),
   }),
-  date: z.string().min(1, { message: 'must not be empty' }),
+  date: id(),
   loadsPct: z
-    .array(positive.max(200, { message: 'must be at most 200' }))
+    .array(positive('%').max(200, { message: 'must be at most 200' }))
     .min(1, { message: 'must list at least one load' })
     .max(12, { message: 'must list at most 12 loads' })
     .optional(),
-  loadPF: positive.max(1, { message: 'must be at most 1' }).optional(),
+  loadPF: positive('').max(1, { message: 'must be at most 1' }).optional(),
   closingMap: z
     .object({
-      angleSteps: z.number().int().min(3).max(361).optional(),
-      slipSteps: z.number().int().min(3).max(201).optional(),
-      slipRangeHz: positive.max(5, { message: 'must be at most 5' }).optional(),
+      angleSteps: num('steps').int().min(3).max(361).optional(),
+      slipSteps: num('steps').int().min(3).max(201).optional(),
+      slipRangeHz: positive('Hz').max(5, { message: 'must be at most 5' }).optional(),
     })
     .optional(),
 });

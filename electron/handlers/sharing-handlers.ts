@@ -1,10 +1,10 @@
 /** Handlers for steady-state sharing: the operating point and the load sweep. */
 import { z } from 'zod';
 import { solveSharing, solveSharingAtMost, sweepLoad } from '../engine';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 import type { HandlerGroup } from './handler';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
+import { flag, num, powerFactor, whole } from '../schemas/schema-kit';
 
 /** The `load` override: one constant-power load replacing the plant's loads. */
 export const loadOverrideSchema = z
@@ -16,7 +16,7 @@ export const loadOverrideSchema = z
 
 /** Request of `solveSharing`. */
 export const solveSharingSchema = z
-  .object({ plant: plantSchema, load: loadOverrideSchema.optional(), atMost: z.boolean({ error: 'must be true or false' }).optional() })
+  .object({ plant: plantSchema, load: loadOverrideSchema.optional(), atMost: flag().optional() })
   .strict()
   .superRefine((r, ctx) => {
     if (r.atMost && !r.load) ctx.addIssue({ code: 'custom', path: ['atMost'], message: 'needs a load (atMost applies to a load override)' });
@@ -29,10 +29,10 @@ export const MAX_SWEEP_SET_POINTS = 100_000;
 export const sweepLoadSchema = z
   .object({
     plant: plantSchema,
-    steps: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(2000, 'must be 2000 or fewer'),
+    steps: whole().gte(2, 'must be 2 or more').lte(2000, 'must be 2000 or fewer'),
     fromPct: num('%').refine((v) => v >= 0, 'must be 0 or more').optional(),
     toPct: num('%').refine((v) => v <= 500, 'must be 500 % or less').optional(),
-    pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').optional(),
+    pf: powerFactor().optional(),
   })
   .strict()
   .superRefine((r, ctx) => {

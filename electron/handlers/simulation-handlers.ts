@@ -9,12 +9,11 @@ import type { Scenario, SimulationResult } from '../../shared-types';
 import { Cancelled, createSimulation, MAX_STEP_MS, MIN_CHUNK_STEPS } from '../engine';
 import { breathe } from './handler';
 import type { HandlerContext, HandlerGroup } from './handler';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
-const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
-const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
-const id = () => z.string({ error: 'must be text' }).min(1, 'must not be empty');
+import { id, num, positive, text } from '../schemas/schema-kit';
+import { checkEvents, eventSchema } from '../schemas/scenario-events';
+export { checkEvents, eventSchema, projectEventSchema } from '../schemas/scenario-events';
 
 /** Longest simulated time accepted, s. */
 export const MAX_DURATION_S = 3600;
@@ -26,126 +25,6 @@ export const MAX_SET_STEPS = 40_000_000;
 export const MAX_OUTPUT_SET_POINTS = 2_000_000;
 const fmt = (n: number) => Math.round(n).toLocaleString('en').replace(/,/g, ' ');
 
-const atS = () => nonNegative('s');
-
-const loadStep = z
-  .object({
-    atS: atS(),
-    type: z.literal('load-step'),
-    loadId: id().optional(),
-    online: z.boolean({ error: 'must be true or false' }).optional(),
-    kW: num('kW').optional(),
-    kVAR: num('kVAR').optional(),
-    model: z.enum(['constant-power', 'constant-impedance'], { error: 'must be "constant-power" or "constant-impedance"' }).optional(),
-  })
-  .strict();
-
-const trip = z
-  .object({
-    atS: atS(),
-    type: z.literal('trip'),
-    setId: id(),
-    shutdown: z.boolean({ error: 'must be true or false' }).optional(),
-    openBreaker: z.boolean({ error: 'must be true or false' }).optional(),
-  })
-  .strict();
-
-const close = z
-  .object({
-    atS: atS(),
-    type: z.literal('close'),
-    setId: id(),
-    frequencyHz: positive('Hz').optional(),
-    voltageV: nonNegative('V').optional(),
-    angleDeg: num('°').gte(-360, 'must be −360° or more').lte(360, 'must be 360° or less').optional(),
-  })
-  .strict();
-
-const setpoint = z
-  .object({
-    atS: atS(),
-    type: z.literal('setpoint'),
-    setId: id(),
-    frequencyHz: positive('Hz').optional(),
-    voltageV: positive('V').optional(),
-    kW: num('kW').optional(),
-  })
-  .strict();
-
-const ramp = z.object({ atS: atS(), type: z.literal('ramp'), setId: id(), toKW: num('kW'), durationS: nonNegative('s') }).strict();
-
-const motorStart = z
-  .object({
-    atS: atS(),
-    type: z.literal('motor-start'),
-    kVA: positive('kVA'),
-    pf: num('').gt(0, 'must be greater than 0').lte(1, 'must be 1 or less'),
-    durationS: positive('s'),
-    runningKW: num('kW').optional(),
-    runningKVAR: num('kVAR').optional(),
-  })
-  .strict();
-
-const EVENT_TYPES = '"load-step", "trip", "close", "setpoint", "ramp" or "motor-start"';
-
-/** One event of a scenario, checked by its type. */
-const eventSchema = z.discriminatedUnion('type', [loadStep, trip, close, setpoint, ramp, motorStart], {
-  error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined),
-});
-
-/**
- * The same rules for an event kept in a project, which also keeps any field this version does
- * not know (a project never loses data on its way through open and save).
- */
-export const projectEventSchema = z.discriminatedUnion(
-  'type',
-  [loadStep.loose(), trip.loose(), close.loose(), setpoint.loose(), ramp.loose(), motorStart.loose()],
-  { error: (iss) => (iss.code === 'invalid_union' ? `must be ${EVENT_TYPES}` : undefined) },
-);
-
-/** The fields of an event that `checkEvents` reads (any event kind fits). */
-interface EventFields {
-  atS: number;
-  type: string;
-  setId?: string;
-  loadId?: string;
-  kW?: number;
-  kVAR?: number;
-  voltageV?: number;
-  frequencyHz?: number;
-  openBreaker?: boolean;
-  shutdown?: boolean;
-}
-
-/**
- * Checks a scenario's events against its run and its plant: each event within the run, each
- * set and load id in the plant, the fields each kind needs. `add` receives the path below the
- * scenario (`['events', i, field]`). Used by the scenario schema and the project schema alike.
- */
-export function checkEvents(
-  events: readonly EventFields[],
-  durationS: number,
-  plant: { sets: readonly { id: string }[]; loads: readonly { id: string }[] },
-  add: (path: (string | number)[], message: string) => void,
-): void {
-  const setIds = new Set(plant.sets.map((x) => x.id));
-  const loadIds = new Set(plant.loads.map((x) => x.id));
-  events.forEach((e, i) => {
-    const at = (field: string, message: string) => add(['events', i, field], message);
-    if (e.atS > durationS) at('atS', `must be within the run (0 to ${durationS} s)`);
-    if (e.setId !== undefined && !setIds.has(e.setId)) at('setId', `no set "${e.setId}" in the plant`);
-    if (e.type === 'load-step') {
-      if (e.loadId !== undefined) {
-        if (!loadIds.has(e.loadId)) at('loadId', `no load "${e.loadId}" in the plant`);
-        if (e.kW !== undefined || e.kVAR !== undefined) at('kW', 'give either loadId or kW/kVAR, not both');
-      } else if (e.kW === undefined && e.kVAR === undefined) at('kW', 'is required (or name a plant load with loadId)');
-    }
-    if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false) at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
-    if (e.type === 'setpoint' && e.frequencyHz === undefined && e.voltageV === undefined && e.kW === undefined)
-      at('frequencyHz', 'give frequencyHz, voltageV or kW');
-  });
-}
-
 /**
  * Schema of a scenario (`droopline.scenario`, version 1). The plant is inline
  * (`plantFile` is resolved by the command line before this schema sees the scenario).
@@ -154,9 +33,9 @@ export const scenarioSchema: z.ZodType<Scenario> = z
   .object({
     format: z.literal(SCENARIO_FORMAT, { error: `must be "${SCENARIO_FORMAT}"` }).optional(),
     version: z.literal(SCENARIO_VERSION, { error: `must be ${SCENARIO_VERSION} (this version of Droopline reads scenarios of version ${SCENARIO_VERSION})` }).optional(),
-    name: z.string({ error: 'must be text' }).optional(),
+    name: text().optional(),
     plant: plantSchema.optional(),
-    plantFile: z.string({ error: 'must be text' }).optional(),
+    plantFile: text().optional(),
     durationS: positive('s').lte(MAX_DURATION_S, `must be ${MAX_DURATION_S} s or less`),
     stepMs: positive('ms').gte(0.01, 'must be 0.01 ms or more').lte(MAX_STEP_MS, `must be ${MAX_STEP_MS} ms or less`).default(1),
     outputPoints: num('points').int('must be a whole number').gte(10, 'must be 10 or more').lte(100_000, 'must be 100 000 or less').default(2000),

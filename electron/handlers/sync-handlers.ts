@@ -4,35 +4,22 @@
  * cancelling).
  */
 import { z } from 'zod';
-import { SYNC_FORMAT } from '../../shared-types';
+import { CLOSING_MAP_ANGLE_AXES, CLOSING_MAP_METHODS, SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
 import { closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, putRows, TIME_DOMAIN_MAX_CELLS } from '../engine';
 import type { ClosingMapRows } from '../engine';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { runChunks } from './pool';
-import { plantSchema } from './plant-schema';
+import { plantSchema } from '../schemas/plant-schema';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
-const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
-const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
-const flag = () => z.boolean({ error: 'must be true or false' });
-
-const limitsSchema = z
-  .object({
-    slipHz: positive('Hz').lte(5, 'must be 5 Hz or less'),
-    angleDeg: positive('°').lte(180, 'must be 180° or less'),
-    voltagePct: positive('%').lte(100, 'must be 100 % or less'),
-    incomingFaster: flag().optional(),
-    incomingHigher: flag().optional(),
-  })
-  .strict();
+import { breakerClosingMs, deadFields, id, nonNegative, num, oneOf, positive, syncLimitsSchema as limitsSchema, text } from '../schemas/schema-kit';
 
 const deadSchema = z
   .object({
-    deadBus: flag().default(false),
-    deadLine: flag().default(false),
-    livePct: positive('%').lte(150, 'must be 150 % or less').default(80),
-    deadPct: nonNegative('%').default(25),
+    deadBus: deadFields.deadBus.default(false),
+    deadLine: deadFields.deadLine.default(false),
+    livePct: deadFields.livePct.default(80),
+    deadPct: deadFields.deadPct.default(25),
   })
   .strict()
   .refine((d) => d.deadPct < d.livePct, { message: 'must be below the live threshold', path: ['deadPct'] });
@@ -89,16 +76,15 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
   .object({
     format: z.literal(SYNC_FORMAT, { error: `must be "${SYNC_FORMAT}"` }).optional(),
     version: z.literal(1, { error: 'must be 1 (this version of Droopline reads sync cases of version 1)' }).optional(),
-    name: z.string({ error: 'must be text' }).optional(),
+    name: text().optional(),
     bus: busSchema.optional(),
     incoming: incomingSchema,
     busSource: busSourceSchema.optional(),
     plant: plantSchema.optional(),
-    incomingSetId: z.string({ error: 'must be text' }).min(1, 'must not be empty').optional(),
-    // A real breaker takes time to close: 0 ms would hide the advance angle, so the rule is > 0.
-    breakerClosingMs: positive('ms').lte(2000, 'must be 2000 ms or less'),
+    incomingSetId: id().optional(),
+    breakerClosingMs: breakerClosingMs(),
     limits: limitsSchema.optional(),
-    presetId: z.string({ error: 'must be text' }).optional(),
+    presetId: text().optional(),
     dead: deadSchema.optional(),
     ratedVoltageV: positive('V').lte(50000, 'must be 50 000 V or less').optional(),
     ratedFrequencyHz: positive('Hz').lte(1000, 'must be 1000 Hz or less').optional(),
@@ -166,8 +152,8 @@ export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
     angleSteps: num('steps').int('must be a whole number').gte(2, 'must be 2 or more').lte(1441, 'must be 1441 or less').default(181),
     slipSteps: num('steps').int('must be a whole number').gte(2, 'must be 2 or more').lte(1001, 'must be 1001 or less').default(101),
     slipRangeHz: positive('Hz').lte(5, 'must be 5 Hz or less').default(0.5),
-    method: z.enum(['closed-form', 'time-domain'], { error: 'must be "closed-form" or "time-domain"' }).default('closed-form'),
-    angleAxis: z.enum(['command', 'contact'], { error: 'must be "command" or "contact"' }).optional(),
+    method: oneOf(CLOSING_MAP_METHODS).default('closed-form'),
+    angleAxis: oneOf(CLOSING_MAP_ANGLE_AXES).optional(),
     voltageDifferencePct: num('%').gte(-50, 'must be −50 % or more').lte(50, 'must be 50 % or less').optional(),
   })
   .strict()

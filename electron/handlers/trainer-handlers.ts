@@ -1,36 +1,20 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type { SyncLimits, TrainerBus, TrainerExercise, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
+import type { TrainerBus, TrainerExercise, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
+import { TRAINER_PHASES } from '../../shared-types';
 import type { HandlerGroup } from './handler';
-import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from './plant-schema';
-
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
-const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0').refine(Number.isFinite, 'must be a finite number');
-const nonNegative = (unit: string) => z.number({ error: `must be a number (${unit})` }).gte(0, 'must be 0 or more').refine(Number.isFinite, 'must be a finite number');
-
-const limitsSchema: z.ZodType<SyncLimits> = z
-  .object({
-    slipHz: positive('Hz'),
-    angleDeg: positive('°').lte(180, 'must be 180° or less'),
-    voltagePct: positive('%').lte(50, 'must be 50 % or less'),
-    incomingFaster: z.boolean({ error: 'must be true or false' }).optional(),
-    incomingHigher: z.boolean({ error: 'must be true or false' }).optional(),
-  })
-  .strict();
-
-/** A number within [lo, hi], the rule in words. Same plausible ranges as the plant schema (common practice, wide). */
-const range = (unit: string, lo: number, hi: number) =>
-  z.number({ error: `must be a number (${unit})` }).gte(lo, `must be ${lo} ${unit} or more`).lte(hi, `must be ${hi} ${unit} or less`);
+import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from '../schemas/plant-schema';
+import { between as range, flag, oneOf, nonNegative, num, positive, syncLimitsSchema as limitsSchema, text, whole } from '../schemas/schema-kit';
 
 const machineSchema: z.ZodType<TrainerMachine> = z
   .object({
-    label: z.string({ error: 'must be text' }),
+    label: text(),
     ratedKVA: positive('kVA').lte(MAX_SET_RATING, 'must be 2 000 000 kVA or less'),
     ratedKW: positive('kW').lte(MAX_SET_RATING, 'must be 2 000 000 kW or less'),
     ratedVoltageV: range('V', 100, 35000),
     ratedFrequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'must be 50 or 60 (Hz)' }),
-    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').lte(64, 'must be 64 or fewer'),
+    poles: whole().gte(2, 'must be 2 or more').lte(64, 'must be 64 or fewer'),
     xddpPU: range('pu', 0.01, 2),
     xdpPU: range('pu', 0.01, 5),
     tdopS: range('s', 0.01, 60),
@@ -50,12 +34,12 @@ const busSchema: z.ZodType<TrainerBus> = z.object({ ratedKVA: positive('kVA').lt
 
 const levelSchema: z.ZodType<TrainerLevel> = z
   .object({
-    id: z.string(),
-    label: z.string(),
-    description: z.string(),
+    id: text(),
+    label: text(),
+    description: text(),
     breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
     busDriftHz: nonNegative('Hz').lte(5, 'must be 5 Hz or less'),
-    mustSetWindow: z.boolean(),
+    mustSetWindow: flag(),
   })
   .strict();
 
@@ -94,14 +78,14 @@ const contactSchema = z
 /** The live state as it comes back from the renderer: every number finite, nothing extra. */
 const stateSchema: z.ZodType<TrainerState> = z
   .object({
-    seed: z.number().int('must be a whole number'),
-    levelId: z.string(),
+    seed: whole(),
+    levelId: text(),
     level: levelSchema,
     machine: machineSchema,
     bus: busSchema,
     window: limitsSchema.nullable(),
     referenceWindow: limitsSchema,
-    phase: z.enum(['running', 'closing', 'closed'], { error: 'must be "running", "closing" or "closed"' }),
+    phase: oneOf(TRAINER_PHASES),
     tS: nonNegative('s'),
     busFrequencyHz: positive('Hz'),
     // 0 V: a dead bus (an instructor's fault).
@@ -119,7 +103,7 @@ const stateSchema: z.ZodType<TrainerState> = z
     emfPU: num('pu'),
     closeCommandAtS: num('s').nullable(),
     closeCommandAngleDeg: num('°').nullable(),
-    incomingSetId: z.string().nullable(),
+    incomingSetId: text().nullable(),
     contact: contactSchema.nullable(),
     faults: trainerFaultsSchema.optional(),
   })
@@ -142,7 +126,7 @@ const stateSchema: z.ZodType<TrainerState> = z
 
 const direction = z.union([z.literal(-1), z.literal(0), z.literal(1)], { error: 'must be -1, 0 or 1' });
 const inputsSchema: z.ZodType<TrainerInputs> = z
-  .object({ speed: direction, voltage: direction, close: z.boolean({ error: 'must be true or false' }).optional(), window: limitsSchema.optional() })
+  .object({ speed: direction, voltage: direction, close: flag().optional(), window: limitsSchema.optional() })
   .strict();
 
 /** The fields of an instructor's exercise: the project file keeps it with these rules and the Trainer checks it with them. */
@@ -166,12 +150,12 @@ export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 't
   trainerStart: {
     schema: z
       .object({
-        seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
-        levelId: z.string({ error: 'must be text' }),
+        seed: whole().gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+        levelId: text(),
         machine: machineSchema.optional(),
         bus: busSchema.optional(),
         plant: plantSchema.optional(),
-        incomingSetId: z.string({ error: 'must be text' }).optional(),
+        incomingSetId: text().optional(),
         window: limitsSchema.optional(),
         faults: trainerFaultsSchema.optional(),
       })

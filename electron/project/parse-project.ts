@@ -5,9 +5,9 @@
  */
 import type { ParsedProject, Project } from '../../shared-types';
 import { z } from 'zod';
-import { projectSchema } from '../handlers/project-schema';
-import { checkEvents } from '../handlers/simulation-handlers';
-import { parseOrThrow, ValidationError } from '../handlers/validate';
+import { projectSchema } from '../schemas/project-schema';
+import { checkEvents } from '../schemas/scenario-events';
+import { parseOrThrow, ValidationError } from '../schemas/validate';
 import { checkAndStrip, contentChecksum, INTEGRITY_KEY } from './checksum';
 import { findJsonSyntaxProblem } from './json-syntax';
 import { migrateToCurrent } from './migrate-project';

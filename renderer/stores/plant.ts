@@ -229,6 +229,11 @@ export const usePlantStore = defineStore('plant', () => {
   }
 
   /** The problem of the draft at `path`, if any. */
+  /** The draft's value at a field path (`sets[1].governor.droopPct`), for the editor's fields. */
+  function valueAt(path: string): unknown {
+    return getIn(draft.value, path);
+  }
+
   function issueAt(path: string): string | undefined {
     return draftIssues.value.find((i) => i.path === path)?.message;
   }
@@ -273,6 +278,7 @@ export const usePlantStore = defineStore('plant', () => {
     redo,
     closeStep,
     attachSolver,
+    valueAt,
     issueAt,
     snapshot,
     markSaved,

@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { describePlant, ratedCurrentA, ratedSpeedRpm, kVARBase } from '../../electron/engine';
+import { describePlant } from '../../electron/engine';
+import { ratedCurrentA, ratedSpeedRpm, kVARBase } from '../../shared-types';
 import { expectClose } from '../helpers/expect-close';
 import { demoPlant, makePlant, rawSet } from '../helpers/plants';
 

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { plantSchema } from '../../electron/handlers/plant-schema';
+import { plantSchema } from '../../electron/schemas/plant-schema';
 import { dispatch } from '../../electron/handlers';
 import { closingMapRequestSchema, runClosingMap } from '../../electron/handlers/sync-handlers';
 import type { ClosingMap, Plant, SyncResult } from '../../shared-types';

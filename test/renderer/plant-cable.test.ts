@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { CABLE_SIZES, cableImpedance } from '../../renderer/cable-table';
+import { CABLE_SIZES, cableImpedance } from '../../shared-types';
 import { expectClose } from '../helpers/expect-close';
 
 describe('cableImpedance', () => {

@@ -7,7 +7,7 @@ import { usePlantStore } from '../../renderer/stores/plant';
 import { useSharingStore } from '../../renderer/stores/sharing';
 import { setEngineClient } from '../../renderer/transport';
 import { solveSharing } from '../../electron/engine';
-import { cableImpedance } from '../../renderer/cable-table';
+import { cableImpedance } from '../../shared-types';
 import { directClient } from '../helpers/direct-client';
 import { expectClose } from '../helpers/expect-close';
 

@@ -14,7 +14,7 @@
  * at every other.
  */
 import type { Band, PlanLimits, Plant } from '../../../shared-types';
-import { kVARBase } from '../describe-plant';
+import { kVARBase } from '../../../shared-types';
 import type { LoadPoint } from './load-points';
 import { clamp, fmt } from './plan-limits';
 

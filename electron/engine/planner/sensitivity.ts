@@ -9,7 +9,7 @@
  * Otherwise central finite differences of `solveSharing` (the solver's Jacobian).
  */
 import type { LoadOverride, Plant, SensitivityEntry, SensitivityResult, SharingResult } from '../../../shared-types';
-import { kVARBase } from '../describe-plant';
+import { kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { nudgeSpeed, nudgeVoltage, workingSet } from './setpoint-knobs';
 
@@ -34,8 +34,8 @@ function closedFormApplies(plant: Plant, base: SharingResult, load?: LoadOverrid
 
 function closedForm(plant: Plant): Omit<SensitivityResult, 'largest' | 'setIds' | 'method'> {
   const n = plant.sets.length;
-  const k = plant.sets.map((s) => (s.online ? s.ratedKW / ((s.governor.droopPct / 100) * plant.ratedFrequencyHz) : 0));
-  const b = plant.sets.map((s) => (s.online ? kVARBase(s.ratedKVA, s.ratedPF) / ((s.regulator.droopPct / 100) * plant.ratedVoltageV) : 0));
+  const k = plant.sets.map((s) => (s.online ? speedDroopKWPerHz(s.ratedKW, s.governor.droopPct, plant.ratedFrequencyHz) : 0));
+  const b = plant.sets.map((s) => (s.online ? reactiveDroopKVARPerV(kVARBase(s.ratedKVA, s.ratedPF), s.regulator.droopPct, plant.ratedVoltageV) : 0));
   const K = k.reduce((x, y) => x + y, 0);
   const B = b.reduce((x, y) => x + y, 0);
   const dV = (VOLTAGE_STEP_PCT / 100) * plant.ratedVoltageV;

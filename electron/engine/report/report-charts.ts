@@ -1,11 +1,11 @@
 /**
  * The report's charts as SVG: the speed-droop and reactive-droop lines of every set with the
  * operating points of the sharing table, the closing map (surge and first-cycle peak torque), and each
- * scenario's frequency and voltage. Each droop line's law is stated with its function below.
+ * scenario's frequency and voltage. The droop laws themselves live in shared-types/laws.ts.
  */
 import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
 import type { GenSet, Plant, ReportChart, SimulationResult } from '../../../shared-types';
-import { kVARBase } from '../describe-plant';
+import { kVARBase, reactiveDroopV, speedDroopHz } from '../../../shared-types';
 import { heatMapSvg } from './svg-heat-map';
 import { lineChartSvg } from './svg-line-chart';
 import type { ChartSeries } from './svg-line-chart';
@@ -21,7 +21,7 @@ export function speedDroopLine(set: GenSet, ratedHz: number): { kW: number[]; hz
   const g = set.governor;
   if (g.mode === 'baseload') return { kW: [g.baseKW, g.baseKW], hz: [ratedHz * 0.97, ratedHz * 1.03] };
   if (g.mode === 'isochronous') return { kW: [0, set.ratedKW], hz: [g.setpointHz, g.setpointHz] };
-  const at = (kW: number) => g.noLoadHz - (g.droopPct / 100) * ratedHz * (kW / set.ratedKW);
+  const at = (kW: number) => speedDroopHz(g.noLoadHz, g.droopPct, ratedHz, set.ratedKW, kW);
   return { kW: [0, set.ratedKW], hz: [at(0), at(set.ratedKW)] };
 }
 
@@ -36,7 +36,7 @@ export function reactiveDroopLine(set: GenSet, ratedV: number): { kVAR: number[]
   const q = [-0.3 * qBase, qBase];
   if (r.mode === 'power-factor') return null;
   if (r.mode !== 'reactive-droop') return { kVAR: q, v: [r.setpointV, r.setpointV] };
-  return { kVAR: q, v: q.map((x) => r.noLoadV - (r.droopPct / 100) * ratedV * (x / qBase)) };
+  return { kVAR: q, v: q.map((x) => reactiveDroopV(r.noLoadV, r.droopPct, ratedV, qBase, x)) };
 }
 
 function chart(id: string, built: { svg: string; widthPx: number; heightPx: number }, title: string): ReportChart {

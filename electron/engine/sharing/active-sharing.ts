@@ -11,7 +11,7 @@
  */
 import { NoSteadyState } from '../errors';
 import { busLoadKW, busLoadKWLinear } from './bus-loads';
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import type { SharingModel } from './sharing-model';
 
 // Module-local copies: hot loops compare against plain constants, not live import bindings.

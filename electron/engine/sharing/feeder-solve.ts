@@ -5,7 +5,7 @@
  * Three-phase, V line-to-line, Z per phase: `I' = (P_r − jQ_r) / V_b`, `V_t = V_b + Z I'`,
  * `P_s = P_r + R|I'|²`, `Q_s = Q_r + X|I'|²` (the short-line model, Glover, Sarma & Overbye, ch. 5).
  */
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import { target } from './network-work';
 import type { Work } from './network-work';
 import { limitKVAR, lowerKVAR, upperKVAR } from './reactive-sharing';

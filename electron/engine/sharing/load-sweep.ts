@@ -4,6 +4,7 @@
  * the chosen power factor; a point with no steady state carries its reason instead of numbers.
  */
 import type { LoadSweep, Plant, SweepLoadRequest, SweepPoint } from '../../../shared-types';
+import { tanPhi } from '../../../shared-types';
 import { EngineError, InvalidInput } from '../errors';
 import { buildSharingModel } from './sharing-model';
 import { solveSharing } from './solve-sharing';
@@ -45,7 +46,7 @@ export function impliedPowerFactor(plant: Plant): ImpliedPowerFactor {
     pf += s.ratedKW * s.ratedPF;
   }
   const rated = w > 0 ? pf / w : 0.8;
-  return { pf: rated, kVARPerKW: Math.sqrt(1 - rated * rated) / rated, source: 'rated PF of the sets' };
+  return { pf: rated, kVARPerKW: tanPhi(rated), source: 'rated PF of the sets' };
 }
 
 /**

@@ -6,7 +6,7 @@
  * and natural-parameter continuation in the feeder impedances when the start is too far.
  */
 import { Diverged, EngineError, NoSteadyState } from '../errors';
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import { busLoadKVAR, busLoadKVARdF, busLoadKVARdV, busLoadKW, busLoadKWdV, busLoadKWLinear } from './bus-loads';
 import { solveSet } from './feeder-solve';
 import { overCapabilityMessage, underMinimumMessage } from './active-sharing';

@@ -16,7 +16,7 @@
  * close the system.
  */
 import { Diverged, EngineError, NoSteadyState } from '../errors';
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import type { SharingModel } from './sharing-model';
 import { isoLambdaRange, overCapabilityMessage, underMinimumMessage } from './active-sharing';
 import type { IsoState } from './active-sharing';

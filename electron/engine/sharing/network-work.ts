@@ -3,7 +3,7 @@
  * their derivatives, allocated once per solve so that the iterations allocate nothing;
  * and each set's governor target for the current outer unknowns.
  */
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import type { SharingModel } from './sharing-model';
 import { governorKW, isoKW } from './active-sharing';
 

@@ -19,7 +19,7 @@
  */
 import { NoSteadyState } from '../errors';
 import { busLoadKVAR, busLoadKVARQuadratic } from './bus-loads';
-import * as codes from './sharing-model';
+import * as codes from '../mode-codes';
 import type { SharingModel } from './sharing-model';
 import { fieldLimitKVAR } from '../capability';
 

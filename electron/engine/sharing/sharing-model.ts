@@ -3,22 +3,13 @@
  * and regulator law as numbers in typed arrays; the loads as voltage- and
  * frequency-dependent terms. Built once per solve; the solvers only read it.
  */
-import { zipShares } from '../../../shared-types';
+import { kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz, tanPhi, zipShares } from '../../../shared-types';
 import type { GenSet, Load, LoadOverride, Plant, ZipShares } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
+import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
 import { leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, overloadLimitKW } from './set-limits';
 
-/** Governor law of an online set, as a small integer code for the hot loops. */
-export const GOV_DROOP = 0;
-export const GOV_ISO = 1;
-export const GOV_BASE = 2;
-
-/** Regulator law of an online set. */
-export const REG_DROOP = 0;
-export const REG_CROSS = 1;
-export const REG_VOLTAGE = 2;
-export const REG_PF = 3;
 
 /**
  * One load term on the common bus (powers at rated voltage and frequency) with its ZIP
@@ -172,20 +163,20 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
       );
     if (g.mode === 'droop') {
       m.gov[i] = GOV_DROOP;
-      m.slopeKWPerHz[i] = s.ratedKW / ((g.droopPct / 100) * fr);
+      m.slopeKWPerHz[i] = speedDroopKWPerHz(s.ratedKW, g.droopPct, fr);
     } else if (g.mode === 'isochronous') {
       m.gov[i] = GOV_ISO;
       if (g.loadSharingLink === false) isoUnlinked.push(i);
       else m.isoGroup.push(i);
     } else m.gov[i] = GOV_BASE;
-    const qBase = s.ratedKVA * Math.sqrt(1 - s.ratedPF * s.ratedPF);
+    const qBase = kVARBase(s.ratedKVA, s.ratedPF);
     m.noLoadV[i] = r.noLoadV;
-    m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    m.tanPhi[i] = tanPhi(r.pf);
     m.leadKVAR[i] = leadingLimitKVAR(s);
     m.limited[i] = r.mode === 'reactive-droop' || r.mode === 'power-factor' ? 1 : 0;
     if (r.mode === 'reactive-droop') {
       m.reg[i] = REG_DROOP;
-      m.slopeKVARPerV[i] = qBase / ((r.droopPct / 100) * vr);
+      m.slopeKVARPerV[i] = reactiveDroopKVARPerV(qBase, r.droopPct, vr);
     } else if (r.mode === 'cross-current') {
       m.reg[i] = REG_CROSS;
       crossSets.push(i);

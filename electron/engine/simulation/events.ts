@@ -8,11 +8,10 @@ import { syncCheck } from '../sync/permissives';
 import { syncPreset } from '../sync/presets';
 import { InvalidInput } from '../errors';
 import { DELTA, ED2, EQ2, GOV_INT, OMEGA, STATES_PER_SET } from './layout';
-import { GOV_BASE, GOV_DROOP, REG_DROOP } from './codes';
+import { GOV_BASE, GOV_DROOP, REG_DROOP } from '../mode-codes';
 import { initialiseOffline } from './initialise';
-import type { Outputs } from './plant-dynamics';
 import { plainLoadSlot } from './sim-model';
-import type { LoadSlot, SimModel } from './sim-model';
+import type { LoadSlot, Outputs, SimModel } from './sim-types';
 
 /** What an event may touch. */
 export interface EventTarget {

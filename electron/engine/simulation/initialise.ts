@@ -8,9 +8,9 @@
 import type { Plant, SharingResult } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { ACTUATOR, AVR_INT, DELTA, ED2, EFD, EQ1, EQ2, GOV_INT, OMEGA, PMECH, STATES_PER_SET, VAR_TRIM } from './layout';
-import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from './codes';
+import { GOV_BASE, GOV_DROOP, REG_CROSS, REG_DROOP, REG_PF } from '../mode-codes';
 import { voltageReference } from './regulator';
-import type { SimModel } from './sim-model';
+import type { SimModel } from './sim-types';
 
 /** Steady state of set `i` when running unloaded with its breaker open. */
 export function initialiseOffline(m: SimModel, i: number, y: Float64Array, deExcited: boolean, angleRad = 0): void {

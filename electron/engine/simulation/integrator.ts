@@ -52,9 +52,3 @@ export function rk4StepFromK1(f: Rhs, clock: Clock, y: Float64Array, w: Rk4): vo
   for (let j = 0; j < n; j++) y[j] = y[j]! + h6 * (k1[j]! + 2 * k2[j]! + 2 * k3[j]! + k4[j]!);
   clock.t = t;
 }
-
-/** One full RK4 step (evaluates k1 itself). */
-export function rk4Step(f: Rhs, clock: Clock, y: Float64Array, w: Rk4): void {
-  f(y, w.k1);
-  rk4StepFromK1(f, clock, y, w);
-}

@@ -25,8 +25,7 @@
  * Saturation is not modelled.
  */
 import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH, STATES_PER_SET } from './layout';
-import type { SimModel } from './sim-model';
-import type { Outputs } from './plant-dynamics';
+import type { Outputs, SimModel } from './sim-types';
 import { O_ID, O_IQ, O_P_OWN, P_DAMPING_PU, P_INV2_H, P_INV_TD0, P_INV_TD20, P_ONLINE, P_RESIDUAL_PU, P_XD1_MINUS_XD2, P_XD_MINUS_XD1 } from './par-layout';
 
 /** Speeds below this (pu) are taken as this when power is turned into torque. */

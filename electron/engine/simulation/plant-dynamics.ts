@@ -5,65 +5,16 @@
  * arrays (the simulator reads them after the first RK4 stage of each step).
  */
 import { DELTA, ED2, EQ2, OMEGA, STATES_PER_SET } from './layout';
-import { GOV_ISO, REG_CROSS } from './codes';
+import { GOV_ISO, REG_CROSS } from '../mode-codes';
 import { machineDerivatives } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
-import type { BusVoltage } from './network';
-import type { SimModel } from './sim-model';
+import type { SimModel } from './sim-types';
 import { P_GOV_MODE, P_INERTIA_KVA, P_ISO_LINKED, P_KW_PU, P_ONLINE, P_OWN_SCALE, P_RATED_KVA, P_REG_MODE, P_SHUTDOWN, P_Y_IM, P_Y_RE, P_ZF_IM, P_ZF_RE, OUT_COLUMNS, O_COS_D, O_E_IM, O_E_RE, O_ID, O_IQ, O_I_IM, O_I_RE, O_P_OWN, O_Q_OWN, O_SIN_D, O_VT, O_VT_IM, O_VT_RE, O_V_SENSED } from './par-layout';
 
-/** What one evaluation computes besides the derivatives (system base unless noted). */
-export interface Outputs {
-  /** The per-set outputs below in one array, column by column (`O_*`). */
-  buf: Float64Array;
-  /** E'' of each set, network frame. */
-  eRe: Float64Array;
-  eIm: Float64Array;
-  sinD: Float64Array;
-  cosD: Float64Array;
-  /** Stator current into the network. */
-  iRe: Float64Array;
-  iIm: Float64Array;
-  /** Terminal voltage phasor and magnitude. */
-  vtRe: Float64Array;
-  vtIm: Float64Array;
-  vt: Float64Array;
-  /** Electrical power and terminal kVAR, pu on the set's own base. */
-  pOwn: Float64Array;
-  qOwn: Float64Array;
-  /** Stator current on the rotor's d- and q-axes, pu on the set's own base. */
-  id: Float64Array;
-  iq: Float64Array;
-  /** Voltage each regulator compares with its reference, pu (its own terminal voltage, or the cross-current group's mean). */
-  vSensed: Float64Array;
-  /** Time of this evaluation, s (set by the caller before it evaluates). */
-  t: number;
-  /** Linked isochronous group's loading, pu of ratedKW. */
-  pBarIso: number;
-  /** Cross-current group's mean kVAR, pu of ratedKVA. */
-  qBarCross: number;
-  bus: BusVoltage;
-  /** Inputs of the bus solve (see `network.ts`). */
-  net: Float64Array;
-  anyOnline: boolean;
-  /** Bus speed: inertia-weighted mean speed of the on-line sets, pu. */
-  omegaBus: number;
-  /** Power taken by the loads and lost in the feeders, pu. */
-  loadP: number;
-  loadQ: number;
-  feederLossP: number;
-  /**
-   * Load the bus does not serve because the voltage is below the break voltage (`m.breakPU`;
-   * the constant-power and constant-current shares then draw as constant impedance): what
-   * their own law would draw less what they draw, pu.
-   */
-  unservedP: number;
-  unservedQ: number;
-  /** Evaluations whose bus solve did not converge. */
-  unconverged: number;
-}
+export type { Outputs } from './sim-types';
+import type { Outputs } from './sim-types';
 
 /** Allocates the output arrays for `n` sets. */
 export function createOutputs(n: number): Outputs {

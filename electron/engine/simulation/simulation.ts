@@ -8,12 +8,12 @@
 import type { CloseRecord, ProtectionTrip, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { wrapAngleDeg } from '../../../shared-types/angle';
+import { ratedCurrentA } from '../../../shared-types/laws';
 import { DELTA, EFD, OMEGA, PMECH, STATES_PER_SET } from './layout';
-import { GOV_DROOP } from './codes';
+import { GOV_DROOP } from '../mode-codes';
 import { PROTECTION_DEVICES, buildSimModel } from './sim-model';
-import type { SimModel } from './sim-model';
+import type { Outputs, SimModel } from './sim-types';
 import { createOutputs, evaluatePlant } from './plant-dynamics';
-import type { Outputs } from './plant-dynamics';
 import { createRk4, rk4StepFromK1 } from './integrator';
 import type { Rhs, Rk4 } from './integrator';
 import { initialiseAtRest } from './initialise';
@@ -129,7 +129,7 @@ class Run implements Simulation {
     this.reverseTimer = new Float64Array(n);
     this.protTimer = new Float64Array(PROTECTION_DEVICES.length * n);
     this.oelTimer = new Float64Array(n);
-    this.currentScaleA = (m.baseKVA * 1000) / (Math.sqrt(3) * m.ratedVoltageV);
+    this.currentScaleA = ratedCurrentA(m.baseKVA, m.ratedVoltageV);
     this.target = {
       m,
       y: this.y,

@@ -8,8 +8,8 @@
 import type { Governor, Load, Plant } from '../../../shared-types';
 import { solveSharing } from '../sharing';
 import { EngineError } from '../errors';
-import { GOV_DROOP, GOV_ISO } from './codes';
-import type { SimModel } from './sim-model';
+import { GOV_DROOP, GOV_ISO } from '../mode-codes';
+import type { SimModel } from './sim-types';
 
 /** The steady state the final plant should settle at, or why there is none. */
 export type SteadyTarget = { frequencyHz: number; voltageV: number; note: null } | { frequencyHz: null; voltageV: null; note: string };

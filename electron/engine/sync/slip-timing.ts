@@ -6,14 +6,12 @@
  */
 import { angleAfterDeg, wrapAngleDeg } from './phasor';
 
+// The advance-angle law has one home, shared with the renderer (shared-types/laws.ts); the engine re-exports it here.
+export { advanceAngleDeg } from '../../../shared-types/laws';
+
 /** Slip period `1 / |s|`, s; null at zero slip (the angle never moves). */
 export function slipPeriodS(slipHz: number): number | null {
   return slipHz === 0 ? null : 1 / Math.abs(slipHz);
-}
-
-/** Advance angle `360 |s| t`: the angle gained during the breaker closing time, degrees. */
-export function advanceAngleDeg(slipHz: number, breakerClosingMs: number): number {
-  return 360 * Math.abs(slipHz) * (breakerClosingMs / 1000);
 }
 
 /** Time a ±`windowDeg` window stays open each slip cycle, `2A / (360 |s|)`, s; null at zero slip. Capped at the slip period. */

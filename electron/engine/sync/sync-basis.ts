@@ -3,6 +3,7 @@
  * base. Everything per-unit in the synchronizing engine is on the incoming set's kVA and this base voltage.
  */
 import type { SyncCase } from '../../../shared-types';
+import { ratedCurrentA, ratedSpeedRpm as ratedSpeedOf } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 
 /** The bases of one case. */
@@ -42,8 +43,8 @@ export function syncBasis(c: SyncCase): SyncBasis {
   const ratedFrequencyHz = c.plant?.ratedFrequencyHz ?? c.ratedFrequencyHz ?? nearestSystemFrequencyHz(fRef);
   const poles = c.incoming.poles ?? set?.poles ?? 4;
   const incomingKVA = c.incoming.ratedKVA;
-  const currentA = (incomingKVA * 1000) / (Math.sqrt(3) * voltageV);
-  const ratedSpeedRpm = (120 * ratedFrequencyHz) / poles;
+  const currentA = ratedCurrentA(incomingKVA, voltageV);
+  const ratedSpeedRpm = ratedSpeedOf(ratedFrequencyHz, poles);
   const omegaMechRadS = (2 * Math.PI * ratedSpeedRpm) / 60;
   // T_base = S_base / ω_m (N·m from VA and rad/s), reported in kN·m.
   const torqueKNm = (incomingKVA * 1000) / omegaMechRadS / 1000;

@@ -5,6 +5,7 @@
  * and the simulator runs the first seconds. Used when the exercise came from a plant.
  */
 import type { Plant, TrainerState, TrainerTraces } from '../../../shared-types';
+import { ratedCurrentA } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { createSimulation } from '../simulation';
 
@@ -40,7 +41,7 @@ export function afterClosePlantTraces(state: TrainerState, plant: Plant, setId: 
     voltageV: before.voltageV * (1 + c.voltageDifferencePct / 100),
     angleDeg: c.angleDeg,
   });
-  const ratedA = (set.ratedKVA * 1000) / (Math.sqrt(3) * plant.ratedVoltageV);
+  const ratedA = ratedCurrentA(set.ratedKVA, plant.ratedVoltageV);
   const traces: TrainerTraces = { tS: [], angleDeg: [], currentPU: [], powerPU: [], speedHz: [], source: 'plant-simulator' };
   const keep = (t: number): void => {
     const snap = sim.snapshot();

@@ -5,6 +5,7 @@
  * circuit (incoming X''d plus the running bus).
  */
 import type { TrainerBus, TrainerMachine } from '../../../shared-types';
+import { ratedCurrentA } from '../../../shared-types';
 import { closingSurge } from '../sync/closing-surge';
 
 /** Stress of one close, per unit on the incoming set's base. */
@@ -57,7 +58,7 @@ export function contactStress(
       incomingVoltagePU: busVoltagePU * voltageRatio,
       loopXPU,
       rOverX: machine.raPU / loopXPU,
-      baseCurrentA: (machine.ratedKVA * 1000) / (Math.sqrt(3) * machine.ratedVoltageV),
+      baseCurrentA: ratedCurrentA(machine.ratedKVA, machine.ratedVoltageV),
       incomingKVA: machine.ratedKVA,
       torqueBaseKNm: machine.ratedKVA / omegaMechRad,
       speedPU,

@@ -8,6 +8,7 @@
  */
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SetCapability, SetResult } from '../../../shared-types';
+import { hLine, SMALL_LABEL, vLine } from './annotations';
 import type { XY } from './droop-lines';
 import { withAlpha } from './series-style';
 import type { ChartTheme } from './theme';
@@ -25,32 +26,6 @@ export const CAPABILITY_WORDS = {
   reverse: 'reverse-power setting (32)',
   point: 'operating point',
 } as const;
-
-function vLine(x: number, color: string, text: string, theme: ChartTheme, dash: number[], position: 'start' | 'end') {
-  return {
-    type: 'line' as const,
-    xMin: x,
-    xMax: x,
-    xScaleID: 'x',
-    borderColor: color,
-    borderWidth: 1.5,
-    borderDash: dash,
-    label: { display: true, content: text, position, rotation: -90, backgroundColor: theme.panel, color: theme.fg, font: { size: 10 }, padding: 2 },
-  };
-}
-
-function hLine(y: number, color: string, text: string, theme: ChartTheme, dash: number[]) {
-  return {
-    type: 'line' as const,
-    yMin: y,
-    yMax: y,
-    yScaleID: 'y',
-    borderColor: color,
-    borderWidth: 1.5,
-    borderDash: dash,
-    label: { display: true, content: text, position: 'start' as const, backgroundColor: theme.panel, color: theme.fg, font: { size: 10 }, padding: 2 },
-  };
-}
 
 /** The kVAR range drawn: both halves of the stator circle, with a little room. */
 export function capabilityKVARRange(c: SetCapability): [number, number] {
@@ -113,7 +88,7 @@ export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 
         tooltip: { animation: false },
         annotation: {
           annotations: {
-            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, [3, 3]),
+            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, { dash: [3, 3], size: SMALL_LABEL }),
             rated: vLine(c.ratedKW, theme.muted, `${CAPABILITY_WORDS.rated} ${Math.round(c.ratedKW)} kW`, theme, [2, 4], 'end'),
             overload: vLine(c.overloadKW, theme.bad, `${CAPABILITY_WORDS.overload} ${Math.round(c.overloadKW)} kW`, theme, [10, 3], 'start'),
             zeroFuel: vLine(-c.motoringKW, theme.muted, `${CAPABILITY_WORDS.zeroFuel} −${Math.round(c.motoringKW)} kW`, theme, [4, 2], 'end'),

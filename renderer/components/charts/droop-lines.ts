@@ -1,5 +1,6 @@
 /**
- * The droop characteristics of each set, as line segments to draw (the README's definitions):
+ * The droop characteristics of each set, as line segments to draw; the laws are computed by the one home of the
+ * generating-set laws, shared-types/laws.ts:
  * - speed droop: `f = noLoadHz − P · (droopPct/100) · f_rated / ratedKW` (the inverse of
  *   `P = ratedKW (noLoadHz − f) / (droopPct/100 · f_rated)`); isochronous: `f = setpointHz`;
  *   base load: `P = baseKW` at any frequency;
@@ -8,6 +9,7 @@
  *   power-factor control: `Q = P tan(acos pf)` at the set's operating kW.
  */
 import type { GenSet, Plant } from '../../../shared-types';
+import { kVARBase as qBaseOf, reactiveDroopV, speedDroopHz, tanPhi } from '../../../shared-types';
 
 /** A point of a characteristic: x in kW or kVAR, y in Hz or V. */
 export interface XY {
@@ -30,14 +32,13 @@ export function speedDroopLine(set: GenSet, plant: Plant): Characteristic {
   if (g.mode === 'isochronous') {
     return { kind: 'segment', points: [{ x: lowKW, y: g.setpointHz }, { x: highKW, y: g.setpointHz }] };
   }
-  const hzPerKW = ((g.droopPct / 100) * plant.ratedFrequencyHz) / set.ratedKW;
-  const f = (kW: number) => g.noLoadHz - kW * hzPerKW;
+  const f = (kW: number) => speedDroopHz(g.noLoadHz, g.droopPct, plant.ratedFrequencyHz, set.ratedKW, kW);
   return { kind: 'segment', points: [{ x: lowKW, y: f(lowKW) }, { x: highKW, y: f(highKW) }] };
 }
 
-/** Reactive base `Qbase = ratedKVA √(1 − ratedPF²)`, kVAR. */
+/** Reactive base of `set` (the law in shared-types/laws.ts), kVAR. */
 export function kVARBase(set: GenSet): number {
-  return set.ratedKVA * Math.sqrt(1 - set.ratedPF * set.ratedPF);
+  return qBaseOf(set.ratedKVA, set.ratedPF);
 }
 
 /**
@@ -46,12 +47,12 @@ export function kVARBase(set: GenSet): number {
  */
 export function reactiveDroopLine(set: GenSet, plant: Plant, fromKVAR: number, toKVAR: number, kW = 0): Characteristic {
   const r = set.regulator;
-  if (r.mode === 'power-factor') return { kind: 'vertical', x: kW * Math.tan(Math.acos(r.pf)) };
+  if (r.mode === 'power-factor') return { kind: 'vertical', x: kW * tanPhi(r.pf) };
   if (r.mode !== 'reactive-droop') {
     return { kind: 'segment', points: [{ x: fromKVAR, y: r.setpointV }, { x: toKVAR, y: r.setpointV }] };
   }
-  const vPerKVAR = ((r.droopPct / 100) * plant.ratedVoltageV) / kVARBase(set);
-  const v = (q: number) => r.noLoadV - q * vPerKVAR;
+  const qBase = kVARBase(set);
+  const v = (q: number) => reactiveDroopV(r.noLoadV, r.droopPct, plant.ratedVoltageV, qBase, q);
   return { kind: 'segment', points: [{ x: fromKVAR, y: v(fromKVAR) }, { x: toKVAR, y: v(toKVAR) }] };
 }
 

@@ -5,6 +5,7 @@
  */
 import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, TooltipItem } from 'chart.js';
 import type { LoadSweep, Plant, SharingResult } from '../../../shared-types';
+import { hLine } from './annotations';
 import { characteristicPoints, kVARBase, niceRange, paddedRange, reactiveDroopLine, speedDroopLine } from './droop-lines';
 import type { Characteristic, XY } from './droop-lines';
 import { niceBounds, roundTicks } from './nice-scale';
@@ -41,31 +42,6 @@ function basePlugins(theme: ChartTheme) {
   };
 }
 
-function hLine(y: number, color: string, text: string, theme: ChartTheme, dash: number[] = [6, 3]) {
-  return {
-    type: 'line' as const,
-    yMin: y,
-    yMax: y,
-    yScaleID: 'y',
-    borderColor: color,
-    borderWidth: 1.5,
-    borderDash: dash,
-    label: {
-      display: true,
-      content: text,
-      position: 'start' as const,
-      backgroundColor: theme.panel,
-      color: theme.fg,
-      font: { size: 11 },
-      padding: 3,
-    },
-  };
-}
-
-/**
- * One set's characteristic line clipped to `yLo`–`yHi` and, when known, its operating
- * point, in the set's colour, dash and point shape.
- */
 function setDatasets(setId: string, what: string, styleIndex: number, c: Characteristic, yLo: number, yHi: number, point: XY | null, theme: ChartTheme): Scatter[] {
   const st = seriesStyle(styleIndex, theme);
   const datasets: Scatter[] = [

@@ -4,8 +4,10 @@
  */
 import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
 import type { Band, Distribution, PlanCheck, Plant } from '../../../shared-types';
+import { kVARBase } from '../../../shared-types';
 import { reactiveDroopLine, speedDroopLine } from '../charts/droop-lines';
 import type { XY } from '../charts/droop-lines';
+import { hLine } from '../charts/annotations';
 import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
 
@@ -23,7 +25,7 @@ export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed
     const st = seriesStyle(i, theme);
     for (const [plant, when] of [[now, 'now'], [proposed, 'proposed']] as const) {
       const set = plant.sets[i]!;
-      const qTop = set.ratedKVA * Math.sqrt(1 - set.ratedPF * set.ratedPF);
+      const qTop = kVARBase(set.ratedKVA, set.ratedPF);
       const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
       if (c.kind !== 'segment') continue;
       datasets.push({
@@ -55,15 +57,7 @@ export function busAcrossChart(quantity: 'frequency' | 'voltage', now: PlanCheck
       const y = quantity === 'frequency' ? p.frequencyHz : p.voltageV;
       return y === null ? [] : [{ x: p.loadPct, y }];
     });
-  const edge = (y: number, text: string) => ({
-    type: 'line' as const,
-    yMin: y,
-    yMax: y,
-    borderColor: theme.bad,
-    borderWidth: 1.5,
-    borderDash: [6, 3],
-    label: { display: true, content: text, position: 'end' as const, backgroundColor: theme.panel, color: theme.fg, font: { size: 11 }, padding: 3 },
-  });
+  const edge = (y: number, text: string) => hLine(y, theme.bad, text, theme, { position: 'end' });
   const unit = quantity === 'frequency' ? 'Hz' : 'V';
   return {
     type: 'scatter',

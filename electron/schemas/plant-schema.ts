@@ -3,13 +3,9 @@
  * "field: rule" message. Optional simulator fields get documented defaults.
  */
 import { z } from 'zod';
-import { PLANT_DEFAULTS, PLANT_FORMAT, PLANT_VERSION, SET_DEFAULTS } from '../../shared-types';
+import { GOVERNOR_MODES, LOAD_MODELS, PLANT_DEFAULTS, PLANT_FORMAT, PLANT_VERSION, REGULATOR_MODES, SET_DEFAULTS } from '../../shared-types';
 import type { Plant } from '../../shared-types';
-
-const positive = (unit: string) => z.number({ error: `must be a number (${unit})` }).gt(0, 'must be greater than 0');
-const nonNegative = (unit: string) =>
-  z.number({ error: `must be a number (${unit})` }).gte(0, 'must be 0 or more');
-const finite = (unit: string) => z.number({ error: `must be a number (${unit})` });
+import { between, flag, id, nonNegative, num, oneOf, positive, powerFactor, text, whole } from './schema-kit';
 
 /*
  * Plausible bounds. They are wide enough for every real engine-driven set (a few kVA to a few tens of MVA,
@@ -26,20 +22,15 @@ export const MAX_FEEDER_OHM = 100;
 export const MAX_DAMPING_PU = 500;
 /** Setpoints (no-load and setpoint frequency and voltage) must lie within this fraction of rated. */
 export const SETPOINT_FRACTION = 0.5;
-const between = (unit: string, lo: number, hi: number, words = `${unit}`) =>
-  z
-    .number({ error: `must be a number (${unit})` })
-    .gte(lo, `must be ${lo.toLocaleString('en').replace(/,/g, ' ')} ${words} or more`)
-    .lte(hi, `must be ${hi.toLocaleString('en').replace(/,/g, ' ')} ${words} or less`);
 
 const governorSchema = z
   .object({
-    mode: z.enum(['droop', 'isochronous', 'baseload'], { error: 'must be "droop", "isochronous" or "baseload"' }),
+    mode: oneOf(GOVERNOR_MODES),
     droopPct: nonNegative('%').lte(20, 'must be 20 % or less').default(4),
     noLoadHz: positive('Hz').optional(),
     setpointHz: positive('Hz').optional(),
     baseKW: between('kW', -MAX_SET_RATING, MAX_SET_RATING).default(0),
-    loadSharingLink: z.boolean({ error: 'must be true or false' }).default(true),
+    loadSharingLink: flag().default(true),
     actuatorLagS: nonNegative('s').lte(10, 'must be 10 s or less').default(0.05),
     engineLagS: nonNegative('s').lte(30, 'must be 30 s or less').default(0.3),
     isoResetS: between('s', 0.01, 600).default(2),
@@ -49,22 +40,20 @@ const governorSchema = z
 
 const regulatorSchema = z
   .object({
-    mode: z.enum(['reactive-droop', 'cross-current', 'voltage', 'power-factor'], {
-      error: 'must be "reactive-droop", "cross-current", "voltage" or "power-factor"',
-    }),
+    mode: oneOf(REGULATOR_MODES),
     droopPct: nonNegative('%').lte(20, 'must be 20 % or less').default(4),
     noLoadV: positive('V').optional(),
     setpointV: positive('V').optional(),
-    pf: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lte(1, 'must be 1 or less').default(0.9),
+    pf: powerFactor().default(0.9),
     exciterLagS: nonNegative('s').lte(10, 'must be 10 s or less').default(0.1),
     gainPU: between('pu', 0.01, 10_000).default(50),
     // Empty (null) or left out: derived from the machine data (`fieldCeiling`).
     ceilingPU: positive('pu').lte(20, 'must be 20 pu or less').nullish(),
-    shuntExcited: z.boolean({ error: 'must be true or false' }).default(false),
+    shuntExcited: flag().default(false),
     residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
     vhzKneeBelowHz: nonNegative('Hz').lte(10, 'must be 10 Hz or less').default(SET_DEFAULTS.vhzKneeBelowHz),
     vhzSlopePctPerHz: nonNegative('% per Hz').lte(20, 'must be 20 % per Hz or less').default(SET_DEFAULTS.vhzSlopePctPerHz),
-    oelPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
+    oelPct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
     oelDelayS: nonNegative('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.oelDelayS),
     oelResetS: nonNegative('s').lte(600, 'must be 600 s or less').default(SET_DEFAULTS.oelResetS),
     resetS: between('s', 0.01, 60).default(SET_DEFAULTS.regulatorResetS),
@@ -93,11 +82,11 @@ const protectionSchema = z
   .object({
     underFrequencyPct: pickup('0 switches it off', 100).default(P.underFrequencyPct),
     underFrequencyDelayS: delay().default(P.underFrequencyDelayS),
-    overFrequencyPct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 150), 'must be 0 (off) or from 100 to 150 %').default(P.overFrequencyPct),
+    overFrequencyPct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 150), 'must be 0 (off) or from 100 to 150 %').default(P.overFrequencyPct),
     overFrequencyDelayS: delay().default(P.overFrequencyDelayS),
     underVoltagePct: pickup('0 switches it off', 100).default(P.underVoltagePct),
     underVoltageDelayS: delay().default(P.underVoltageDelayS),
-    overVoltagePct: z.number({ error: 'must be a number (%)' }).refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(P.overVoltagePct),
+    overVoltagePct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(P.overVoltagePct),
     overVoltageDelayS: delay().default(P.overVoltageDelayS),
   })
   .strict();
@@ -107,17 +96,17 @@ const feederSchema = z.object({ rOhm: feederOhm(), xOhm: feederOhm() }).strict()
 
 const setSchema = z
   .object({
-    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
-    name: z.string({ error: 'must be text' }).optional(),
-    online: z.boolean({ error: 'must be true or false' }).default(true),
+    id: id(),
+    name: text().optional(),
+    online: flag().default(true),
     ratedKVA: positive('kVA').lte(MAX_SET_RATING, 'must be 2 000 000 kVA or less'),
     ratedKW: positive('kW').lte(MAX_SET_RATING, 'must be 2 000 000 kW or less'),
-    ratedPF: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').lt(1, 'must be less than 1').default(0.8),
-    poles: z.number({ error: 'must be a number' }).int('must be a whole number').gte(2, 'must be 2 or more').multipleOf(2, 'must be even').default(4),
+    ratedPF: num().gt(0, 'must be greater than 0').lt(1, 'must be less than 1').default(0.8),
+    poles: whole().gte(2, 'must be 2 or more').multipleOf(2, 'must be even').default(4),
     minKW: between('kW', -MAX_SET_RATING, MAX_SET_RATING).default(0),
     reversePowerTripPct: nonNegative('%').lte(50, 'must be 50 % or less').default(10),
     reversePowerDelayS: nonNegative('s').lte(60, 'must be 60 s or less').default(SET_DEFAULTS.reversePowerDelayS),
-    overloadPct: z.number({ error: 'must be a number (%)' }).gte(100, 'must be 100 % or more').lte(150, 'must be 150 % or less').default(SET_DEFAULTS.overloadPct),
+    overloadPct: num('%').gte(100, 'must be 100 % or more').lte(150, 'must be 150 % or less').default(SET_DEFAULTS.overloadPct),
     motoringPct: nonNegative('%').lte(100, 'must be 100 % or less').default(SET_DEFAULTS.motoringPct),
     leadingKVARLimitPct: nonNegative('%').lte(100, 'must be 100 % or less').default(30),
     governor: governorSchema,
@@ -133,18 +122,18 @@ const share = () => nonNegative('%').lte(100, 'must be 100 % or less').nullish()
 
 const loadSchema = z
   .object({
-    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
-    name: z.string({ error: 'must be text' }).optional(),
-    online: z.boolean({ error: 'must be true or false' }).default(true),
+    id: id(),
+    name: text().optional(),
+    online: flag().default(true),
     kW: nonNegative('kW').lte(MAX_LOAD_KW, 'must be 10 000 000 kW or less'),
     kVAR: between('kVAR', -MAX_LOAD_KW, MAX_LOAD_KW),
-    model: z.enum(['constant-power', 'constant-impedance', 'zip'], { error: 'must be "constant-power", "constant-impedance" or "zip"' }).default('constant-power'),
+    model: oneOf(LOAD_MODELS).default('constant-power'),
     kWImpedancePct: share(),
     kWCurrentPct: share(),
     kVARImpedancePct: share(),
     kVARCurrentPct: share(),
     frequencySensitivity: nonNegative('%/%').lte(10, 'must be 10 or less').default(0),
-    kVARFrequencySensitivity: finite('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').nullish(),
+    kVARFrequencySensitivity: num('%/%').gte(-10, 'must be −10 or more').lte(10, 'must be 10 or less').nullish(),
     shedFrequencyPct: positive('%').gte(50, 'must be 50 % or more').lt(100, 'must be below 100 %').nullish(),
     shedDelayS: nonNegative('s').lte(60, 'must be 60 s or less').nullish(),
   })
@@ -170,9 +159,9 @@ export const plantSchema = z
   .object({
     format: z.literal(PLANT_FORMAT, { error: `must be "${PLANT_FORMAT}"` }),
     version: z.literal(PLANT_VERSION, { error: `must be ${PLANT_VERSION} (this version of Droopline reads plant files of version ${PLANT_VERSION})` }),
-    name: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+    name: id(),
     ratedFrequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'must be 50 or 60 (Hz)' }),
-    ratedVoltageV: finite('V').gte(100, 'must be 100 V or more').lte(35000, 'must be 35 000 V or less'),
+    ratedVoltageV: num('V').gte(100, 'must be 100 V or more').lte(35000, 'must be 35 000 V or less'),
     sets: z.array(setSchema, { error: 'must be a list of sets' }).min(1, 'must hold at least one set').max(256, 'must hold 256 sets or fewer'),
     loads: z.array(loadSchema, { error: 'must be a list of loads' }).default([]),
     powerLoadBreakPct: positive('%').gte(10, 'must be 10 % or more').lte(95, 'must be 95 % or less').default(PLANT_DEFAULTS.powerLoadBreakPct),

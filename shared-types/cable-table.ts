@@ -9,6 +9,7 @@
  * Reactance: typical positive-sequence values of multi-core and trefoil single-core LV
  * cables at 50 Hz (common practice, rounded); scaled by f / 50 at other frequencies.
  * Typical values: verify with the cable maker's data.
+ * It lives in shared-types (pure data and one law) so the plant editor and any engine caller share one copy.
  */
 
 /** One cable size. */

@@ -8,18 +8,14 @@ import { z } from 'zod';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt, TrainerExerciseSet } from '../../shared-types';
 import { plantSchema } from './plant-schema';
-import { projectEventSchema } from './simulation-handlers';
-import { trainerExerciseShape } from './trainer-handlers';
+import { projectEventSchema } from './scenario-events';
+import { trainerExerciseShape } from '../handlers/trainer-handlers';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` });
-const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
-const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
-const text = () => z.string({ error: 'must be text' });
-const flag = () => z.boolean({ error: 'must be true or false' });
+import { breakerClosingMs, deadFields, id, num, positive, syncLimitsFields, text } from './schema-kit';
 
 
-const scenarioSchema = z.looseObject({
-  id: text().min(1, 'must not be empty'),
+const scenarioShape = z.looseObject({
+  id: id(),
   name: text(),
   durationS: positive('s'),
   stepMs: positive('ms'),
@@ -27,17 +23,22 @@ const scenarioSchema = z.looseObject({
   events: z.array(projectEventSchema, { error: 'must be a list of events' }),
 });
 
-const syncSettingsSchema = z.looseObject({
+/**
+ * A project's scenario (`ProjectScenario`): the one schema, used by the project reader and the report request. Event
+ * fields beyond time and kind are checked by `simulate` when the scenario runs, hence the type's assertion here.
+ */
+export const projectScenarioSchema = scenarioShape as unknown as z.ZodType<ProjectScenario>;
+
+/**
+ * A project's sync-check settings (`ProjectSyncSettings`): the one schema, used by the project reader and the report
+ * request. The limits and dead-bus thresholds follow the sync-check's own rules (`schema-kit.ts`); unknown fields are
+ * kept, so a newer file loses nothing.
+ */
+export const projectSyncSettingsSchema = z.looseObject({
   presetId: text().nullable(),
-  limits: z.looseObject({
-    slipHz: positive('Hz'),
-    angleDeg: positive('°').lte(180, 'must be 180° or less'),
-    voltagePct: positive('%'),
-    incomingFaster: flag().optional(),
-    incomingHigher: flag().optional(),
-  }),
-  breakerClosingMs: nonNegative('ms'),
-  dead: z.looseObject({ deadBus: flag(), deadLine: flag(), livePct: nonNegative('%'), deadPct: nonNegative('%') }),
+  limits: z.looseObject(syncLimitsFields),
+  breakerClosingMs: breakerClosingMs(),
+  dead: z.looseObject(deadFields),
   incomingSetId: text().nullable(),
 });
 
@@ -70,8 +71,8 @@ export const projectSchema = z
     version: z.literal(PROJECT_VERSION, { error: `must be ${PROJECT_VERSION}` }),
     name: text().min(1, 'must not be empty').optional(),
     plant: plantSchema,
-    scenarios: z.array(scenarioSchema, { error: 'must be a list of scenarios' }).default([]),
-    sync: syncSettingsSchema.nullable().default(null),
+    scenarios: z.array(projectScenarioSchema, { error: 'must be a list of scenarios' }).default([]),
+    sync: projectSyncSettingsSchema.nullable().default(null),
     trainerLog: z.array(trainerAttemptSchema, { error: 'must be a list of attempts' }).default([]),
     // Files saved before exercise sets existed have none.
     trainerExercises: z.array(trainerExerciseSetSchema, { error: 'must be a list of exercise sets' }).default([]),
