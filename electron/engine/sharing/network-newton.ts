@@ -129,7 +129,7 @@ function newtonStep(w: Work): boolean {
 function iterate(w: Work): number {
   if (!evaluate(w)) throw new Diverged('The network solve could not start: a set cannot deliver its output through its feeder at the starting voltage. Check the feeder impedances.');
   let norm = residualNorm(w);
-  const y0 = new Float64Array(3);
+  const y0 = w.ySave;
   for (let it = 1; it <= MAX_OUTER; it++) {
     if (norm <= OUTER_TOL) return it - 1;
     if (!newtonStep(w)) {
@@ -209,9 +209,12 @@ const CONTINUATION_MIN = 1 / 512;
  * halving the step when Newton fails (natural-parameter continuation).
  */
 export function iterateWithContinuation(w: Work): number {
-  const y = Float64Array.from(w.y);
-  const pr = Float64Array.from(w.pr);
-  const qr = Float64Array.from(w.qr);
+  const y = w.yCont;
+  const pr = w.prCont;
+  const qr = w.qrCont;
+  y.set(w.y);
+  pr.set(w.pr);
+  qr.set(w.qr);
   try {
     w.zScale = 1;
     return iterate(w);
@@ -222,7 +225,7 @@ export function iterateWithContinuation(w: Work): number {
   w.pr.set(pr);
   w.qr.set(qr);
   // Last accepted point (s, y, P_r, Q_r) and the one before, for the secant predictor.
-  const yPrev = new Float64Array(3);
+  const yPrev = w.yPrev.fill(0);
   let sPrev = -1;
   let s = 0;
   let ds = CONTINUATION_FIRST;

@@ -38,14 +38,14 @@ export interface NetworkStart {
 }
 
 /**
- * Solves the feeder network of `m` from the closed-form `start`.
+ * Solves the feeder network of `m` from the closed-form `start`; `work`, when given, is a fresh state of `m` (`createNetworkWork`).
  * @throws NoSteadyState when the load plus losses exceeds capability or the voltage collapses.
  * @throws Diverged when Newton–Raphson does not converge within its iteration bound.
  */
-export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoint {
+export function solveNetwork(m: SharingModel, start: NetworkStart, work?: Work): OperatingPoint {
   const n = m.n;
   const hasUnit = m.voltageUnit.length > 0;
-  const w = createNetworkWork(m);
+  const w = work ?? createNetworkWork(m);
   const cross = hasUnit && m.reg[m.voltageUnit[0]!] === REG_CROSS;
 
   const init = () => {
