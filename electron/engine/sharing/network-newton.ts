@@ -140,9 +140,19 @@ function iterate(w: Work): number {
       }
       throw new Diverged('The network solve met a singular Jacobian (the operating point is not defined by the settings). Check setpoints and feeders.');
     }
-    y0.set(w.y);
-    w.prSave.set(w.pr);
-    w.qrSave.set(w.qr);
+    // Plain loops: the arrays are a few entries long, where TypedArray#set costs more than the copy.
+    const n = w.m.n;
+    const pr = w.pr;
+    const qr = w.qr;
+    const prSave = w.prSave;
+    const qrSave = w.qrSave;
+    y0[0] = w.y[0]!;
+    y0[1] = w.y[1]!;
+    y0[2] = w.y[2]!;
+    for (let i = 0; i < n; i++) {
+      prSave[i] = pr[i]!;
+      qrSave[i] = qr[i]!;
+    }
     let t = 1;
     let accepted = false;
     for (let h = 0; h <= MAX_HALVINGS; h++) {
@@ -155,8 +165,10 @@ function iterate(w: Work): number {
           break;
         }
       }
-      w.pr.set(w.prSave);
-      w.qr.set(w.qrSave);
+      for (let i = 0; i < n; i++) {
+        pr[i] = prSave[i]!;
+        qr[i] = qrSave[i]!;
+      }
       t *= 0.5;
     }
     if (!accepted) {

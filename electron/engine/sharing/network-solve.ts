@@ -133,12 +133,12 @@ export function solveNetwork(m: SharingModel, start: NetworkStart, work?: Work):
 function finish(w: Work, isoState: IsoState, iterations: number): OperatingPoint {
   const m = w.m;
   const n = m.n;
-  const kW = new Float64Array(n);
-  const kVAR = new Float64Array(n);
-  const lossKW = new Float64Array(n);
-  const lossKVAR = new Float64Array(n);
-  const terminalV = new Float64Array(n);
-  const terminalAngleDeg = new Float64Array(n);
+  const kW = w.outKW;
+  const kVAR = w.outKVAR;
+  const lossKW = w.outLossKW;
+  const lossKVAR = w.outLossKVAR;
+  const terminalV = w.outTerminalV;
+  const terminalAngleDeg = w.outAngleDeg;
   for (let i = 0; i < n; i++) {
     kW[i] = w.ps[i]! / 1000;
     kVAR[i] = w.qs[i]! / 1000;

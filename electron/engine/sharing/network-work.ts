@@ -64,6 +64,13 @@ export interface Work {
   yPrev: Float64Array;
   prCont: Float64Array;
   qrCont: Float64Array;
+  /** The answer's per-set arrays (`OperatingPoint`), read before the state's next solve. */
+  outKW: Float64Array;
+  outKVAR: Float64Array;
+  outLossKW: Float64Array;
+  outLossKVAR: Float64Array;
+  outTerminalV: Float64Array;
+  outAngleDeg: Float64Array;
 }
 
 /**
@@ -117,6 +124,12 @@ export function createNetworkWork(m: SharingModel, reuse?: Work): Work {
     yPrev: new Float64Array(3),
     prCont: new Float64Array(n),
     qrCont: new Float64Array(n),
+    outKW: new Float64Array(n),
+    outKVAR: new Float64Array(n),
+    outLossKW: new Float64Array(n),
+    outLossKVAR: new Float64Array(n),
+    outTerminalV: new Float64Array(n),
+    outAngleDeg: new Float64Array(n),
   };
   weigh(w, m, hasUnit);
   return w;

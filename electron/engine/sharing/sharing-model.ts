@@ -95,6 +95,8 @@ export interface SharingModel {
   /** Voltage the voltage unit holds, V (ratedKVA-weighted mean of setpoints). */
   voltageSetpointV: number;
   loads: LoadTerm[];
+  /** The plant's load list `loads` was built from (none with a load override): a reused model keeps its terms for the same list. */
+  loadsFrom: readonly Load[] | null;
   /** True when any online set has a non-zero feeder impedance. */
   hasFeeders: boolean;
   /** Notes gathered while building (setpoint mismatches inside a group). */
@@ -158,6 +160,7 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
     voltageUnit: [],
     voltageSetpointV: vr,
     loads: [],
+    loadsFrom: null,
     hasFeeders: false,
     notes: [],
   };
@@ -272,6 +275,13 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
   }
 
   if (load) m.loads.push(constantPowerTerm(load.kW, load.kVAR));
-  else for (const l of plant.loads) if (l.online) m.loads.push(loadTerm(l));
+  else if (r && r.loadsFrom === plant.loads) {
+    // The same load list as the reused model's (a Monte-Carlo run varies the sets only): its terms stand.
+    m.loads = r.loads;
+    m.loadsFrom = plant.loads;
+  } else {
+    for (const l of plant.loads) if (l.online) m.loads.push(loadTerm(l));
+    m.loadsFrom = plant.loads;
+  }
   return m;
 }

@@ -36,7 +36,8 @@ export function solveSharing(plant: Plant, load?: LoadOverride): SharingResult {
 /**
  * Work arrays one `solveSharingFigures` caller keeps between solves (the solver model's and the
  * feeder network's), so that a Monte-Carlo of thousands of solves does not allocate them each
- * time. Not shared between callers running at once; the figures never depend on it.
+ * time. Not shared between callers running at once; the figures never depend on it (a plant whose load list
+ * is the same array as the last solve's keeps that solve's load terms, so change loads by a new list, not in place).
  */
 export interface SharingScratch {
   model?: SharingModel;
