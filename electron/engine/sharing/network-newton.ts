@@ -129,7 +129,7 @@ function newtonStep(w: Work): boolean {
 function iterate(w: Work): number {
   if (!evaluate(w)) throw new Diverged('The network solve could not start: a set cannot deliver its output through its feeder at the starting voltage. Check the feeder impedances.');
   let norm = residualNorm(w);
-  const y0 = new Float64Array(3);
+  const y0 = w.ySave;
   for (let it = 1; it <= MAX_OUTER; it++) {
     if (norm <= OUTER_TOL) return it - 1;
     if (!newtonStep(w)) {
@@ -140,9 +140,19 @@ function iterate(w: Work): number {
       }
       throw new Diverged('The network solve met a singular Jacobian (the operating point is not defined by the settings). Check setpoints and feeders.');
     }
-    y0.set(w.y);
-    w.prSave.set(w.pr);
-    w.qrSave.set(w.qr);
+    // Plain loops: the arrays are a few entries long, where TypedArray#set costs more than the copy.
+    const n = w.m.n;
+    const pr = w.pr;
+    const qr = w.qr;
+    const prSave = w.prSave;
+    const qrSave = w.qrSave;
+    y0[0] = w.y[0]!;
+    y0[1] = w.y[1]!;
+    y0[2] = w.y[2]!;
+    for (let i = 0; i < n; i++) {
+      prSave[i] = pr[i]!;
+      qrSave[i] = qr[i]!;
+    }
     let t = 1;
     let accepted = false;
     for (let h = 0; h <= MAX_HALVINGS; h++) {
@@ -155,8 +165,10 @@ function iterate(w: Work): number {
           break;
         }
       }
-      w.pr.set(w.prSave);
-      w.qr.set(w.qrSave);
+      for (let i = 0; i < n; i++) {
+        pr[i] = prSave[i]!;
+        qr[i] = qrSave[i]!;
+      }
       t *= 0.5;
     }
     if (!accepted) {
@@ -209,9 +221,12 @@ const CONTINUATION_MIN = 1 / 512;
  * halving the step when Newton fails (natural-parameter continuation).
  */
 export function iterateWithContinuation(w: Work): number {
-  const y = Float64Array.from(w.y);
-  const pr = Float64Array.from(w.pr);
-  const qr = Float64Array.from(w.qr);
+  const y = w.yCont;
+  const pr = w.prCont;
+  const qr = w.qrCont;
+  y.set(w.y);
+  pr.set(w.pr);
+  qr.set(w.qr);
   try {
     w.zScale = 1;
     return iterate(w);
@@ -222,7 +237,7 @@ export function iterateWithContinuation(w: Work): number {
   w.pr.set(pr);
   w.qr.set(qr);
   // Last accepted point (s, y, P_r, Q_r) and the one before, for the secant predictor.
-  const yPrev = new Float64Array(3);
+  const yPrev = w.yPrev.fill(0);
   let sPrev = -1;
   let s = 0;
   let ds = CONTINUATION_FIRST;

@@ -38,14 +38,14 @@ export interface NetworkStart {
 }
 
 /**
- * Solves the feeder network of `m` from the closed-form `start`.
+ * Solves the feeder network of `m` from the closed-form `start`; `work`, when given, is a fresh state of `m` (`createNetworkWork`).
  * @throws NoSteadyState when the load plus losses exceeds capability or the voltage collapses.
  * @throws Diverged when Newton–Raphson does not converge within its iteration bound.
  */
-export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoint {
+export function solveNetwork(m: SharingModel, start: NetworkStart, work?: Work): OperatingPoint {
   const n = m.n;
   const hasUnit = m.voltageUnit.length > 0;
-  const w = createNetworkWork(m);
+  const w = work ?? createNetworkWork(m);
   const cross = hasUnit && m.reg[m.voltageUnit[0]!] === REG_CROSS;
 
   const init = () => {
@@ -133,12 +133,12 @@ export function solveNetwork(m: SharingModel, start: NetworkStart): OperatingPoi
 function finish(w: Work, isoState: IsoState, iterations: number): OperatingPoint {
   const m = w.m;
   const n = m.n;
-  const kW = new Float64Array(n);
-  const kVAR = new Float64Array(n);
-  const lossKW = new Float64Array(n);
-  const lossKVAR = new Float64Array(n);
-  const terminalV = new Float64Array(n);
-  const terminalAngleDeg = new Float64Array(n);
+  const kW = w.outKW;
+  const kVAR = w.outKVAR;
+  const lossKW = w.outLossKW;
+  const lossKVAR = w.outLossKVAR;
+  const terminalV = w.outTerminalV;
+  const terminalAngleDeg = w.outAngleDeg;
   for (let i = 0; i < n; i++) {
     kW[i] = w.ps[i]! / 1000;
     kVAR[i] = w.qs[i]! / 1000;

@@ -58,12 +58,30 @@ export interface Work {
   le2: number;
   /** Continuation factor on every feeder impedance (1 = the real feeders). */
   zScale: number;
+  /** Scratch of the outer iteration and the continuation: saved unknowns and receiving-end powers. */
+  ySave: Float64Array;
+  yCont: Float64Array;
+  yPrev: Float64Array;
+  prCont: Float64Array;
+  qrCont: Float64Array;
+  /** The answer's per-set arrays (`OperatingPoint`), read before the state's next solve. */
+  outKW: Float64Array;
+  outKVAR: Float64Array;
+  outLossKW: Float64Array;
+  outLossKVAR: Float64Array;
+  outTerminalV: Float64Array;
+  outAngleDeg: Float64Array;
 }
 
-/** Allocates the work state for `m`: weights of the voltage unit, the kVA base. */
-export function createNetworkWork(m: SharingModel): Work {
+/**
+ * The work state for `m`: weights of the voltage unit, the kVA base. `reuse`, a state this
+ * returned before and no longer read, lends its arrays when it has as many sets (a Monte-Carlo
+ * run solves thousands of plants of one size); every entry a solve reads is written first.
+ */
+export function createNetworkWork(m: SharingModel, reuse?: Work): Work {
   const n = m.n;
   const hasUnit = m.voltageUnit.length > 0;
+  if (reuse !== undefined && reuse.m.n === n) return resetWork(reuse, m, hasUnit);
   const w: Work = {
     m,
     y: new Float64Array(3),
@@ -101,12 +119,59 @@ export function createNetworkWork(m: SharingModel): Work {
     le1: 0,
     le2: 0,
     zScale: 1,
+    ySave: new Float64Array(3),
+    yCont: new Float64Array(3),
+    yPrev: new Float64Array(3),
+    prCont: new Float64Array(n),
+    qrCont: new Float64Array(n),
+    outKW: new Float64Array(n),
+    outKVAR: new Float64Array(n),
+    outLossKW: new Float64Array(n),
+    outLossKVAR: new Float64Array(n),
+    outTerminalV: new Float64Array(n),
+    outAngleDeg: new Float64Array(n),
   };
+  weigh(w, m, hasUnit);
+  return w;
+}
+
+/** `w` made ready for a solve of `m` as if new. */
+function resetWork(w: Work, m: SharingModel, hasUnit: boolean): Work {
+  w.m = m;
+  w.y.fill(0);
+  w.ny = hasUnit ? 3 : 2;
+  w.isoMode = false;
+  w.isoLambdaFixed = NaN;
+  w.pr.fill(0);
+  w.qr.fill(0);
+  w.ps.fill(0);
+  w.qs.fill(0);
+  w.ev.fill(0);
+  w.angle.fill(0);
+  w.dPr.fill(0);
+  w.dQr.fill(0);
+  w.dE.fill(0);
+  w.f.fill(0);
+  w.step.fill(0);
+  w.unitWeight.fill(0);
+  w.unitWeightSum = 0;
+  w.loadW = 0;
+  w.loadVAR = 0;
+  w.sBaseVA = 0;
+  w.isoLo = 0;
+  w.isoHi = 0;
+  w.zScale = 1;
+  weigh(w, m, hasUnit);
+  return w;
+}
+
+/** The kVA base and the voltage unit's weights of `m`. */
+function weigh(w: Work, m: SharingModel, hasUnit: boolean): void {
+  const n = m.n;
   for (let i = 0; i < n; i++) w.sBaseVA += m.ratedKVA[i]! * 1000;
   const cross = hasUnit && m.reg[m.voltageUnit[0]!] === REG_CROSS;
   for (const i of m.voltageUnit) w.unitWeight[i] = cross ? m.ratedKVA[i]! : 1;
   for (const i of m.voltageUnit) w.unitWeightSum += w.unitWeight[i]!;
-  return w;
 }
 
 function setTarget(w: Work, p: number, d: number): void {

@@ -86,6 +86,8 @@ export interface SharingModel {
   /** Voltage the voltage unit holds, V (ratedKVA-weighted mean of setpoints). */
   voltageSetpointV: number;
   loads: LoadTerm[];
+  /** The plant's load list `loads` was built from (none with a load override): a reused model keeps its terms for the same list. */
+  loadsFrom: readonly Load[] | null;
   /** True when any online set has a non-zero feeder impedance. */
   hasFeeders: boolean;
   /** Notes gathered while building (setpoint mismatches inside a group). */
@@ -101,9 +103,10 @@ function names(sets: GenSet[], idx: number[]): string {
  * Builds the solver model of `plant`; `load` replaces the plant's loads by one
  * constant-power load. Throws `NoSteadyState` for control structures with no defined
  * operating point (no set online, no frequency or voltage reference, two units
- * fighting over frequency or voltage).
+ * fighting over frequency or voltage). `reuse`, a model this returned before and no longer
+ * read, lends its typed arrays when it has as many online sets (the figures do not depend on it).
  */
-export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingModel {
+export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: SharingModel): SharingModel {
   const plantIndex: number[] = [];
   plant.sets.forEach((s, i) => {
     if (s.online) plantIndex.push(i);
@@ -113,34 +116,42 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
   if (n === 0) throw new NoSteadyState('No set is online, so nothing supplies the bus: put at least one set online.');
   const fr = plant.ratedFrequencyHz;
   const vr = plant.ratedVoltageV;
+  // A Monte-Carlo run hands back its last model: its typed arrays are refilled, not reallocated
+  // (every entry is written below, the two mode-dependent slopes after a clear).
+  const r = reuse !== undefined && reuse.n === n ? reuse : undefined;
+  if (r) {
+    r.slopeKWPerHz.fill(0);
+    r.slopeKVARPerV.fill(0);
+  }
   const m: SharingModel = {
     ratedFrequencyHz: fr,
     ratedVoltageV: vr,
     sets,
     plantIndex,
     n,
-    gov: new Int8Array(n),
-    reg: new Int8Array(n),
-    slopeKWPerHz: new Float64Array(n),
-    noLoadHz: new Float64Array(n),
-    minKW: new Float64Array(n),
-    maxKW: new Float64Array(n),
-    baseKW: new Float64Array(n),
-    ratedKW: new Float64Array(n),
-    ratedKVA: new Float64Array(n),
-    slopeKVARPerV: new Float64Array(n),
-    noLoadV: new Float64Array(n),
-    tanPhi: new Float64Array(n),
-    leadKVAR: new Float64Array(n),
-    limited: new Uint8Array(n),
+    gov: r ? r.gov : new Int8Array(n),
+    reg: r ? r.reg : new Int8Array(n),
+    slopeKWPerHz: r ? r.slopeKWPerHz : new Float64Array(n),
+    noLoadHz: r ? r.noLoadHz : new Float64Array(n),
+    minKW: r ? r.minKW : new Float64Array(n),
+    maxKW: r ? r.maxKW : new Float64Array(n),
+    baseKW: r ? r.baseKW : new Float64Array(n),
+    ratedKW: r ? r.ratedKW : new Float64Array(n),
+    ratedKVA: r ? r.ratedKVA : new Float64Array(n),
+    slopeKVARPerV: r ? r.slopeKVARPerV : new Float64Array(n),
+    noLoadV: r ? r.noLoadV : new Float64Array(n),
+    tanPhi: r ? r.tanPhi : new Float64Array(n),
+    leadKVAR: r ? r.leadKVAR : new Float64Array(n),
+    limited: r ? r.limited : new Uint8Array(n),
     holdField: true,
-    rOhm: new Float64Array(n),
-    xOhm: new Float64Array(n),
+    rOhm: r ? r.rOhm : new Float64Array(n),
+    xOhm: r ? r.xOhm : new Float64Array(n),
     isoGroup: [],
     isoSetpointHz: fr,
     voltageUnit: [],
     voltageSetpointV: vr,
     loads: [],
+    loadsFrom: null,
     hasFeeders: false,
     notes: [],
   };
@@ -255,6 +266,13 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride): SharingMod
   }
 
   if (load) m.loads.push(constantPowerTerm(load.kW, load.kVAR));
-  else for (const l of plant.loads) if (l.online) m.loads.push(loadTerm(l));
+  else if (r && r.loadsFrom === plant.loads) {
+    // The same load list as the reused model's (a Monte-Carlo run varies the sets only): its terms stand.
+    m.loads = r.loads;
+    m.loadsFrom = plant.loads;
+  } else {
+    for (const l of plant.loads) if (l.online) m.loads.push(loadTerm(l));
+    m.loadsFrom = plant.loads;
+  }
   return m;
 }

@@ -5,6 +5,8 @@
 import type { LoadOverride, Plant, SharingResult } from '../../../shared-types';
 import { solveClosedForm } from './closed-form';
 import { solveNetwork } from './network-solve';
+import { createNetworkWork } from './network-work';
+import type { Work } from './network-work';
 import { buildSharingModel } from './sharing-model';
 import type { SharingModel } from './sharing-model';
 import { buildSharingResult, writeSharingFigures } from './sharing-result';
@@ -32,32 +34,46 @@ export function solveSharing(plant: Plant, load?: LoadOverride): SharingResult {
 }
 
 /**
+ * Work arrays one `solveSharingFigures` caller keeps between solves (the solver model's and the
+ * feeder network's), so that a Monte-Carlo of thousands of solves does not allocate them each
+ * time. Not shared between callers running at once; the figures never depend on it (a plant whose load list
+ * is the same array as the last solve's keeps that solve's load terms, so change loads by a new list, not in place).
+ */
+export interface SharingScratch {
+  model?: SharingModel;
+  work?: Work;
+}
+
+/**
  * `solveSharing`'s operating point as bare figures written into `out` (see `createSharingFigures`): no flags, notes
  * or warnings are built, so a Monte-Carlo of thousands of solves pays only for the solve. Same errors.
+ * `scratch` (optional, start with `{}`) keeps the work arrays for the caller's next solve.
  */
-export function solveSharingFigures(plant: Plant, load: LoadOverride | undefined, out: SharingFigures): void {
-  const m = buildSharingModel(plant, load);
+export function solveSharingFigures(plant: Plant, load: LoadOverride | undefined, out: SharingFigures, scratch?: SharingScratch): void {
+  const m = buildSharingModel(plant, load, scratch?.model);
+  if (scratch) scratch.model = m;
   let op: OperatingPoint;
   try {
-    op = solveModel(m);
+    op = solveModel(m, scratch);
   } catch (e) {
     if (!(e instanceof NoSteadyState || e instanceof Diverged)) throw e;
     m.holdField = false;
-    op = solveModel(m);
+    op = solveModel(m, scratch);
   }
   writeSharingFigures(m, op, out);
 }
 
-function solveModel(m: SharingModel): OperatingPoint {
+function solveModel(m: SharingModel, scratch?: SharingScratch): OperatingPoint {
   const closed = solveClosedForm(m);
   if (!m.hasFeeders) return closed;
+  if (scratch) scratch.work = createNetworkWork(m, scratch.work);
   return solveNetwork(m, {
     frequencyHz: closed.frequencyHz,
     voltageV: closed.busVoltageV,
     kW: closed.kW,
     kVAR: closed.kVAR,
     isoState: closed.isoState,
-  });
+  }, scratch?.work);
 }
 
 /** Bisection steps on the load scale when looking for the most the sets can carry (2⁻⁴⁰ of the load). */
