@@ -35,7 +35,14 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['electron', 'vue', 'pinia', 'zod', ...nodeBuiltins, '**/renderer/**', '**/handlers/**', '**/schemas/**'], message: 'The engine and the contract are pure TypeScript: no Electron, Node, DOM, Vue or schema imports.' }] },
+        {
+          patterns: [
+            {
+              group: ['electron', 'vue', 'pinia', 'zod', ...nodeBuiltins, '**/renderer/**', '**/handlers/**', '**/schemas/**'],
+              message: 'The engine and the contract are pure TypeScript: no Electron, Node, DOM, Vue or schema imports.',
+            },
+          ],
+        },
       ],
       'no-restricted-globals': ['error', 'window', 'document', 'process', 'require', 'localStorage', 'navigator'],
     },
@@ -47,7 +54,11 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['electron', ...nodeBuiltins, '**/electron/**'], message: 'The renderer reaches the engine only through the transport (EngineApi).' }] },
+        {
+          patterns: [
+            { group: ['electron', ...nodeBuiltins, '**/electron/**'], message: 'The renderer reaches the engine only through the transport (EngineApi).' },
+          ],
+        },
       ],
     },
   },

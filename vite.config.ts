@@ -9,7 +9,9 @@ export default defineConfig({
   plugins: [vue()],
   // workerpool's browser build names these Node modules on paths the browser never takes.
   resolve: {
-    alias: Object.fromEntries(['os', 'worker_threads', 'child_process'].map((m) => [m, fileURLToPath(new URL('./renderer/transport/node-builtins-shim.ts', import.meta.url))])),
+    alias: Object.fromEntries(
+      ['os', 'worker_threads', 'child_process'].map((m) => [m, fileURLToPath(new URL('./renderer/transport/node-builtins-shim.ts', import.meta.url))]),
+    ),
   },
   build: {
     outDir: '../out/preview',

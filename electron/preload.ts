@@ -14,13 +14,15 @@ const COMMAND: keyof HostEvents = 'hostCommand';
 const ENGINE = new Set<string>(ENGINE_METHODS);
 const HOST = new Set<string>(HOST_METHODS);
 const notOurs = (method: unknown) => `"${String(method)}" is not a Droopline method.`;
-const engineRefused = (method: unknown): EngineOutcome<never> => ({ ok: false, error: { name: 'EngineError', code: 'UNKNOWN_METHOD', message: notOurs(method) } });
+const engineRefused = (method: unknown): EngineOutcome<never> => ({
+  ok: false,
+  error: { name: 'EngineError', code: 'UNKNOWN_METHOD', message: notOurs(method) },
+});
 const hostRefused = (method: unknown): HostOutcome<never> => ({ ok: false, error: { name: 'HostError', code: 'REFUSED', message: notOurs(method) } });
 
 const bridge: DrooplineBridge = {
   // Only the contract's channels: the page can never reach a private or foreign channel.
-  invoke: (method, id, request) =>
-    ENGINE.has(method) ? ipcRenderer.invoke(method, id, request) : Promise.resolve(engineRefused(method)),
+  invoke: (method, id, request) => (ENGINE.has(method) ? ipcRenderer.invoke(method, id, request) : Promise.resolve(engineRefused(method))),
   cancel: (id) => ipcRenderer.send(CANCEL, { id }),
   onProgress: (listener) => {
     const wrapped = (_e: unknown, event: ProgressEvent) => listener(event);

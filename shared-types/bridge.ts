@@ -34,11 +34,7 @@ export interface HostBridge {
 }
 
 /** Messages to the engine worker. */
-export type WorkerRequest =
-  | { kind: 'call'; id: number; method: EngineMethod; request: unknown }
-  | { kind: 'cancel'; id: number };
+export type WorkerRequest = { kind: 'call'; id: number; method: EngineMethod; request: unknown } | { kind: 'cancel'; id: number };
 
 /** Messages from the engine worker. */
-export type WorkerReply =
-  | { kind: 'result'; id: number; outcome: EngineOutcome<unknown> }
-  | { kind: 'progress'; event: ProgressEvent };
+export type WorkerReply = { kind: 'result'; id: number; outcome: EngineOutcome<unknown> } | { kind: 'progress'; event: ProgressEvent };

@@ -273,19 +273,18 @@ export interface FitParameterInfo {
 
 /** Every fittable parameter, in a fixed order (the order the screens list them). */
 export const FIT_PARAMETERS: readonly FitParameterInfo[] = [
-  { key: 'governor.actuatorLagS', label: "governor actuator lag", unit: 's', lowest: 0.005, highest: 5, defaultMin: 0.01, defaultMax: 0.5 },
-  { key: 'governor.engineLagS', label: "engine lag", unit: 's', lowest: 0.005, highest: 10, defaultMin: 0.05, defaultMax: 2 },
-  { key: 'governor.droopPct', label: "speed droop (governor gain 1/droop)", unit: '%', lowest: 0.1, highest: 20, defaultMin: 1, defaultMax: 8 },
-  { key: 'governor.isoResetS', label: "isochronous reset time (1 / integral gain)", unit: 's', lowest: 0.05, highest: 60, defaultMin: 0.2, defaultMax: 10 },
-  { key: 'machine.inertiaS', label: "inertia constant H", unit: 's', lowest: 0.05, highest: 30, defaultMin: 0.3, defaultMax: 5 },
-  { key: 'machine.dampingPU', label: "damping", unit: 'pu', lowest: 0, highest: 50, defaultMin: 0, defaultMax: 10 },
+  { key: 'governor.actuatorLagS', label: 'governor actuator lag', unit: 's', lowest: 0.005, highest: 5, defaultMin: 0.01, defaultMax: 0.5 },
+  { key: 'governor.engineLagS', label: 'engine lag', unit: 's', lowest: 0.005, highest: 10, defaultMin: 0.05, defaultMax: 2 },
+  { key: 'governor.droopPct', label: 'speed droop (governor gain 1/droop)', unit: '%', lowest: 0.1, highest: 20, defaultMin: 1, defaultMax: 8 },
+  { key: 'governor.isoResetS', label: 'isochronous reset time (1 / integral gain)', unit: 's', lowest: 0.05, highest: 60, defaultMin: 0.2, defaultMax: 10 },
+  { key: 'machine.inertiaS', label: 'inertia constant H', unit: 's', lowest: 0.05, highest: 30, defaultMin: 0.3, defaultMax: 5 },
+  { key: 'machine.dampingPU', label: 'damping', unit: 'pu', lowest: 0, highest: 50, defaultMin: 0, defaultMax: 10 },
   { key: 'machine.tdopS', label: "open-circuit time constant T'd0", unit: 's', lowest: 0.1, highest: 20, defaultMin: 0.5, defaultMax: 8 },
-  { key: 'regulator.gainPU', label: "regulator gain", unit: 'pu', lowest: 0.5, highest: 1000, defaultMin: 5, defaultMax: 200 },
-  { key: 'regulator.exciterLagS', label: "exciter lag", unit: 's', lowest: 0.001, highest: 5, defaultMin: 0.01, defaultMax: 1 },
-  { key: 'regulator.ceilingPU', label: "exciter ceiling", unit: 'pu', lowest: 0.5, highest: 20, defaultMin: 1.2, defaultMax: 6 },
-  { key: 'regulator.vhzKneeBelowHz', label: "V/Hz knee below rated", unit: 'Hz', lowest: 0, highest: 10, defaultMin: 0, defaultMax: 5 },
+  { key: 'regulator.gainPU', label: 'regulator gain', unit: 'pu', lowest: 0.5, highest: 1000, defaultMin: 5, defaultMax: 200 },
+  { key: 'regulator.exciterLagS', label: 'exciter lag', unit: 's', lowest: 0.001, highest: 5, defaultMin: 0.01, defaultMax: 1 },
+  { key: 'regulator.ceilingPU', label: 'exciter ceiling', unit: 'pu', lowest: 0.5, highest: 20, defaultMin: 1.2, defaultMax: 6 },
+  { key: 'regulator.vhzKneeBelowHz', label: 'V/Hz knee below rated', unit: 'Hz', lowest: 0, highest: 10, defaultMin: 0, defaultMax: 5 },
 ];
-
 
 /** A fit parameter in words ("inertia constant H"). */
 export function fitParameterLabel(key: FitParameterKey): string {

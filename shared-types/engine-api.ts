@@ -11,7 +11,16 @@ import type { ProgressEvent } from './progress';
 import type { TrainerCloseRequest, TrainerExercise, TrainerLevel, TrainerStartRequest, TrainerState, TrainerStepRequest, TrainerVerdict } from './trainer';
 import type { ParsedProject, Project } from './project';
 import type { BuildReportRequest, ReportResult } from './report';
-import type { CommissioningRecord, CommissioningRecordRequest, FitRequest, FitResult, InspectRecordRequest, ParseRecordRequest, ParsedTestRecord, RecordInspection } from './commissioning';
+import type {
+  CommissioningRecord,
+  CommissioningRecordRequest,
+  FitRequest,
+  FitResult,
+  InspectRecordRequest,
+  ParseRecordRequest,
+  ParsedTestRecord,
+  RecordInspection,
+} from './commissioning';
 import type { PlanRequest, PlanResult, SensitivityRequest, SensitivityResult, ToleranceRequest, ToleranceResult } from './planner';
 
 /** A method's request and response types. */

@@ -4,13 +4,7 @@
  */
 
 /** Machine-readable error kinds. `INVALID_INPUT` maps to CLI exit 2, `NO_STEADY_STATE` to exit 3. */
-export type EngineErrorCode =
-  | 'INVALID_INPUT'
-  | 'NO_STEADY_STATE'
-  | 'DIVERGED'
-  | 'CANCELLED'
-  | 'UNKNOWN_METHOD'
-  | 'INTERNAL';
+export type EngineErrorCode = 'INVALID_INPUT' | 'NO_STEADY_STATE' | 'DIVERGED' | 'CANCELLED' | 'UNKNOWN_METHOD' | 'INTERNAL';
 
 /** A validation problem: the field path (`sets[1].governor.droopPct`) and the rule it breaks. */
 export interface FieldIssue {

@@ -26,7 +26,11 @@ export function judgeAudit(jsonText) {
   }
   const failing = FAILING.map((s) => [s, Number(counts[s] ?? 0)]).filter(([, n]) => n > 0);
   if (failing.length > 0)
-    return { ok: false, ran: true, message: `npm audit: ${failing.map(([s, n]) => `${n} ${s}`).join(', ')} severity advisories in production dependencies; run npm audit --omit=dev for details.` };
+    return {
+      ok: false,
+      ran: true,
+      message: `npm audit: ${failing.map(([s, n]) => `${n} ${s}`).join(', ')} severity advisories in production dependencies; run npm audit --omit=dev for details.`,
+    };
   const total = Object.values(counts).reduce((a, n) => a + Number(n || 0), 0);
   return { ok: true, ran: true, message: `npm audit: no high or critical advisory in production dependencies (${total} of lower severity).` };
 }

@@ -16,7 +16,10 @@ export function ensureChromium() {
   if (isRoot && existsSync('/usr/bin/apt-get') && !process.env.CHROMIUM_PATH) {
     process.stdout.write("Chromium is missing; installing Debian's chromium package with apt-get (about a minute)…\n");
     const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-    for (const args of [['update', '-qq'], ['install', '-y', '-qq', 'chromium']]) {
+    for (const args of [
+      ['update', '-qq'],
+      ['install', '-y', '-qq', 'chromium'],
+    ]) {
       const r = spawnSync('apt-get', args, { stdio: ['ignore', 'ignore', 'inherit'], env });
       if (r.status !== 0) throw new Error(`Installing Chromium failed (apt-get ${args.join(' ')}). Run: ${INSTALL_COMMAND}`);
     }

@@ -15,8 +15,18 @@ const plant = plantSchema.parse(JSON.parse(readFileSync('renderer/demo/water-wor
 const keys: FitParameterKey[] = ['machine.inertiaS', 'governor.engineLagS', 'regulator.gainPU', 'regulator.exciterLagS'];
 const onSite = [1.6, 0.45, 35, 0.18];
 const g1 = withParameters(plant.sets[0]!, keys, onSite);
-const test: Plant = { ...plant, sets: [g1], loads: [{ id: 'bank', name: 'load bank', online: true, kW: 250, kVAR: 150, model: 'constant-power', frequencySensitivity: 0 }] };
-const r = simulate({ plant: test, durationS: 8.01, stepMs: 1, outputPoints: 8010, events: [{ atS: 2, type: 'load-step', kW: 500, kVAR: 300, model: 'constant-power' }] });
+const test: Plant = {
+  ...plant,
+  sets: [g1],
+  loads: [{ id: 'bank', name: 'load bank', online: true, kW: 250, kVAR: 150, model: 'constant-power', frequencySensitivity: 0 }],
+};
+const r = simulate({
+  plant: test,
+  durationS: 8.01,
+  stepMs: 1,
+  outputPoints: 8010,
+  events: [{ atS: 2, type: 'load-step', kW: 500, kVAR: 300, model: 'constant-power' }],
+});
 const s = r.series;
 const rng = xoroshiro128plus(20261202);
 const noise = (a: number) => a * (2 * uniformFloat64(rng) - 1);
@@ -32,6 +42,14 @@ for (let k = 0; k <= 400; k++) {
   while (j < s.t.length - 2 && s.t[j + 1]! < t) j++;
   const w = Math.min(1, Math.max(0, (t - s.t[j]!) / (s.t[j + 1]! - s.t[j]!)));
   const at = (y: number[]) => y[j]! + (y[j + 1]! - y[j]!) * w;
-  lines.push([t.toFixed(2), (at(s.setSpeedHz[0]!) + noise(0.005)).toFixed(3), (at(s.setTerminalV[0]!) + noise(0.3)).toFixed(1), (at(s.setKW[0]!) + noise(2)).toFixed(0), (at(s.setKVAR[0]!) + noise(2)).toFixed(0)].join(','));
+  lines.push(
+    [
+      t.toFixed(2),
+      (at(s.setSpeedHz[0]!) + noise(0.005)).toFixed(3),
+      (at(s.setTerminalV[0]!) + noise(0.3)).toFixed(1),
+      (at(s.setKW[0]!) + noise(2)).toFixed(0),
+      (at(s.setKVAR[0]!) + noise(2)).toFixed(0),
+    ].join(','),
+  );
 }
 writeFileSync('renderer/demo/example.load-bank.csv', lines.join('\n') + '\n');

@@ -23,4 +23,6 @@ const server = await preview({ preview: { host: '127.0.0.1', port, strictPort: f
 const url = server.resolvedUrls?.local[0] ?? `http://127.0.0.1:${port}/`;
 const used = Number(new URL(url).port);
 const busy = used !== port ? `Port ${port} is in use; serving on port ${used} instead.\n` : '';
-process.stdout.write(`${busy}Droopline browser preview: ${url}\n(Ctrl+C to stop.)\nCaution: ${PREVIEW_CAUTION.charAt(0).toLowerCase()}${PREVIEW_CAUTION.slice(1)}\n`);
+process.stdout.write(
+  `${busy}Droopline browser preview: ${url}\n(Ctrl+C to stop.)\nCaution: ${PREVIEW_CAUTION.charAt(0).toLowerCase()}${PREVIEW_CAUTION.slice(1)}\n`,
+);

@@ -12,6 +12,11 @@ export async function callEngine<K extends EngineMethod>(
   const r = await dispatch(method, request, { progress: () => undefined, signal: new AbortController().signal, ...(io.pool ? { pool: io.pool } : {}) });
   if (r.ok) return { ok: true, value: r.value };
   const head = r.error.code === 'INVALID_INPUT' ? 'invalid input' : r.error.code === 'NO_STEADY_STATE' ? 'no steady state' : 'error';
-  io.err(`droopline: ${head}:\n${r.error.message.split('\n').map((l) => `  ${l}`).join('\n')}\n`);
+  io.err(
+    `droopline: ${head}:\n${r.error.message
+      .split('\n')
+      .map((l) => `  ${l}`)
+      .join('\n')}\n`,
+  );
   return { ok: false, exitCode: EXIT_CODES[r.error.code] };
 }

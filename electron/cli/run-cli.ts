@@ -5,7 +5,6 @@ import { commands } from './commands';
 import { CliInputError } from './io';
 import type { CliIO } from './io';
 
-
 function usage(): string {
   const lines = commands.map((c) => `  ${c.usage}\n      ${c.summary}${c.example ? `\n      example: ${c.example}` : ''}`);
   return `droopline — paralleling and synchronizing generating sets\n\nusage:\n${lines.join('\n')}\n\nexit codes: 0 result, 2 invalid input, 3 no steady state\n${CAUTION}\n`;

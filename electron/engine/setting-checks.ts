@@ -34,16 +34,19 @@ export function settingWarnings(plant: Plant): string[] {
         );
     } else if (g.mode === 'isochronous') {
       const d = pct(g.setpointHz, fr);
-      if (Math.abs(d) > SETPOINT_BAND_PCT) out.push(`${s.id}: frequency setting ${g.setpointHz} Hz is ${d.toFixed(1)} % from rated ${fr} Hz (usually within ±${SETPOINT_BAND_PCT} %).`);
+      if (Math.abs(d) > SETPOINT_BAND_PCT)
+        out.push(`${s.id}: frequency setting ${g.setpointHz} Hz is ${d.toFixed(1)} % from rated ${fr} Hz (usually within ±${SETPOINT_BAND_PCT} %).`);
     }
     if (r.mode === 'reactive-droop') {
       if (r.droopPct < DROOP_USUAL_MIN_PCT || r.droopPct > DROOP_USUAL_MAX_PCT)
         out.push(`${s.id}: reactive droop ${r.droopPct} % is outside the usual ${DROOP_USUAL_MIN_PCT}–${DROOP_USUAL_MAX_PCT} % (3–5 % is common).`);
       const d = pct(r.noLoadV, vr);
-      if (Math.abs(d) > SETPOINT_BAND_PCT) out.push(`${s.id}: no-load voltage ${r.noLoadV} V is ${d.toFixed(1)} % from rated ${vr} V (usually within ±${SETPOINT_BAND_PCT} %).`);
+      if (Math.abs(d) > SETPOINT_BAND_PCT)
+        out.push(`${s.id}: no-load voltage ${r.noLoadV} V is ${d.toFixed(1)} % from rated ${vr} V (usually within ±${SETPOINT_BAND_PCT} %).`);
     } else if (r.mode === 'voltage' || r.mode === 'cross-current') {
       const d = pct(r.setpointV, vr);
-      if (Math.abs(d) > SETPOINT_BAND_PCT) out.push(`${s.id}: voltage setting ${r.setpointV} V is ${d.toFixed(1)} % from rated ${vr} V (usually within ±${SETPOINT_BAND_PCT} %).`);
+      if (Math.abs(d) > SETPOINT_BAND_PCT)
+        out.push(`${s.id}: voltage setting ${r.setpointV} V is ${d.toFixed(1)} % from rated ${vr} V (usually within ±${SETPOINT_BAND_PCT} %).`);
     }
   }
   return out;

@@ -31,7 +31,10 @@ export function hostErrorOf(err: unknown, action: string, path: string | null): 
   const failed = action === 'save' ? 'WRITE_FAILED' : 'READ_FAILED';
   switch (code) {
     case 'ENOENT':
-      return new HostFailure(action === 'save' ? 'WRITE_FAILED' : 'NOT_FOUND', action === 'save' ? `Could not save ${name}: its folder does not exist.` : `${name} was not found. It may have been moved or deleted.`);
+      return new HostFailure(
+        action === 'save' ? 'WRITE_FAILED' : 'NOT_FOUND',
+        action === 'save' ? `Could not save ${name}: its folder does not exist.` : `${name} was not found. It may have been moved or deleted.`,
+      );
     case 'EACCES':
     case 'EPERM':
       return new HostFailure(failed, `Droopline is not allowed to ${action} ${name} (permission denied).${unchanged}`);

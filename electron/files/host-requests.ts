@@ -23,7 +23,9 @@ export const hostRequestSchemas: { [K in HostMethod]: z.ZodType<HostRequest<K>> 
   recoveryRead: empty,
   recoveryWrite: z.object({ projectName: name, path: path.nullable(), fileName: name.nullable(), text }).strict(),
   recoveryDiscard: empty,
-  documentState: z.object({ projectName: name, fileName: name.nullable(), path: path.nullable(), dirty: z.boolean({ error: 'must be true or false' }) }).strict(),
+  documentState: z
+    .object({ projectName: name, fileName: name.nullable(), path: path.nullable(), dirty: z.boolean({ error: 'must be true or false' }) })
+    .strict(),
   windowClose: empty,
   reportSavePdf: z.object({ html: text, suggestedName: name }).strict(),
 };

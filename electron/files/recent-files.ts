@@ -24,7 +24,9 @@ async function readStored(userDataDir: string): Promise<Stored[]> {
     const raw = JSON.parse(await readFile(recentPathOf(userDataDir), 'utf8')) as { format?: unknown; files?: unknown };
     if (raw.format !== RECENT_FORMAT || !Array.isArray(raw.files)) return [];
     return (raw.files as Partial<Stored>[])
-      .filter((f): f is Stored => typeof f.path === 'string' && typeof f.fileName === 'string' && typeof f.projectName === 'string' && typeof f.usedAt === 'string')
+      .filter(
+        (f): f is Stored => typeof f.path === 'string' && typeof f.fileName === 'string' && typeof f.projectName === 'string' && typeof f.usedAt === 'string',
+      )
       .slice(0, MAX_RECENT);
   } catch {
     // No list yet, or a damaged one: start a new list rather than fail.
@@ -56,7 +58,10 @@ export async function listRecent(userDataDir: string): Promise<RecentFile[]> {
 
 /** Puts `path` at the top of the list (once) and returns the new list. */
 export async function addRecent(userDataDir: string, path: string, projectName: string, usedAt: string): Promise<RecentFile[]> {
-  const files = [{ path, fileName: basename(path), projectName, usedAt }, ...(await readStored(userDataDir)).filter((f) => f.path !== path)].slice(0, MAX_RECENT);
+  const files = [{ path, fileName: basename(path), projectName, usedAt }, ...(await readStored(userDataDir)).filter((f) => f.path !== path)].slice(
+    0,
+    MAX_RECENT,
+  );
   await store(userDataDir, files);
   return withMissing(files);
 }

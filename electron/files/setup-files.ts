@@ -10,7 +10,18 @@ import { dialog, ipcMain } from 'electron';
 import { readFile, stat } from 'node:fs/promises';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { HOST_METHODS, HOST_OPEN_DROPPED, PROJECT_FILE_SUFFIX } from '../../shared-types';
-import type { DocumentState, HostCommand, HostEvents, HostMethod, HostOutcome, HostRequest, HostResponse, OpenedFile, RecentFile, SavedFile } from '../../shared-types';
+import type {
+  DocumentState,
+  HostCommand,
+  HostEvents,
+  HostMethod,
+  HostOutcome,
+  HostRequest,
+  HostResponse,
+  OpenedFile,
+  RecentFile,
+  SavedFile,
+} from '../../shared-types';
 import { formatPath } from '../schemas/validate';
 import { parseProject } from '../project';
 import { backupPathOf, nodeSaveSteps, removeStaleTemps, writeFileAtomic } from './atomic-write';
@@ -83,8 +94,12 @@ export function withProjectSuffix(path: string): string {
 
 /** A file name made safe from a project name (no path separators or reserved characters). */
 export function fileNameFor(projectName: string): string {
-  // eslint-disable-next-line no-control-regex -- control characters are exactly what must go
-  const safe = projectName.replace(/[\\/:*?"<>|\u0000-\u001f]+/g, ' ').replace(/\s+/g, ' ').trim().slice(0, 120);
+  const safe = projectName
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what must go
+    .replace(/[\\/:*?"<>|\u0000-\u001f]+/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim()
+    .slice(0, 120);
   return withProjectSuffix(safe || 'Untitled project');
 }
 
@@ -226,25 +241,26 @@ export function setupFiles(options: FilesOptions): FilesService {
       await discardRecovery(options.userDataDir, steps);
       return null;
     },
-    documentState: (state) => serial(async () => {
-      const before = doc;
-      // Only a file this service opened or saved may be named: the page cannot slip a path of
-      // its own into the recent list (and so into open-by-path).
-      if (state.path !== null && !granted.has(state.path)) {
-        throw new HostFailure('REFUSED', `"${basename(state.path)}" was not opened or saved in this window.`);
-      }
-      doc = state;
-      const win = options.window();
-      if (win && !win.isDestroyed()) {
-        win.setDocumentEdited(state.dirty);
-        if (state.path) win.setRepresentedFilename(state.path);
-      }
-      // A file is "recent" once it opened or saved cleanly: list it when the document's file or name changes.
-      if (state.path && !state.dirty && (state.path !== before.path || state.projectName !== before.projectName || before.dirty)) {
-        recentChanged(await addRecent(options.userDataDir, state.path, state.projectName, now().toISOString()));
-      }
-      return null;
-    }),
+    documentState: (state) =>
+      serial(async () => {
+        const before = doc;
+        // Only a file this service opened or saved may be named: the page cannot slip a path of
+        // its own into the recent list (and so into open-by-path).
+        if (state.path !== null && !granted.has(state.path)) {
+          throw new HostFailure('REFUSED', `"${basename(state.path)}" was not opened or saved in this window.`);
+        }
+        doc = state;
+        const win = options.window();
+        if (win && !win.isDestroyed()) {
+          win.setDocumentEdited(state.dirty);
+          if (state.path) win.setRepresentedFilename(state.path);
+        }
+        // A file is "recent" once it opened or saved cleanly: list it when the document's file or name changes.
+        if (state.path && !state.dirty && (state.path !== before.path || state.projectName !== before.projectName || before.dirty)) {
+          recentChanged(await addRecent(options.userDataDir, state.path, state.projectName, now().toISOString()));
+        }
+        return null;
+      }),
     async reportSavePdf({ html, suggestedName }) {
       const win = options.window();
       const stem = suggestedName.replace(/[\\/:*?"<>|]+/g, '-').trim() || 'report';
@@ -282,7 +298,8 @@ export function setupFiles(options: FilesOptions): FilesService {
         const value = await (run[method] as (r: unknown, s: WebContents) => Promise<unknown>)(parsed.data, event.sender);
         return { ok: true, value };
       } catch (e) {
-        const failure = e instanceof HostFailure ? e : new HostFailure('UNAVAILABLE', `Could not ${TASK[method]}: ${e instanceof Error ? e.message : String(e)}`);
+        const failure =
+          e instanceof HostFailure ? e : new HostFailure('UNAVAILABLE', `Could not ${TASK[method]}: ${e instanceof Error ? e.message : String(e)}`);
         return { ok: false, error: failure.shape() };
       }
     });
@@ -292,7 +309,11 @@ export function setupFiles(options: FilesOptions): FilesService {
   ipcMain.handle(HOST_OPEN_DROPPED, async (event: IpcMainInvokeEvent, request: unknown): Promise<HostOutcome<unknown>> => {
     if (!options.isTrusted(event.sender)) return { ok: false, error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' } };
     const parsed = dropRequestSchema.safeParse(request);
-    if (!parsed.success) return { ok: false, error: { name: 'HostError', code: 'INVALID_INPUT', message: parsed.error.issues.map((i) => `${formatPath(i.path)}: ${i.message}`).join('\n') } };
+    if (!parsed.success)
+      return {
+        ok: false,
+        error: { name: 'HostError', code: 'INVALID_INPUT', message: parsed.error.issues.map((i) => `${formatPath(i.path)}: ${i.message}`).join('\n') },
+      };
     try {
       checkOpenable(parsed.data.path);
       return { ok: true, value: await readOpened(parsed.data.path) };

@@ -14,7 +14,10 @@ const text = () => z.string({ error: 'must be text' });
 /** Largest record text accepted, characters (about 50 MB, the CLI's file limit). */
 const MAX_TEXT = 50_000_000;
 const recordText = () => text().max(MAX_TEXT, `must be at most ${MAX_TEXT.toLocaleString('en')} characters`);
-const column = () => z.union([text().min(1, 'must not be empty'), z.number().int('must be a whole number').gte(1, 'must be 1 or more')], { error: 'must be a column name or a column number (1, 2, …)' });
+const column = () =>
+  z.union([text().min(1, 'must not be empty'), z.number().int('must be a whole number').gte(1, 'must be 1 or more')], {
+    error: 'must be a column name or a column number (1, 2, …)',
+  });
 
 const columnsSchema = z
   .object({ time: column(), frequency: column(), voltage: column(), kW: column().optional(), kVAR: column().optional(), current: column().optional() })
@@ -41,10 +44,18 @@ export const parseRecordSchema: z.ZodType<ParseRecordRequest> = z
   })
   .strict();
 
-const series = (unit: string) => z.array(num(unit), { error: 'must be a list of numbers' }).max(MAX_RECORD_ROWS, `must have at most ${MAX_RECORD_ROWS} samples`);
+const series = (unit: string) =>
+  z.array(num(unit), { error: 'must be a list of numbers' }).max(MAX_RECORD_ROWS, `must have at most ${MAX_RECORD_ROWS} samples`);
 
 const recordSchema = z
-  .object({ tS: series('s'), frequencyHz: series('Hz'), voltageV: series('V'), kW: series('kW').optional(), kVAR: series('kVAR').optional(), currentA: series('A').optional() })
+  .object({
+    tS: series('s'),
+    frequencyHz: series('Hz'),
+    voltageV: series('V'),
+    kW: series('kW').optional(),
+    kVAR: series('kVAR').optional(),
+    currentA: series('A').optional(),
+  })
   .strict()
   .superRefine((r, ctx) => {
     if (r.tS.length < 3) ctx.addIssue({ code: 'custom', path: ['tS'], message: 'must have at least 3 samples' });
@@ -88,8 +99,15 @@ export const fitRequestSchema: z.ZodType<FitRequest> = z
     plant: plantSchema,
     record: recordSchema,
     test: testSchema,
-    params: z.array(paramSchema, { error: 'must be a list of parameters' }).min(1, 'choose at least one parameter').max(KEYS.length, `at most ${KEYS.length} parameters`),
-    maxIterations: num('').int('must be a whole number').gte(1, 'must be 1 or more').lte(MAX_FIT_ITERATIONS, `must be ${MAX_FIT_ITERATIONS} or less`).optional(),
+    params: z
+      .array(paramSchema, { error: 'must be a list of parameters' })
+      .min(1, 'choose at least one parameter')
+      .max(KEYS.length, `at most ${KEYS.length} parameters`),
+    maxIterations: num('')
+      .int('must be a whole number')
+      .gte(1, 'must be 1 or more')
+      .lte(MAX_FIT_ITERATIONS, `must be ${MAX_FIT_ITERATIONS} or less`)
+      .optional(),
     stepMs: num('ms').gte(0.5, 'must be 0.5 ms or more').lte(10, 'must be 10 ms or less').optional(),
   })
   .strict()
@@ -99,11 +117,21 @@ export const fitRequestSchema: z.ZodType<FitRequest> = z
     // Bounded work: one simulation of the record, times the plant's sets, at most 2 000 000 set-steps.
     const sets = r.test.onlineSetIds.length;
     if (steps * sets > 2_000_000)
-      ctx.addIssue({ code: 'custom', path: ['record', 'tS'], message: `the record (${span.toFixed(1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['record', 'tS'],
+        message: `the record (${span.toFixed(1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs`,
+      });
   }) as unknown as z.ZodType<FitRequest>;
 
 const syncLimits = z
-  .object({ slipHz: num('Hz').gte(0, 'must be 0 or more'), angleDeg: num('°').gte(0, 'must be 0 or more'), voltagePct: num('%').gte(0, 'must be 0 or more'), incomingFaster: z.boolean().optional(), incomingHigher: z.boolean().optional() })
+  .object({
+    slipHz: num('Hz').gte(0, 'must be 0 or more'),
+    angleDeg: num('°').gte(0, 'must be 0 or more'),
+    voltagePct: num('%').gte(0, 'must be 0 or more'),
+    incomingFaster: z.boolean().optional(),
+    incomingHigher: z.boolean().optional(),
+  })
   .strip();
 
 const finite = () => z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
@@ -137,7 +165,11 @@ const fitResultSchema = z
   .object({
     setId: text(),
     parameters: z
-      .array(z.object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: finite(), value: finite(), confidence: text() }).loose())
+      .array(
+        z
+          .object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: finite(), value: finite(), confidence: text() })
+          .loose(),
+      )
       .max(KEYS.length, `at most ${KEYS.length} parameters`),
     residual: z.object({ frequencyPct: finite(), voltagePct: finite(), totalPct: finite() }).loose(),
     measuredVerdict: verdictSchema,
@@ -151,8 +183,17 @@ export const commissioningRecordSchema: z.ZodType<CommissioningRecordRequest> = 
     setId: text().min(1, 'must not be empty'),
     fit: fitResultSchema.optional(),
     test: testSchema.optional(),
-    syncCheck: z.object({ limits: syncLimits, breakerClosingMs: num('ms').gte(0, 'must be 0 or more') }).strict().optional(),
-    signOff: z.object({ by: text().max(200, 'must be 200 characters or fewer'), date: text().max(100, 'must be 100 characters or fewer'), remarks: text().max(5000, 'must be 5000 characters or fewer') }).strict(),
+    syncCheck: z
+      .object({ limits: syncLimits, breakerClosingMs: num('ms').gte(0, 'must be 0 or more') })
+      .strict()
+      .optional(),
+    signOff: z
+      .object({
+        by: text().max(200, 'must be 200 characters or fewer'),
+        date: text().max(100, 'must be 100 characters or fewer'),
+        remarks: text().max(5000, 'must be 5000 characters or fewer'),
+      })
+      .strict(),
     date: text().max(100, 'must be 100 characters or fewer'),
   })
   .strict() as unknown as z.ZodType<CommissioningRecordRequest>;

@@ -34,13 +34,15 @@ export const planRequestSchema = z
     voltageBandV: band('V').refine((b) => b.min > 0, { message: 'must be above 0 V', path: ['min'] }),
     loadRangePct: loadRangeSchema.optional(),
     pf: pfSchema.optional(),
-    fixed: z
-      .array(z.object({ setId: id(), fields: z.array(oneOf(PLAN_FIELDS, { quoted: false })) }).strict())
-      .optional(),
+    fixed: z.array(z.object({ setId: id(), fields: z.array(oneOf(PLAN_FIELDS, { quoted: false })) }).strict()).optional(),
     limits: z
       .object({
-        speedDroopPct: band('%').refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] }).optional(),
-        reactiveDroopPct: band('%').refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] }).optional(),
+        speedDroopPct: band('%')
+          .refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] })
+          .optional(),
+        reactiveDroopPct: band('%')
+          .refine((b) => b.min > 0, { message: 'must be above 0 %', path: ['min'] })
+          .optional(),
         noLoadHzPct: band('%').optional(),
         noLoadVPct: band('%').optional(),
       })
@@ -60,10 +62,19 @@ export const toleranceRequestSchema = z
   .object({
     plant: plantSchema,
     samples: whole().gte(10, 'must be 10 or more').lte(1_000_000, 'must be 1 000 000 or fewer').optional(),
-    seed: whole().gte(0, 'must be 0 or more').lte(2 ** 31 - 1, 'must be below 2³¹').optional(),
-    speedTolHz: num('Hz').refine((v) => v >= 0 && v <= 5, 'must be 0–5 Hz').optional(),
-    voltageTolPct: num('%').refine((v) => v >= 0 && v <= 20, 'must be 0–20 %').optional(),
-    droopTolPct: num('%').refine((v) => v >= 0 && v < 50, 'must be 0 % or more and below 50 %').optional(),
+    seed: whole()
+      .gte(0, 'must be 0 or more')
+      .lte(2 ** 31 - 1, 'must be below 2³¹')
+      .optional(),
+    speedTolHz: num('Hz')
+      .refine((v) => v >= 0 && v <= 5, 'must be 0–5 Hz')
+      .optional(),
+    voltageTolPct: num('%')
+      .refine((v) => v >= 0 && v <= 20, 'must be 0–20 %')
+      .optional(),
+    droopTolPct: num('%')
+      .refine((v) => v >= 0 && v < 50, 'must be 0 % or more and below 50 %')
+      .optional(),
     distribution: oneOf(TOLERANCE_DISTRIBUTIONS, { quoted: false }).optional(),
     load: loadOverrideSchema.optional(),
     loadRangePct: loadRangeSchema.optional(),

@@ -30,15 +30,23 @@ export const sweepLoadSchema = z
   .object({
     plant: plantSchema,
     steps: whole().gte(2, 'must be 2 or more').lte(2000, 'must be 2000 or fewer'),
-    fromPct: num('%').refine((v) => v >= 0, 'must be 0 or more').optional(),
-    toPct: num('%').refine((v) => v <= 500, 'must be 500 % or less').optional(),
+    fromPct: num('%')
+      .refine((v) => v >= 0, 'must be 0 or more')
+      .optional(),
+    toPct: num('%')
+      .refine((v) => v <= 500, 'must be 500 % or less')
+      .optional(),
     pf: powerFactor().optional(),
   })
   .strict()
   .superRefine((r, ctx) => {
     const work = r.steps * r.plant.sets.length;
     if (work > MAX_SWEEP_SET_POINTS)
-      ctx.addIssue({ code: 'custom', path: ['steps'], message: `${r.steps} steps × ${r.plant.sets.length} sets is more than ${MAX_SWEEP_SET_POINTS} solved set points: give ${Math.floor(MAX_SWEEP_SET_POINTS / r.plant.sets.length)} steps or fewer for this plant` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['steps'],
+        message: `${r.steps} steps × ${r.plant.sets.length} sets is more than ${MAX_SWEEP_SET_POINTS} solved set points: give ${Math.floor(MAX_SWEEP_SET_POINTS / r.plant.sets.length)} steps or fewer for this plant`,
+      });
     if ((r.fromPct ?? 0) > (r.toPct ?? 110)) ctx.addIssue({ code: 'custom', path: ['toPct'], message: 'must not be below fromPct' });
   });
 

@@ -32,7 +32,9 @@ const fmt = (n: number) => Math.round(n).toLocaleString('en').replace(/,/g, ' ')
 export const scenarioSchema: z.ZodType<Scenario> = z
   .object({
     format: z.literal(SCENARIO_FORMAT, { error: `must be "${SCENARIO_FORMAT}"` }).optional(),
-    version: z.literal(SCENARIO_VERSION, { error: `must be ${SCENARIO_VERSION} (this version of Droopline reads scenarios of version ${SCENARIO_VERSION})` }).optional(),
+    version: z
+      .literal(SCENARIO_VERSION, { error: `must be ${SCENARIO_VERSION} (this version of Droopline reads scenarios of version ${SCENARIO_VERSION})` })
+      .optional(),
     name: text().optional(),
     plant: plantSchema.optional(),
     plantFile: text().optional(),
@@ -55,13 +57,17 @@ export const scenarioSchema: z.ZodType<Scenario> = z
     const plant = s.plant;
     const steps = (s.durationS * 1000) / s.stepMs;
     if (steps > MAX_STEPS)
-      ctx.addIssue({ code: 'custom', path: ['stepMs'], message: `too small for ${s.durationS} s: the run would take more than ${MAX_STEPS.toLocaleString('en')} steps` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['stepMs'],
+        message: `too small for ${s.durationS} s: the run would take more than ${MAX_STEPS.toLocaleString('en')} steps`,
+      });
     const sets = plant.sets.length;
     if (steps <= MAX_STEPS && steps * sets > MAX_SET_STEPS)
       ctx.addIssue({
         code: 'custom',
         path: ['durationS'],
-        message: `the run would take ${fmt(steps * sets)} set-steps (${fmt(steps)} steps × ${sets} sets); the limit is ${fmt(MAX_SET_STEPS)}: shorten durationS to ${fmt((MAX_SET_STEPS / sets) * s.stepMs / 1000)} s or less, or lengthen stepMs`,
+        message: `the run would take ${fmt(steps * sets)} set-steps (${fmt(steps)} steps × ${sets} sets); the limit is ${fmt(MAX_SET_STEPS)}: shorten durationS to ${fmt(((MAX_SET_STEPS / sets) * s.stepMs) / 1000)} s or less, or lengthen stepMs`,
       });
     if (s.outputPoints * sets > MAX_OUTPUT_SET_POINTS)
       ctx.addIssue({
@@ -72,7 +78,8 @@ export const scenarioSchema: z.ZodType<Scenario> = z
     (s.startDeExcited ?? []).forEach((sid, i) => {
       const set = plant.sets.find((x) => x.id === sid);
       if (!set) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `no set "${sid}" in the plant` });
-      else if (set.online) ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `set "${sid}" is on line; only an off-line set can start de-excited` });
+      else if (set.online)
+        ctx.addIssue({ code: 'custom', path: ['startDeExcited', i], message: `set "${sid}" is on line; only an off-line set can start de-excited` });
     });
     checkEvents(s.events, s.durationS, plant, (path, message) => ctx.addIssue({ code: 'custom', path, message }));
   }) as unknown as z.ZodType<Scenario>;

@@ -138,8 +138,8 @@ export const syncCaseSchema: z.ZodType<SyncCase> = z
         ...incoming,
         ratedKVA: incoming.ratedKVA ?? fromSet!.ratedKVA,
         xddpPU: incoming.xddpPU ?? fromSet!.xddpPU,
-        ...(incoming.inertiaS ?? fromSet?.inertiaS ? { inertiaS: incoming.inertiaS ?? fromSet!.inertiaS } : {}),
-        ...(incoming.poles ?? fromSet?.poles ? { poles: incoming.poles ?? fromSet!.poles } : {}),
+        ...((incoming.inertiaS ?? fromSet?.inertiaS) ? { inertiaS: incoming.inertiaS ?? fromSet!.inertiaS } : {}),
+        ...((incoming.poles ?? fromSet?.poles) ? { poles: incoming.poles ?? fromSet!.poles } : {}),
       },
       limits: limits ?? listSyncPresets().find((p) => p.id === c.presetId)!.limits,
     };

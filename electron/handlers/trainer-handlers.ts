@@ -1,7 +1,16 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type { TrainerBus, TrainerExercise, TrainerFaults, TrainerInputs, TrainerLevel, TrainerMachine, TrainerPassCriteria, TrainerState } from '../../shared-types';
+import type {
+  TrainerBus,
+  TrainerExercise,
+  TrainerFaults,
+  TrainerInputs,
+  TrainerLevel,
+  TrainerMachine,
+  TrainerPassCriteria,
+  TrainerState,
+} from '../../shared-types';
 import { TRAINER_PHASES } from '../../shared-types';
 import type { HandlerGroup } from './handler';
 import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from '../schemas/plant-schema';
@@ -30,7 +39,13 @@ const machineSchema: z.ZodType<TrainerMachine> = z
   })
   .strict();
 
-const busSchema: z.ZodType<TrainerBus> = z.object({ ratedKVA: positive('kVA').lte(10 * MAX_SET_RATING, 'must be 20 000 000 kVA or less'), xPU: range('pu', 0.001, 10), inertiaS: range('s', 0.01, 600) }).strict();
+const busSchema: z.ZodType<TrainerBus> = z
+  .object({
+    ratedKVA: positive('kVA').lte(10 * MAX_SET_RATING, 'must be 20 000 000 kVA or less'),
+    xPU: range('pu', 0.001, 10),
+    inertiaS: range('s', 0.01, 600),
+  })
+  .strict();
 
 const levelSchema: z.ZodType<TrainerLevel> = z
   .object({
@@ -113,7 +128,8 @@ const stateSchema: z.ZodType<TrainerState> = z
     const fr = st.machine.ratedFrequencyHz;
     const vr = st.machine.ratedVoltageV;
     for (const k of ['busFrequencyHz', 'busBaseFrequencyHz', 'incomingFrequencyHz', 'speedReferenceHz'] as const) {
-      if (st[k] < fr / 2 || st[k] > fr * 1.5) ctx.addIssue({ code: 'custom', path: [k], message: `must be within 50 % of the rated ${fr} Hz (${fr / 2}–${fr * 1.5} Hz)` });
+      if (st[k] < fr / 2 || st[k] > fr * 1.5)
+        ctx.addIssue({ code: 'custom', path: [k], message: `must be within 50 % of the rated ${fr} Hz (${fr / 2}–${fr * 1.5} Hz)` });
     }
     for (const k of ['busVoltageV', 'incomingVoltageV', 'voltageReferenceV'] as const) {
       if (st[k] > vr * 2) ctx.addIssue({ code: 'custom', path: [k], message: `must be ${vr * 2} V (twice rated) or less` });
@@ -131,12 +147,12 @@ const inputsSchema: z.ZodType<TrainerInputs> = z
 
 /** The fields of an instructor's exercise: the project file keeps it with these rules and the Trainer checks it with them. */
 export const trainerExerciseShape = {
-    id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
-    name: z.string({ error: 'must be text' }),
-    levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
-    seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
-    faults: trainerFaultsSchema,
-    pass: trainerPassSchema,
+  id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
+  name: z.string({ error: 'must be text' }),
+  levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
+  seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+  faults: trainerFaultsSchema,
+  pass: trainerPassSchema,
 };
 
 /** An instructor's exercise as the Trainer checks it (nothing extra). */

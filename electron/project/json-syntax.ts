@@ -76,14 +76,7 @@ function expectedInPlaceOf(text: string, e: ParseError): string | undefined {
   return there && STRUCTURAL.has(kind(there.error)) ? EXPECTED[kind(there.error)] : undefined;
 }
 
-const STRUCTURAL = new Set<Kind>([
-  'CommaExpected',
-  'ColonExpected',
-  'PropertyNameExpected',
-  'CloseBraceExpected',
-  'CloseBracketExpected',
-  'EndOfFileExpected',
-]);
+const STRUCTURAL = new Set<Kind>(['CommaExpected', 'ColonExpected', 'PropertyNameExpected', 'CloseBraceExpected', 'CloseBracketExpected', 'EndOfFileExpected']);
 
 /**
  * Reads `text` as JSON (RFC 8259). Returns null when it is valid, else the first problem.

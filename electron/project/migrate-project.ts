@@ -142,17 +142,26 @@ function fromSyncFile(raw: RawObject): Migrated {
 export function migrateToCurrent(value: unknown): Migrated {
   if (!isObject(value)) {
     const what = Array.isArray(value) ? 'a list' : value === null ? 'null' : `a ${typeof value}`;
-    throw new ProjectFileError('not-a-project', `This file holds JSON (${what}) but not a Droopline project: a project is an object with "format": "${PROJECT_FORMAT}".`);
+    throw new ProjectFileError(
+      'not-a-project',
+      `This file holds JSON (${what}) but not a Droopline project: a project is an object with "format": "${PROJECT_FORMAT}".`,
+    );
   }
   const format = value.format;
   if (format === undefined) {
-    throw new ProjectFileError('not-a-project', `This JSON file is not a Droopline project: it has no "format" field (a project has "format": "${PROJECT_FORMAT}").`);
+    throw new ProjectFileError(
+      'not-a-project',
+      `This JSON file is not a Droopline project: it has no "format" field (a project has "format": "${PROJECT_FORMAT}").`,
+    );
   }
   if (format === PLANT_FORMAT) return fromPlantFile(value);
   if (format === SCENARIO_FORMAT) return fromScenarioFile(value);
   if (format === SYNC_FORMAT) return fromSyncFile(value);
   if (format !== PROJECT_FORMAT) {
-    throw new ProjectFileError('foreign', `This is a ${JSON.stringify(format)} file, not a Droopline project (expected "format": "${PROJECT_FORMAT}"). The file was not changed.`);
+    throw new ProjectFileError(
+      'foreign',
+      `This is a ${JSON.stringify(format)} file, not a Droopline project (expected "format": "${PROJECT_FORMAT}"). The file was not changed.`,
+    );
   }
   const version = fileVersion(value, 'project');
   if (version > PROJECT_VERSION) refuseNewer('project', version, PROJECT_VERSION);

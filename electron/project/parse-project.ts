@@ -54,7 +54,11 @@ function validate(raw: unknown): Project {
     if (!(e instanceof ValidationError)) throw e;
     const issues = e.issues.map((i) => ({ path: i.path === 'project' ? '(root)' : i.path.replace(/^project\./, ''), message: i.message }));
     const list = issues.map((i) => `${i.path}: ${i.message}`).join('\n');
-    throw new ProjectFileError('invalid', `The project has ${issues.length === 1 ? 'a problem' : `${issues.length} problems`}; the file was not changed.\n${list}`, issues);
+    throw new ProjectFileError(
+      'invalid',
+      `The project has ${issues.length === 1 ? 'a problem' : `${issues.length} problems`}; the file was not changed.\n${list}`,
+      issues,
+    );
   }
 }
 
@@ -86,7 +90,9 @@ function scenarioNotes(project: Project): string[] {
   const notes: string[] = [];
   for (const s of project.scenarios)
     checkEvents(s.events, s.durationS, project.plant, (path, message) =>
-      notes.push(`Scenario "${s.name || s.id}", event ${Number(path[1]) + 1} (${String(path[2])}): ${message}; it will be refused when the scenario runs until it is changed.`),
+      notes.push(
+        `Scenario "${s.name || s.id}", event ${Number(path[1]) + 1} (${String(path[2])}): ${message}; it will be refused when the scenario runs until it is changed.`,
+      ),
     );
   return notes;
 }

@@ -3,15 +3,7 @@ import type { FieldIssue } from '../../shared-types';
 import { EngineError } from '../engine';
 
 /** Why a project file could not be read. */
-export type ProjectFileProblem =
-  | 'empty'
-  | 'binary'
-  | 'truncated'
-  | 'corrupted'
-  | 'not-a-project'
-  | 'foreign'
-  | 'newer'
-  | 'invalid';
+export type ProjectFileProblem = 'empty' | 'binary' | 'truncated' | 'corrupted' | 'not-a-project' | 'foreign' | 'newer' | 'invalid';
 
 /**
  * A project file that cannot be opened. The message says what is wrong, where, and that

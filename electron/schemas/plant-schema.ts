@@ -53,7 +53,9 @@ const regulatorSchema = z
     residualPU: nonNegative('pu').lte(0.5, 'must be 0.5 pu or less').default(0.03),
     vhzKneeBelowHz: nonNegative('Hz').lte(10, 'must be 10 Hz or less').default(SET_DEFAULTS.vhzKneeBelowHz),
     vhzSlopePctPerHz: nonNegative('% per Hz').lte(20, 'must be 20 % per Hz or less').default(SET_DEFAULTS.vhzSlopePctPerHz),
-    oelPct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(SET_DEFAULTS.oelPct),
+    oelPct: num('%')
+      .refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %')
+      .default(SET_DEFAULTS.oelPct),
     oelDelayS: nonNegative('s').lte(120, 'must be 120 s or less').default(SET_DEFAULTS.oelDelayS),
     oelResetS: nonNegative('s').lte(600, 'must be 600 s or less').default(SET_DEFAULTS.oelResetS),
     resetS: between('s', 0.01, 60).default(SET_DEFAULTS.regulatorResetS),
@@ -82,11 +84,15 @@ const protectionSchema = z
   .object({
     underFrequencyPct: pickup('0 switches it off', 100).default(P.underFrequencyPct),
     underFrequencyDelayS: delay().default(P.underFrequencyDelayS),
-    overFrequencyPct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 150), 'must be 0 (off) or from 100 to 150 %').default(P.overFrequencyPct),
+    overFrequencyPct: num('%')
+      .refine((v) => v === 0 || (v >= 100 && v <= 150), 'must be 0 (off) or from 100 to 150 %')
+      .default(P.overFrequencyPct),
     overFrequencyDelayS: delay().default(P.overFrequencyDelayS),
     underVoltagePct: pickup('0 switches it off', 100).default(P.underVoltagePct),
     underVoltageDelayS: delay().default(P.underVoltageDelayS),
-    overVoltagePct: num('%').refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %').default(P.overVoltagePct),
+    overVoltagePct: num('%')
+      .refine((v) => v === 0 || (v >= 100 && v <= 200), 'must be 0 (off) or from 100 to 200 %')
+      .default(P.overVoltagePct),
     overVoltageDelayS: delay().default(P.overVoltageDelayS),
   })
   .strict();
@@ -189,7 +195,11 @@ export const plantSchema = z
         const lo = rated * (1 - SETPOINT_FRACTION);
         const hi = rated * (1 + SETPOINT_FRACTION);
         if (v < lo || v > hi)
-          ctx.addIssue({ code: 'custom', path: ['sets', i, ...path], message: `must be within ${SETPOINT_FRACTION * 100} % of the rated ${rated} ${unit} (${lo}–${hi} ${unit})` });
+          ctx.addIssue({
+            code: 'custom',
+            path: ['sets', i, ...path],
+            message: `must be within ${SETPOINT_FRACTION * 100} % of the rated ${rated} ${unit} (${lo}–${hi} ${unit})`,
+          });
       };
       within(g.noLoadHz, p.ratedFrequencyHz, ['governor', 'noLoadHz'], 'Hz');
       within(g.setpointHz, p.ratedFrequencyHz, ['governor', 'setpointHz'], 'Hz');
@@ -198,16 +208,28 @@ export const plantSchema = z
       if (r.mode === 'reactive-droop' && !(r.droopPct > 0))
         ctx.addIssue({ code: 'custom', path: ['sets', i, 'regulator', 'droopPct'], message: 'must be greater than 0 in reactive-droop mode' });
       if (s.machine.tddopS >= s.machine.tdopS)
-        ctx.addIssue({ code: 'custom', path: ['sets', i, 'machine', 'tddopS'], message: "must be less than T'd0 (machine.tdopS): the damper decays faster than the field" });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['sets', i, 'machine', 'tddopS'],
+          message: "must be less than T'd0 (machine.tdopS): the damper decays faster than the field",
+        });
     });
     const loadIds = new Set<string>();
     p.loads.forEach((l, i) => {
       if (loadIds.has(l.id)) ctx.addIssue({ code: 'custom', path: ['loads', i, 'id'], message: `must be unique ("${l.id}" is used twice)` });
       loadIds.add(l.id);
       if ((l.kWImpedancePct ?? 0) + (l.kWCurrentPct ?? 0) > 100)
-        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kWCurrentPct'], message: 'with kWImpedancePct must not exceed 100 % (the rest of the kW is constant power)' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['loads', i, 'kWCurrentPct'],
+          message: 'with kWImpedancePct must not exceed 100 % (the rest of the kW is constant power)',
+        });
       if ((l.kVARImpedancePct ?? 0) + (l.kVARCurrentPct ?? 0) > 100)
-        ctx.addIssue({ code: 'custom', path: ['loads', i, 'kVARCurrentPct'], message: 'with kVARImpedancePct must not exceed 100 % (the rest of the kVAR is constant power)' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['loads', i, 'kVARCurrentPct'],
+          message: 'with kVARImpedancePct must not exceed 100 % (the rest of the kVAR is constant power)',
+        });
     });
   })
   .transform((p): Plant => ({

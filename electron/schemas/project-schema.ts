@@ -13,7 +13,6 @@ import { trainerExerciseShape } from '../handlers/trainer-handlers';
 
 import { breakerClosingMs, deadFields, id, num, positive, syncLimitsFields, text } from './schema-kit';
 
-
 const scenarioShape = z.looseObject({
   id: id(),
   name: text(),
@@ -86,16 +85,14 @@ export const projectSchema = z
       ids.add(s.id);
     });
   })
-  .transform(
-    (p): Project => ({
-      format: p.format,
-      version: p.version,
-      name: p.name ?? p.plant.name,
-      plant: p.plant,
-      scenarios: p.scenarios as unknown as ProjectScenario[],
-      sync: p.sync as ProjectSyncSettings | null,
-      trainerLog: p.trainerLog as TrainerAttempt[],
-      trainerExercises: p.trainerExercises as TrainerExerciseSet[],
-      view: p.view,
-    }),
-  );
+  .transform((p): Project => ({
+    format: p.format,
+    version: p.version,
+    name: p.name ?? p.plant.name,
+    plant: p.plant,
+    scenarios: p.scenarios as unknown as ProjectScenario[],
+    sync: p.sync as ProjectSyncSettings | null,
+    trainerLog: p.trainerLog as TrainerAttempt[],
+    trainerExercises: p.trainerExercises as TrainerExerciseSet[],
+    view: p.view,
+  }));

@@ -123,9 +123,9 @@ export function checkEvents(
         if (e.kW !== undefined || e.kVAR !== undefined) at('kW', 'give either loadId or kW/kVAR, not both');
       } else if (e.kW === undefined && e.kVAR === undefined) at('kW', 'is required (or name a plant load with loadId)');
     }
-    if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false) at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
+    if (e.type === 'trip' && e.openBreaker === false && e.shutdown === false)
+      at('shutdown', 'must be true when openBreaker is false (otherwise nothing trips)');
     if (e.type === 'setpoint' && e.frequencyHz === undefined && e.voltageV === undefined && e.kW === undefined)
       at('frequencyHz', 'give frequencyHz, voltageV or kW');
   });
 }
-

@@ -24,7 +24,9 @@ export const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more
 export const spaced = (n: number): string => n.toLocaleString('en', { maximumFractionDigits: 10 }).replace(/,/g, ' ');
 /** A number within [lo, hi], each rule in words with its unit ("must be 100 V or more"). */
 export const between = (unit: string, lo: number, hi: number, words = unit) =>
-  num(unit).gte(lo, `must be ${spaced(lo)} ${words} or more`).lte(hi, `must be ${spaced(hi)} ${words} or less`);
+  num(unit)
+    .gte(lo, `must be ${spaced(lo)} ${words} or more`)
+    .lte(hi, `must be ${spaced(hi)} ${words} or less`);
 /** Text. */
 export const text = () => z.string({ error: 'must be text' });
 /** Text that is not empty (an id). */

@@ -43,7 +43,12 @@ const isAbort = (e: unknown) => e instanceof DOMException && e.name === 'AbortEr
 
 /** A file name for a download or the save picker. */
 function fileNameFor(projectName: string): string {
-  const safe = projectName.replace(/[\\/:*?"<>|]+/g, ' ').replace(/\s+/g, ' ').trim().slice(0, 120) || 'Untitled project';
+  const safe =
+    projectName
+      .replace(/[\\/:*?"<>|]+/g, ' ')
+      .replace(/\s+/g, ' ')
+      .trim()
+      .slice(0, 120) || 'Untitled project';
   return safe.toLowerCase().endsWith('.json') ? safe : `${safe}${PROJECT_FILE_SUFFIX}`;
 }
 
@@ -230,8 +235,7 @@ export function createBrowserHost(win: Window & typeof globalThis = window): Hos
     },
     // A page cannot close its own tab; the store's "save and close" ends after the save.
     windowClose: async () => null,
-    reportSavePdf: async () =>
-      fail('UNAVAILABLE', 'The browser preview makes a PDF through Print… (choose "Save as PDF" in the print dialog).'),
+    reportSavePdf: async () => fail('UNAVAILABLE', 'The browser preview makes a PDF through Print… (choose "Save as PDF" in the print dialog).'),
   };
 
   return {

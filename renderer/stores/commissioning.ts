@@ -97,7 +97,9 @@ export const useCommissioningStore = defineStore('commissioning', () => {
   const test = ref<TestDescription>({ setId: '', onlineSetIds: [], startKW: 0, startKVAR: 0, stepKW: 0, stepKVAR: 0, stepAtS: 0, measuredAt: 'set' });
 
   // The parameters.
-  const params = ref<ParamChoice[]>(FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax })));
+  const params = ref<ParamChoice[]>(
+    FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax })),
+  );
   const maxIterations = ref(30);
 
   // The fit.
@@ -138,16 +140,19 @@ export const useCommissioningStore = defineStore('commissioning', () => {
       if (!Number.isFinite(v)) out.push(`Test: ${name} must be a number.`);
     if (t.startKW < 0) out.push('Test: load before the step, kW, must be 0 or more.');
     const rec = parsed.value?.record;
-    if (rec && !(t.stepAtS >= rec.tS[0]! && t.stepAtS < rec.tS[rec.tS.length - 1]!)) out.push(`Test: the step time must lie inside the record (${rec.tS[0]} s to ${rec.tS[rec.tS.length - 1]} s).`);
+    if (rec && !(t.stepAtS >= rec.tS[0]! && t.stepAtS < rec.tS[rec.tS.length - 1]!))
+      out.push(`Test: the step time must lie inside the record (${rec.tS[0]} s to ${rec.tS[rec.tS.length - 1]} s).`);
     const chosen = params.value.filter((p) => p.chosen);
     if (chosen.length === 0) out.push('Parameters: choose at least one to fit.');
     for (const p of chosen) {
       const info = FIT_PARAMETERS.find((x) => x.key === p.key)!;
       if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${p.key} must be numbers.`);
       else if (!(p.max > p.min)) out.push(`Parameters: the highest value of ${p.key} must be above its lowest.`);
-      else if (p.min < info.lowest || p.max > info.highest) out.push(`Parameters: the bounds of ${p.key} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
+      else if (p.min < info.lowest || p.max > info.highest)
+        out.push(`Parameters: the bounds of ${p.key} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
     }
-    if (!(Number.isInteger(maxIterations.value) && maxIterations.value >= 1 && maxIterations.value <= 200)) out.push('Iteration cap: a whole number from 1 to 200.');
+    if (!(Number.isInteger(maxIterations.value) && maxIterations.value >= 1 && maxIterations.value <= 200))
+      out.push('Iteration cap: a whole number from 1 to 200.');
     return out;
   });
 
@@ -224,7 +229,13 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     const first = setIds.value[0] ?? '';
     const setId = setIds.value.includes(test.value.setId) ? test.value.setId : first;
     if (knownTest) test.value = { ...knownTest, onlineSetIds: [...knownTest.onlineSetIds] };
-    else test.value = { ...test.value, setId, onlineSetIds: test.value.onlineSetIds.includes(setId) ? test.value.onlineSetIds : [setId], ...guessTest(preview.value) };
+    else
+      test.value = {
+        ...test.value,
+        setId,
+        onlineSetIds: test.value.onlineSetIds.includes(setId) ? test.value.onlineSetIds : [setId],
+        ...guessTest(preview.value),
+      };
   }
 
   function cancelImport(): void {
@@ -316,7 +327,14 @@ export const useCommissioningStore = defineStore('commissioning', () => {
         plant,
         setId,
         ...(withFit ? { fit: fit.value!, test: fitTest.value! } : {}),
-        ...(sync ? { syncCheck: { limits: { slipHz: sync.limits.slipHz, angleDeg: sync.limits.angleDeg, voltagePct: sync.limits.voltagePct }, breakerClosingMs: sync.breakerClosingMs } } : {}),
+        ...(sync
+          ? {
+              syncCheck: {
+                limits: { slipHz: sync.limits.slipHz, angleDeg: sync.limits.angleDeg, voltagePct: sync.limits.voltagePct },
+                breakerClosingMs: sync.breakerClosingMs,
+              },
+            }
+          : {}),
         signOff: { ...signOff.value },
         date,
       });

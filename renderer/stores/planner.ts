@@ -172,7 +172,9 @@ export const usePlannerStore = defineStore('planner', () => {
   async function runTolerance(): Promise<void> {
     const p = plantStore.plant;
     if (!p) return;
-    const problem = toleranceInputProblem(tolerance.value) ?? (toleranceOver.value === 'range' ? planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value) : null);
+    const problem =
+      toleranceInputProblem(tolerance.value) ??
+      (toleranceOver.value === 'range' ? planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value) : null);
     if (problem) {
       toleranceError.value = problem;
       toleranceState.value = 'error';
@@ -186,7 +188,11 @@ export const usePlannerStore = defineStore('planner', () => {
     toleranceError.value = null;
     try {
       const over = toleranceOver.value === 'range' ? { loadRangePct: { ...loadRange.value }, pf: pf.value } : {};
-      const r = await engine().call('toleranceAnalysis', { plant: p, ...tolerance.value, ...over }, { signal: abort.signal, onProgress: (f) => (toleranceProgress.value = f) });
+      const r = await engine().call(
+        'toleranceAnalysis',
+        { plant: p, ...tolerance.value, ...over },
+        { signal: abort.signal, onProgress: (f) => (toleranceProgress.value = f) },
+      );
       if (toleranceAbort !== abort) return;
       toleranceResult.value = r;
       toleranceState.value = 'done';

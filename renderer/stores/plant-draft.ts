@@ -7,13 +7,7 @@ import type { GenSet, Load, Plant } from '../../shared-types';
 import { SET_DEFAULTS } from '../../shared-types';
 
 /** `T` with every number allowed to be `null` (an emptied field). */
-export type Editable<T> = T extends number
-  ? T | null
-  : T extends (infer U)[]
-    ? Editable<U>[]
-    : T extends object
-      ? { [K in keyof T]: Editable<T[K]> }
-      : T;
+export type Editable<T> = T extends number ? T | null : T extends (infer U)[] ? Editable<U>[] : T extends object ? { [K in keyof T]: Editable<T[K]> } : T;
 
 /** A plant being edited: the plant-file shape, with numbers that may be empty. */
 export type PlantDraft = Editable<Plant>;
@@ -95,7 +89,10 @@ export function nextId(prefix: string, used: readonly string[]): string {
 export function newSet(draft: PlantDraft): SetDraft {
   const f = draft.ratedFrequencyHz ?? 50;
   const v = draft.ratedVoltageV ?? 400;
-  const id = nextId('G', draft.sets.map((s) => s.id));
+  const id = nextId(
+    'G',
+    draft.sets.map((s) => s.id),
+  );
   const last = draft.sets[draft.sets.length - 1];
   if (last) return { ...clonePlain(last), id, name: `Set ${id}`, online: true };
   return {
@@ -112,7 +109,18 @@ export function newSet(draft: PlantDraft): SetDraft {
     overloadPct: SET_DEFAULTS.overloadPct,
     motoringPct: SET_DEFAULTS.motoringPct,
     leadingKVARLimitPct: 30,
-    governor: { mode: 'droop', droopPct: 4, noLoadHz: f * 1.04, setpointHz: f, baseKW: 0, loadSharingLink: true, actuatorLagS: 0.05, engineLagS: 0.3, isoResetS: 2, isoGainPU: SET_DEFAULTS.isoGainPU },
+    governor: {
+      mode: 'droop',
+      droopPct: 4,
+      noLoadHz: f * 1.04,
+      setpointHz: f,
+      baseKW: 0,
+      loadSharingLink: true,
+      actuatorLagS: 0.05,
+      engineLagS: 0.3,
+      isoResetS: 2,
+      isoGainPU: SET_DEFAULTS.isoGainPU,
+    },
     regulator: {
       mode: 'reactive-droop',
       droopPct: 4,
@@ -158,7 +166,10 @@ export const TYPICAL_RANGES: Readonly<Record<string, string>> = {
 
 /** A new constant-power load of 100 kW, 60 kVAR. */
 export function newLoad(draft: PlantDraft): LoadDraft {
-  const id = nextId('L', draft.loads.map((l) => l.id));
+  const id = nextId(
+    'L',
+    draft.loads.map((l) => l.id),
+  );
   return { id, name: `Load ${id}`, online: true, kW: 100, kVAR: 60, model: 'constant-power', frequencySensitivity: 0 };
 }
 
@@ -175,7 +186,14 @@ export function duplicateItem(draft: PlantDraft, list: ListKey, index: number): 
   const item = items[index];
   if (!item) return draft;
   const prefix = list === 'sets' ? 'G' : 'L';
-  const copy = { ...clonePlain(item), id: nextId(prefix, items.map((i) => i.id)), name: `${item.name} (copy)` };
+  const copy = {
+    ...clonePlain(item),
+    id: nextId(
+      prefix,
+      items.map((i) => i.id),
+    ),
+    name: `${item.name} (copy)`,
+  };
   const next = [...items.slice(0, index + 1), copy, ...items.slice(index + 1)];
   return { ...draft, [list]: next };
 }

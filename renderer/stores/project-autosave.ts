@@ -47,7 +47,10 @@ export function useAutosave(src: AutosaveSource): { lastAutosaveAt: Ref<string |
     if (timer) clearTimeout(timer);
     timer = null;
     if (src.dirty.value) timer = setTimeout(() => void writeNow(), AUTOSAVE_DELAY_MS);
-    else if (before !== undefined && src.settled()) void host().call('recoveryDiscard', {}).catch(() => null);
+    else if (before !== undefined && src.settled())
+      void host()
+        .call('recoveryDiscard', {})
+        .catch(() => null);
   });
 
   onScopeDispose(() => {

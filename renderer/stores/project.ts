@@ -154,7 +154,13 @@ export const useProjectStore = defineStore('project', () => {
     for (const key of ['scenarios', 'sync', 'trainerLog', 'trainerExercises'] as const) {
       (parts[key] as { restore(v: unknown): void } | undefined)?.restore(project[key]);
     }
-    held.value = { scenarios: project.scenarios, sync: project.sync, trainerLog: project.trainerLog, trainerExercises: project.trainerExercises, view: project.view };
+    held.value = {
+      scenarios: project.scenarios,
+      sync: project.sync,
+      trainerLog: project.trainerLog,
+      trainerExercises: project.trainerExercises,
+      view: project.view,
+    };
     const view = project.view.view;
     if (typeof view === 'string' && VIEWS.some((v) => v.id === view)) ui.show(view as ViewId);
     name.value = project.name;
@@ -185,9 +191,7 @@ export const useProjectStore = defineStore('project', () => {
     const isBackup = origin.path?.toLowerCase().endsWith('.bak') ?? false;
     const keepPath = !isBackup && (parsed.migratedFrom === null || parsed.migratedFrom.startsWith('a project file'));
     if (!(await install(parsed.project, origin, keepPath))) return false;
-    notice.value = parsed.notes.length
-      ? { tone: 'info', text: `Opened "${label}". ${parsed.notes.join(' ')}` }
-      : { tone: 'ok', text: `Opened "${label}".` };
+    notice.value = parsed.notes.length ? { tone: 'info', text: `Opened "${label}". ${parsed.notes.join(' ')}` } : { tone: 'ok', text: `Opened "${label}".` };
     await pushDocumentState();
     return true;
   }
@@ -259,7 +263,10 @@ export const useProjectStore = defineStore('project', () => {
     fileName.value = file.fileName;
     baseline.value = savedContent;
     if (!dirty.value) plantStore.markSaved();
-    if (!dirty.value) await host().call('recoveryDiscard', {}).catch(() => null);
+    if (!dirty.value)
+      await host()
+        .call('recoveryDiscard', {})
+        .catch(() => null);
     await pushDocumentState();
   }
 
@@ -326,7 +333,10 @@ export const useProjectStore = defineStore('project', () => {
       recoveryResolved.value = true;
       // The file on disk does not hold these changes: the project is dirty until saved.
       baseline.value = '';
-      notice.value = { tone: 'info', text: `Restored the unsaved changes to "${copy.fileName ?? copy.projectName}" from ${new Date(copy.savedAt).toLocaleString()}. Save to keep them.` };
+      notice.value = {
+        tone: 'info',
+        text: `Restored the unsaved changes to "${copy.fileName ?? copy.projectName}" from ${new Date(copy.savedAt).toLocaleString()}. Save to keep them.`,
+      };
       await pushDocumentState();
       return true;
     }, false);
@@ -336,7 +346,9 @@ export const useProjectStore = defineStore('project', () => {
   async function discardRecovery(): Promise<void> {
     recovery.value = null;
     recoveryResolved.value = true;
-    await host().call('recoveryDiscard', {}).catch(() => null);
+    await host()
+      .call('recoveryDiscard', {})
+      .catch(() => null);
   }
 
   async function runCommand(c: HostCommand): Promise<void> {
@@ -346,7 +358,10 @@ export const useProjectStore = defineStore('project', () => {
     else if (c.command === 'save-as') await saveAs();
     else if (c.command === 'open-path') await openPath(c.path);
     else if (c.command === 'save-and-close') {
-      if (await save()) await host().call('windowClose', {}).catch(() => null);
+      if (await save())
+        await host()
+          .call('windowClose', {})
+          .catch(() => null);
     }
   }
 

@@ -64,7 +64,9 @@ export const useReportStore = defineStore('report', () => {
   let controller: AbortController | null = null;
 
   const loads = computed(() => parseLoads(loadsText.value));
-  const pfProblem = computed(() => (Number.isFinite(loadPF.value) && loadPF.value > 0 && loadPF.value <= 1 ? null : 'loadPF: must be greater than 0 and at most 1'));
+  const pfProblem = computed(() =>
+    Number.isFinite(loadPF.value) && loadPF.value > 0 && loadPF.value <= 1 ? null : 'loadPF: must be greater than 0 and at most 1',
+  );
   const problems = computed(() => [loads.value.problem, pfProblem.value, date.value ? null : 'date: must not be empty'].filter((p): p is string => !!p));
   const canBuild = computed(() => !building.value && !!plantStore.plant && problems.value.length === 0);
 
@@ -137,5 +139,25 @@ export const useReportStore = defineStore('report', () => {
     }
   }
 
-  return { projectName, date, loadsText, loadPF, useScenarios, building, progress, progressLabel, error, result, loads, problems, canBuild, request, build, cancel, pdfNote, canSavePdf, savePdf };
+  return {
+    projectName,
+    date,
+    loadsText,
+    loadPF,
+    useScenarios,
+    building,
+    progress,
+    progressLabel,
+    error,
+    result,
+    loads,
+    problems,
+    canBuild,
+    request,
+    build,
+    cancel,
+    pdfNote,
+    canSavePdf,
+    savePdf,
+  };
 });

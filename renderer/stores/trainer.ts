@@ -12,7 +12,17 @@ import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import { angleAfterDeg } from '../../shared-types';
 import { faultWords } from '../../shared-types';
-import type { SyncLimits, TrainerAttempt, TrainerExercise, TrainerExerciseSet, TrainerFaults, TrainerInputs, TrainerLevel, TrainerState, TrainerVerdict } from '../../shared-types';
+import type {
+  SyncLimits,
+  TrainerAttempt,
+  TrainerExercise,
+  TrainerExerciseSet,
+  TrainerFaults,
+  TrainerInputs,
+  TrainerLevel,
+  TrainerState,
+  TrainerVerdict,
+} from '../../shared-types';
 import { EngineCallError, engine, messageOf } from '../transport';
 import type { PlaneSample } from '../components/sync/window-plane';
 import { usePlantStore } from './plant';
@@ -22,7 +32,6 @@ const MAX_STEP_S = 0.2;
 /** The trainee's path on the window plane: a sample every this many seconds of exercise time, at most `PATH_MAX` kept. */
 const PATH_EVERY_S = 0.05;
 const PATH_MAX = 4000;
-
 
 /** Keyboard bindings: key → control (shown on the buttons too). */
 export const TRAINER_KEYS = {
@@ -247,7 +256,14 @@ export const useTrainerStore = defineStore('trainer', () => {
     const words = faultWords(s.faults);
     const inSession: Partial<TrainerAttempt> =
       ses && ex
-        ? { exerciseSetId: ses.setId, exerciseId: ex.id, exerciseName: ex.name, session: ses.startedAt, passed: v.pass?.passed ?? false, ...(words ? { faults: words } : {}) }
+        ? {
+            exerciseSetId: ses.setId,
+            exerciseId: ex.id,
+            exerciseName: ex.name,
+            session: ses.startedAt,
+            passed: v.pass?.passed ?? false,
+            ...(words ? { faults: words } : {}),
+          }
         : {};
     attempts.value = [{ at: new Date().toISOString(), ...(name ? { trainee: name } : {}), ...v.attempt, ...inSession }, ...attempts.value];
     if (ses && ex && ses.index === ses.exercises.length - 1) session.value = { ...ses, finished: true };
@@ -275,7 +291,14 @@ export const useTrainerStore = defineStore('trainer', () => {
   function addExercise(setId: string): string {
     const id = newId('ex');
     const set = exerciseSets.value.find((x) => x.id === setId);
-    const ex: TrainerExercise = { id, name: `Exercise ${(set?.exercises.length ?? 0) + 1}`, levelId: levelId.value, seed: seed.value, faults: {}, pass: { ...DEFAULT_PASS } };
+    const ex: TrainerExercise = {
+      id,
+      name: `Exercise ${(set?.exercises.length ?? 0) + 1}`,
+      levelId: levelId.value,
+      seed: seed.value,
+      faults: {},
+      pass: { ...DEFAULT_PASS },
+    };
     goodExercises.set(id, copyExercise(ex));
     exerciseSets.value = exerciseSets.value.map((x) => (x.id === setId ? { ...x, exercises: [...x.exercises, ex] } : x));
     return id;
@@ -360,7 +383,10 @@ export const useTrainerStore = defineStore('trainer', () => {
   const sessionAttempts = computed(() => {
     const ses = session.value;
     if (!ses) return [];
-    return attempts.value.filter((a) => a.session === ses.startedAt && a.exerciseSetId === ses.setId).slice().reverse();
+    return attempts.value
+      .filter((a) => a.session === ses.startedAt && a.exerciseSetId === ses.setId)
+      .slice()
+      .reverse();
   });
 
   /** The sets to keep with a project: every exercise as last accepted. */

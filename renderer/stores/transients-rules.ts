@@ -67,7 +67,8 @@ export function scenarioIssues(scenario: ProjectScenario, plant: Plant | null): 
       if (rule?.le !== undefined && !(value <= rule.le)) return add(at(field), `must be at most ${rule.le}`);
     };
     num('atS', e.atS, { ge: 0 });
-    if (finite(e.atS) && finite(scenario.durationS) && e.atS >= scenario.durationS) add(at('atS'), `must be before the end of the run (${scenario.durationS} s)`);
+    if (finite(e.atS) && finite(scenario.durationS) && e.atS >= scenario.durationS)
+      add(at('atS'), `must be before the end of the run (${scenario.durationS} s)`);
     const set = (id: string) => {
       if (!id) add(at('setId'), 'must name a set');
       else if (!ids.has(id)) add(at('setId'), `"${id}" is not a set of the plant`);
@@ -118,9 +119,7 @@ export function starterScenarios(plant: Plant | null): ProjectScenario[] {
   const sets = plant?.sets ?? [];
   const last = sets.filter((s) => s.online).slice(-1)[0];
   const step = newEvent('load-step', 1, plant);
-  const list: ProjectScenario[] = [
-    { id: 'block-load', name: 'Block load step', durationS: 12, stepMs: 1, events: [step] },
-  ];
+  const list: ProjectScenario[] = [{ id: 'block-load', name: 'Block load step', durationS: 12, stepMs: 1, events: [step] }];
   if (last && sets.filter((s) => s.online).length > 1) {
     list.push({ id: 'set-trip', name: `Trip of ${last.id}`, durationS: 12, stepMs: 1, events: [{ atS: 1, type: 'trip', setId: last.id }] });
   }

@@ -35,8 +35,18 @@ export function settingsSummary(plant: Plant): string {
     .map((s) => {
       const g = s.governor;
       const r = s.regulator;
-      const gov = g.mode === 'droop' ? `droop ${g.droopPct} % from ${g.noLoadHz} Hz` : g.mode === 'isochronous' ? `isochronous ${g.setpointHz} Hz` : `base load ${g.baseKW} kW`;
-      const reg = r.mode === 'reactive-droop' ? `reactive droop ${r.droopPct} % from ${r.noLoadV} V` : r.mode === 'power-factor' ? `PF ${r.pf}` : `${r.mode} ${r.setpointV} V`;
+      const gov =
+        g.mode === 'droop'
+          ? `droop ${g.droopPct} % from ${g.noLoadHz} Hz`
+          : g.mode === 'isochronous'
+            ? `isochronous ${g.setpointHz} Hz`
+            : `base load ${g.baseKW} kW`;
+      const reg =
+        r.mode === 'reactive-droop'
+          ? `reactive droop ${r.droopPct} % from ${r.noLoadV} V`
+          : r.mode === 'power-factor'
+            ? `PF ${r.pf}`
+            : `${r.mode} ${r.setpointV} V`;
       return `${s.id}${s.online ? '' : ' (off)'}: ${gov}, ${reg}`;
     })
     .join('; ');
@@ -91,7 +101,13 @@ export const useTransientsStore = defineStore('transients', () => {
   }
 
   function addScenario(): void {
-    const s: ProjectScenario = { id: uniqueId('scenario'), name: `Scenario ${scenarios.value.length + 1}`, durationS: 10, stepMs: 1, events: [newEvent('load-step', 1, plantStore.plant)] };
+    const s: ProjectScenario = {
+      id: uniqueId('scenario'),
+      name: `Scenario ${scenarios.value.length + 1}`,
+      durationS: 10,
+      stepMs: 1,
+      events: [newEvent('load-step', 1, plantStore.plant)],
+    };
     scenarios.value = [...scenarios.value, s];
     selectedId.value = s.id;
   }

@@ -21,7 +21,7 @@ export type ViewId = (typeof VIEWS)[number]['id'];
 
 function fromHash(): ViewId {
   const h = typeof location === 'undefined' ? '' : location.hash.replace(/^#\/?/, '');
-  return (VIEWS.find((v) => v.id === h)?.id ?? 'plant');
+  return VIEWS.find((v) => v.id === h)?.id ?? 'plant';
 }
 
 export const useUiStore = defineStore('ui', () => {

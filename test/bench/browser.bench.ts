@@ -49,7 +49,9 @@ async function startOnce(browser: Browser, url: string): Promise<StartTimes> {
     mo.observe(document, { subtree: true, childList: true, characterData: true });
   });
   await page.goto(url);
-  await page.waitForFunction(() => (window as unknown as { __times: Record<string, number> }).__times.firstFigure !== undefined, undefined, { timeout: 60_000 });
+  await page.waitForFunction(() => (window as unknown as { __times: Record<string, number> }).__times.firstFigure !== undefined, undefined, {
+    timeout: 60_000,
+  });
   const t = await page.evaluate(() => {
     const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined;
     const w = window as unknown as { __times: Record<string, number> };
@@ -102,7 +104,15 @@ export async function run(): Promise<BenchResult[]> {
   const url = server.resolvedUrls?.local[0];
   const browser = await chromium.launch({
     executablePath: CHROMIUM_PATH,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   try {
     if (!url) throw new Error('The preview server did not report its URL.');

@@ -14,11 +14,22 @@ import type { BenchResult } from './harness';
 export function run(): BenchResult[] {
   const plant = plantSchema.parse(JSON.parse(readFileSync('renderer/demo/water-works.plant.json', 'utf8'))) as Plant;
   const text = readFileSync('renderer/demo/example.load-bank.csv', 'utf8');
-  const req = { text, columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V', kW: 'P_kW', kVAR: 'Q_kVAR' }, units: { time: 's' as const, frequency: 'Hz' as const, voltage: 'V' as const, kW: 'kW' as const, kVAR: 'kVAR' as const }, ratedFrequencyHz: 50, ratedVoltageV: 400 };
+  const req = {
+    text,
+    columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V', kW: 'P_kW', kVAR: 'Q_kVAR' },
+    units: { time: 's' as const, frequency: 'Hz' as const, voltage: 'V' as const, kW: 'kW' as const, kVAR: 'kVAR' as const },
+    ratedFrequencyHz: 50,
+    ratedVoltageV: 400,
+  };
   const out: BenchResult[] = [bench('parseTestRecord, example record (401 rows, 5 columns)', () => parseTestRecord(req), { minMs: 500 })];
   const record = parseTestRecord(req).record;
   const keys: FitParameterKey[] = ['machine.inertiaS', 'governor.engineLagS', 'regulator.gainPU', 'regulator.exciterLagS'];
-  const bounds: Record<string, [number, number]> = { 'machine.inertiaS': [0.3, 5], 'governor.engineLagS': [0.05, 2], 'regulator.gainPU': [5, 200], 'regulator.exciterLagS': [0.01, 1] };
+  const bounds: Record<string, [number, number]> = {
+    'machine.inertiaS': [0.3, 5],
+    'governor.engineLagS': [0.05, 2],
+    'regulator.gainPU': [5, 200],
+    'regulator.exciterLagS': [0.01, 1],
+  };
   const fitReq = {
     plant,
     record,
@@ -43,7 +54,12 @@ export function run(): BenchResult[] {
     name: 'fitTestRecord, example record (8 s at 2 ms), 4 parameters of G1',
     medianMs: times[1]!,
     runs: 3,
-    extra: { iterations: last.iterations, simulations: last.simulations, 'ms per simulation (wall)': (times[1]! / last.simulations).toFixed(1), 'CPU ms': cpu[1]!.toFixed(0) },
+    extra: {
+      iterations: last.iterations,
+      simulations: last.simulations,
+      'ms per simulation (wall)': (times[1]! / last.simulations).toFixed(1),
+      'CPU ms': cpu[1]!.toFixed(0),
+    },
   });
   return out;
 }

@@ -28,6 +28,11 @@ export function bench(name: string, fn: () => unknown, opts: { minMs?: number; b
 /** Formats a result line for the console and the README. */
 export function formatResult(r: BenchResult): string {
   const t = Number.isNaN(r.medianMs) ? '—' : r.medianMs < 1 ? `${(r.medianMs * 1000).toFixed(1)} µs` : `${r.medianMs.toFixed(2)} ms`;
-  const extra = r.extra ? '  ' + Object.entries(r.extra).map(([k, v]) => `${k} ${v}`).join(', ') : '';
+  const extra = r.extra
+    ? '  ' +
+      Object.entries(r.extra)
+        .map(([k, v]) => `${k} ${v}`)
+        .join(', ')
+    : '';
   return `| ${r.name} | ${t} | ${r.runs}${extra ? ` |${extra}` : ' |'}`;
 }

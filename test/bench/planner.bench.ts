@@ -32,7 +32,11 @@ export function run(): BenchResult[] {
     name: 'toleranceAnalysis, 8 sets with feeders, 10 000 samples, one core',
     medianMs: wall,
     runs: 3,
-    extra: { 'samples/s per core (wall)': Math.round(10_000 / (wall / 1000)), 'samples/s per core (CPU time)': Math.round(10_000 / (cpuMs / 1000)), 'CPU ms': cpuMs.toFixed(0) },
+    extra: {
+      'samples/s per core (wall)': Math.round(10_000 / (wall / 1000)),
+      'samples/s per core (CPU time)': Math.round(10_000 / (cpuMs / 1000)),
+      'CPU ms': cpuMs.toFixed(0),
+    },
   });
   const planReq = { plant, frequencyBandHz: { min: 49, max: 51 }, voltageBandV: { min: 10_700, max: 11_300 }, loadRangePct: { min: 0, max: 90 } };
   out.push(bench('planDroop, 8 sets with feeders (closed forms + solver checks)', () => planDroop(planReq), { minMs: 1000 }));

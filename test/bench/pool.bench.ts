@@ -52,7 +52,12 @@ export async function run(): Promise<BenchResult[]> {
 
   toleranceAnalysis({ ...tol, samples: 500 });
   const one = await median(5, () => toleranceAnalysis(tol));
-  out.push({ name: `toleranceAnalysis, 8 sets with feeders, ${samples} samples, one thread`, medianMs: one.ms, runs: 5, extra: { 'samples/s per core': Math.round(samples / (one.ms / 1000)), 'CPU ms': one.cpuMs.toFixed(0) } });
+  out.push({
+    name: `toleranceAnalysis, 8 sets with feeders, ${samples} samples, one thread`,
+    medianMs: one.ms,
+    runs: 5,
+    extra: { 'samples/s per core': Math.round(samples / (one.ms / 1000)), 'CPU ms': one.cpuMs.toFixed(0) },
+  });
 
   for (const size of [1, cores]) {
     const coldPool = nodeBuiltPool(size);
@@ -76,7 +81,13 @@ export async function run(): Promise<BenchResult[]> {
   }
 
   const map: ClosingMapRequest = closingMapRequestSchema.parse({
-    case: { plant: demoPlantJson(), incomingSetId: 'G3', incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 }, breakerClosingMs: 60, limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 } },
+    case: {
+      plant: demoPlantJson(),
+      incomingSetId: 'G3',
+      incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 },
+      breakerClosingMs: 60,
+      limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 },
+    },
     angleSteps: 181,
     slipSteps: 101,
     slipRangeHz: 0.5,
@@ -87,7 +98,12 @@ export async function run(): Promise<BenchResult[]> {
   await runClosingMap({ ...small, slipSteps: 3 }, ctx());
   const oneMap = await median(3, () => runClosingMap(small, ctx()));
   const smallCells = 181 * 11;
-  out.push({ name: `closingMap time-domain, 181 × 11 (demo plant), one thread`, medianMs: oneMap.ms, runs: 3, extra: { 'ms per cell': (oneMap.ms / smallCells).toFixed(3), 'CPU ms per cell': (oneMap.cpuMs / smallCells).toFixed(3) } });
+  out.push({
+    name: `closingMap time-domain, 181 × 11 (demo plant), one thread`,
+    medianMs: oneMap.ms,
+    runs: 3,
+    extra: { 'ms per cell': (oneMap.ms / smallCells).toFixed(3), 'CPU ms per cell': (oneMap.cpuMs / smallCells).toFixed(3) },
+  });
   const pool = nodeBuiltPool(cores);
   await runClosingMap({ ...map, slipSteps: 9 }, ctx(pool));
   const last = { map: null as unknown as Awaited<ReturnType<typeof runClosingMap>> };

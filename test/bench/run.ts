@@ -17,7 +17,18 @@ import * as yardstickSuite from './yardstick.bench';
 import * as browserSuite from './browser.bench';
 import * as commissioningSuite from './commissioning.bench';
 
-const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [{ name: 'plant', run: describeSuite.run }, { name: 'sync', run: syncSuite.run }, { name: 'simulation', run: simulationSuite.run }, { name: 'trainer', run: trainerSuite.run }, { name: 'sharing', run: sharingSuite.run }, { name: 'planner', run: plannerSuite.run }, { name: 'pool', run: poolSuite.run }, { name: 'yardstick', run: yardstickSuite.run }, { name: 'browser', run: browserSuite.run }, { name: 'commissioning', run: commissioningSuite.run }];
+const suites: { name: string; run(): BenchResult[] | Promise<BenchResult[]> }[] = [
+  { name: 'plant', run: describeSuite.run },
+  { name: 'sync', run: syncSuite.run },
+  { name: 'simulation', run: simulationSuite.run },
+  { name: 'trainer', run: trainerSuite.run },
+  { name: 'sharing', run: sharingSuite.run },
+  { name: 'planner', run: plannerSuite.run },
+  { name: 'pool', run: poolSuite.run },
+  { name: 'yardstick', run: yardstickSuite.run },
+  { name: 'browser', run: browserSuite.run },
+  { name: 'commissioning', run: commissioningSuite.run },
+];
 
 // `BENCH_SUITES=pool,planner npm run bench` or `npm run bench -- --only pool,planner` runs only the suites named.
 const onlyAt = process.argv.indexOf('--only');

@@ -50,7 +50,11 @@ export function run(): BenchResult[] {
   const sc = benchScenario(8, 60);
   const r = bench('simulate, 8 sets, 60 s at 1 ms', () => simulate(sc), { minMs: 3000 });
   const cpu = [cpuMs(() => simulate(sc)), cpuMs(() => simulate(sc)), cpuMs(() => simulate(sc))].sort((a, b) => a - b)[1]!;
-  r.extra = { 'real-time factor': (60 / (r.medianMs / 1000)).toFixed(0), 'CPU ms': cpu.toFixed(0), 'real-time factor on CPU time': (60 / (cpu / 1000)).toFixed(0) };
+  r.extra = {
+    'real-time factor': (60 / (r.medianMs / 1000)).toFixed(0),
+    'CPU ms': cpu.toFixed(0),
+    'real-time factor on CPU time': (60 / (cpu / 1000)).toFixed(0),
+  };
   out.push(r);
   return out;
 }

@@ -33,13 +33,19 @@ export function run(): BenchResult[] {
     bench('evaluateSync, one case (demo plant bus, 2 sets)', () => evaluateSync(plantCase), { batch: 2000 }),
   ];
   const surges = perAngle(
-    bench(`closingSurge, ${surgeAngles} closing angles`, () => {
-      for (let a = 0; a < surgeAngles; a++) closingSurge(circuit, a - 180);
-    }, { batch: 20 }),
+    bench(
+      `closingSurge, ${surgeAngles} closing angles`,
+      () => {
+        for (let a = 0; a < surgeAngles; a++) closingSurge(circuit, a - 180);
+      },
+      { batch: 20 },
+    ),
     surgeAngles,
   );
   const mapCells = 181 * 101;
-  const map = bench('closingMap, 181 × 101 closed form (command axis)', () => closingMap({ case: c, angleSteps: 181, slipSteps: 101, slipRangeHz: 0.5 }), { batch: 5 });
+  const map = bench('closingMap, 181 × 101 closed form (command axis)', () => closingMap({ case: c, angleSteps: 181, slipSteps: 101, slipRangeHz: 0.5 }), {
+    batch: 5,
+  });
   map.extra = { 'ns per cell': ((map.medianMs * 1e6) / mapCells).toFixed(0) };
   // The same map's arithmetic alone: rows refilled into arrays allocated once (allocation of three 18 281-number
   // arrays is a large share of the whole call on some machines).

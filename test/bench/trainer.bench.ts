@@ -15,10 +15,14 @@ function closed(s0: TrainerState): TrainerState {
 export async function run(): Promise<BenchResult[]> {
   const plant = demoPlant();
   let s = startExercise({ seed: 1, levelId: 'drifting-bus' });
-  const frame = bench('trainerStep engine, one 1/60 s frame (17 substeps)', () => {
-    s = stepTrainer(s, { speed: 1, voltage: 0 }, 1 / 60);
-    if (s.incomingFrequencyHz > 54) s = startExercise({ seed: 1, levelId: 'drifting-bus' });
-  }, { batch: 200 });
+  const frame = bench(
+    'trainerStep engine, one 1/60 s frame (17 substeps)',
+    () => {
+      s = stepTrainer(s, { speed: 1, voltage: 0 }, 1 / 60);
+      if (s.incomingFrequencyHz > 54) s = startExercise({ seed: 1, levelId: 'drifting-bus' });
+    },
+    { batch: 200 },
+  );
   // Through the handler table as the worker runs it: JSON copy + schema check + step.
   let d = startExercise({ seed: 2, levelId: 'steady' });
   const samples: number[] = [];
@@ -36,6 +40,6 @@ export async function run(): Promise<BenchResult[]> {
     frame,
     viaHandler,
     bench('trainerClose, two-machine traces (3 s, twice: attempt and edge reference)', () => judgeClose(standard), { batch: 5 }),
-    bench("trainerClose, plant simulator traces (demo plant, 3 s, twice)", () => judgeClose(fromPlant, {}, plant), { minMs: 1500 }),
+    bench('trainerClose, plant simulator traces (demo plant, 3 s, twice)', () => judgeClose(fromPlant, {}, plant), { minMs: 1500 }),
   ];
 }

@@ -46,7 +46,14 @@ async function shippedSimulate(): Promise<(s: Scenario) => unknown> {
   await build({
     logLevel: 'warn',
     configFile: false,
-    build: { ssr: 'electron/engine/index.ts', outDir, emptyOutDir: true, target: 'node20', minify: false, rolldownOptions: { output: { entryFileNames: 'engine.mjs', format: 'es' } } },
+    build: {
+      ssr: 'electron/engine/index.ts',
+      outDir,
+      emptyOutDir: true,
+      target: 'node20',
+      minify: false,
+      rolldownOptions: { output: { entryFileNames: 'engine.mjs', format: 'es' } },
+    },
     ssr: { noExternal: true },
   });
   const mod = (await import(pathToFileURL(join(outDir, 'engine.mjs')).href)) as { simulate(s: Scenario): unknown };
@@ -107,7 +114,12 @@ export async function run(): Promise<BenchResult[]> {
   });
   out.push(row(`simulate as shipped (bundled), ${SETS} sets, 60 s at 1 ms`, sim, {}));
   out.push(row('yardstick, JavaScript (test/bench/yardstick.mjs)', js, { 'simulator ÷ yardstick (CPU time)': `${(simCpu / M(js, 'cpu')).toFixed(2)}×` }));
-  if (cExe) out.push(row('yardstick, C (test/bench/yardstick.c, cc -O3 -march=native -ffast-math)', c, { 'simulator ÷ C (CPU time)': `${(simCpu / M(c, 'cpu')).toFixed(2)}×` }));
+  if (cExe)
+    out.push(
+      row('yardstick, C (test/bench/yardstick.c, cc -O3 -march=native -ffast-math)', c, {
+        'simulator ÷ C (CPU time)': `${(simCpu / M(c, 'cpu')).toFixed(2)}×`,
+      }),
+    );
   else out.push({ name: 'yardstick, C: skipped (no C compiler `cc` on the path)', medianMs: Number.NaN, runs: 0 });
   if (reference) out.push(row(`reference: ${reference}`, ref, { 'simulator ÷ reference (wall)': `${(simWall / M(ref, 'wall')).toFixed(2)}×` }));
   return out;

@@ -3,7 +3,12 @@ import { describe, expect, it } from 'vitest';
 import { judgeAudit } from '../../build/scripts/audit.mjs';
 
 // The verdict on `npm audit --omit=dev --json` output (npm 11's report shape: metadata.vulnerabilities).
-const report = (counts: Record<string, number>) => JSON.stringify({ auditReportVersion: 2, vulnerabilities: {}, metadata: { vulnerabilities: { info: 0, low: 0, moderate: 0, high: 0, critical: 0, total: 0, ...counts } } });
+const report = (counts: Record<string, number>) =>
+  JSON.stringify({
+    auditReportVersion: 2,
+    vulnerabilities: {},
+    metadata: { vulnerabilities: { info: 0, low: 0, moderate: 0, high: 0, critical: 0, total: 0, ...counts } },
+  });
 
 describe('CI audit verdict', () => {
   it('fails on a high or a critical advisory and names the counts', () => {

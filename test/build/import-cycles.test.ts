@@ -113,5 +113,4 @@ describe('import graph', () => {
     }
     expect([...ways]).toEqual(['handlers → project']);
   });
-
 });

@@ -50,7 +50,7 @@ describe('command-line files', () => {
     expect(err).not.toContain('internal error');
     err = '';
     expect(await runCli(['report', plant, '--out', join(dir, 'no', 'such', 'r.html'), '--date', '2026-12-02'], io)).toBe(2);
-    expect(err).toContain("cannot write it: its folder does not exist");
+    expect(err).toContain('cannot write it: its folder does not exist');
   });
 
   it('writes the report atomically: no temporary file is left beside it', async () => {
@@ -96,7 +96,7 @@ describe('command-line files', () => {
     expect(err).not.toContain('/bin/bash');
   });
 
-  it('keeps a scenario\'s plantFile inside the scenario\'s folder and never quotes a foreign file', async () => {
+  it("keeps a scenario's plantFile inside the scenario's folder and never quotes a foreign file", async () => {
     mkdirSync(join(dir, 'study'));
     mkdirSync(join(dir, 'study', 'plants'));
     writeFileSync(join(dir, 'secret.json'), '{"apiToken": "abc123", "user": "x"}');

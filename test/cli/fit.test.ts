@@ -11,7 +11,12 @@ describe('droopline fit', () => {
   it('fits the example record and prints the fitted plant with the caution (--json)', { timeout: 120_000 }, async () => {
     const io = memoryIO({ 'p.json': demo('water-works.plant.json'), 'r.csv': demo('example.load-bank.csv') });
     expect(await runCli(['fit', 'p.json', 'r.csv', ...ARGS, '--params', 'inertiaS,engineLagS', '--json'], io)).toBe(0);
-    const out = JSON.parse(io.stdout()) as { parameters: { key: string; value: number }[]; residual: { totalPct: number }; plant: { sets: { machine: { inertiaS: number } }[] }; caution: string };
+    const out = JSON.parse(io.stdout()) as {
+      parameters: { key: string; value: number }[];
+      residual: { totalPct: number };
+      plant: { sets: { machine: { inertiaS: number } }[] };
+      caution: string;
+    };
     expect(out.parameters.map((p) => p.key)).toEqual(['machine.inertiaS', 'governor.engineLagS']);
     // The example was made with H = 1.6 s and an engine lag of 0.45 s (build/scripts/make-example-record.ts); the
     // regulator is left at the demo's values here, so the fit is looser than the closed-loop test: within 10 %.

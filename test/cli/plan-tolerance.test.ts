@@ -57,7 +57,11 @@ describe('droopline tolerance', () => {
     const io = memoryIO(files());
     expect(await runCli(argv, io)).toBe(0);
     type Stats = { mean: number; std: number; p5: number; p50: number; p95: number };
-    const out = JSON.parse(io.stdout()) as { sets: { id: string; kW: Stats; kVAR: Stats; circulatingA: Stats }[]; bus: { frequencyHz: Stats; voltageV: Stats }; probabilities: { overload: number; reversePower: number } };
+    const out = JSON.parse(io.stdout()) as {
+      sets: { id: string; kW: Stats; kVAR: Stats; circulatingA: Stats }[];
+      bus: { frequencyHz: Stats; voltageV: Stats };
+      probabilities: { overload: number; reversePower: number };
+    };
     expect(out.sets.map((s) => s.id)).toEqual(['G1', 'G2', 'G3']);
     expect(Object.keys(out.sets[0]!.kW)).toEqual(['mean', 'std', 'p5', 'p50', 'p95']);
     expect(out.bus.frequencyHz.p5).toBeLessThanOrEqual(out.bus.frequencyHz.p95);
@@ -88,7 +92,10 @@ describe('droopline tolerance', () => {
     const two = await run(process.execPath, args, { env: { ...process.env, DROOPLINE_WORKERS: '2' } });
     expect(two.stdout).toBe(one.stdout);
     const inProcess = memoryIO(files());
-    await runCli(argv.map((a) => a.replace(/^400$/, '2400')), inProcess);
+    await runCli(
+      argv.map((a) => a.replace(/^400$/, '2400')),
+      inProcess,
+    );
     expect(one.stdout).toBe(inProcess.stdout());
   }, 60_000);
 

@@ -12,7 +12,13 @@ function projectJson(): string {
     name: 'Kestrel Ford commissioning',
     plant: demoPlantJson(),
     scenarios: [{ id: 's1', name: 'Blower start', durationS: 3, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', kW: 150, kVAR: 100 }] }],
-    sync: { presetId: null, limits: { slipHz: 0.15, angleDeg: 8, voltagePct: 4 }, breakerClosingMs: 50, dead: { deadBus: false, deadLine: false, livePct: 80, deadPct: 20 }, incomingSetId: 'G2' },
+    sync: {
+      presetId: null,
+      limits: { slipHz: 0.15, angleDeg: 8, voltagePct: 4 },
+      breakerClosingMs: 50,
+      dead: { deadBus: false, deadLine: false, livePct: 80, deadPct: 20 },
+      incomingSetId: 'G2',
+    },
     trainerLog: [],
     view: {},
   });

@@ -38,7 +38,9 @@ describe('droopline simulate', () => {
     const lines = io.stdout().trim().split('\n');
     // A leading '#' comment line carries the caution (CSV readers skip it with their comment option).
     expect(lines.shift()).toMatch(/^# Caution: planning and training only\./);
-    expect(lines[0]).toBe('t_s,frequency_Hz,voltage_V,G1_kW,G1_kVAR,G1_A,G1_speed_Hz,G1_terminal_V,G2_kW,G2_kVAR,G2_A,G2_speed_Hz,G2_terminal_V,G3_kW,G3_kVAR,G3_A,G3_speed_Hz,G3_terminal_V');
+    expect(lines[0]).toBe(
+      't_s,frequency_Hz,voltage_V,G1_kW,G1_kVAR,G1_A,G1_speed_Hz,G1_terminal_V,G2_kW,G2_kVAR,G2_A,G2_speed_Hz,G2_terminal_V,G3_kW,G3_kVAR,G3_A,G3_speed_Hz,G3_terminal_V',
+    );
     expect(lines[1]!.split(',')).toHaveLength(18);
     expect(io.stdout()).not.toMatch(/NaN/);
   });

@@ -8,7 +8,18 @@ const demoIO = (plant: unknown = demoPlantJson()) => memoryIO({ 'plant.json': JS
 
 interface SolveJson {
   bus: { frequencyHz: number; voltageV: number };
-  sets: { id: string; kW: number; kVAR: number; kVA: number; pf: number; currentA: number; terminalV: number; circulatingA: number; loadingPct: number; flags: string[] }[];
+  sets: {
+    id: string;
+    kW: number;
+    kVAR: number;
+    kVA: number;
+    pf: number;
+    currentA: number;
+    terminalV: number;
+    circulatingA: number;
+    loadingPct: number;
+    flags: string[];
+  }[];
   warnings: string[];
   totals: { loadKW: number; loadKVAR: number; feederLossKW: number };
 }
@@ -57,7 +68,9 @@ describe('droopline solve', () => {
     const io = demoIO();
     expect(await runCli(['solve', 'plant.json', '--load-kw', '1000'], io)).toBe(0);
     const pf = 1170 / Math.hypot(1170, 720);
-    expect(io.stdout()).toContain(`load: 1000.0 kW at PF ${pf.toFixed(3)} lagging (the plant loads; give --load-kvar to choose): ${((1000 * 720) / 1170).toFixed(1)} kVAR`);
+    expect(io.stdout()).toContain(
+      `load: 1000.0 kW at PF ${pf.toFixed(3)} lagging (the plant loads; give --load-kvar to choose): ${((1000 * 720) / 1170).toFixed(1)} kVAR`,
+    );
     const json = demoIO();
     expect(await runCli(['solve', 'plant.json', '--json', '--load-kw', '1000'], json)).toBe(0);
     expectCloseKVAR((JSON.parse(json.stdout()) as SolveJson).totals.loadKVAR, (1000 * 720) / 1170);
@@ -98,7 +111,15 @@ describe('droopline solve', () => {
     expect(io.stderr()).toContain('no steady state');
     expect(io.stderr()).toMatch(/more than the online sets can supply at their overload limits \(\d+ kW\): \d+ kW short/);
     expect(io.stdout()).toBe('');
-    io = demoIO(rawPlant([rawSet('A', { governor: { mode: 'isochronous', loadSharingLink: false } }), rawSet('B', { governor: { mode: 'isochronous', loadSharingLink: false } })], [{ id: 'L', kW: 100, kVAR: 0 }]));
+    io = demoIO(
+      rawPlant(
+        [
+          rawSet('A', { governor: { mode: 'isochronous', loadSharingLink: false } }),
+          rawSet('B', { governor: { mode: 'isochronous', loadSharingLink: false } }),
+        ],
+        [{ id: 'L', kW: 100, kVAR: 0 }],
+      ),
+    );
     expect(await runCli(['solve', 'plant.json', '--json'], io)).toBe(3);
     expect(io.stderr()).toContain('isochronous without a common load-sharing link');
   });
@@ -106,7 +127,11 @@ describe('droopline solve', () => {
   it('lists offline sets and flags in the table as words', async () => {
     const io = demoIO(
       rawPlant(
-        [rawSet('A', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 416 } }), rawSet('B', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 380 } }), rawSet('C', { online: false })],
+        [
+          rawSet('A', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 416 } }),
+          rawSet('B', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 380 } }),
+          rawSet('C', { online: false }),
+        ],
         [{ id: 'L', kW: 1000, kVAR: 0 }],
       ),
     );

@@ -28,11 +28,12 @@ interface SyncJson {
 }
 
 describe('droopline sync', () => {
-  it('prints the issue\'s JSON fields and exits 0 (a refusal is a result, not an error)', async () => {
+  it("prints the issue's JSON fields and exits 0 (a refusal is a result, not an error)", async () => {
     const io = memoryIO({ 'case.json': JSON.stringify(caseJson) });
     expect(await runCli(['sync', 'case.json', '--json'], io)).toBe(0);
     const out = JSON.parse(io.stdout()) as SyncJson;
-    for (const k of ['slipHz', 'slipPeriodS', 'advanceAngleDeg', 'windowOpenS', 'voltageDifferencePct', 'permissive', 'reasons', 'closeNow']) expect(out).toHaveProperty(k);
+    for (const k of ['slipHz', 'slipPeriodS', 'advanceAngleDeg', 'windowOpenS', 'voltageDifferencePct', 'permissive', 'reasons', 'closeNow'])
+      expect(out).toHaveProperty(k);
     for (const k of ['angleAtContactDeg', 'surgeCurrentPU', 'surgeCurrentA', 'peakCurrentA', 'torqueStepPU']) expect(out.closeNow).toHaveProperty(k);
     expectClose(out.slipPeriodS, 4, { rel: 1e-9 }, '1 / 0.25 Hz');
     expectClose(out.advanceAngleDeg, 7.2, { rel: 1e-9 }, '0.25 Hz × 80 ms: 360 × 0.25 × 0.08 = 7.2° (closed form)');
@@ -70,7 +71,13 @@ describe('droopline sync', () => {
   it('takes a plant file and a set id in the case', async () => {
     // The demo plant's bus with G2 off line sits near 49.48 Hz (droop, by solve): 49.55 Hz incoming is about 0.07 Hz fast.
     const io = memoryIO({
-      'case.json': JSON.stringify({ plant: demoPlantJson(), incomingSetId: 'G2', incoming: { frequencyHz: 49.55, voltageV: 400, angleDeg: -3 }, breakerClosingMs: 50, presetId: 'practice-generating-sets' }),
+      'case.json': JSON.stringify({
+        plant: demoPlantJson(),
+        incomingSetId: 'G2',
+        incoming: { frequencyHz: 49.55, voltageV: 400, angleDeg: -3 },
+        breakerClosingMs: 50,
+        presetId: 'practice-generating-sets',
+      }),
     });
     expect(await runCli(['sync', 'case.json', '--json'], io)).toBe(0);
     const out = JSON.parse(io.stdout()) as SyncJson;
@@ -87,7 +94,13 @@ describe('droopline sync', () => {
     // A drooping plant does not sit at exactly rated: the point of taking the solved bus.
     expect(bus.frequencyHz).not.toBe(50);
 
-    const file = { plant, incomingSetId: 'G2', incoming: { frequencyHz: 50.05, voltageV: 400, angleDeg: -3 }, breakerClosingMs: 50, presetId: 'practice-generating-sets' };
+    const file = {
+      plant,
+      incomingSetId: 'G2',
+      incoming: { frequencyHz: 50.05, voltageV: 400, angleDeg: -3 },
+      breakerClosingMs: 50,
+      presetId: 'practice-generating-sets',
+    };
     const json = memoryIO({ 'case.json': JSON.stringify(file) });
     expect(await runCli(['sync', 'case.json', '--json'], json)).toBe(0);
     const out = JSON.parse(json.stdout()) as SyncJson & { bus: { frequencyHz: number; voltageV: number; from: string } };

@@ -46,9 +46,24 @@ describe('accessibility (axe-core)', () => {
         await page.waitForLoadState('networkidle');
         await page.waitForTimeout(400);
         const violations = await page.evaluate(async () => {
-          const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] }[] }> } }).axe;
+          const axe = (
+            window as unknown as {
+              axe: {
+                run: (
+                  ctx: Document,
+                  opts: object,
+                ) => Promise<{ violations: { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] }[] }>;
+              };
+            }
+          ).axe;
           const r = await axe.run(document, { resultTypes: ['violations'] });
-          return r.violations.map((x) => ({ id: x.id, impact: x.impact, help: x.help, nodes: x.nodes.length, targets: x.nodes.slice(0, 5).map((n) => String(n.target.join(' '))) }));
+          return r.violations.map((x) => ({
+            id: x.id,
+            impact: x.impact,
+            help: x.help,
+            nodes: x.nodes.length,
+            targets: x.nodes.slice(0, 5).map((n) => String(n.target.join(' '))),
+          }));
         });
         summary[`${theme}/${v.id}`] = violations;
       }
@@ -59,7 +74,11 @@ describe('accessibility (axe-core)', () => {
     );
     expect(serious).toEqual([]);
     // Every part of the page sits in a landmark (header, nav, main, footer or a named region).
-    expect(Object.entries(summary).filter(([, list]) => list.some((f) => f.id === 'region')).map(([where]) => where)).toEqual([]);
+    expect(
+      Object.entries(summary)
+        .filter(([, list]) => list.some((f) => f.id === 'region'))
+        .map(([where]) => where),
+    ).toEqual([]);
     expect(errors).toEqual([]);
     // Eight views in two themes: on a shared, loaded machine this passes the default minute.
   }, 180_000);

@@ -20,7 +20,11 @@ export default async function setup(project: TestProject): Promise<() => Promise
   // A folder of this run's own, so parallel runs never serve each other's half-built files.
   const outDir = resolve('out', `e2e-preview-${process.pid}`);
   await build({ logLevel: 'warn', build: { outDir, emptyOutDir: true } });
-  const server = await preview({ build: { outDir }, preview: { host: '127.0.0.1', port: 0, strictPort: false, open: false, headers: PREVIEW_HEADERS }, logLevel: 'warn' });
+  const server = await preview({
+    build: { outDir },
+    preview: { host: '127.0.0.1', port: 0, strictPort: false, open: false, headers: PREVIEW_HEADERS },
+    logLevel: 'warn',
+  });
   const url = server.resolvedUrls?.local[0];
   if (!url) throw new Error('The preview server did not report its URL.');
   project.provide('previewUrl', url);
@@ -29,4 +33,3 @@ export default async function setup(project: TestProject): Promise<() => Promise
     rmSync(outDir, { recursive: true, force: true });
   };
 }
-

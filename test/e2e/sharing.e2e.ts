@@ -116,14 +116,18 @@ describe('Plant and Sharing views in the browser preview', () => {
     const full = at(100);
     expect(full.capped).toBeUndefined();
     // Settled when the readout says 100 % and the table shows that load.
-    await expect.poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('100.0 %'), await page.getByTestId('total-load-kw').textContent()]).toEqual([true, full.totals.loadKW.toFixed(1)]);
+    await expect
+      .poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('100.0 %'), await page.getByTestId('total-load-kw').textContent()])
+      .toEqual([true, full.totals.loadKW.toFixed(1)]);
     expect(await page.getByTestId('share-row-G1').getByTestId('share-kw').textContent()).toBe(full.sets[0]!.kW.toFixed(1));
     await expect(page.getByTestId('sharing-error').count()).resolves.toBe(0);
 
     await setSlider(110);
     const over = at(110);
     expect(over.capped).toBeDefined();
-    await expect.poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('110.0 %'), await page.getByTestId('total-load-kw').textContent()]).toEqual([true, over.totals.loadKW.toFixed(1)]);
+    await expect
+      .poll(async () => [(await page.getByTestId('load-readout').textContent())?.includes('110.0 %'), await page.getByTestId('total-load-kw').textContent()])
+      .toEqual([true, over.totals.loadKW.toFixed(1)]);
     const capped = (await page.getByTestId('sharing-capped').textContent()) ?? '';
     expect(capped).toContain(`The load asked for (${(ratedKW * 1.1).toFixed(0)} kW) has no steady state`);
     expect(capped).toContain(`${over.capped!.carriedKW.toFixed(0)} kW`);

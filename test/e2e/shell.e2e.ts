@@ -21,7 +21,7 @@ describe('browser preview shell', () => {
     expect(errors).toEqual([]);
   });
 
-  it('edits a load\'s voltage law (ZIP shares) and its under-frequency shedding stage in the Plant view', async () => {
+  it("edits a load's voltage law (ZIP shares) and its under-frequency shedding stage in the Plant view", async () => {
     const { page, errors } = await openPage(browser(), inject('previewUrl'));
     await page.getByTestId('rated-table').waitFor();
     await page.locator('[data-test="field-loads[0].model"]').selectOption('zip');

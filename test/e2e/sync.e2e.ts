@@ -41,7 +41,7 @@ async function measureFrames(page: Page, name: string, seconds: number): Promise
   await page.waitForTimeout(seconds * 1000);
   const busyS = (await busy()) - busy0;
   await cdp.detach();
-  const rec = await page.evaluate((n) => window.__drooplineFrames?.[n] ?? null, name) as FrameRecord | null;
+  const rec = (await page.evaluate((n) => window.__drooplineFrames?.[n] ?? null, name)) as FrameRecord | null;
   expect(rec, `frame meter "${name}" missing`).not.toBeNull();
   const w = rec!.workMs;
   const i = rec!.intervalMs;

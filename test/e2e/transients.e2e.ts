@@ -69,7 +69,10 @@ describe('transients and report in the browser preview', () => {
 
     const csv = await download(page, 'export-series-csv');
     expect(csv.name).toMatch(/^run-1-block-load-step-series\.csv$/);
-    const lines = csv.text.replace(/^\ufeff/, '').trim().split('\r\n');
+    const lines = csv.text
+      .replace(/^\ufeff/, '')
+      .trim()
+      .split('\r\n');
     expect(lines[0]).toBe('t (s),frequency (Hz),bus voltage (V),G1 kW,G1 kVAR,G1 current (A),G2 kW,G2 kVAR,G2 current (A),G3 kW,G3 kVAR,G3 current (A)');
     expect(lines.length).toBeGreaterThan(100);
     const last = lines[lines.length - 1]!.split(',').map(Number);
@@ -101,7 +104,8 @@ describe('transients and report in the browser preview', () => {
     await page.getByTestId('report-build').click();
     await page.getByTestId('report-sections').waitFor({ timeout: 60_000 });
     const sections = await page.getByTestId('report-sections').textContent();
-    for (const s of ['Plant and generating sets', 'Load sharing', 'Droop lines', 'Sync-check', 'Transient metrics', 'Definitions', 'Cautions']) expect(sections).toContain(s);
+    for (const s of ['Plant and generating sets', 'Load sharing', 'Droop lines', 'Sync-check', 'Transient metrics', 'Definitions', 'Cautions'])
+      expect(sections).toContain(s);
     const page1 = page.getByTestId('report-page');
     await expect.poll(() => page1.evaluate((el) => el.shadowRoot?.querySelectorAll('section').length ?? 0)).toBe(8);
     expect(await page1.evaluate((el) => getComputedStyle(el.shadowRoot!.querySelector('h2')!).borderBottomStyle)).toBe('solid');

@@ -56,18 +56,14 @@ describe('writeFileAtomic', () => {
     writeFileSync(target, OLD);
     writeFileSync(backupPathOf(target), PREVIOUS);
     const seen: string[] = [];
-    await writeFileAtomic(
-      target,
-      NEW,
-      {
-        steps: instrumented((step) => {
-          seen.push(step);
-          // A kill here leaves what is on disk now: the target must be one whole version.
-          expect([OLD, NEW]).toContain(read(target));
-          expect([PREVIOUS, OLD]).toContain(read(backupPathOf(target)));
-        }),
-      },
-    );
+    await writeFileAtomic(target, NEW, {
+      steps: instrumented((step) => {
+        seen.push(step);
+        // A kill here leaves what is on disk now: the target must be one whole version.
+        expect([OLD, NEW]).toContain(read(target));
+        expect([PREVIOUS, OLD]).toContain(read(backupPathOf(target)));
+      }),
+    });
     expect(seen).toEqual(['writeNew', 'exists', 'readBytes', 'writeNew', 'rename', 'rename', 'syncDir', 'list']);
     expect(read(target)).toBe(NEW);
   });

@@ -67,7 +67,7 @@ describe('preload host bridge', () => {
 
 describe('File menu', () => {
   type Item = { label?: string; enabled?: boolean; submenu?: Item[]; click?: () => void };
-  const fileMenu = () => ((h.menu.at(-1) as Item[])[0]!.submenu as Item[]);
+  const fileMenu = () => (h.menu.at(-1) as Item[])[0]!.submenu as Item[];
 
   it('sends each file command and lists recent projects, missing ones disabled', () => {
     const sent: HostCommand[] = [];
@@ -86,6 +86,10 @@ describe('File menu', () => {
     recentMenu[0]!.click!();
     expect(sent).toEqual([{ command: 'new' }, { command: 'open' }, { command: 'save' }, { command: 'save-as' }, { command: 'open-path', path: '/p/a.json' }]);
     setupMenu(() => undefined, []);
-    expect(fileMenu().find((i) => i.label === 'Open Recent')!.submenu!.map((i) => i.label)).toEqual(['No recent projects']);
+    expect(
+      fileMenu()
+        .find((i) => i.label === 'Open Recent')!
+        .submenu!.map((i) => i.label),
+    ).toEqual(['No recent projects']);
   });
 });

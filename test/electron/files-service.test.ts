@@ -16,12 +16,21 @@ const h = vi.hoisted(() => {
     webContents = { send: vi.fn() };
     setDocumentEdited = vi.fn();
     setRepresentedFilename = vi.fn();
-    isDestroyed() { return false; }
-    on(ev: string, fn: (e: { preventDefault(): void }) => void) { (this.listeners[ev] ??= []).push(fn); }
+    isDestroyed() {
+      return false;
+    }
+    on(ev: string, fn: (e: { preventDefault(): void }) => void) {
+      (this.listeners[ev] ??= []).push(fn);
+    }
     /** Runs the close listeners like Electron does; returns whether the window closed. */
     close(): boolean {
       let prevented = false;
-      for (const fn of this.listeners.close ?? []) fn({ preventDefault: () => { prevented = true; } });
+      for (const fn of this.listeners.close ?? [])
+        fn({
+          preventDefault: () => {
+            prevented = true;
+          },
+        });
       if (!prevented) this.closed++;
       return !prevented;
     }
@@ -114,7 +123,9 @@ describe('file service (Electron main)', () => {
     const gone = await call('fileOpenPath', { path: join(dir, 'gone.json') });
     expect(!gone.ok && gone.error).toEqual({ name: 'HostError', code: 'NOT_FOUND', message: '"gone.json" was not found. It may have been moved or deleted.' });
     const text = await call('fileOpenPath', { path: join(dir, 'notes.txt') });
-    expect(!text.ok && text.error.message).toBe('"notes.txt" is not a Droopline file: Droopline opens project and plant files (.json) and their backups (.bak).');
+    expect(!text.ok && text.error.message).toBe(
+      '"notes.txt" is not a Droopline file: Droopline opens project and plant files (.json) and their backups (.bak).',
+    );
   });
 
   it('opens by path only what the host offered: never a path the page names on its own', async () => {
@@ -155,7 +166,7 @@ describe('file service (Electron main)', () => {
     expect((await value<{ text: string }>('fileOpenPath', { path: file })).text).toBe(projectText());
   });
 
-  it('opens a dropped file through the preload\'s own channel, from our window only', async () => {
+  it("opens a dropped file through the preload's own channel, from our window only", async () => {
     const file = join(dir, 'dropped.droopline.json');
     writeFileSync(file, projectText());
     const drop = (request: unknown, sender: unknown = me) => h.handles.get(HOST_OPEN_DROPPED)!({ sender }, request) as Promise<HostOutcome<{ text: string }>>;
@@ -163,7 +174,10 @@ describe('file service (Electron main)', () => {
     expect(r.ok && r.value.text).toBe(projectText());
     // It may then be saved in place.
     expect((await call('fileSave', { path: file, text: projectText({ name: 'Saved' }) })).ok).toBe(true);
-    expect(await drop({ path: file }, { id: 'someone else' })).toEqual({ ok: false, error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' } });
+    expect(await drop({ path: file }, { id: 'someone else' })).toEqual({
+      ok: false,
+      error: { name: 'HostError', code: 'REFUSED', message: 'Request refused: unknown sender.' },
+    });
     const txt = await drop({ path: join(dir, 'notes.txt') });
     expect(!txt.ok && txt.error.code).toBe('REFUSED');
     const bad = await drop({ path: 5 });
@@ -276,7 +290,11 @@ describe('file service (Electron main)', () => {
     full.offer(file);
     await value('fileOpenPath', { path: file });
     const r = await call('fileSave', { path: file, text: projectText() });
-    expect(!r.ok && r.error).toEqual({ name: 'HostError', code: 'WRITE_FAILED', message: 'The disk is full: "study.droopline.json" was not saved. The file on disk was not changed.' });
+    expect(!r.ok && r.error).toEqual({
+      name: 'HostError',
+      code: 'WRITE_FAILED',
+      message: 'The disk is full: "study.droopline.json" was not saved. The file on disk was not changed.',
+    });
     expect(readFileSync(file, 'utf8')).toBe(projectText({ name: 'Kept' }));
   });
 
@@ -307,7 +325,10 @@ describe('file service (Electron main)', () => {
     await value('documentState', { projectName: 'A', fileName: 'a.json', path: a, dirty: false });
     rmSync(b);
     const list = await value<{ path: string; projectName: string; missing: boolean }[]>('recentList');
-    expect(list.map((f) => [f.projectName, f.missing])).toEqual([['A', false], ['B', true]]);
+    expect(list.map((f) => [f.projectName, f.missing])).toEqual([
+      ['A', false],
+      ['B', true],
+    ]);
     expect(recentSeen).toHaveLength(3);
     expect(win.setDocumentEdited).toHaveBeenLastCalledWith(false);
     expect(await value('recentClear')).toEqual([]);

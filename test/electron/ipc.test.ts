@@ -9,9 +9,15 @@ const h = vi.hoisted(() => {
   class FakeWebContents {
     handlers: Record<string, (...a: unknown[]) => unknown> = {};
     windowOpen: ((d: unknown) => unknown) | undefined;
-    setWindowOpenHandler(fn: (d: unknown) => unknown) { this.windowOpen = fn; }
-    on(ev: string, fn: (...a: unknown[]) => unknown) { this.handlers[ev] = fn; }
-    isDestroyed() { return false; }
+    setWindowOpenHandler(fn: (d: unknown) => unknown) {
+      this.windowOpen = fn;
+    }
+    on(ev: string, fn: (...a: unknown[]) => unknown) {
+      this.handlers[ev] = fn;
+    }
+    isDestroyed() {
+      return false;
+    }
     send = vi.fn();
   }
   class BrowserWindow {
@@ -21,7 +27,9 @@ const h = vi.hoisted(() => {
     }
     once() {}
     on() {}
-    loadFile() { return Promise.resolve(); }
+    loadFile() {
+      return Promise.resolve();
+    }
   }
   /** A session whose hooks the tests call as Electron would. */
   function fakeSession() {

@@ -3,7 +3,13 @@ import { describe, it, expect, vi } from 'vitest';
 import { existsSync } from 'node:fs';
 
 const h = vi.hoisted(() => {
-  const made: { options: { show: boolean; webPreferences: Record<string, unknown> }; loaded: string[]; pageText: string[]; destroyed: number; openHandler?: () => unknown }[] = [];
+  const made: {
+    options: { show: boolean; webPreferences: Record<string, unknown> };
+    loaded: string[];
+    pageText: string[];
+    destroyed: number;
+    openHandler?: () => unknown;
+  }[] = [];
   class BrowserWindow {
     rec: (typeof made)[number];
     webContents: Record<string, unknown>;
@@ -67,7 +73,7 @@ describe('printHtmlToPdf', () => {
     expect(w.destroyed).toBe(1);
   });
 
-  it('gives the PDF window\'s own session a CSP of its own and no network', async () => {
+  it("gives the PDF window's own session a CSP of its own and no network", async () => {
     await printHtmlToPdf('<p>x</p>');
     expect(s.partitions).toEqual(['droopline-report-pdf']); // set up once
     let headers: { responseHeaders: Record<string, string[]> } | undefined;

@@ -57,7 +57,10 @@ describe('setCapability: the limit curves from the machine data', () => {
     // B's no-load voltage far above A's: B would take more kVAR than its field allows at its kW.
     const r = solveSharing(
       makePlant(
-        [rawSet('A', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 400 } }), rawSet('B', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 440 } })],
+        [
+          rawSet('A', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 400 } }),
+          rawSet('B', { regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 440 } }),
+        ],
         [{ id: 'L', kW: 1600, kVAR: 600 }],
       ),
     );
@@ -94,7 +97,9 @@ describe('solveSharingAtMost: a load beyond the sets is answered at the most the
     expectClose(r.capped!.carriedKW, 2200, { rel: 1e-9 }, 'most carried = Σ overload limits');
     expectClose(r.capped!.shortKW, 300, { rel: 1e-8 }, 'short');
     expectClose(r.capped!.carriedKVAR, 880, { rel: 1e-9 }, 'same kVAR/kW (0.4)');
-    expect(r.warnings[0]).toMatch(/^The load asked for \(2500 kW\) has no steady state: The load \(2500 kW\) is more than .* Shown instead: the most the sets can carry at the same power factor, 2200 kW \(300 kW less\)\.$/);
+    expect(r.warnings[0]).toMatch(
+      /^The load asked for \(2500 kW\) has no steady state: The load \(2500 kW\) is more than .* Shown instead: the most the sets can carry at the same power factor, 2200 kW \(300 kW less\)\.$/,
+    );
     expect(solveSharingAtMost(p, { kW: 1000, kVAR: 0 }).capped).toBeUndefined();
   });
 });

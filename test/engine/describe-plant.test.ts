@@ -22,7 +22,7 @@ describe('ratedCurrentA', () => {
     expectClose(ratedCurrentA(1000, 480), 1202.8, { abs: 0.05 }, 'current');
   });
   it('1250 kVA at 400 V is 1804.2 A (closed form S / (√3 V))', () => {
-    expectClose(ratedCurrentA(1250, 400), (1250e3 / Math.sqrt(3)) / 400, {}, 'current');
+    expectClose(ratedCurrentA(1250, 400), 1250e3 / Math.sqrt(3) / 400, {}, 'current');
   });
 });
 
@@ -36,7 +36,10 @@ describe('describePlant', () => {
   it('totals online and installed ratings and the connected load', () => {
     const plant = makePlant(
       [rawSet('A', { ratedKVA: 1000, ratedKW: 800 }), rawSet('B', { ratedKVA: 500, ratedKW: 400, online: false, poles: 6 })],
-      [{ id: 'L', kW: 300, kVAR: 100 }, { id: 'M', kW: 50, kVAR: 20, online: false }],
+      [
+        { id: 'L', kW: 300, kVAR: 100 },
+        { id: 'M', kW: 50, kVAR: 20, online: false },
+      ],
     );
     const d = describePlant(plant);
     expect(d.onlineKW).toBe(800);

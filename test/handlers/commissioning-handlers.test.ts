@@ -17,15 +17,48 @@ async function messageOf(method: 'fitTestRecord' | 'parseTestRecord' | 'buildCom
 describe('commissioning handlers', () => {
   it('fitTestRecord refuses bad requests by field', async () => {
     expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test, params: [] })).toContain('params: choose at least one parameter');
-    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test, params: [{ key: 'colour', min: 0, max: 1 }] })).toContain('params[0].key: must be one of');
-    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record: { ...record, tS: [0, 2, 1, 3] }, test, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }] })).toContain('record.tS[2]: must increase');
-    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test: { ...test, setId: 'G9', onlineSetIds: ['G9'] }, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }] })).toContain('no set "G9"');
-    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test, params: [{ key: 'machine.inertiaS', min: 3, max: 0.5 }] })).toContain('params[0].max: must be greater than min');
-    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test: { ...test, stepAtS: 9 }, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }] })).toContain('test.stepAtS: must be inside the record');
+    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test, params: [{ key: 'colour', min: 0, max: 1 }] })).toContain(
+      'params[0].key: must be one of',
+    );
+    expect(
+      await messageOf('fitTestRecord', {
+        plant: demoPlantJson(),
+        record: { ...record, tS: [0, 2, 1, 3] },
+        test,
+        params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }],
+      }),
+    ).toContain('record.tS[2]: must increase');
+    expect(
+      await messageOf('fitTestRecord', {
+        plant: demoPlantJson(),
+        record,
+        test: { ...test, setId: 'G9', onlineSetIds: ['G9'] },
+        params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }],
+      }),
+    ).toContain('no set "G9"');
+    expect(await messageOf('fitTestRecord', { plant: demoPlantJson(), record, test, params: [{ key: 'machine.inertiaS', min: 3, max: 0.5 }] })).toContain(
+      'params[0].max: must be greater than min',
+    );
+    expect(
+      await messageOf('fitTestRecord', {
+        plant: demoPlantJson(),
+        record,
+        test: { ...test, stepAtS: 9 },
+        params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }],
+      }),
+    ).toContain('test.stepAtS: must be inside the record');
   });
 
   it('parseTestRecord names the unit field', async () => {
-    expect(await messageOf('parseTestRecord', { text: 't,f,v\n0,50,400\n', columns: { time: 't', frequency: 'f', voltage: 'v' }, units: { time: 'min', frequency: 'Hz', voltage: 'V' }, ratedFrequencyHz: 50, ratedVoltageV: 400 })).toContain('units.time: must be "s" or "ms"');
+    expect(
+      await messageOf('parseTestRecord', {
+        text: 't,f,v\n0,50,400\n',
+        columns: { time: 't', frequency: 'f', voltage: 'v' },
+        units: { time: 'min', frequency: 'Hz', voltage: 'V' },
+        ratedFrequencyHz: 50,
+        ratedVoltageV: 400,
+      }),
+    ).toContain('units.time: must be "s" or "ms"');
   });
 
   it('buildCommissioningRecord gives the settings, the sign-off and the caution in CSV and HTML', async () => {
@@ -50,7 +83,9 @@ describe('commissioning handlers', () => {
     expect(v.html).toContain('A. Fitter &lt;tech&gt;');
     expect(v.html).toContain(CAUTION.replace(/'/g, '&#39;'));
     expect(v.html).not.toContain('<script');
-    expect(await messageOf('buildCommissioningRecord', { plant: demoPlantJson(), setId: 'G7', signOff: { by: '', date: '', remarks: '' }, date: '' })).toContain('setId: there is no set "G7"');
+    expect(
+      await messageOf('buildCommissioningRecord', { plant: demoPlantJson(), setId: 'G7', signOff: { by: '', date: '', remarks: '' }, date: '' }),
+    ).toContain('setId: there is no set "G7"');
   });
 });
 
@@ -71,15 +106,34 @@ describe('commissioning record with a fit', () => {
 });
 
 describe('a fit passed back into the commissioning record', () => {
-  it('is accepted, and its measured figures stand beside the model\'s', { timeout: 120_000 }, async () => {
+  it("is accepted, and its measured figures stand beside the model's", { timeout: 120_000 }, async () => {
     const { readFileSync } = await import('node:fs');
     const text = readFileSync('renderer/demo/example.load-bank.csv', 'utf8');
-    const parsed = await dispatch('parseTestRecord', { text, columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' }, units: { time: 's', frequency: 'Hz', voltage: 'V' }, ratedFrequencyHz: 50, ratedVoltageV: 400 });
+    const parsed = await dispatch('parseTestRecord', {
+      text,
+      columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' },
+      units: { time: 's', frequency: 'Hz', voltage: 'V' },
+      ratedFrequencyHz: 50,
+      ratedVoltageV: 400,
+    });
     if (!parsed.ok) throw new Error(parsed.error.message);
     const t = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2 };
-    const fit = await dispatch('fitTestRecord', { plant: demoPlantJson(), record: parsed.value.record, test: t, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }], maxIterations: 2 });
+    const fit = await dispatch('fitTestRecord', {
+      plant: demoPlantJson(),
+      record: parsed.value.record,
+      test: t,
+      params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }],
+      maxIterations: 2,
+    });
     if (!fit.ok) throw new Error(fit.error.message);
-    const r = await dispatch('buildCommissioningRecord', { plant: demoPlantJson(), setId: 'G1', fit: JSON.parse(JSON.stringify(fit.value)) as unknown, test: t, signOff: { by: 'x', date: 'y', remarks: '' }, date: '2026-12-02' });
+    const r = await dispatch('buildCommissioningRecord', {
+      plant: demoPlantJson(),
+      setId: 'G1',
+      fit: JSON.parse(JSON.stringify(fit.value)) as unknown,
+      test: t,
+      signOff: { by: 'x', date: 'y', remarks: '' },
+      date: '2026-12-02',
+    });
     if (!r.ok) throw new Error(r.error.message + JSON.stringify(r.error.issues));
     const nadir = r.value.rows.find((x) => x.item === 'frequency nadir')!;
     expect(Number(nadir.measured)).toBeCloseTo(fit.value.measuredVerdict.frequencyNadirHz, 3);

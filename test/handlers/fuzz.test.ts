@@ -23,7 +23,30 @@ const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
 /** Replacement values: extremes, NaN-like text, wrong types, and "missing". */
 const MISSING = Symbol('missing');
 const replacement = fc.oneof(
-  fc.constantFrom<unknown>(0, -0, -1, 1e308, -1e308, 5e-324, -5e-324, 1e-300, 2 ** 53, -(2 ** 31), 0.5, 1e6, 1e9, 'NaN', 'Infinity', '-1', '', null, true, [], {}, MISSING),
+  fc.constantFrom<unknown>(
+    0,
+    -0,
+    -1,
+    1e308,
+    -1e308,
+    5e-324,
+    -5e-324,
+    1e-300,
+    2 ** 53,
+    -(2 ** 31),
+    0.5,
+    1e6,
+    1e9,
+    'NaN',
+    'Infinity',
+    '-1',
+    '',
+    null,
+    true,
+    [],
+    {},
+    MISSING,
+  ),
   fc.double({ noNaN: true, noDefaultInfinity: true }),
   fc.integer({ min: -1_000_000, max: 1_000_000 }),
   fc.string({ maxLength: 6 }),
@@ -99,20 +122,51 @@ beforeAll(async () => {
   if (!cmd.ok) throw new Error(cmd.error.message);
   const closed = await dispatch('trainerStep', { state: cmd.value, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 });
   if (!closed.ok) throw new Error(closed.error.message);
-  const syncCase = { plant, incomingSetId: 'G3', incoming: { frequencyHz: 50.1, voltageV: 405, angleDeg: -8 }, bus: { frequencyHz: 50, voltageV: 400 }, breakerClosingMs: 80, limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 } };
+  const syncCase = {
+    plant,
+    incomingSetId: 'G3',
+    incoming: { frequencyHz: 50.1, voltageV: 405, angleDeg: -8 },
+    bus: { frequencyHz: 50, voltageV: 400 },
+    breakerClosingMs: 80,
+    limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 },
+  };
   // A short load-bank record (0.6 s at 20 ms) for the commissioning methods.
-  const recordText = ['time_s,frequency_Hz,voltage_V', ...Array.from({ length: 31 }, (_, k) => `${(k * 0.02).toFixed(2)},${k < 10 ? 50 : 49.8 + 0.005 * (k - 10)},${k < 10 ? 400 : 392 + 0.3 * (k - 10)}`)].join('\n');
-  const recordRequest = { text: recordText, columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' }, units: { time: 's', frequency: 'Hz', voltage: 'V' }, ratedFrequencyHz: 50, ratedVoltageV: 400 };
+  const recordText = [
+    'time_s,frequency_Hz,voltage_V',
+    ...Array.from({ length: 31 }, (_, k) => `${(k * 0.02).toFixed(2)},${k < 10 ? 50 : 49.8 + 0.005 * (k - 10)},${k < 10 ? 400 : 392 + 0.3 * (k - 10)}`),
+  ].join('\n');
+  const recordRequest = {
+    text: recordText,
+    columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' },
+    units: { time: 's', frequency: 'Hz', voltage: 'V' },
+    ratedFrequencyHz: 50,
+    ratedVoltageV: 400,
+  };
   const parsed = await dispatch('parseTestRecord', recordRequest);
   if (!parsed.ok) throw new Error(parsed.error.message);
   const loadBankTest = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 300, stepKVAR: 200, stepAtS: 0.2 };
   Object.assign(seeds, {
     checkPlant: { plant, loadPct: 60 },
-    checkTrainerExercise: { exercise: { id: 'x1', name: 'Slow breaker', levelId: 'steady', seed: 4, faults: { breakerSlowMs: 60, voltageMismatchPct: 3 }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: true } } },
+    checkTrainerExercise: {
+      exercise: {
+        id: 'x1',
+        name: 'Slow breaker',
+        levelId: 'steady',
+        seed: 4,
+        faults: { breakerSlowMs: 60, voltageMismatchPct: 3 },
+        pass: { minScore: 60, insideWindow: true, withinMachineLimits: true },
+      },
+    },
     inspectTestRecord: { text: recordText },
     parseTestRecord: recordRequest,
     fitTestRecord: { plant, record: parsed.value.record, test: loadBankTest, params: [{ key: 'machine.inertiaS', min: 0.5, max: 3 }], maxIterations: 1 },
-    buildCommissioningRecord: { plant, setId: 'G2', syncCheck: { limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 }, breakerClosingMs: 80 }, signOff: { by: 'A. Fitter', date: '2026-12-02', remarks: '' }, date: '2026-12-02' },
+    buildCommissioningRecord: {
+      plant,
+      setId: 'G2',
+      syncCheck: { limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 }, breakerClosingMs: 80 },
+      signOff: { by: 'A. Fitter', date: '2026-12-02', remarks: '' },
+      date: '2026-12-02',
+    },
     describePlant: { plant },
     validatePlant: { plant },
     solveSharing: { plant, load: { kW: 900, kVAR: 500 }, atMost: false },
@@ -120,7 +174,16 @@ beforeAll(async () => {
     evaluateSync: syncCase,
     listSyncPresets: {},
     closingMap: { case: syncCase, angleSteps: 7, slipSteps: 5, slipRangeHz: 0.5, method: 'closed-form', voltageDifferencePct: 1 },
-    simulate: { plant, durationS: 0.3, stepMs: 1, outputPoints: 50, events: [{ atS: 0.1, type: 'load-step', kW: 200, kVAR: 100 }, { atS: 0.2, type: 'setpoint', setId: 'G1', frequencyHz: 50.2 }] },
+    simulate: {
+      plant,
+      durationS: 0.3,
+      stepMs: 1,
+      outputPoints: 50,
+      events: [
+        { atS: 0.1, type: 'load-step', kW: 200, kVAR: 100 },
+        { atS: 0.2, type: 'setpoint', setId: 'G1', frequencyHz: 50.2 },
+      ],
+    },
     trainerLevels: {},
     trainerStart: { seed: 5, levelId: 'drifting-bus', window: { slipHz: 0.2, angleDeg: 10, voltagePct: 5 } },
     trainerStep: { state: trainer.value, inputs: { speed: 1, voltage: -1 }, dtS: 0.05 },

@@ -27,10 +27,22 @@ describe('plant schema', () => {
     ['zero voltage', { ...rawPlant([rawSet('A')]), ratedVoltageV: 0 }, 'ratedVoltageV: must be 100 V or more'],
     ['no sets', rawPlant([]), 'sets: must hold at least one set'],
     ['negative droop', withSet({ governor: { mode: 'droop', droopPct: -1, noLoadHz: 52 } }), 'sets[1].governor.droopPct: must be 0 or more'],
-    ['zero droop in droop mode', withSet({ governor: { mode: 'droop', droopPct: 0, noLoadHz: 52 } }), 'sets[1].governor.droopPct: must be greater than 0 in droop mode'],
+    [
+      'zero droop in droop mode',
+      withSet({ governor: { mode: 'droop', droopPct: 0, noLoadHz: 52 } }),
+      'sets[1].governor.droopPct: must be greater than 0 in droop mode',
+    ],
     ['unknown governor mode', withSet({ governor: { mode: 'turbo' } }), 'sets[1].governor.mode: must be "droop", "isochronous" or "baseload"'],
-    ['unknown regulator mode', withSet({ regulator: { mode: 'x' } }), 'sets[1].regulator.mode: must be "reactive-droop", "cross-current", "voltage" or "power-factor"'],
-    ['reactive droop 0', withSet({ regulator: { mode: 'reactive-droop', droopPct: 0, noLoadV: 410 } }), 'sets[1].regulator.droopPct: must be greater than 0 in reactive-droop mode'],
+    [
+      'unknown regulator mode',
+      withSet({ regulator: { mode: 'x' } }),
+      'sets[1].regulator.mode: must be "reactive-droop", "cross-current", "voltage" or "power-factor"',
+    ],
+    [
+      'reactive droop 0',
+      withSet({ regulator: { mode: 'reactive-droop', droopPct: 0, noLoadV: 410 } }),
+      'sets[1].regulator.droopPct: must be greater than 0 in reactive-droop mode',
+    ],
     ['pf above 1', withSet({ regulator: { mode: 'power-factor', pf: 1.2 } }), 'sets[1].regulator.pf: must be 1 or less'],
     ['kW above kVA', withSet({ ratedKW: 2000 }), 'sets[1].ratedKW: must not exceed ratedKVA'],
     ['missing kVA', withSet({ ratedKVA: undefined }), 'sets[1].ratedKVA: is required'],
@@ -38,17 +50,35 @@ describe('plant schema', () => {
     ['odd poles', withSet({ poles: 5 }), 'sets[1].poles: must be even'],
     ['rated PF 1', withSet({ ratedPF: 1 }), 'sets[1].ratedPF: must be less than 1'],
     ['duplicate id', rawPlant([rawSet('G1'), rawSet('G1')]), 'sets[1].id: must be unique ("G1" is used twice)'],
-    ['min kW below zero fuel', withSet({ minKW: -300, motoringPct: 25 }), 'sets[1].minKW: must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)'],
+    [
+      'min kW below zero fuel',
+      withSet({ minKW: -300, motoringPct: 25 }),
+      'sets[1].minKW: must not be below the motoring power (−motoringPct % of ratedKW: zero fuel)',
+    ],
     ['negative feeder R', withSet({ feeder: { rOhm: -1, xOhm: 0 } }), 'sets[1].feeder.rOhm: must be 0 or more'],
     ['negative X d', withSet({ machine: { xdPU: -2 } }), 'sets[1].machine.xdPU: must be 0.1 pu or more'],
     ['unknown field', withSet({ colour: 'red' }), 'sets[1]: unknown field(s): colour'],
     ['negative load kW', rawPlant([rawSet('A')], [{ id: 'L', kW: -5, kVAR: 0 }]), 'loads[0].kW: must be 0 or more'],
-    ['duplicate load id', rawPlant([rawSet('A')], [{ id: 'L', kW: 5, kVAR: 0 }, { id: 'L', kW: 5, kVAR: 0 }]), 'loads[1].id: must be unique ("L" is used twice)'],
+    [
+      'duplicate load id',
+      rawPlant(
+        [rawSet('A')],
+        [
+          { id: 'L', kW: 5, kVAR: 0 },
+          { id: 'L', kW: 5, kVAR: 0 },
+        ],
+      ),
+      'loads[1].id: must be unique ("L" is used twice)',
+    ],
     ['isochronous without setpoint is filled from rated', withSet({ governor: { mode: 'isochronous' } }), ''],
   ])('%s', async (_name, plant, expected) => {
     const got = await problems(plant);
     if (expected === '') expect(got).toEqual([]);
-    else expect(got.some((g) => g.startsWith(expected)), `${expected} in ${JSON.stringify(got)}`).toBe(true);
+    else
+      expect(
+        got.some((g) => g.startsWith(expected)),
+        `${expected} in ${JSON.stringify(got)}`,
+      ).toBe(true);
   });
 
   it('never sends a stack trace across the boundary', async () => {

@@ -24,8 +24,16 @@ describe('plant schema: plausible bounds', () => {
     ['inertia 1e308 s', (p) => (p.sets[0]!.machine = { inertiaS: 1e308 }), 'sets[0].machine.inertiaS: must be 60 s or less'],
     ['a feeder of 1e9 Ω', (p) => (p.sets[0]!.feeder = { rOhm: 1e9 }), 'sets[0].feeder.rOhm: must be 100 Ω or less'],
     ['a load of 1e300 kW', (p) => (p.loads[0] = { id: 'L', kW: 1e300, kVAR: 0 }), 'loads[0].kW: must be 10 000 000 kW or less'],
-    ['a no-load frequency of 5 Hz on a 50 Hz plant', (p) => (p.sets[0]!.governor = { mode: 'droop', droopPct: 4, noLoadHz: 5 }), 'sets[0].governor.noLoadHz: must be within 50 % of the rated 50 Hz (25–75 Hz)'],
-    ['a voltage setpoint of 4 V on a 400 V plant', (p) => (p.sets[0]!.regulator = { mode: 'voltage', setpointV: 4 }), 'sets[0].regulator.setpointV: must be within 50 % of the rated 400 V (200–600 V)'],
+    [
+      'a no-load frequency of 5 Hz on a 50 Hz plant',
+      (p) => (p.sets[0]!.governor = { mode: 'droop', droopPct: 4, noLoadHz: 5 }),
+      'sets[0].governor.noLoadHz: must be within 50 % of the rated 50 Hz (25–75 Hz)',
+    ],
+    [
+      'a voltage setpoint of 4 V on a 400 V plant',
+      (p) => (p.sets[0]!.regulator = { mode: 'voltage', setpointV: 4 }),
+      'sets[0].regulator.setpointV: must be within 50 % of the rated 400 V (200–600 V)',
+    ],
   ];
   it.each(cases)('refuses %s with the rule in the message', async (_what, mutate, message) => {
     const p = rawPlant([rawSet('G1'), rawSet('G2')], [{ id: 'L1', kW: 800, kVAR: 400 }]) as unknown as RawPlant;
@@ -35,7 +43,11 @@ describe('plant schema: plausible bounds', () => {
 
   it('keeps accepting the demo plant and a 1000 MW textbook unit', async () => {
     expect((await dispatch('validatePlant', { plant: demoPlantJson() })).ok).toBe(true);
-    const big = rawPlant([rawSet('U1', { ratedKVA: 1_250_000, ratedKW: 1_000_000, governor: { mode: 'droop', droopPct: 5 }, regulator: { mode: 'reactive-droop', droopPct: 4 } })], [], { ratedFrequencyHz: 60, ratedVoltageV: 22000 });
+    const big = rawPlant(
+      [rawSet('U1', { ratedKVA: 1_250_000, ratedKW: 1_000_000, governor: { mode: 'droop', droopPct: 5 }, regulator: { mode: 'reactive-droop', droopPct: 4 } })],
+      [],
+      { ratedFrequencyHz: 60, ratedVoltageV: 22000 },
+    );
     expect((await dispatch('validatePlant', { plant: big })).ok).toBe(true);
   });
 });
@@ -51,7 +63,9 @@ describe('closing map refuses what evaluateSync refuses', () => {
       ratedFrequencyHz: 50,
     };
     expect(await refusal('evaluateSync', c)).toContain('bus.frequencyHz: must be greater than 0 when the bus is live');
-    expect(await refusal('closingMap', { case: c, angleSteps: 5, slipSteps: 5 })).toContain('case.bus.frequencyHz: must be greater than 0 when the bus is live');
+    expect(await refusal('closingMap', { case: c, angleSteps: 5, slipSteps: 5 })).toContain(
+      'case.bus.frequencyHz: must be greater than 0 when the bus is live',
+    );
   });
 });
 
@@ -68,7 +82,9 @@ describe('trainer schemas: plausible bounds', () => {
     return check(start.value);
     async function check(state: TrainerState) {
       const bad = { ...state, machine: { ...state.machine, dampingPU: 1e308 } };
-      expect(await refusal('trainerStep', { state: bad, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 })).toContain('state.machine.dampingPU: must be 500 pu or less');
+      expect(await refusal('trainerStep', { state: bad, inputs: { speed: 0, voltage: 0 }, dtS: 0.05 })).toContain(
+        'state.machine.dampingPU: must be 500 pu or less',
+      );
     }
   });
 });
@@ -87,7 +103,10 @@ describe('trainer live model at the edges of its bounds (fuzz finding)', () => {
     // Explicit Euler with a lag far below the 1 ms substep used to return an infinite incoming frequency.
     const start = await dispatch('trainerStart', { seed: 3, levelId: 'steady' });
     if (!start.ok) throw new Error(start.error.message);
-    let state: TrainerState = { ...start.value, machine: { ...start.value.machine, actuatorLagS: 5e-324, engineLagS: 5e-324, exciterLagS: 5e-324, dampingPU: 500, inertiaS: 0.01 } };
+    let state: TrainerState = {
+      ...start.value,
+      machine: { ...start.value.machine, actuatorLagS: 5e-324, engineLagS: 5e-324, exciterLagS: 5e-324, dampingPU: 500, inertiaS: 0.01 },
+    };
     for (let i = 0; i < 20; i++) {
       const r = await dispatch('trainerStep', { state, inputs: { speed: 1, voltage: 1 }, dtS: 0.1 });
       if (!r.ok) throw new Error(r.error.message);

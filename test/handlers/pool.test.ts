@@ -21,7 +21,15 @@ const ctxWith = (pool?: HandlerContext['pool'], signal = new AbortController().s
 /** Two sets with feeders, ±0.1 Hz, ±1 %, ±5 % droop; 2 000 samples (the parse fills the plant's defaults). */
 function toleranceRequest(): ToleranceRequest {
   const plant = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.02 } }), rawSet('B', { feeder: { rOhm: 0.02, xOhm: 0.04 } })]);
-  return toleranceRequestSchema.parse({ plant, samples: 2000, seed: 11, speedTolHz: 0.1, voltageTolPct: 1, droopTolPct: 5, distribution: 'normal' }) as ToleranceRequest;
+  return toleranceRequestSchema.parse({
+    plant,
+    samples: 2000,
+    seed: 11,
+    speedTolHz: 0.1,
+    voltageTolPct: 1,
+    droopTolPct: 5,
+    distribution: 'normal',
+  }) as ToleranceRequest;
 }
 
 function mapRequest(): ClosingMapRequest {
@@ -57,7 +65,11 @@ describe('the worker pool', () => {
 
   it('tolerance on the pool reports progress up to 1 and goes through dispatch like any call', async () => {
     const progress: number[] = [];
-    const r = await dispatch('toleranceAnalysis', { ...toleranceRequest(), plant: demoPlantJson(), samples: 1200 }, ctxWith(inProcessPool(2), undefined, progress));
+    const r = await dispatch(
+      'toleranceAnalysis',
+      { ...toleranceRequest(), plant: demoPlantJson(), samples: 1200 },
+      ctxWith(inProcessPool(2), undefined, progress),
+    );
     expect(r.ok).toBe(true);
     expect(progress[0]).toBe(0);
     expect(progress.at(-1)).toBe(1);
@@ -91,7 +103,14 @@ describe('the worker pool', () => {
     const pool = nodeTestPool(2);
     const ctl = new AbortController();
     const progress: number[] = [];
-    const ctx: HandlerContext = { signal: ctl.signal, pool, progress: (f) => { progress.push(f); if (f > 0) ctl.abort(); } };
+    const ctx: HandlerContext = {
+      signal: ctl.signal,
+      pool,
+      progress: (f) => {
+        progress.push(f);
+        if (f > 0) ctl.abort();
+      },
+    };
     const r = await dispatch('toleranceAnalysis', { plant: demoPlantJson(), samples: 200_000, seed: 3, speedTolHz: 0.1 }, ctx);
     await pool.close();
     expect(r.ok).toBe(false);
@@ -128,7 +147,18 @@ describe('the worker pool', () => {
     const failing = { ...inProcessPool(2), run: () => Promise.reject(Object.assign(new Error('no operating point'), { code: 'NO_STEADY_STATE' })) };
     const { engineErrorFromWorker } = await import('../../electron/handlers');
     await expect(
-      runChunks({ total: 10, chunk: 2, label: 'x', cancelled: 'cancelled', run: (_f, _t, pool, signal) => pool!.run('toleranceSamples', [toleranceRequest(), 0, 1], signal).catch((e: unknown) => Promise.reject(engineErrorFromWorker(e))), take: () => undefined }, ctxWith(failing)),
+      runChunks(
+        {
+          total: 10,
+          chunk: 2,
+          label: 'x',
+          cancelled: 'cancelled',
+          run: (_f, _t, pool, signal) =>
+            pool!.run('toleranceSamples', [toleranceRequest(), 0, 1], signal).catch((e: unknown) => Promise.reject(engineErrorFromWorker(e))),
+          take: () => undefined,
+        },
+        ctxWith(failing),
+      ),
     ).rejects.toBeInstanceOf(NoSteadyState);
     expect(engineErrorFromWorker(Object.assign(new Error('x'), { code: 'CANCELLED' }))).toBeInstanceOf(Cancelled);
   });

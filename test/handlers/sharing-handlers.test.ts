@@ -53,7 +53,11 @@ describe('solveSharing handler', () => {
     ['droop above 20 %', (p) => ((p.sets[1]!.governor as Raw).droopPct = 25), 'sets[1].governor.droopPct: must be 20 % or less'],
     ['zero reactive droop', (p) => ((p.sets[2]!.regulator as Raw).droopPct = 0), 'sets[2].regulator.droopPct: must be greater than 0 in reactive-droop mode'],
     ['unknown governor mode', (p) => ((p.sets[0]!.governor as Raw).mode = 'offline'), 'sets[0].governor.mode: must be "droop", "isochronous" or "baseload"'],
-    ['unknown regulator mode', (p) => ((p.sets[0]!.regulator as Raw).mode = 'manual'), 'sets[0].regulator.mode: must be "reactive-droop", "cross-current", "voltage" or "power-factor"'],
+    [
+      'unknown regulator mode',
+      (p) => ((p.sets[0]!.regulator as Raw).mode = 'manual'),
+      'sets[0].regulator.mode: must be "reactive-droop", "cross-current", "voltage" or "power-factor"',
+    ],
     ['power factor above 1', (p) => ((p.sets[0]!.regulator as Raw).pf = 1.2), 'sets[0].regulator.pf: must be 1 or less'],
     ['ratedKW above ratedKVA', (p) => (p.sets[0]!.ratedKW = 2000), 'sets[0].ratedKW: must not exceed ratedKVA'],
     ['minKW above ratedKW', (p) => (p.sets[0]!.minKW = 1500), 'sets[0].minKW: must not exceed ratedKW'],

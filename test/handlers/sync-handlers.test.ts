@@ -76,17 +76,40 @@ describe('evaluateSync handler', () => {
 
   it.each([
     ['a missing bus without a plant', (c: Record<string, unknown>) => delete c.bus, 'bus: is required (or give a plant and incomingSetId)'],
-    ['a missing xddpPU', (c: Record<string, unknown>) => delete (c.incoming as Record<string, unknown>).xddpPU, 'incoming.xddpPU: is required (or give a plant and incomingSetId)'],
+    [
+      'a missing xddpPU',
+      (c: Record<string, unknown>) => delete (c.incoming as Record<string, unknown>).xddpPU,
+      'incoming.xddpPU: is required (or give a plant and incomingSetId)',
+    ],
     ['no limits and no preset', (c: Record<string, unknown>) => delete c.limits, 'limits: is required (or give presetId)'],
-    ['an unknown preset', (c: Record<string, unknown>) => { delete c.limits; c.presetId = 'fast'; }, 'presetId: must be one of: ieee1547-2018-0-500'],
-    ['a window wider than 180°', (c: Record<string, unknown>) => ((c.limits as Record<string, unknown>).angleDeg = 200), 'limits.angleDeg: must be 180° or less'],
+    [
+      'an unknown preset',
+      (c: Record<string, unknown>) => {
+        delete c.limits;
+        c.presetId = 'fast';
+      },
+      'presetId: must be one of: ieee1547-2018-0-500',
+    ],
+    [
+      'a window wider than 180°',
+      (c: Record<string, unknown>) => ((c.limits as Record<string, unknown>).angleDeg = 200),
+      'limits.angleDeg: must be 180° or less',
+    ],
     ['a zero slip limit', (c: Record<string, unknown>) => ((c.limits as Record<string, unknown>).slipHz = 0), 'limits.slipHz: must be greater than 0'],
     ['a negative frequency', (c: Record<string, unknown>) => ((c.bus as Record<string, unknown>).frequencyHz = -50), 'bus.frequencyHz: must be 0 or more'],
     ['text for a number', (c: Record<string, unknown>) => (c.breakerClosingMs = '100'), 'breakerClosingMs: must be a number (ms)'],
     ['odd poles', (c: Record<string, unknown>) => ((c.incoming as Record<string, unknown>).poles = 3), 'incoming.poles: must be even'],
     ['dead threshold above live', (c: Record<string, unknown>) => (c.dead = { livePct: 50, deadPct: 60 }), 'dead.deadPct: must be below the live threshold'],
-    ['a negative slip limit', (c: Record<string, unknown>) => (c.limits = { slipHz: -0.2, angleDeg: 10, voltagePct: 5 }), 'limits.slipHz: must be greater than 0'],
-    ['an angle limit of 200°', (c: Record<string, unknown>) => (c.limits = { slipHz: 0.2, angleDeg: 200, voltagePct: 5 }), 'limits.angleDeg: must be 180° or less'],
+    [
+      'a negative slip limit',
+      (c: Record<string, unknown>) => (c.limits = { slipHz: -0.2, angleDeg: 10, voltagePct: 5 }),
+      'limits.slipHz: must be greater than 0',
+    ],
+    [
+      'an angle limit of 200°',
+      (c: Record<string, unknown>) => (c.limits = { slipHz: 0.2, angleDeg: 200, voltagePct: 5 }),
+      'limits.angleDeg: must be 180° or less',
+    ],
     ['a negative breaker time', (c: Record<string, unknown>) => (c.breakerClosingMs = -50), 'breakerClosingMs: must be greater than 0'],
     ['a breaker time of 0 ms', (c: Record<string, unknown>) => (c.breakerClosingMs = 0), 'breakerClosingMs: must be greater than 0'],
     [
@@ -114,7 +137,9 @@ describe('evaluateSync handler', () => {
   it('refuses a plant without a set id, an unknown set id, and names plant fields', async () => {
     const base = { incoming: { frequencyHz: 50, voltageV: 400, angleDeg: 0 }, breakerClosingMs: 60, presetId: 'ieee1547-2018-0-500' };
     expect(await messageOf('evaluateSync', { ...base, plant: demoPlantJson() })).toContain('incomingSetId: is required when a plant is given');
-    expect(await messageOf('evaluateSync', { ...base, plant: demoPlantJson(), incomingSetId: 'G7' })).toContain('incomingSetId: must name a set of the plant (G1, G2, G3)');
+    expect(await messageOf('evaluateSync', { ...base, plant: demoPlantJson(), incomingSetId: 'G7' })).toContain(
+      'incomingSetId: must name a set of the plant (G1, G2, G3)',
+    );
     const bad = demoPlantJson() as { sets: { machine: { xddpPU: number } }[] };
     bad.sets[1]!.machine.xddpPU = 0;
     expect(await messageOf('evaluateSync', { ...base, plant: bad, incomingSetId: 'G1' })).toContain('sets[1].machine.xddpPU: must be 0.01 pu or more');
@@ -159,19 +184,29 @@ describe('closingMap handler', () => {
 
   it('stops with CANCELLED when the caller aborts between chunks', async () => {
     const ac = new AbortController();
-    const r = await dispatch('closingMap', { case: caseFile(), angleSteps: 721, slipSteps: 401 }, {
-      progress: (f) => {
-        if (f > 0) ac.abort();
+    const r = await dispatch(
+      'closingMap',
+      { case: caseFile(), angleSteps: 721, slipSteps: 401 },
+      {
+        progress: (f) => {
+          if (f > 0) ac.abort();
+        },
+        signal: ac.signal,
       },
-      signal: ac.signal,
-    });
+    );
     expect(r).toEqual({ ok: false, error: { name: 'EngineError', code: 'CANCELLED', message: 'The closing map was cancelled.' } });
   });
 
   it('runs the time-domain method row by row with progress, from a plant case', async () => {
     const fractions: number[] = [];
     const payload = {
-      case: { plant: demoPlantJson(), incomingSetId: 'G3', incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 }, breakerClosingMs: 60, presetId: 'practice-generating-sets' },
+      case: {
+        plant: demoPlantJson(),
+        incomingSetId: 'G3',
+        incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 },
+        breakerClosingMs: 60,
+        presetId: 'practice-generating-sets',
+      },
       method: 'time-domain',
       angleSteps: 5,
       slipSteps: 3,

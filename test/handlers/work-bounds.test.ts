@@ -34,7 +34,14 @@ describe('work bounds', () => {
   });
 
   it('a time-domain closing map over its cell limit is refused at the schema, pointing to fewer steps or the closed form', async () => {
-    const c = { plant: demoPlantJson(), incomingSetId: 'G1', bus: { frequencyHz: 50, voltageV: 400 }, incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 }, breakerClosingMs: 100, presetId: 'ieee1547-2018-0-500' };
+    const c = {
+      plant: demoPlantJson(),
+      incomingSetId: 'G1',
+      bus: { frequencyHz: 50, voltageV: 400 },
+      incoming: { frequencyHz: 50.1, voltageV: 400, angleDeg: 0 },
+      breakerClosingMs: 100,
+      presetId: 'ieee1547-2018-0-500',
+    };
     const msg = await refusal('closingMap', { case: c, method: 'time-domain', angleSteps: 181, slipSteps: 201 });
     expect(msg).toContain(`angleSteps: 181 × 201 = 36381 cells is more than the ${TIME_DOMAIN_MAX_CELLS} a time-domain map may hold`);
     expect(msg).toContain('use fewer angle or slip steps, or the closed form');

@@ -6,7 +6,11 @@ import type { EngineMethod, EngineRequest, EngineResponse } from '../../shared-t
 
 export function directClient(): EngineClient {
   return {
-    async call<K extends EngineMethod>(method: K, request: EngineRequest<K>, options: { onProgress?: (f: number, l?: string) => void; signal?: AbortSignal } = {}) {
+    async call<K extends EngineMethod>(
+      method: K,
+      request: EngineRequest<K>,
+      options: { onProgress?: (f: number, l?: string) => void; signal?: AbortSignal } = {},
+    ) {
       const r = await dispatch(method, JSON.parse(JSON.stringify(request)) as unknown, {
         progress: (f, l) => options.onProgress?.(f, l),
         signal: options.signal ?? new AbortController().signal,

@@ -19,7 +19,9 @@ export function memoryIO(files: Record<string, string> = {}): MemoryIO {
     stderr: () => err,
     readFile: (p) => {
       const v = map.get(p);
-      return v === undefined ? Promise.reject(Object.assign(new Error('ENOENT'), { code: 'ENOENT' })) : Promise.resolve(typeof v === 'string' ? v : new TextDecoder().decode(v));
+      return v === undefined
+        ? Promise.reject(Object.assign(new Error('ENOENT'), { code: 'ENOENT' }))
+        : Promise.resolve(typeof v === 'string' ? v : new TextDecoder().decode(v));
     },
     sameFile: (a, b) => Promise.resolve(a === b && map.has(a)),
     writeFile: (p, d) => {

@@ -8,9 +8,11 @@ import { projectText } from '../helpers/projects';
 const saved = () => serializeProject(parseProject(projectText({ name: 'Kestrel Ford study' })).project);
 
 describe('project checksum', () => {
-  it('is SHA-256 of the canonical text (checked with Node\'s own SHA-256, FIPS 180-4)', () => {
+  it("is SHA-256 of the canonical text (checked with Node's own SHA-256, FIPS 180-4)", () => {
     const content = { format: 'droopline.project', name: 'x', nested: { a: [1, 2.5, 'ü'] } };
-    const expected = createHash('sha256').update(JSON.stringify(content, null, 2), 'utf8').digest('hex');
+    const expected = createHash('sha256')
+      .update(JSON.stringify(content, null, 2), 'utf8')
+      .digest('hex');
     expect(contentChecksum(content)).toBe(expected);
   });
 

@@ -84,11 +84,21 @@ describe('file readers under fuzz', () => {
   it('parseProject: raw damage to a saved project (flipped byte, cut, inserted character) is refused in words or opens intact', () => {
     const text = serializeProject(parseProject(JSON.stringify(rawProject())).project);
     fc.assert(
-      fc.property(fc.integer({ min: 0, max: text.length - 1 }), fc.constantFrom('flip', 'cut', 'insert'), fc.integer({ min: 0, max: 0xffff }), (at, kind, code) => {
-        const ch = String.fromCharCode(code);
-        const damaged = kind === 'flip' ? text.slice(0, at) + String.fromCharCode(text.charCodeAt(at) ^ (1 << code % 8)) + text.slice(at + 1) : kind === 'cut' ? text.slice(0, at) : text.slice(0, at) + ch + text.slice(at);
-        judge(damaged);
-      }),
+      fc.property(
+        fc.integer({ min: 0, max: text.length - 1 }),
+        fc.constantFrom('flip', 'cut', 'insert'),
+        fc.integer({ min: 0, max: 0xffff }),
+        (at, kind, code) => {
+          const ch = String.fromCharCode(code);
+          const damaged =
+            kind === 'flip'
+              ? text.slice(0, at) + String.fromCharCode(text.charCodeAt(at) ^ (1 << (code % 8))) + text.slice(at + 1)
+              : kind === 'cut'
+                ? text.slice(0, at)
+                : text.slice(0, at) + ch + text.slice(at);
+          judge(damaged);
+        },
+      ),
       { numRuns: RUNS, seed: SEED },
     );
   });

@@ -53,7 +53,11 @@ describe('findJsonSyntaxProblem', () => {
     expect(findJsonSyntaxProblem('[1]\u00a0')).toMatchObject({ column: 4, truncated: false });
     expect(findJsonSyntaxProblem('\ufeff[1]')).toMatchObject({ column: 1, truncated: false });
     expect(findJsonSyntaxProblem('[01]')).toMatchObject({ column: 3, truncated: false });
-    expect(findJsonSyntaxProblem('["a\u0001"]')).toMatchObject({ column: 2, truncated: false, expected: 'a closing quote (control characters in a string must be escaped)' });
+    expect(findJsonSyntaxProblem('["a\u0001"]')).toMatchObject({
+      column: 2,
+      truncated: false,
+      expected: 'a closing quote (control characters in a string must be escaped)',
+    });
     for (const bad of ['{"a": 1 /* kVA */}', '[1, 2,]', '', '[1]\u00a0', '\ufeff[1]', '[01]', '["a\u0001"]', '[-]', '[1.]', '["\\x"]', '{"a" 1}']) {
       expect(() => JSON.parse(bad), JSON.stringify(bad)).toThrow();
     }

@@ -30,6 +30,10 @@ describe('runMigrations', () => {
   });
 
   it('has a step for every project version older than the current one', () => {
-    for (let v = 1; v < PROJECT_VERSION; v++) expect(PROJECT_MIGRATIONS.some((s) => s.from === v), `step from ${v}`).toBe(true);
+    for (let v = 1; v < PROJECT_VERSION; v++)
+      expect(
+        PROJECT_MIGRATIONS.some((s) => s.from === v),
+        `step from ${v}`,
+      ).toBe(true);
   });
 });

@@ -84,8 +84,22 @@ describe('parseProject', () => {
       id: 'set-1',
       name: 'Night shift, week 2',
       exercises: [
-        { id: 'ex-1', name: 'Slow breaker', levelId: 'slow-breaker', seed: 41, faults: { breakerSlowMs: 150 }, pass: { minScore: 70, insideWindow: true, withinMachineLimits: true } },
-        { id: 'ex-2', name: 'Dead bus', levelId: 'steady', seed: 7, faults: { deadBus: true, voltageMismatchPct: -6 }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: false } },
+        {
+          id: 'ex-1',
+          name: 'Slow breaker',
+          levelId: 'slow-breaker',
+          seed: 41,
+          faults: { breakerSlowMs: 150 },
+          pass: { minScore: 70, insideWindow: true, withinMachineLimits: true },
+        },
+        {
+          id: 'ex-2',
+          name: 'Dead bus',
+          levelId: 'steady',
+          seed: 7,
+          faults: { deadBus: true, voltageMismatchPct: -6 },
+          pass: { minScore: 60, insideWindow: true, withinMachineLimits: false },
+        },
       ],
     };
     const { project } = parseProject(JSON.stringify({ ...old, trainerExercises: [set] }));
@@ -97,7 +111,16 @@ describe('parseProject', () => {
     const bad = {
       id: 'set-1',
       name: 'x',
-      exercises: [{ id: 'ex-1', name: 'x', levelId: 'nightmare', seed: 1, faults: { breakerSlowMs: -1 }, pass: { minScore: 70, insideWindow: true, withinMachineLimits: true } }],
+      exercises: [
+        {
+          id: 'ex-1',
+          name: 'x',
+          levelId: 'nightmare',
+          seed: 1,
+          faults: { breakerSlowMs: -1 },
+          pass: { minScore: 70, insideWindow: true, withinMachineLimits: true },
+        },
+      ],
     };
     const e = failure(projectText({ trainerExercises: [bad] }));
     expect(e.issues).toContainEqual({ path: 'trainerExercises[0].exercises[0].levelId', message: 'must be one of the trainer levels' });
@@ -134,7 +157,9 @@ describe('parseProject', () => {
     });
     const { project, migratedFrom } = parseProject(text);
     expect(migratedFrom).toBe('a scenario file, version 1');
-    expect(project.scenarios).toEqual([{ id: 'S1', name: 'Trip G3', durationS: 10, stepMs: 1, outputPoints: 800, events: [{ atS: 1, type: 'trip', setId: 'G3' }] }]);
+    expect(project.scenarios).toEqual([
+      { id: 'S1', name: 'Trip G3', durationS: 10, stepMs: 1, outputPoints: 800, events: [{ atS: 1, type: 'trip', setId: 'G3' }] },
+    ]);
   });
 
   it('names each field problem of the plant inside a project by its path and rule', () => {
@@ -150,7 +175,14 @@ describe('parseProject', () => {
     const e = failure(projectText({ scenarios: [{ id: 'S1', name: 'x', durationS: 0, stepMs: 1, events: [] }], trainerLog: 'none' }));
     expect(e.message).toContain('scenarios[0].durationS: must be greater than 0');
     expect(e.message).toContain('trainerLog: must be a list');
-    const dup = failure(projectText({ scenarios: [{ id: 'A', name: 'a', durationS: 1, stepMs: 1, events: [] }, { id: 'A', name: 'b', durationS: 1, stepMs: 1, events: [] }] }));
+    const dup = failure(
+      projectText({
+        scenarios: [
+          { id: 'A', name: 'a', durationS: 1, stepMs: 1, events: [] },
+          { id: 'A', name: 'b', durationS: 1, stepMs: 1, events: [] },
+        ],
+      }),
+    );
     expect(dup.message).toContain('scenarios[1].id: must be unique ("A" is used twice)');
     expect(failure(projectText({ colour: 'teal' })).message).toContain('(root): unknown field(s): colour');
   });
@@ -161,7 +193,9 @@ describe('parseProject', () => {
     expect(e.message).toBe(
       'This project was saved by a newer version of Droopline (file version 2; this version reads up to 1). Open it with a newer Droopline. The file was not changed.',
     );
-    expect(failure(JSON.stringify({ ...demoPlantJson() as object, version: 3 })).message).toContain('This plant file was saved by a newer version of Droopline (file version 3');
+    expect(failure(JSON.stringify({ ...(demoPlantJson() as object), version: 3 })).message).toContain(
+      'This plant file was saved by a newer version of Droopline (file version 3',
+    );
   });
 
   it('refuses foreign JSON and other files naming what they are', () => {

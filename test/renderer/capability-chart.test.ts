@@ -18,13 +18,16 @@ describe('capability chart', () => {
     // The stator curve is the engine's rated-kVA circle (1250 kVA for G1).
     for (const p of ds[0]!.data) expect(Math.abs(Math.hypot(p.x, p.y) - 1250)).toBeLessThan(1e-9);
     expect(ds[2]!.data).toEqual([{ x: r.kW, y: r.kVAR }]);
-    const ann = (c.options?.plugins as { annotation: { annotations: Record<string, { xMin?: number; yMin?: number; label: { content: string } }> } }).annotation.annotations;
+    const ann = (c.options?.plugins as { annotation: { annotations: Record<string, { xMin?: number; yMin?: number; label: { content: string } }> } }).annotation
+      .annotations;
     expect(ann.overload!.xMin).toBeCloseTo(1100, 9); // 110 % of 1000 kW
     expect(ann.zeroFuel!.xMin).toBeCloseTo(-250, 9); // −25 % of 1000 kW
     expect(ann.reverse!.xMin).toBeCloseTo(-80, 9); // G1's 32 setting: 8 %
     expect(ann.leading!.yMin).toBeCloseTo(-375, 9); // 30 % of 1250 kVA
     expect(ann.overload!.label.content).toBe('overload limit (fuel limit) 1100 kW');
     // An offline set: no point.
-    expect((capabilityChart(d.capability, { ...r, online: false }, theme).data.datasets as unknown as Ds[]).map((x) => x.label)).not.toContain(CAPABILITY_WORDS.point);
+    expect((capabilityChart(d.capability, { ...r, online: false }, theme).data.datasets as unknown as Ds[]).map((x) => x.label)).not.toContain(
+      CAPABILITY_WORDS.point,
+    );
   });
 });

@@ -78,7 +78,12 @@ describe('Commissioning view', () => {
   });
 
   it('guesses the step from the kW column', () => {
-    const g = guessTest({ record: { tS: [0, 1, 2, 3], frequencyHz: [50, 50, 50, 50], voltageV: [400, 400, 400, 400], kW: [100, 100, 400, 400], kVAR: [50, 50, 250, 250] }, rows: 4, skippedLines: 0, notes: [] });
+    const g = guessTest({
+      record: { tS: [0, 1, 2, 3], frequencyHz: [50, 50, 50, 50], voltageV: [400, 400, 400, 400], kW: [100, 100, 400, 400], kVAR: [50, 50, 250, 250] },
+      rows: 4,
+      skippedLines: 0,
+      notes: [],
+    });
     expect(g).toEqual({ stepAtS: 2, startKW: 100, stepKW: 300, startKVAR: 50, stepKVAR: 200 });
   });
 });

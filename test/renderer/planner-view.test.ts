@@ -35,7 +35,13 @@ describe('Planner view', () => {
     await w.get('[data-test="plan"]').trigger('submit');
     await settle();
     expect(w.get('section').attributes('data-plan-state')).toBe('done');
-    const expected = planDroop({ plant: usePlantStore().plant!, frequencyBandHz: planner.hzBand, voltageBandV: planner.vBand, loadRangePct: { min: 0, max: 95 }, pf: 0.8 });
+    const expected = planDroop({
+      plant: usePlantStore().plant!,
+      frequencyBandHz: planner.hzBand,
+      voltageBandV: planner.vBand,
+      loadRangePct: { min: 0, max: 95 },
+      pf: 0.8,
+    });
     expect(w.get('[data-test="plan-verdict"]').text()).toContain(expected.feasible ? 'holds both bands' : 'No setting');
     expect(w.get('[data-test="plan-table"]').text()).toContain(expected.settings[0]!.droopPct.toFixed(2));
     expect(w.get('[data-test="worst-error"]').text()).toContain(expected.proposal.worstKVARErrorPct!.toFixed(2));

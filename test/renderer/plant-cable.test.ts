@@ -22,8 +22,17 @@ describe('cableImpedance', () => {
   });
 
   it('names the bad field instead of returning NaN', () => {
-    expect(cableImpedance({ lengthM: -5, sizeMM2: 95, runs: 1, conductorC: 70, frequencyHz: 50 })).toEqual({ ok: false, message: 'length: must be 0 m or more' });
-    expect(cableImpedance({ lengthM: 5, sizeMM2: 96, runs: 1, conductorC: 70, frequencyHz: 50 })).toEqual({ ok: false, message: 'size: 96 mm² is not in the cable table' });
-    expect(cableImpedance({ lengthM: 5, sizeMM2: 95, runs: 0.5, conductorC: 70, frequencyHz: 50 })).toEqual({ ok: false, message: 'runs: must be a whole number, 1 or more' });
+    expect(cableImpedance({ lengthM: -5, sizeMM2: 95, runs: 1, conductorC: 70, frequencyHz: 50 })).toEqual({
+      ok: false,
+      message: 'length: must be 0 m or more',
+    });
+    expect(cableImpedance({ lengthM: 5, sizeMM2: 96, runs: 1, conductorC: 70, frequencyHz: 50 })).toEqual({
+      ok: false,
+      message: 'size: 96 mm² is not in the cable table',
+    });
+    expect(cableImpedance({ lengthM: 5, sizeMM2: 95, runs: 0.5, conductorC: 70, frequencyHz: 50 })).toEqual({
+      ok: false,
+      message: 'runs: must be a whole number, 1 or more',
+    });
   });
 });

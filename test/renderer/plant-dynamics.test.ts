@@ -22,7 +22,21 @@ describe('Advanced: dynamics section', () => {
     await flushPromises();
     const g = w.get('[data-test="group-dynamics"]');
     expect(g.text()).toContain('Advanced: dynamics');
-    for (const key of ['governor.engineLagS', 'governor.isoGainPU', 'regulator.gainPU', 'regulator.resetS', 'regulator.pfTrimS', 'regulator.ceilingPU', 'regulator.vhzKneeBelowHz', 'regulator.oelPct', 'regulator.oelResetS', 'machine.dampingPU', 'machine.tddopS', 'protection.underFrequencyPct', 'protection.overVoltageDelayS']) {
+    for (const key of [
+      'governor.engineLagS',
+      'governor.isoGainPU',
+      'regulator.gainPU',
+      'regulator.resetS',
+      'regulator.pfTrimS',
+      'regulator.ceilingPU',
+      'regulator.vhzKneeBelowHz',
+      'regulator.oelPct',
+      'regulator.oelResetS',
+      'machine.dampingPU',
+      'machine.tddopS',
+      'protection.underFrequencyPct',
+      'protection.overVoltageDelayS',
+    ]) {
       expect(g.find(`[data-test="field-sets[0].${key}"]`).exists(), key).toBe(true);
     }
     expect(g.text()).toContain('Under-frequency 81U pickup');
@@ -58,7 +72,7 @@ describe('Advanced: dynamics section', () => {
     expect(store.description?.sets[0]?.fieldCeilingDerived).toBe(true);
   });
 
-  it('refuses a T\'\'d0 not below T\'d0 with the reason beside it', async () => {
+  it("refuses a T''d0 not below T'd0 with the reason beside it", async () => {
     const store = usePlantStore();
     await store.loadDemo();
     const w = mount(PlantView);

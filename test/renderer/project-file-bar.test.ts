@@ -129,7 +129,11 @@ describe('project file bar and dialogs', () => {
     setHostClient(memoryHost({ recovery: null, recent: [] }));
     const project = useProjectStore();
     await project.start();
-    await project.openText('{"format": "droopline.project", "version": 1, "plant": {', { path: null, fileName: 'broken.json', backupPath: '/plants/broken.json.bak' });
+    await project.openText('{"format": "droopline.project", "version": 1, "plant": {', {
+      path: null,
+      fileName: 'broken.json',
+      backupPath: '/plants/broken.json.bak',
+    });
     const w = mount(ProjectNotice);
     const notice = w.get('[data-test="project-notice"]');
     expect(notice.attributes('role')).toBe('alert');

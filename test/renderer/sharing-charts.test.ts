@@ -49,7 +49,10 @@ describe('speed-droop chart', () => {
     ]);
     // From minKW (0) to the overload limit (110 % of 1000 kW).
     const iso = speedDroopLine(plant.sets[0]!, plant);
-    expect(iso.kind === 'segment' && iso.points.map((p) => [+p.x.toFixed(9), p.y])).toEqual([[0, 50], [1100, 50]]);
+    expect(iso.kind === 'segment' && iso.points.map((p) => [+p.x.toFixed(9), p.y])).toEqual([
+      [0, 50],
+      [1100, 50],
+    ]);
     expect(speedDroopLine(plant.sets[1]!, plant)).toEqual({ kind: 'vertical', x: 300 });
   });
 

@@ -137,7 +137,14 @@ describe('SynchronizingView with the engine', () => {
     // The project keeps the last accepted settings; the typed value stays in the field.
     expect(sync.snapshot()).toEqual(good);
     // Putting the field right brings the verdict back.
-    const fixed: Record<string, string> = { 'limit-slip': '0.2', 'limit-angle': '10', 'limit-voltage': '5', 'breaker-ms': '100', 'incoming-frequency': '50.1', 'bus-voltage': '400' };
+    const fixed: Record<string, string> = {
+      'limit-slip': '0.2',
+      'limit-angle': '10',
+      'limit-voltage': '5',
+      'breaker-ms': '100',
+      'incoming-frequency': '50.1',
+      'bus-voltage': '400',
+    };
     await w.get(`[data-test="${test}"]`).setValue(fixed[test]!);
     await flushPromises();
     await vi.waitFor(() => expect(w.get('[data-test="permissive"]').attributes('data-state')).toBe('permissive'));
@@ -237,7 +244,13 @@ describe('SynchronizingView with the engine', () => {
     sync.setBreakerClosingMs(250);
     sync.setDead({ deadBus: true });
     const snap = sync.snapshot();
-    expect(snap).toEqual({ ...DEFAULT_SYNC_SETTINGS, presetId: null, limits: { ...DEFAULT_SYNC_SETTINGS.limits, angleDeg: 7 }, breakerClosingMs: 250, dead: { ...DEFAULT_SYNC_SETTINGS.dead, deadBus: true } });
+    expect(snap).toEqual({
+      ...DEFAULT_SYNC_SETTINGS,
+      presetId: null,
+      limits: { ...DEFAULT_SYNC_SETTINGS.limits, angleDeg: 7 },
+      breakerClosingMs: 250,
+      dead: { ...DEFAULT_SYNC_SETTINGS.dead, deadBus: true },
+    });
     sync.restore(null);
     expect(sync.settings).toEqual(DEFAULT_SYNC_SETTINGS);
     sync.restore(snap);

@@ -124,7 +124,7 @@ describe('TrainerView driven by key presses', () => {
     expect(v.traces.tS.length).toBeGreaterThan(100);
   }, 30_000);
 
-  it('applies a new level at once (same seed) and writes the trainee\'s name on the attempt', async () => {
+  it("applies a new level at once (same seed) and writes the trainee's name on the attempt", async () => {
     const trainer = await setUp(77);
     const levels = trainer.levels;
     const other = levels.find((l) => l.id !== trainer.state!.levelId)!;
@@ -218,7 +218,7 @@ describe('TrainerView driven by key presses', () => {
     expect(trainer.state!.window).toEqual({ slipHz: 0.1, angleDeg: 10, voltagePct: 5 });
   });
 
-  it('runs an instructor\'s exercise with a slow breaker: the trainee commands by the setting, contact lands late, and the verdict says why it failed', async () => {
+  it("runs an instructor's exercise with a slow breaker: the trainee commands by the setting, contact lands late, and the verdict says why it failed", async () => {
     const trainer = await setUp(2024);
     // The instructor builds a one-exercise set in the panel: level 1 (80 ms breaker), seed 2024, breaker 400 ms slower.
     await w!.get('[data-test="instructor-add-set"]').trigger('click');
@@ -270,7 +270,13 @@ describe('TrainerView driven by key presses', () => {
     const trainer = await setUp(606);
     const setId = trainer.addExerciseSet('Dead bus');
     const exId = trainer.exerciseSets[0]!.exercises[0]!.id;
-    await trainer.editExercise(setId, exId, (e) => ({ ...e, levelId: 'steady', seed: 606, faults: { deadBus: true }, pass: { minScore: 60, insideWindow: true, withinMachineLimits: true } }));
+    await trainer.editExercise(setId, exId, (e) => ({
+      ...e,
+      levelId: 'steady',
+      seed: 606,
+      faults: { deadBus: true },
+      pass: { minScore: 60, insideWindow: true, withinMachineLimits: true },
+    }));
     await trainer.startSession(setId);
     await flushPromises();
     expect(trainer.state!.busVoltageV).toBe(0);
@@ -309,7 +315,18 @@ describe('TrainerView driven by key presses', () => {
 
   it('keeps the log with the project: snapshot and restore', () => {
     const trainer = useTrainerStore();
-    const a: TrainerAttempt = { at: '2026-01-01T00:00:00.000Z', seed: 1, level: 'steady', angleAtContactDeg: 2, slipAtContactHz: 0.05, voltageDifferencePct: 0.5, surgeCurrentPU: 0.2, torqueStepPU: 0.2, score: 90, verdict: 'Good close.' };
+    const a: TrainerAttempt = {
+      at: '2026-01-01T00:00:00.000Z',
+      seed: 1,
+      level: 'steady',
+      angleAtContactDeg: 2,
+      slipAtContactHz: 0.05,
+      voltageDifferencePct: 0.5,
+      surgeCurrentPU: 0.2,
+      torqueStepPU: 0.2,
+      score: 90,
+      verdict: 'Good close.',
+    };
     trainer.restore([a]);
     const snap = trainer.snapshot();
     expect(snap).toEqual([a]);
@@ -320,7 +337,18 @@ describe('TrainerView driven by key presses', () => {
 
   it('never trims a long log: every attempt opened is saved again', () => {
     const trainer = useTrainerStore();
-    const many: TrainerAttempt[] = Array.from({ length: 1200 }, (_, i) => ({ at: '2026-01-01T00:00:00.000Z', seed: i, level: 'steady', angleAtContactDeg: 2, slipAtContactHz: 0.05, voltageDifferencePct: 0.5, surgeCurrentPU: 0.2, torqueStepPU: 0.2, score: 50, verdict: 'Acceptable close.' }));
+    const many: TrainerAttempt[] = Array.from({ length: 1200 }, (_, i) => ({
+      at: '2026-01-01T00:00:00.000Z',
+      seed: i,
+      level: 'steady',
+      angleAtContactDeg: 2,
+      slipAtContactHz: 0.05,
+      voltageDifferencePct: 0.5,
+      surgeCurrentPU: 0.2,
+      torqueStepPU: 0.2,
+      score: 50,
+      verdict: 'Acceptable close.',
+    }));
     trainer.restore(many);
     expect(trainer.snapshot().map((a) => a.seed)).toEqual(many.map((a) => a.seed));
   });

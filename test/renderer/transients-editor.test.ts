@@ -66,7 +66,7 @@ describe('ScenarioEditor validation', () => {
     expect(w.find('[data-test="scenario-issues"]').exists()).toBe(false);
   });
 
-  it('switches one of the plant\'s loads instead of adding a block', async () => {
+  it("switches one of the plant's loads instead of adding a block", async () => {
     const store = useTransientsStore();
     const w = mount(ScenarioEditor);
     await w.get('[data-test="event-loadId"]').setValue('L2');

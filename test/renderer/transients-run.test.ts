@@ -27,11 +27,20 @@ async function ready(client: EngineClient = directClient()) {
 describe('transients run and metrics table', () => {
   beforeEach(() => undefined);
 
-  it('runs with progress and shows the engine\'s own metrics and class verdicts in words', async () => {
+  it("runs with progress and shows the engine's own metrics and class verdicts in words", async () => {
     const { store, plant } = await ready();
     const seen: number[] = [];
     const base = directClient();
-    setEngineClient({ call: (m, r, o) => base.call(m, r, { ...o, onProgress: (f, l) => { seen.push(f); o?.onProgress?.(f, l); } }) });
+    setEngineClient({
+      call: (m, r, o) =>
+        base.call(m, r, {
+          ...o,
+          onProgress: (f, l) => {
+            seen.push(f);
+            o?.onProgress?.(f, l);
+          },
+        }),
+    });
     expect(await store.run()).toBe(true);
     expect(seen.length).toBeGreaterThan(0);
     const direct = await dispatch('simulate', { name: SHORT.name, plant, durationS: 3, stepMs: 2, outputPoints: 2000, events: SHORT.events });
@@ -79,7 +88,7 @@ describe('transients run and metrics table', () => {
     expect(store.running).toBe(false);
   });
 
-  it('shows the engine\'s message when the run fails', async () => {
+  it("shows the engine's message when the run fails", async () => {
     const base = directClient();
     const { store } = await ready({
       call: (m, r, o) =>

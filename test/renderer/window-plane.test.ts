@@ -95,7 +95,16 @@ describe('window plane geometry', () => {
       { tS: 0.2, angleDeg: -144, slipHz: 3 },
     ]);
     expect(fast.match(/M/g)!.length).toBe(2);
-    expect(keepRecent([{ tS: 1, angleDeg: 0, slipHz: 0 }, { tS: 5, angleDeg: 0, slipHz: 0 }], 6, 3)).toHaveLength(1);
+    expect(
+      keepRecent(
+        [
+          { tS: 1, angleDeg: 0, slipHz: 0 },
+          { tS: 5, angleDeg: 0, slipHz: 0 },
+        ],
+        6,
+        3,
+      ),
+    ).toHaveLength(1);
   });
 });
 

@@ -25,7 +25,9 @@ export const describeCommand: CliCommand = {
         d.sets.map((s) => [s.id, s.online ? 'yes' : 'no', fmt(s.ratedKW, 0), fmt(s.ratedKVA, 0), fmt(s.ratedSpeedRpm, 0), fmt(s.ratedCurrentA, 0)]),
       ),
     );
-    io.out(`\nonline ${fmt(d.onlineKW, 0)} kW / ${fmt(d.onlineKVA, 0)} kVA; installed ${fmt(d.installedKW, 0)} kW / ${fmt(d.installedKVA, 0)} kVA; load ${fmt(d.loadKW, 0)} kW, ${fmt(d.loadKVAR, 0)} kVAR\n\n${CAUTION}\n`);
+    io.out(
+      `\nonline ${fmt(d.onlineKW, 0)} kW / ${fmt(d.onlineKVA, 0)} kVA; installed ${fmt(d.installedKW, 0)} kW / ${fmt(d.installedKVA, 0)} kVA; load ${fmt(d.loadKW, 0)} kW, ${fmt(d.loadKVAR, 0)} kVAR\n\n${CAUTION}\n`,
+    );
     return 0;
   },
 };

@@ -93,7 +93,15 @@ function summary(r: FitResult): string {
     '',
     formatTable(
       ['parameter', 'unit', 'start', 'fitted', 'bounds', 'error rise at ±10 % of span', 'confidence'],
-      r.parameters.map((q) => [q.key, q.unit, fmt(q.start, 4), fmt(q.value, 4) + (q.atBound ? ' (on a bound)' : ''), `${q.min}–${q.max}`, `${fmt(q.sensitivityPct, 1)} %`, q.confidence]),
+      r.parameters.map((q) => [
+        q.key,
+        q.unit,
+        fmt(q.start, 4),
+        fmt(q.value, 4) + (q.atBound ? ' (on a bound)' : ''),
+        `${q.min}–${q.max}`,
+        `${fmt(q.sensitivityPct, 1)} %`,
+        q.confidence,
+      ]),
     ),
     `RMS error (% of rated): frequency ${fmt(r.residual.frequencyPct, 4)}, voltage ${fmt(r.residual.voltagePct, 4)} (start values: ${fmt(r.startResidual.frequencyPct, 4)}, ${fmt(r.startResidual.voltagePct, 4)})`,
     '',
@@ -102,7 +110,8 @@ function summary(r: FitResult): string {
     formatTable(
       ['quantity', 'measured', isoClassName('G1'), isoClassName('G2'), isoClassName('G3')],
       m.classes.map((c) => {
-        const cell = (k: 'G1' | 'G2' | 'G3') => `${c.limits[k]} ${verdict(c.pass[k])}${c.measuredByClass ? ` (${c.measuredByClass[k] === null ? 'not settled' : fmt(c.measuredByClass[k], 2)})` : ''}`;
+        const cell = (k: 'G1' | 'G2' | 'G3') =>
+          `${c.limits[k]} ${verdict(c.pass[k])}${c.measuredByClass ? ` (${c.measuredByClass[k] === null ? 'not settled' : fmt(c.measuredByClass[k], 2)})` : ''}`;
         return [`${c.quantity} (${c.unit})`, c.measuredByClass ? 'per class:' : fmt(c.measured, 2), cell('G1'), cell('G2'), cell('G3')];
       }),
     ),
@@ -124,7 +133,10 @@ async function readRecord(io: CliIO, args: CliArgs, path: string | undefined, pl
   const columns: Record<string, string | number> = { ...g.columns };
   for (const [k, v] of Object.entries(cols)) columns[k] = /^\d+$/.test(v) ? Number(v) : v;
   for (const k of ['time', 'frequency', 'voltage'])
-    if (columns[k] === undefined) throw new CliInputError(`--columns: the ${k} column could not be guessed from the header (${inspected.value.headers.join(', ')}); name it, e.g. --columns ${k}=NAME`);
+    if (columns[k] === undefined)
+      throw new CliInputError(
+        `--columns: the ${k} column could not be guessed from the header (${inspected.value.headers.join(', ')}); name it, e.g. --columns ${k}=NAME`,
+      );
   const units = { ...g.units, ...pairs(args, 'units', ['time', 'frequency', 'voltage', 'kW', 'kVAR', 'current']) };
   const p = plant as { ratedFrequencyHz?: unknown; ratedVoltageV?: unknown };
   const parsed = await dispatch('parseTestRecord', {
@@ -134,7 +146,11 @@ async function readRecord(io: CliIO, args: CliArgs, path: string | undefined, pl
     ratedFrequencyHz: typeof p.ratedFrequencyHz === 'number' ? p.ratedFrequencyHz : 50,
     ratedVoltageV: typeof p.ratedVoltageV === 'number' ? p.ratedVoltageV : 400,
   });
-  if (!parsed.ok) return { ok: false as const, message: `${path}: ${parsed.error.message}${parsed.error.issues?.length ? `\n${parsed.error.issues.map((i) => `${i.path}: ${i.message}`).join('\n')}` : ''}` };
+  if (!parsed.ok)
+    return {
+      ok: false as const,
+      message: `${path}: ${parsed.error.message}${parsed.error.issues?.length ? `\n${parsed.error.issues.map((i) => `${i.path}: ${i.message}`).join('\n')}` : ''}`,
+    };
   return { ok: true as const, value: parsed.value };
 }
 
@@ -143,8 +159,23 @@ export const fitCommand: CliCommand = {
   summary: 'fit set parameters to a load-bank test record (CSV): fitted values, residual, measured ISO 8528-5 verdict',
   usage:
     'droopline fit plant.json record.csv --set ID --step-kw N --step-at S [--step-kvar N] [--start-kw N] [--start-kvar N] [--online ID,ID] [--params a,b,c] [--bounds NAME=MIN:MAX,…] [--columns time=NAME,frequency=NAME,voltage=NAME] [--units time=s|ms,frequency=Hz|pu|%,voltage=V|kV|pu|%] [--measured-at set|bus] [--max-iterations N] [--json]',
-  example: 'renderer/demo/example.load-bank.csv with renderer/demo/water-works.plant.json: --set G1 --start-kw 250 --start-kvar 150 --step-kw 500 --step-kvar 300 --step-at 2',
-  valueFlags: ['set', 'step-kw', 'step-kvar', 'step-at', 'start-kw', 'start-kvar', 'online', 'params', 'bounds', 'columns', 'units', 'measured-at', 'max-iterations'],
+  example:
+    'renderer/demo/example.load-bank.csv with renderer/demo/water-works.plant.json: --set G1 --start-kw 250 --start-kvar 150 --step-kw 500 --step-kvar 300 --step-at 2',
+  valueFlags: [
+    'set',
+    'step-kw',
+    'step-kvar',
+    'step-at',
+    'start-kw',
+    'start-kvar',
+    'online',
+    'params',
+    'bounds',
+    'columns',
+    'units',
+    'measured-at',
+    'max-iterations',
+  ],
   async run(args, io) {
     const plant = await readJson(io, args.positional[0], 'plant');
     const setId = args.flags.get('set');

@@ -39,7 +39,14 @@ function table(r: PlanResult): string {
     s.regulatorPlanned ? fmt(s.reactiveDroopPct, 2) : 'kept',
     s.regulatorPlanned ? fmt(s.noLoadV, 1) : 'kept',
   ]);
-  const pts = r.proposal.points.map((p) => [fmt(p.loadPct, 1), fmt(p.frequencyHz, 3), fmt(p.voltageV, 1), fmt(p.worstKWErrorPct, 2), fmt(p.worstKVARErrorPct, 2), p.error ?? p.note ?? '']);
+  const pts = r.proposal.points.map((p) => [
+    fmt(p.loadPct, 1),
+    fmt(p.frequencyHz, 3),
+    fmt(p.voltageV, 1),
+    fmt(p.worstKWErrorPct, 2),
+    fmt(p.worstKVARErrorPct, 2),
+    p.error ?? p.note ?? '',
+  ]);
   return (
     `${r.feasible ? 'proposal meets every band' : 'NO SETTING MEETS THE BANDS'}\n\n` +
     formatTable(['set', 'droop %', 'no-load Hz', 'reactive droop %', 'no-load V'], rows) +
@@ -66,7 +73,8 @@ function fixedFlag(value: string | true | undefined): { setId: string; fields: F
     const dot = item.lastIndexOf('.');
     const setId = item.slice(0, dot).trim();
     const field = item.slice(dot + 1).trim();
-    if (dot <= 0 || !(FIELDS as readonly string[]).includes(field)) throw new CliInputError(`--fix: "${item}" must be SET.FIELD with FIELD one of ${FIELDS.join(', ')}`);
+    if (dot <= 0 || !(FIELDS as readonly string[]).includes(field))
+      throw new CliInputError(`--fix: "${item}" must be SET.FIELD with FIELD one of ${FIELDS.join(', ')}`);
     return { setId, fields: [field as Field] };
   });
 }
@@ -85,7 +93,14 @@ export const planCommand: CliCommand = {
     const loadRangePct = pairFlag(args, 'loads');
     const pf = numberFlag(args, 'pf');
     const fixed = fixedFlag(args.flags.get('fix'));
-    const request = { plant, frequencyBandHz, voltageBandV, ...(loadRangePct ? { loadRangePct } : {}), ...(pf === undefined ? {} : { pf }), ...(fixed ? { fixed } : {}) };
+    const request = {
+      plant,
+      frequencyBandHz,
+      voltageBandV,
+      ...(loadRangePct ? { loadRangePct } : {}),
+      ...(pf === undefined ? {} : { pf }),
+      ...(fixed ? { fixed } : {}),
+    };
     const r = await callEngine(io, 'planDroop', request);
     if (!r.ok) return r.exitCode;
     io.out(args.flags.has('json') ? JSON.stringify(toJson(r.value), null, 2) + '\n' : table(r.value));

@@ -30,7 +30,7 @@ export const reportCommand: CliCommand = {
   async run(args, io) {
     if (args.flags.has('pdf')) {
       io.err(
-        'droopline report: --pdf needs Electron\'s print-to-PDF, and Electron is not present here (this command runs on Node).\n' +
+        "droopline report: --pdf needs Electron's print-to-PDF, and Electron is not present here (this command runs on Node).\n" +
           '  Write the HTML with --out report.html and print it to PDF from a browser, or use Report → Save as PDF in the desktop app.\n',
       );
       return 2;

@@ -11,7 +11,6 @@ import type { CliCommand, CliIO } from '../io';
 import { readJson } from '../read-json';
 import { fmt, formatTable } from '../table';
 
-
 function isAbsolute(p: string): boolean {
   return posix.isAbsolute(p) || win32.isAbsolute(p);
 }
@@ -52,7 +51,13 @@ function csv(r: SimulationResult): string {
   for (let k = 0; k < s.t.length; k++) {
     const row = [s.t[k]!.toFixed(4), s.frequencyHz[k]!.toFixed(5), s.voltageV[k]!.toFixed(3)];
     for (let i = 0; i < s.setIds.length; i++)
-      row.push(s.setKW[i]![k]!.toFixed(3), s.setKVAR[i]![k]!.toFixed(3), s.setCurrentA[i]![k]!.toFixed(2), s.setSpeedHz[i]![k]!.toFixed(5), s.setTerminalV[i]![k]!.toFixed(3));
+      row.push(
+        s.setKW[i]![k]!.toFixed(3),
+        s.setKVAR[i]![k]!.toFixed(3),
+        s.setCurrentA[i]![k]!.toFixed(2),
+        s.setSpeedHz[i]![k]!.toFixed(5),
+        s.setTerminalV[i]![k]!.toFixed(3),
+      );
     lines.push(row.join(','));
   }
   return lines.join('\n') + '\n';

@@ -9,7 +9,6 @@ import type { CliCommand } from '../io';
 import { readJson } from '../read-json';
 import { fmt, formatTable } from '../table';
 
-
 /** The JSON the command prints: the fields first, then everything else the engine returns. */
 function toJson(r: SharingResult): unknown {
   return {
@@ -96,7 +95,11 @@ export const solveCommand: CliCommand = {
     }
     const r = await callEngine(io, 'solveSharing', load ? { plant, load } : { plant });
     if (!r.ok) return r.exitCode;
-    io.out(args.flags.has('json') ? JSON.stringify({ ...(toJson(r.value) as object), ...(load ? { load: { ...load, note: loadNote.trim() || undefined } } : {}) }, null, 2) + '\n' : table(r.value, loadNote, onlineKVA(plant)));
+    io.out(
+      args.flags.has('json')
+        ? JSON.stringify({ ...(toJson(r.value) as object), ...(load ? { load: { ...load, note: loadNote.trim() || undefined } } : {}) }, null, 2) + '\n'
+        : table(r.value, loadNote, onlineKVA(plant)),
+    );
     return 0;
   },
 };

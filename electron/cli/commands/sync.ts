@@ -7,7 +7,6 @@ import { readJson } from '../read-json';
 import { callEngine } from '../call';
 import { fmt, formatTable } from '../table';
 
-
 function signed(v: number | null, decimals: number): string {
   if (v === null || !Number.isFinite(v)) return '—';
   const s = fmt(Math.abs(v), decimals);
@@ -18,7 +17,16 @@ function seconds(v: number | null): string {
   return v === null ? 'never' : `${fmt(v, 3)} s`;
 }
 
-function printPresets(io: CliIO, presets: { id: string; label: string; source: string; note: string; limits: { slipHz: number; angleDeg: number; voltagePct: number; incomingFaster?: boolean; incomingHigher?: boolean } }[]): void {
+function printPresets(
+  io: CliIO,
+  presets: {
+    id: string;
+    label: string;
+    source: string;
+    note: string;
+    limits: { slipHz: number; angleDeg: number; voltagePct: number; incomingFaster?: boolean; incomingHigher?: boolean };
+  }[],
+): void {
   io.out(
     formatTable(
       ['preset', 'slip Hz', 'angle °', 'ΔV %', 'options'],
@@ -37,9 +45,13 @@ function printPresets(io: CliIO, presets: { id: string; label: string; source: s
 
 function printResult(io: CliIO, r: SyncResult, name: string | undefined): void {
   const L = r.limits;
-  io.out(`${name ? `${name}\n` : ''}Sync-check: ${r.permissive ? 'CLOSE PERMITTED' : 'CLOSE NOT PERMITTED'}${r.deadBusClose ? ' (dead-bus close)' : r.deadLineClose ? ' (dead-line close)' : ''}\n`);
+  io.out(
+    `${name ? `${name}\n` : ''}Sync-check: ${r.permissive ? 'CLOSE PERMITTED' : 'CLOSE NOT PERMITTED'}${r.deadBusClose ? ' (dead-bus close)' : r.deadLineClose ? ' (dead-line close)' : ''}\n`,
+  );
   io.out(`Bus used: ${fmt(r.bus.frequencyHz, 3)} Hz, ${fmt(r.bus.voltageV, 1)} V — ${r.bus.from}.\n`);
-  io.out(`Limits: slip ±${L.slipHz} Hz, angle ±${L.angleDeg}°, voltage ±${L.voltagePct} %${L.incomingFaster ? ', incoming faster' : ''}${L.incomingHigher ? ', incoming higher' : ''} — ${r.limitsSource}\n\n`);
+  io.out(
+    `Limits: slip ±${L.slipHz} Hz, angle ±${L.angleDeg}°, voltage ±${L.voltagePct} %${L.incomingFaster ? ', incoming faster' : ''}${L.incomingHigher ? ', incoming higher' : ''} — ${r.limitsSource}\n\n`,
+  );
   io.out(
     formatTable(
       ['check', 'value', 'limit', 'result'],

@@ -18,7 +18,12 @@ function toJson(r: ToleranceResult): unknown {
   return {
     sets: r.sets.map((s) => ({ id: s.id, kW: stats(s.kW), kVAR: stats(s.kVAR), circulatingA: stats(s.circulatingA) })),
     bus: { frequencyHz: stats(r.bus.frequencyHz), voltageV: stats(r.bus.voltageV) },
-    probabilities: { overload: r.probabilities.overload, reversePower: r.probabilities.reversePower, exceedsRating: r.probabilities.exceedsRating, noSteadyState: r.probabilities.noSteadyState },
+    probabilities: {
+      overload: r.probabilities.overload,
+      reversePower: r.probabilities.reversePower,
+      exceedsRating: r.probabilities.exceedsRating,
+      noSteadyState: r.probabilities.noSteadyState,
+    },
     samples: r.samples,
     seed: r.seed,
     solved: r.solved,
@@ -28,7 +33,14 @@ function toJson(r: ToleranceResult): unknown {
 }
 
 function table(r: ToleranceResult): string {
-  const row = (name: string, d: Distribution, digits: number) => [name, fmt(d.mean, digits), fmt(d.std, digits), fmt(d.p5, digits), fmt(d.p50, digits), fmt(d.p95, digits)];
+  const row = (name: string, d: Distribution, digits: number) => [
+    name,
+    fmt(d.mean, digits),
+    fmt(d.std, digits),
+    fmt(d.p5, digits),
+    fmt(d.p50, digits),
+    fmt(d.p95, digits),
+  ];
   const rows = [
     row('bus Hz', r.bus.frequencyHz, 4),
     row('bus V', r.bus.voltageV, 2),
@@ -48,7 +60,8 @@ function table(r: ToleranceResult): string {
 export const toleranceCommand: CliCommand = {
   name: 'tolerance',
   summary: 'seeded Monte-Carlo of speed, voltage and droop setpoint tolerances',
-  usage: 'droopline tolerance plant.json --samples N --seed S [--hz-tol HZ] [--v-tol-pct P] [--droop-tol-pct P] [--normal] [--load-kw N --load-kvar N] [--json]',
+  usage:
+    'droopline tolerance plant.json --samples N --seed S [--hz-tol HZ] [--v-tol-pct P] [--droop-tol-pct P] [--normal] [--load-kw N --load-kvar N] [--json]',
   valueFlags: ['samples', 'seed', 'hz-tol', 'v-tol-pct', 'droop-tol-pct', 'load-kw', 'load-kvar'],
   async run(args, io) {
     const plant = await readJson(io, args.positional[0], 'plant');

@@ -29,7 +29,12 @@ function verdictRows(m: RecordVerdict | undefined, model: RecordVerdict | undefi
     row('frequency before the step', 'Hz', f(model.initialFrequencyHz, 3), f(m.initialFrequencyHz, 3)),
     row('frequency nadir', 'Hz', f(model.frequencyNadirHz, 3), f(m.frequencyNadirHz, 3)),
     row('frequency peak', 'Hz', f(model.frequencyPeakHz, 3), f(m.frequencyPeakHz, 3)),
-    row('transient frequency deviation', '% of rated', dipPct(model.frequencyNadirHz, model.initialFrequencyHz, fr), dipPct(m.frequencyNadirHz, m.initialFrequencyHz, fr)),
+    row(
+      'transient frequency deviation',
+      '% of rated',
+      dipPct(model.frequencyNadirHz, model.initialFrequencyHz, fr),
+      dipPct(m.frequencyNadirHz, m.initialFrequencyHz, fr),
+    ),
     row('frequency settled after the step', 'Hz', f(model.settledFrequencyHz, 3), f(m.settledFrequencyHz, 3)),
     row(`frequency recovery (${isoClassName('G2')} band)`, 's', rec(model.frequencyRecoveryS), rec(m.frequencyRecoveryS)),
     row('voltage before the step', 'V', f(model.initialVoltageV, 1), f(m.initialVoltageV, 1)),

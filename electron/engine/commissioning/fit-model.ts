@@ -18,17 +18,7 @@
  *   determined", less "not determined").
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import type {
-  FitParameterKey,
-  FitRequest,
-  FitResidual,
-  FitResult,
-  FitTrace,
-  FittedParameter,
-  FitConfidence,
-  Plant,
-  Scenario,
-} from '../../../shared-types';
+import type { FitParameterKey, FitRequest, FitResidual, FitResult, FitTrace, FittedParameter, FitConfidence, Plant, Scenario } from '../../../shared-types';
 import { Cancelled, EngineError, InvalidInput } from '../errors';
 import { simulate } from '../simulation/simulate';
 import { fitParameterInfo, parameterValue, withParameters } from './fit-parameters';
@@ -131,7 +121,17 @@ function prepare(req: FitRequest): Prepared {
     ...plant,
     // Sets off line during the test play no part in it: left out, each simulation costs less.
     sets: plant.sets.filter((s) => onLine.has(s.id)).map((s) => ({ ...s, online: true })),
-    loads: [{ id: 'test-start', name: 'Load bank before the step', online: true, kW: test.startKW, kVAR: test.startKVAR, model: 'constant-power', frequencySensitivity: 0 }],
+    loads: [
+      {
+        id: 'test-start',
+        name: 'Load bank before the step',
+        online: true,
+        kW: test.startKW,
+        kVAR: test.startKVAR,
+        model: 'constant-power',
+        frequencySensitivity: 0,
+      },
+    ],
   };
   const stepMs = req.stepMs ?? DEFAULT_FIT_STEP_MS;
   const simT = new Float64Array(n);
@@ -192,7 +192,7 @@ function interpolate(xs: number[], ys: number[], at: Float64Array): Float64Array
     const x1 = xs[Math.min(j + 1, xs.length - 1)]!;
     const y0 = ys[j]!;
     const y1 = ys[Math.min(j + 1, ys.length - 1)]!;
-    out[k] = x1 > x0 ? y0 + ((y1 - y0) * Math.min(1, Math.max(0, (x - x0) / (x1 - x0)))) : y0;
+    out[k] = x1 > x0 ? y0 + (y1 - y0) * Math.min(1, Math.max(0, (x - x0) / (x1 - x0))) : y0;
   }
   return out;
 }
@@ -354,8 +354,10 @@ export function fitTestRecord(req: FitRequest, hooks: FitHooks = {}): FitResult 
     };
   });
   const warnings = [...p.warnings];
-  if (failures > 0) warnings.push(`${failures} of ${simulations} simulations found no solution and counted as a ${FAILED_PENALTY_PCT} % error (the last: ${lastFailure})`);
-  for (const q of parameters) if (q.atBound) warnings.push(`${q.key} ended on a bound (${q.value} ${q.unit}): the record may want it beyond; widen the bound if that is plausible`);
+  if (failures > 0)
+    warnings.push(`${failures} of ${simulations} simulations found no solution and counted as a ${FAILED_PENALTY_PCT} % error (the last: ${lastFailure})`);
+  for (const q of parameters)
+    if (q.atBound) warnings.push(`${q.key} ended on a bound (${q.value} ${q.unit}): the record may want it beyond; widen the bound if that is plausible`);
   const stoppedAtCap = !converged;
   if (stoppedAtCap) warnings.push(`the fit stopped at the iteration cap (${maxIterations}); it may improve with more`);
   const set = withParameters(req.plant.sets[p.setIndex]!, p.keys, values);

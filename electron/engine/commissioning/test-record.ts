@@ -8,14 +8,7 @@
  * column, text where a number belongs, a row with too few fields, time that does not increase,
  * no data rows. Nothing is imported in part.
  */
-import type {
-  ParseRecordRequest,
-  ParsedTestRecord,
-  RecordColumns,
-  RecordInspection,
-  RecordUnits,
-  TestRecord,
-} from '../../../shared-types';
+import type { ParseRecordRequest, ParsedTestRecord, RecordColumns, RecordInspection, RecordUnits, TestRecord } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 
 /** Most data rows a record may have (a 10 minute test at 3 ms; bounded work). */
@@ -57,7 +50,12 @@ function findDelimiter(header: string): ',' | ';' | '\t' {
 }
 
 function cells(line: string, delimiter: string): string[] {
-  return line.split(delimiter).map((c) => c.trim().replace(/^"(.*)"$/, '$1').trim());
+  return line.split(delimiter).map((c) =>
+    c
+      .trim()
+      .replace(/^"(.*)"$/, '$1')
+      .trim(),
+  );
 }
 
 const norm = (s: string) => s.toLowerCase().replace(/[\s_\-()[\]]/g, '');
@@ -96,14 +94,36 @@ export function inspectTestRecord(text: string): RecordInspection {
   if (amps) columns.current = amps;
   const units: RecordUnits = {
     time: guessUnit(norm(time ?? ''), [[/ms$/, 'ms']], 's'),
-    frequency: guessUnit(norm(freq ?? ''), [[/pu$/, 'pu'], [/%$|pct$/, '%']], 'Hz'),
-    voltage: guessUnit(norm(volt ?? ''), [[/kv$/, 'kV'], [/pu$/, 'pu'], [/%$|pct$/, '%']], 'V'),
+    frequency: guessUnit(
+      norm(freq ?? ''),
+      [
+        [/pu$/, 'pu'],
+        [/%$|pct$/, '%'],
+      ],
+      'Hz',
+    ),
+    voltage: guessUnit(
+      norm(volt ?? ''),
+      [
+        [/kv$/, 'kV'],
+        [/pu$/, 'pu'],
+        [/%$|pct$/, '%'],
+      ],
+      'V',
+    ),
   };
   if (kw) units.kW = guessUnit<'kW' | 'MW'>(norm(kw), [[/mw$/, 'MW']], 'kW');
   if (kvar) units.kVAR = guessUnit<'kVAR' | 'MVAR'>(norm(kvar), [[/mvar$/, 'MVAR']], 'kVAR');
   if (amps) units.current = guessUnit<'A' | 'kA'>(norm(amps), [[/ka$/, 'kA']], 'A');
   const data = lines.rows.slice(1);
-  return { headers, headerLine, dataRows: data.length, sample: data.slice(0, SAMPLE_ROWS).map(([, l]) => cells(l, delimiter)), guess: { columns, units }, delimiter };
+  return {
+    headers,
+    headerLine,
+    dataRows: data.length,
+    sample: data.slice(0, SAMPLE_ROWS).map(([, l]) => cells(l, delimiter)),
+    guess: { columns, units },
+    delimiter,
+  };
 }
 
 const FIELD_NAMES: Record<keyof RecordColumns, string> = {
@@ -122,7 +142,10 @@ function columnIndex(headers: string[], choice: string | number, field: keyof Re
     return choice - 1;
   }
   const k = headers.findIndex((h) => norm(h) === norm(choice));
-  if (k < 0) throw new InvalidInput(`line ${headerLine}: columns.${field}: there is no column "${choice}" in the header (it has ${headers.map((h) => `"${h}"`).join(', ')})`);
+  if (k < 0)
+    throw new InvalidInput(
+      `line ${headerLine}: columns.${field}: there is no column "${choice}" in the header (it has ${headers.map((h) => `"${h}"`).join(', ')})`,
+    );
   return k;
 }
 
@@ -140,7 +163,10 @@ export function parseTestRecord(req: ParseRecordRequest): ParsedTestRecord {
   for (const f of wanted) index.set(f, columnIndex(headers, req.columns[f]!, f, headerLine));
   const data = lines.rows.slice(1);
   if (data.length === 0) throw new InvalidInput(`line ${headerLine}: the file has a header but no data rows`);
-  if (data.length > MAX_RECORD_ROWS) throw new InvalidInput(`line ${data[MAX_RECORD_ROWS]![0]}: the record has ${data.length} data rows; at most ${MAX_RECORD_ROWS.toLocaleString('en')} are read (shorten or decimate it)`);
+  if (data.length > MAX_RECORD_ROWS)
+    throw new InvalidInput(
+      `line ${data[MAX_RECORD_ROWS]![0]}: the record has ${data.length} data rows; at most ${MAX_RECORD_ROWS.toLocaleString('en')} are read (shorten or decimate it)`,
+    );
   const fr = req.ratedFrequencyHz;
   const vr = req.ratedVoltageV;
   const u = req.units;
@@ -164,7 +190,9 @@ export function parseTestRecord(req: ParseRecordRequest): ParsedTestRecord {
     }
     const n = out.time.length;
     if (n > 1 && !(out.time[n - 1]! > out.time[n - 2]!))
-      throw new InvalidInput(`line ${lineNo}: time must increase: ${text(out.time[n - 1]! / scale.time)} after ${text(out.time[n - 2]! / scale.time)} ${u.time}`);
+      throw new InvalidInput(
+        `line ${lineNo}: time must increase: ${text(out.time[n - 1]! / scale.time)} after ${text(out.time[n - 2]! / scale.time)} ${u.time}`,
+      );
     const f = out.frequency[n - 1]!;
     const v = out.voltage[n - 1]!;
     if (!(f > 0)) throw new InvalidInput(`line ${lineNo}: frequency must be greater than 0 (got ${text(f)} Hz)`);

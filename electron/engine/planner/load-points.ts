@@ -22,7 +22,7 @@ export function onlineRatedKW(plant: Plant): number {
 
 /** kVAR of `kW` at lagging power factor `pf`. */
 export function kVARAtPF(kW: number, pf: number): number {
-  return kW * Math.sqrt(Math.max(0, 1 - pf * pf)) / pf;
+  return (kW * Math.sqrt(Math.max(0, 1 - pf * pf))) / pf;
 }
 
 /** A load of `pct` % of the online rated kW at `pf`. */

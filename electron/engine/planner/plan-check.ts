@@ -98,7 +98,12 @@ export function judgeBand(quantity: 'frequency' | 'voltage', band: Band, check: 
   const base = { quantity, min: band.min, max: band.max, lowest: ext?.lo ?? null, highest: ext?.hi ?? null };
   const name = quantity === 'frequency' ? 'bus frequency' : 'bus voltage';
   if (ext === null) {
-    return { ...base, met: false, shortBy: Number.POSITIVE_INFINITY, sentence: `The ${name} has no steady state at any checked load: ${unsolved[0]?.error ?? ''}` };
+    return {
+      ...base,
+      met: false,
+      shortBy: Number.POSITIVE_INFINITY,
+      sentence: `The ${name} has no steady state at any checked load: ${unsolved[0]?.error ?? ''}`,
+    };
   }
   // Rounding of the solver's last digits is not a miss.
   const eps = 1e-9 * Math.max(Math.abs(band.min), Math.abs(band.max));

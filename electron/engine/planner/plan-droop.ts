@@ -19,7 +19,11 @@ import { planSpeedDroop } from './speed-droop-plan';
 const TRIM_ROUNDS = 6;
 
 function copyPlant(plant: Plant): Plant {
-  return { ...plant, sets: plant.sets.map((s) => ({ ...s, governor: { ...s.governor }, regulator: { ...s.regulator } })), loads: plant.loads.map((l) => ({ ...l })) };
+  return {
+    ...plant,
+    sets: plant.sets.map((s) => ({ ...s, governor: { ...s.governor }, regulator: { ...s.regulator } })),
+    loads: plant.loads.map((l) => ({ ...l })),
+  };
 }
 
 /** Plans the droop settings of `request.plant`. Pure. */
@@ -102,7 +106,8 @@ export function planDroop(request: PlanRequest): PlanResult {
 
   const bands = [judgeBand('frequency', fBand, check), judgeBand('voltage', vBand, check)];
   const reasons = [...speed.reasons, ...reactive.reasons];
-  for (const b of bands) if (!b.met && !reasons.some((r) => r.startsWith(b.quantity === 'frequency' ? 'Frequency band' : 'Voltage band'))) reasons.push(b.sentence);
+  for (const b of bands)
+    if (!b.met && !reasons.some((r) => r.startsWith(b.quantity === 'frequency' ? 'Frequency band' : 'Voltage band'))) reasons.push(b.sentence);
   const settings: PlanSetting[] = proposal.sets.map((s: GenSet, i) => {
     const k = reactive.planned.indexOf(i);
     return {

@@ -93,7 +93,18 @@ export function planReactiveDroop(
     else if (s.regulator.mode === 'power-factor') notes.push(`${s.name} holds a power factor of ${fmt(s.regulator.pf, 2)}: it is left as it is.`);
     else notes.push(`${s.name} holds the voltage (${s.regulator.mode}): the regulators are left as they are.`);
   });
-  const none: ReactivePlan = { planned: [], slopePerKVA: 0, droopPct: [], noLoadV: [], slopeFree: false, levelFree: false, feeder: [], reasons, tradeoffs: [], notes };
+  const none: ReactivePlan = {
+    planned: [],
+    slopePerKVA: 0,
+    droopPct: [],
+    noLoadV: [],
+    slopeFree: false,
+    levelFree: false,
+    feeder: [],
+    reasons,
+    tradeoffs: [],
+    notes,
+  };
   const holder = plant.sets.some((s) => s.online && (s.regulator.mode === 'voltage' || s.regulator.mode === 'cross-current'));
   if (planned.length === 0 || holder) return none;
 
@@ -113,7 +124,8 @@ export function planReactiveDroop(
 
   const fixedDroop = planned.filter((i) => fixed(i, 'reactiveDroopPct'));
   const fixedLevel = planned.filter((i) => fixed(i, 'noLoadV'));
-  if (fixedDroop.length > 1) notes.push('More than one set has its reactive droop fixed: the planner matches the first, so the others may not share kVAR in proportion.');
+  if (fixedDroop.length > 1)
+    notes.push('More than one set has its reactive droop fixed: the planner matches the first, so the others may not share kVAR in proportion.');
 
   // Preferred: the kVA-weighted mean reactive droop of today's settings, within the limits.
   let wSum = 0;
@@ -144,8 +156,7 @@ export function planReactiveDroop(
   if (fixedDroop.length > 0) {
     const f = fixedDroop[0]!;
     sigma = slopeForDroop(plant, f, feeder[planned.indexOf(f)]!, plant.sets[f]!.regulator.droopPct);
-  }
-  else if (sMin <= Math.min(sMax, sBand)) sigma = clamp(sigma0, sMin, Math.min(sMax, sBand));
+  } else if (sMin <= Math.min(sMax, sBand)) sigma = clamp(sigma0, sMin, Math.min(sMax, sBand));
   else sigma = sMin;
 
   const droopPct = planned.map((i, k) => droopForSlope(plant, i, feeder[k]!, sigma));
@@ -153,9 +164,13 @@ export function planReactiveDroop(
     const d = droopPct[k]!;
     const name = plant.sets[i]!.name;
     if (d < limits.reactiveDroopPct.min - 1e-9) {
-      reasons.push(`${name} would need ${fmt(d, 2)} % reactive droop to match the others' slope at the bus (its feeder alone gives more), ${fmt(limits.reactiveDroopPct.min - d, 2)} % below the allowed minimum.`);
+      reasons.push(
+        `${name} would need ${fmt(d, 2)} % reactive droop to match the others' slope at the bus (its feeder alone gives more), ${fmt(limits.reactiveDroopPct.min - d, 2)} % below the allowed minimum.`,
+      );
     } else if (d > limits.reactiveDroopPct.max + 1e-9) {
-      reasons.push(`${name} would need ${fmt(d, 2)} % reactive droop to match the others' slope at the bus, ${fmt(d - limits.reactiveDroopPct.max, 2)} % above the allowed maximum.`);
+      reasons.push(
+        `${name} would need ${fmt(d, 2)} % reactive droop to match the others' slope at the bus, ${fmt(d - limits.reactiveDroopPct.max, 2)} % above the allowed maximum.`,
+      );
     }
   });
   const swing = sigma * (qHi - qLo);
@@ -185,11 +200,25 @@ export function planReactiveDroop(
   const vHi = (limits.noLoadVPct.max / 100) * vr;
   planned.forEach((i, k) => {
     const v = noLoadV[k]!;
-    if (v < vLo || v > vHi) reasons.push(`${plant.sets[i]!.name}: no-load voltage ${fmt(v, 1)} V is outside the allowed ${fmt(vLo, 1)}–${fmt(vHi, 1)} V, by ${fmt(Math.max(vLo - v, v - vHi), 1)} V.`);
+    if (v < vLo || v > vHi)
+      reasons.push(
+        `${plant.sets[i]!.name}: no-load voltage ${fmt(v, 1)} V is outside the allowed ${fmt(vLo, 1)}–${fmt(vHi, 1)} V, by ${fmt(Math.max(vLo - v, v - vHi), 1)} V.`,
+      );
   });
   const tradeoffs = [
     `Reactive droop chosen so every set shows the bus the same slope per kVA (${fmt((sigma / vr) * 100, 2)} % of rated voltage per kVAR-per-kVA), its own droop plus its feeder's drop: more slope holds the kVAR split steadier against voltage-setpoint error, less narrows the voltage swing (here about ${fmt(swing, 1)} V of the ${fmt(width, 1)} V band).`,
     `No-load voltages ${fixedLevel.length > 0 ? 'follow the fixed set' : 'centre the bus in the voltage band'}, each trimmed by its own kVAR sharing error at the middle of the range: a set with a higher no-load voltage takes more kVAR, so equal lines at the bus share in proportion.`,
   ];
-  return { planned, slopePerKVA: sigma, droopPct, noLoadV, slopeFree: fixedDroop.length === 0, levelFree: fixedLevel.length === 0, feeder, reasons, tradeoffs, notes };
+  return {
+    planned,
+    slopePerKVA: sigma,
+    droopPct,
+    noLoadV,
+    slopeFree: fixedDroop.length === 0,
+    levelFree: fixedLevel.length === 0,
+    feeder,
+    reasons,
+    tradeoffs,
+    notes,
+  };
 }

@@ -28,7 +28,8 @@ function closedFormApplies(plant: Plant, base: SharingResult, load?: LoadOverrid
     if (s.governor.mode !== 'droop' || s.regulator.mode !== 'reactive-droop') return false;
     if (s.feeder.rOhm !== 0 || s.feeder.xOhm !== 0) return false;
   }
-  if (!load && plant.loads.some((l) => l.online && (l.model !== 'constant-power' || l.frequencySensitivity !== 0 || (l.kVARFrequencySensitivity ?? 0) !== 0))) return false;
+  if (!load && plant.loads.some((l) => l.online && (l.model !== 'constant-power' || l.frequencySensitivity !== 0 || (l.kVARFrequencySensitivity ?? 0) !== 0)))
+    return false;
   return base.sets.every((r) => !r.flags.includes('at-max-kW') && !r.flags.includes('at-min-kW'));
 }
 
@@ -62,10 +63,24 @@ function closedForm(plant: Plant): Omit<SensitivityResult, 'largest' | 'setIds' 
 export function finiteDifferenceSensitivity(plant: Plant, load?: LoadOverride): Omit<SensitivityResult, 'largest' | 'setIds' | 'method'> {
   const n = plant.sets.length;
   const work: Plant = { ...plant, sets: plant.sets.map(workingSet) };
-  const out = { kWPerSpeed: zeros(n), kVARPerSpeed: zeros(n), kWPerVoltage: zeros(n), kVARPerVoltage: zeros(n), busHzPerSpeed: new Array<number>(n).fill(0), busVPerVoltage: new Array<number>(n).fill(0) };
+  const out = {
+    kWPerSpeed: zeros(n),
+    kVARPerSpeed: zeros(n),
+    kWPerVoltage: zeros(n),
+    kVARPerVoltage: zeros(n),
+    busHzPerSpeed: new Array<number>(n).fill(0),
+    busVPerVoltage: new Array<number>(n).fill(0),
+  };
   const dV = (VOLTAGE_STEP_PCT / 100) * plant.ratedVoltageV;
   const steps = [
-    { step: SPEED_STEP_HZ, nudge: nudgeSpeed, kW: out.kWPerSpeed, kVAR: out.kVARPerSpeed, bus: out.busHzPerSpeed, busOf: (r: SharingResult) => r.bus.frequencyHz },
+    {
+      step: SPEED_STEP_HZ,
+      nudge: nudgeSpeed,
+      kW: out.kWPerSpeed,
+      kVAR: out.kVARPerSpeed,
+      bus: out.busHzPerSpeed,
+      busOf: (r: SharingResult) => r.bus.frequencyHz,
+    },
     { step: dV, nudge: nudgeVoltage, kW: out.kWPerVoltage, kVAR: out.kVARPerVoltage, bus: out.busVPerVoltage, busOf: (r: SharingResult) => r.bus.voltageV },
   ];
   for (const c of steps) {
@@ -93,12 +108,20 @@ export function finiteDifferenceSensitivity(plant: Plant, load?: LoadOverride): 
 function rank(setIds: string[], m: Omit<SensitivityResult, 'largest' | 'setIds' | 'method'>): SensitivityEntry[] {
   const all: SensitivityEntry[] = [];
   const add = (cause: 'speed' | 'voltage', quantity: 'kW' | 'kVAR', mat: number[][]) =>
-    mat.forEach((row, i) => row.forEach((value, j) => { if (value !== 0) all.push({ cause, fromId: setIds[j]!, toId: setIds[i]!, quantity, value }); }));
+    mat.forEach((row, i) =>
+      row.forEach((value, j) => {
+        if (value !== 0) all.push({ cause, fromId: setIds[j]!, toId: setIds[i]!, quantity, value });
+      }),
+    );
   add('speed', 'kW', m.kWPerSpeed);
   add('voltage', 'kW', m.kWPerVoltage);
   add('speed', 'kVAR', m.kVARPerSpeed);
   add('voltage', 'kVAR', m.kVARPerVoltage);
-  const top = (q: 'kW' | 'kVAR') => all.filter((e) => e.quantity === q).sort((a, b) => Math.abs(b.value) - Math.abs(a.value)).slice(0, 3);
+  const top = (q: 'kW' | 'kVAR') =>
+    all
+      .filter((e) => e.quantity === q)
+      .sort((a, b) => Math.abs(b.value) - Math.abs(a.value))
+      .slice(0, 3);
   return [...top('kW'), ...top('kVAR')];
 }
 

@@ -64,8 +64,10 @@ export function planSpeedDroop(
   const fixedNoLoad = planned.filter((i) => fixed(i, 'noLoadHz'));
   const droopOf = (i: number) => plant.sets[i]!.governor.droopPct;
   const noLoadOf = (i: number) => plant.sets[i]!.governor.noLoadHz;
-  if (new Set(fixedDroop.map(droopOf)).size > 1) notes.push('Sets with different fixed speed droops cannot share kW in proportion at every load; the planner matches the first.');
-  if (new Set(fixedNoLoad.map(noLoadOf)).size > 1) notes.push('Sets with different fixed no-load frequencies cannot share kW in proportion; the planner matches the first.');
+  if (new Set(fixedDroop.map(droopOf)).size > 1)
+    notes.push('Sets with different fixed speed droops cannot share kW in proportion at every load; the planner matches the first.');
+  if (new Set(fixedNoLoad.map(noLoadOf)).size > 1)
+    notes.push('Sets with different fixed no-load frequencies cannot share kW in proportion; the planner matches the first.');
 
   let ratedSum = 0;
   let weighted = 0;
@@ -103,7 +105,9 @@ export function planSpeedDroop(
   const hzLo = (limits.noLoadHzPct.min / 100) * fr;
   const hzHi = (limits.noLoadHzPct.max / 100) * fr;
   if (noLoadHz < hzLo || noLoadHz > hzHi) {
-    reasons.push(`No-load frequency ${fmt(noLoadHz, 3)} Hz is outside the allowed ${fmt(hzLo, 2)}–${fmt(hzHi, 2)} Hz, by ${fmt(Math.max(hzLo - noLoadHz, noLoadHz - hzHi), 3)} Hz.`);
+    reasons.push(
+      `No-load frequency ${fmt(noLoadHz, 3)} Hz is outside the allowed ${fmt(hzLo, 2)}–${fmt(hzHi, 2)} Hz, by ${fmt(Math.max(hzLo - noLoadHz, noLoadHz - hzHi), 3)} Hz.`,
+    );
   }
   const tradeoffs = [
     `Speed droop ${fmt(droopPct, 2)} % on every droop set: more droop holds the kW split steadier against speed-setpoint error, less droop narrows the frequency swing (here ${fmt(swing, 3)} Hz of the ${fmt(width, 3)} Hz band).`,

@@ -138,7 +138,8 @@ export function toleranceSamples(request: ToleranceRequest, from: number, to: nu
       out.loadingPct[row + i] = fig.loadingPct[i]!;
       out.circulatingA[row + i] = fig.circulatingA[i]!;
       if (!s.online) continue;
-      out.breaches[row + i] = (exceedsRating(s, kW, fig.kVA[i]!) ? RATING : 0) | (exceedsOverload(s, kW) ? OVERLOAD : 0) | (tripsReversePower(s, kW) ? REVERSE : 0);
+      out.breaches[row + i] =
+        (exceedsRating(s, kW, fig.kVA[i]!) ? RATING : 0) | (exceedsOverload(s, kW) ? OVERLOAD : 0) | (tripsReversePower(s, kW) ? REVERSE : 0);
     }
     out.busHz[k] = fig.frequencyHz;
     out.busV[k] = fig.voltageV;
@@ -233,7 +234,18 @@ export function mergeToleranceChunks(request: ToleranceRequest, chunks: readonly
       pOverload: setCount[1][i]! / total,
       pReversePower: setCount[2][i]! / total,
     })),
-    bus: { frequencyHz: summarise(bus((c) => c.busHz), solved, bins), voltageV: summarise(bus((c) => c.busV), solved, bins) },
+    bus: {
+      frequencyHz: summarise(
+        bus((c) => c.busHz),
+        solved,
+        bins,
+      ),
+      voltageV: summarise(
+        bus((c) => c.busV),
+        solved,
+        bins,
+      ),
+    },
     probabilities: { exceedsRating: anyRating / total, overload: anyOverload / total, reversePower: anyReverse / total, noSteadyState: failed / total },
   };
 }

@@ -3,14 +3,7 @@
  * verdict and closing map, and each scenario's transient metrics. Each section may fail on
  * its own (its problem is printed in its place); cancellation stops the whole report.
  */
-import type {
-  BuildReportRequest,
-  Plant,
-  ProjectScenario,
-  ProjectSyncSettings,
-  SyncCase,
-  SyncPreset,
-} from '../../../shared-types';
+import type { BuildReportRequest, Plant, ProjectScenario, ProjectSyncSettings, SyncCase, SyncPreset } from '../../../shared-types';
 import { describePlant } from '../describe-plant';
 import { Cancelled, EngineError, InvalidInput } from '../errors';
 import type { ReportData, SharingPoint, SyncPart, TransientPart } from './report-data';
@@ -108,7 +101,8 @@ async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, load
   const overloadKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + (s.ratedKW * s.overloadPct) / 100, 0);
   const overloadPct = onlineKW > 0 ? (100 * overloadKW) / onlineKW : 0;
   const pcts = (req.loadsPct ?? DEFAULT_LOADS_PCT).map((pct) => ({ pct, label: `${pct} %` }));
-  if (onlineKW > 0 && !pcts.some((x) => Math.abs(x.pct - overloadPct) < 1e-9)) pcts.push({ pct: overloadPct, label: `overload limit (${formatPct(overloadPct)} %)` });
+  if (onlineKW > 0 && !pcts.some((x) => Math.abs(x.pct - overloadPct) < 1e-9))
+    pcts.push({ pct: overloadPct, label: `overload limit (${formatPct(overloadPct)} %)` });
   const wanted: { label: string; loadPct: number | null; kW: number; kVAR: number; override: boolean }[] = [
     {
       label: 'connected load',

@@ -60,9 +60,7 @@ function cell(v: string | number | null, decimals: number, column: string): stri
 /** One table as HTML (numbers with the column's decimals, blanks as an em dash). */
 export function tableHtml(t: ReportTable): string {
   const head = t.columns.map((c) => `<th scope="col">${escapeHtml(c)}</th>`).join('');
-  const body = t.rows
-    .map((r) => `<tr>${r.map((v, i) => cell(v, t.decimals[i] ?? 2, t.columns[i] ?? '')).join('')}</tr>`)
-    .join('');
+  const body = t.rows.map((r) => `<tr>${r.map((v, i) => cell(v, t.decimals[i] ?? 2, t.columns[i] ?? '')).join('')}</tr>`).join('');
   const wide = t.columns.length > 9 ? ' class="wide"' : '';
   return `<table id="table-${escapeHtml(t.id)}"${wide}><caption>${escapeHtml(t.title)}</caption><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }
@@ -80,7 +78,8 @@ export function reportSections(d: ReportData): ReportSection[] {
   const sharingProblem = d.sharing.length === 0 ? 'no load points' : failedPoints.length ? failedPoints.map((p) => `${p.label}: ${p.problem}`).join(' ') : null;
   const syncProblem = isSyncPart(d.sync) ? d.sync.problem : d.sync.problem;
   const failed = d.transients.filter((t) => t.problem);
-  const transientProblem = d.transients.length === 0 ? 'The project has no transient scenarios.' : failed.length === d.transients.length ? failed[0]!.problem : null;
+  const transientProblem =
+    d.transients.length === 0 ? 'The project has no transient scenarios.' : failed.length === d.transients.length ? failed[0]!.problem : null;
   return [
     { id: 'plant', title: 'Plant and generating sets', problem: null },
     { id: 'settings', title: 'Governor and regulator settings', problem: null },
@@ -114,7 +113,9 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
     `<nav><strong>Contents</strong><ol>${sections.map((s) => `<li><a href="#${s.id}">${escapeHtml(s.title)}</a>${s.problem ? ' (not computed)' : ''}</li>`).join('')}</ol></nav>`,
   );
   out.push(`<section id="plant"><h2>1. ${escapeHtml(title.title)}</h2>`);
-  out.push(`<p>Online: ${formatNumber(d.description.onlineKW, 0)} kW / ${formatNumber(d.description.onlineKVA, 0)} kVA; installed ${formatNumber(d.description.installedKW, 0)} kW / ${formatNumber(d.description.installedKVA, 0)} kVA; connected load ${formatNumber(d.description.loadKW, 0)} kW, ${formatNumber(d.description.loadKVAR, 0)} kVAR.</p>`);
+  out.push(
+    `<p>Online: ${formatNumber(d.description.onlineKW, 0)} kW / ${formatNumber(d.description.onlineKVA, 0)} kVA; installed ${formatNumber(d.description.installedKW, 0)} kW / ${formatNumber(d.description.installedKVA, 0)} kVA; connected load ${formatNumber(d.description.loadKW, 0)} kW, ${formatNumber(d.description.loadKVAR, 0)} kVAR.</p>`,
+  );
   tableOut('sets');
   tableOut('loads');
   out.push('</section>');
@@ -134,7 +135,10 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
   out.push('</section>');
   out.push('<section id="sync"><h2>5. Sync-check settings and closing map</h2>');
   if (isSyncPart(d.sync)) {
-    if (d.sync.defaulted) out.push('<p class="note">The project has no sync-check settings: the report uses the common-practice limit preset for generating sets, a 60 ms breaker and the first offline set (or the last set) as incoming.</p>');
+    if (d.sync.defaulted)
+      out.push(
+        '<p class="note">The project has no sync-check settings: the report uses the common-practice limit preset for generating sets, a 60 ms breaker and the first offline set (or the last set) as incoming.</p>',
+      );
     if (d.sync.preset?.note) out.push(`<p class="note">Preset note: ${escapeHtml(d.sync.preset.note)}</p>`);
     tableOut('sync-settings');
     if (d.sync.problem) out.push(problemHtml(d.sync.problem));
@@ -143,13 +147,16 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
   } else out.push(problemHtml(d.sync.problem));
   out.push('</section>');
   out.push('<section id="transients"><h2>6. Transient metrics and ISO 8528-5 classes</h2>');
-  if (d.transients.some((x) => x.defaulted)) out.push('<p class="note">The project has no scenarios: the report runs its own block-load step of 25 % of the online rated kW.</p>');
+  if (d.transients.some((x) => x.defaulted))
+    out.push('<p class="note">The project has no scenarios: the report runs its own block-load step of 25 % of the online rated kW.</p>');
   if (d.transients.length === 0) out.push('<p class="note">The project has no transient scenarios.</p>');
   else tableOut('transient-metrics');
   d.transients.forEach((tr, i) => {
     const n = i + 1;
     out.push(`<h3>6.${n} ${escapeHtml(tr.scenario.name)}</h3>`);
-    out.push(`<p class="note">${tr.scenario.durationS} s at ${tr.scenario.stepMs} ms steps; events: ${tr.scenario.events.map((e) => `${escapeHtml(e.type)} at ${e.atS} s`).join(', ') || 'none'}.</p>`);
+    out.push(
+      `<p class="note">${tr.scenario.durationS} s at ${tr.scenario.stepMs} ms steps; events: ${tr.scenario.events.map((e) => `${escapeHtml(e.type)} at ${e.atS} s`).join(', ') || 'none'}.</p>`,
+    );
     if (tr.problem) out.push(problemHtml(tr.problem));
     for (const w of tr.result?.warnings ?? []) out.push(`<p class="note">Note: ${escapeHtml(w)}</p>`);
     tableOut(`transient-classes-${n}`);
@@ -159,8 +166,12 @@ export function renderReportHtml(d: ReportData, tables: readonly ReportTable[], 
     }
   });
   out.push('</section>');
-  out.push(`<section id="definitions"><h2>7. Definitions used</h2><dl>${DEFINITIONS.map((x) => `<div><dt>${escapeHtml(x.term)}</dt><dd>${escapeHtml(x.text)}</dd></div>`).join('')}</dl></section>`);
-  out.push(`<section id="cautions"><h2>8. Cautions</h2><div class="caution"><ul>${CAUTIONS.map((x) => `<li>${escapeHtml(x)}</li>`).join('')}</ul></div></section>`);
+  out.push(
+    `<section id="definitions"><h2>7. Definitions used</h2><dl>${DEFINITIONS.map((x) => `<div><dt>${escapeHtml(x.term)}</dt><dd>${escapeHtml(x.text)}</dd></div>`).join('')}</dl></section>`,
+  );
+  out.push(
+    `<section id="cautions"><h2>8. Cautions</h2><div class="caution"><ul>${CAUTIONS.map((x) => `<li>${escapeHtml(x)}</li>`).join('')}</ul></div></section>`,
+  );
   out.push(`<footer>${escapeHtml(d.title)} · ${escapeHtml(d.date)} · Planning and training only.</footer>`);
   out.push('</main></body></html>');
   return out.join('\n');

@@ -94,7 +94,12 @@ function closingMapChart(d: ReportData): ReportChart[] {
   const xLabel = `${axis[0]!.toUpperCase()}${axis.slice(1)} (°)`;
   const box = { x0: -l.angleDeg, x1: l.angleDeg, y0: l.incomingFaster ? 0 : -l.slipHz, y1: l.slipHz, label: 'sync-check window' };
   const layers = [
-    { id: 'closing-map', title: `Closing map: surge current (pu of the incoming set) — ${d.sync.incomingSetId}`, valueLabel: 'surge (pu)', values: m.surgeCurrentPU },
+    {
+      id: 'closing-map',
+      title: `Closing map: surge current (pu of the incoming set) — ${d.sync.incomingSetId}`,
+      valueLabel: 'surge (pu)',
+      values: m.surgeCurrentPU,
+    },
     {
       id: 'closing-map-peak-torque',
       title: `Closing map: first-cycle peak air-gap torque, |pu| of the torque base — ${d.sync.incomingSetId}`,
@@ -103,7 +108,20 @@ function closingMapChart(d: ReportData): ReportChart[] {
     },
   ];
   return layers.map((k) =>
-    chart(k.id, heatMapSvg({ title: k.title, xLabel, yLabel: 'Slip (Hz, + incoming faster)', valueLabel: k.valueLabel, x: m.anglesDeg, y: m.slipsHz, values: k.values, box }), k.title),
+    chart(
+      k.id,
+      heatMapSvg({
+        title: k.title,
+        xLabel,
+        yLabel: 'Slip (Hz, + incoming faster)',
+        valueLabel: k.valueLabel,
+        x: m.anglesDeg,
+        y: m.slipsHz,
+        values: k.values,
+        box,
+      }),
+      k.title,
+    ),
   );
 }
 

@@ -21,11 +21,39 @@ function setsTable(d: ReportData): ReportTable {
   return {
     id: 'sets',
     title: 'Generating sets',
-    columns: ['Set', 'Name', 'Online', 'Rated kW', 'Rated kVA', 'Rated PF', 'Poles', 'Speed (rpm)', 'Rated current (A)', "X''d (pu)", "X'd (pu)", 'Xd (pu)', 'H (s)'],
+    columns: [
+      'Set',
+      'Name',
+      'Online',
+      'Rated kW',
+      'Rated kVA',
+      'Rated PF',
+      'Poles',
+      'Speed (rpm)',
+      'Rated current (A)',
+      "X''d (pu)",
+      "X'd (pu)",
+      'Xd (pu)',
+      'H (s)',
+    ],
     decimals: [0, 0, 0, 0, 0, 2, 0, 0, 0, 3, 3, 2, 2],
     rows: d.plant.sets.map((s, i) => {
       const r = d.description.sets[i]!;
-      return [s.id, s.name, s.online ? 'yes' : 'no', s.ratedKW, s.ratedKVA, s.ratedPF, s.poles, r.ratedSpeedRpm, r.ratedCurrentA, s.machine.xddpPU, s.machine.xdpPU, s.machine.xdPU, s.machine.inertiaS];
+      return [
+        s.id,
+        s.name,
+        s.online ? 'yes' : 'no',
+        s.ratedKW,
+        s.ratedKVA,
+        s.ratedPF,
+        s.poles,
+        r.ratedSpeedRpm,
+        r.ratedCurrentA,
+        s.machine.xddpPU,
+        s.machine.xdpPU,
+        s.machine.xdPU,
+        s.machine.inertiaS,
+      ];
     }),
   };
 }
@@ -54,7 +82,20 @@ function settingsTable(d: ReportData): ReportTable {
   return {
     id: 'settings',
     title: 'Governor and voltage regulator settings',
-    columns: ['Set', 'Governor mode', 'Speed droop (%)', 'No-load frequency (Hz)', 'Setpoint (Hz)', 'Base load (kW)', 'Regulator mode', 'Reactive droop (%)', 'No-load voltage (V)', 'Setpoint (V)', 'Power factor', 'Reverse-power trip (% rated kW)'],
+    columns: [
+      'Set',
+      'Governor mode',
+      'Speed droop (%)',
+      'No-load frequency (Hz)',
+      'Setpoint (Hz)',
+      'Base load (kW)',
+      'Regulator mode',
+      'Reactive droop (%)',
+      'No-load voltage (V)',
+      'Setpoint (V)',
+      'Power factor',
+      'Reverse-power trip (% rated kW)',
+    ],
     decimals: [0, 0, 2, 2, 2, 0, 0, 2, 1, 1, 2, 1],
     rows: d.plant.sets.map(settingsRow),
   };
@@ -67,7 +108,20 @@ function loadsTable(d: ReportData): ReportTable {
   return {
     id: 'loads',
     title: `Connected loads (at rated voltage and frequency; in runs the constant-power and constant-current shares draw as impedance below ${breakPct} % voltage)`,
-    columns: ['Load', 'Name', 'Online', 'kW', 'kVAR', 'Model', 'kW shares Z / I / P (%)', 'kVAR shares Z / I / P (%)', 'kW f-sensitivity (%/%)', 'kVAR f-sensitivity (%/%)', 'Shed below (Hz)', 'Shed delay (s)'],
+    columns: [
+      'Load',
+      'Name',
+      'Online',
+      'kW',
+      'kVAR',
+      'Model',
+      'kW shares Z / I / P (%)',
+      'kVAR shares Z / I / P (%)',
+      'kW f-sensitivity (%/%)',
+      'kVAR f-sensitivity (%/%)',
+      'Shed below (Hz)',
+      'Shed delay (s)',
+    ],
     decimals: [0, 0, 0, 0, 0, 0, 0, 0, 1, 1, 2, 2],
     rows: d.plant.loads.map((l) => {
       const z = zipShares(l);
@@ -102,7 +156,8 @@ function sharingBusTable(d: ReportData): ReportTable {
       p.loadKVAR,
       p.result?.bus.frequencyHz ?? null,
       p.result?.bus.voltageV ?? null,
-      p.problem ?? ([p.note, ...(p.result?.warnings.filter((w) => !p.result?.capped || !w.startsWith('The load asked for')) ?? [])].filter(Boolean).join(' ') || ''),
+      p.problem ??
+        ([p.note, ...(p.result?.warnings.filter((w) => !p.result?.capped || !w.startsWith('The load asked for')) ?? [])].filter(Boolean).join(' ') || ''),
     ]),
   };
 }
@@ -111,13 +166,39 @@ function sharingSetsTable(d: ReportData): ReportTable {
   const rows: ReportCell[][] = [];
   for (const p of d.sharing) {
     for (const s of p.result?.sets ?? []) {
-      rows.push([p.result?.capped ? `${p.label}, at most carried` : p.label, s.id, s.kW, s.kVAR, s.loadingPct, s.loadingKVAPct, s.pf, s.pfLagging ? 'lagging' : 'leading', s.currentA, s.circulatingA, s.sharingErrorKWPct, s.flags.map((f) => flagWords(f).words).join(', ')]);
+      rows.push([
+        p.result?.capped ? `${p.label}, at most carried` : p.label,
+        s.id,
+        s.kW,
+        s.kVAR,
+        s.loadingPct,
+        s.loadingKVAPct,
+        s.pf,
+        s.pfLagging ? 'lagging' : 'leading',
+        s.currentA,
+        s.circulatingA,
+        s.sharingErrorKWPct,
+        s.flags.map((f) => flagWords(f).words).join(', '),
+      ]);
     }
   }
   return {
     id: 'sharing-sets',
     title: 'Sharing of kW and kVAR at each load',
-    columns: ['Load', 'Set', 'kW', 'kVAR', 'kW (% rated)', 'kVA (% rated)', 'Power factor', 'Sense', 'Current (A)', 'Circulating (A)', 'kW sharing error (% rated)', 'Conditions'],
+    columns: [
+      'Load',
+      'Set',
+      'kW',
+      'kVAR',
+      'kW (% rated)',
+      'kVA (% rated)',
+      'Power factor',
+      'Sense',
+      'Current (A)',
+      'Circulating (A)',
+      'kW sharing error (% rated)',
+      'Conditions',
+    ],
     decimals: [0, 0, 1, 1, 1, 1, 3, 0, 0, 0, 2, 0],
     rows,
   };
@@ -128,7 +209,12 @@ function syncSettingsTable(s: SyncPart): ReportTable {
   const e = s.edge;
   const yesNo = (b: boolean | undefined) => (b ? 'yes' : 'no');
   const rows: ReportCell[][] = [
-    ['Limits from', s.preset ? s.preset.label : s.defaulted ? 'Droopline default (typical between sets)' : 'custom', '', s.preset ? s.preset.source : 'common practice; set your own'],
+    [
+      'Limits from',
+      s.preset ? s.preset.label : s.defaulted ? 'Droopline default (typical between sets)' : 'custom',
+      '',
+      s.preset ? s.preset.source : 'common practice; set your own',
+    ],
     ['Slip limit', l.slipHz, 'Hz', l.incomingFaster ? 'incoming must run faster than the bus' : ''],
     ['Phase angle limit', l.angleDeg, '°', ''],
     ['Voltage difference limit', l.voltagePct, '% of bus', l.incomingHigher ? 'incoming must be at or above the bus' : ''],
@@ -142,9 +228,19 @@ function syncSettingsTable(s: SyncPart): ReportTable {
     ['Advance angle at the slip limit', advanceAngleDeg(l.slipHz, s.settings.breakerClosingMs), '°', '360 × slip × breaker time'],
     ['Slip period at the slip limit', slipPeriodS(l.slipHz), 's', '1 / |slip|'],
     ['Window open per slip cycle', windowOpenS(l.angleDeg, l.slipHz), 's', '2 × angle limit / (360 × |slip|)'],
-    ['Surge closing at the window edge', e?.closeNow.surgeCurrentA ?? null, 'A', e ? `${e.closeNow.surgeCurrentPU.toFixed(2)} pu; |ΔV| ${e.closeNow.deltaVPU.toFixed(3)} pu` : ''],
+    [
+      'Surge closing at the window edge',
+      e?.closeNow.surgeCurrentA ?? null,
+      'A',
+      e ? `${e.closeNow.surgeCurrentPU.toFixed(2)} pu; |ΔV| ${e.closeNow.deltaVPU.toFixed(3)} pu` : '',
+    ],
     ['Peak with DC offset', e?.closeNow.peakCurrentA ?? null, 'A', e ? `IEC 60909 κ = ${e.closeNow.peakFactor.toFixed(2)}` : ''],
-    ['Torque step at the window edge', e?.closeNow.torqueStepKNm ?? null, 'kN·m', e ? `${e.closeNow.torqueStepPU.toFixed(2)} pu; steady synchronizing torque (E1 E2 / X) sin θ` : ''],
+    [
+      'Torque step at the window edge',
+      e?.closeNow.torqueStepKNm ?? null,
+      'kN·m',
+      e ? `${e.closeNow.torqueStepPU.toFixed(2)} pu; steady synchronizing torque (E1 E2 / X) sin θ` : '',
+    ],
     [
       'Peak air-gap torque at the window edge',
       e?.closeNow.peakTorqueKNm ?? null,
@@ -181,7 +277,19 @@ function metricsTable(d: ReportData): ReportTable {
   return {
     id: 'transient-metrics',
     title: 'Transient metrics of each scenario',
-    columns: ['Scenario', 'Frequency nadir (Hz)', 'Frequency peak (Hz)', 'Transient frequency deviation (%)', 'Frequency recovery (s)', 'Voltage dip (%)', 'Voltage peak (%)', 'Voltage recovery (s)', 'Final frequency (Hz)', 'Final voltage (V)', 'Notes'],
+    columns: [
+      'Scenario',
+      'Frequency nadir (Hz)',
+      'Frequency peak (Hz)',
+      'Transient frequency deviation (%)',
+      'Frequency recovery (s)',
+      'Voltage dip (%)',
+      'Voltage peak (%)',
+      'Voltage recovery (s)',
+      'Final frequency (Hz)',
+      'Final voltage (V)',
+      'Notes',
+    ],
     decimals: [0, 3, 3, 2, 2, 2, 2, 2, 3, 1, 0],
     rows: d.transients.map((t) => {
       const m = t.result?.metrics;
@@ -204,8 +312,12 @@ function metricsTable(d: ReportData): ReportTable {
 
 function transientNotes(m: SimulationMetrics, breakPct: number): string {
   const notes: string[] = [];
-  if (m.frequencyRecoveryS === null || m.voltageRecoveryS === null) notes.push('did not recover into the band around the steady state of the final load within the run');
-  if (m.unservedKWh > 0) notes.push(`${m.unservedKWh.toFixed(2)} kWh of load not served (bus dead, or below ${breakPct.toFixed(0)} % voltage where constant-power and constant-current loads draw as impedance)`);
+  if (m.frequencyRecoveryS === null || m.voltageRecoveryS === null)
+    notes.push('did not recover into the band around the steady state of the final load within the run');
+  if (m.unservedKWh > 0)
+    notes.push(
+      `${m.unservedKWh.toFixed(2)} kWh of load not served (bus dead, or below ${breakPct.toFixed(0)} % voltage where constant-power and constant-current loads draw as impedance)`,
+    );
   return notes.join('; ');
 }
 
@@ -221,7 +333,14 @@ function classTables(d: ReportData): ReportTable[] {
           {
             id: `transient-classes-${i + 1}`,
             title: `ISO 8528-5 performance classes — ${t.scenario.name}`,
-            columns: ['Quantity', 'Unit', 'Measured', ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]), 'Limit source', 'Note'],
+            columns: [
+              'Quantity',
+              'Unit',
+              'Measured',
+              ...CLASSES.flatMap((k) => [`${isoClassName(k)} limit`, `${isoClassName(k)} verdict`]),
+              'Limit source',
+              'Note',
+            ],
             decimals: [0, 0, 2, 2, 0, 2, 0, 2, 0, 0, 0],
             rows: classRows(t.result.metrics.classes),
           },

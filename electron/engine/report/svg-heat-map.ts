@@ -87,7 +87,9 @@ export function heatMapSvg(spec: HeatMapSpec): { svg: string; widthPx: number; h
   }
   out.push(`<rect x="${m.left}" y="${m.top}" width="${width - m.left - m.right}" height="${height - m.top - m.bottom}" fill="none" stroke="#9aa6b0"/>`);
   out.push(`<text x="${(m.left + width - m.right) / 2}" y="${height - 12}" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.xLabel)}</text>`);
-  out.push(`<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.yLabel)}</text>`);
+  out.push(
+    `<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.yLabel)}</text>`,
+  );
   if (spec.box) {
     const b = spec.box;
     const bx0 = sx(Math.max(b.x0, xe[0]!));
@@ -96,7 +98,9 @@ export function heatMapSvg(spec: HeatMapSpec): { svg: string; widthPx: number; h
     const by1 = sy(Math.max(b.y0, ye[0]!));
     // White under black dashes: visible on pale and deep cells alike.
     out.push(`<rect x="${p(bx0)}" y="${p(by0)}" width="${p(bx1 - bx0)}" height="${p(by1 - by0)}" fill="none" stroke="#ffffff" stroke-width="3.5"/>`);
-    out.push(`<rect x="${p(bx0)}" y="${p(by0)}" width="${p(bx1 - bx0)}" height="${p(by1 - by0)}" fill="none" stroke="#1d2329" stroke-width="1.6" stroke-dasharray="6 3"/>`);
+    out.push(
+      `<rect x="${p(bx0)}" y="${p(by0)}" width="${p(bx1 - bx0)}" height="${p(by1 - by0)}" fill="none" stroke="#1d2329" stroke-width="1.6" stroke-dasharray="6 3"/>`,
+    );
     out.push(`<text x="${p(bx0 + 3)}" y="${p(by0 - 4)}" fill="#1d2329" font-weight="600">${escapeHtml(b.label)}</text>`);
   }
   // Scale bar.

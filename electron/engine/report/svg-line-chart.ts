@@ -112,10 +112,11 @@ export function lineChartSvg(spec: LineChartSpec): { svg: string; widthPx: numbe
   }
   out.push(`<rect x="${m.left}" y="${m.top}" width="${width - m.left - m.right}" height="${height - m.top - m.bottom}" fill="none" stroke="#9aa6b0"/>`);
   out.push(`<text x="${(m.left + width - m.right) / 2}" y="${height - m.bottom + 32}" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.xLabel)}</text>`);
-  out.push(`<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.yLabel)}</text>`);
+  out.push(
+    `<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.yLabel)}</text>`,
+  );
   for (const r of spec.references ?? []) {
-    const [ax1, ay1, ax2, ay2] =
-      r.axis === 'y' ? [m.left, sy(r.value), width - m.right, sy(r.value)] : [sx(r.value), m.top, sx(r.value), height - m.bottom];
+    const [ax1, ay1, ax2, ay2] = r.axis === 'y' ? [m.left, sy(r.value), width - m.right, sy(r.value)] : [sx(r.value), m.top, sx(r.value), height - m.bottom];
     out.push(`<line x1="${p(ax1)}" y1="${p(ay1)}" x2="${p(ax2)}" y2="${p(ay2)}" stroke="#8a5a00" stroke-width="1" stroke-dasharray="3 3"/>`);
     const lx = r.axis === 'y' ? width - m.right - 4 : ax1 + 4;
     const ly = r.axis === 'y' ? ay1 - 4 : m.top + 12;
@@ -157,7 +158,10 @@ export function lineChartSvg(spec: LineChartSpec): { svg: string; widthPx: numbe
     const ly = height - m.bottom + 48 + row * 18;
     const colour = at(SERIES_COLOURS, s.style);
     const dash = at(SERIES_DASHES, s.style);
-    if (!s.markersOnly) out.push(`<line x1="${lx}" x2="${lx + 26}" y1="${ly - 4}" y2="${ly - 4}" stroke="${colour}" stroke-width="1.8"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`);
+    if (!s.markersOnly)
+      out.push(
+        `<line x1="${lx}" x2="${lx + 26}" y1="${ly - 4}" y2="${ly - 4}" stroke="${colour}" stroke-width="1.8"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`,
+      );
     if (s.markersOnly || s.markEvery) out.push(markerSvg(at(SERIES_MARKERS, s.style), lx + 13, ly - 4, colour));
     out.push(`<text x="${lx + 32}" y="${ly}" fill="#1d2329">${escapeHtml(s.label)}</text>`);
   });

@@ -19,7 +19,6 @@ const GOV_BASE = codes.GOV_BASE;
 const GOV_DROOP = codes.GOV_DROOP;
 const GOV_ISO = codes.GOV_ISO;
 
-
 /** How the isochronous group ended up: holding frequency, saturated, or absent. */
 export type IsoState = 'none' | 'holding' | 'at-max' | 'at-min';
 

@@ -22,7 +22,19 @@ const MAX_INNER = 40;
  * Set i's local residuals at receiving-end powers (pr, qr), W and VAR; stores the feeder
  * quantities in `w.l*`. Returns |e1| + |e2|.
  */
-function localEval(w: Work, pr: number, qr: number, vb: number, R: number, X: number, droopLaw: boolean, a: number, v0: number, tp: number, qTarget: number): number {
+function localEval(
+  w: Work,
+  pr: number,
+  qr: number,
+  vb: number,
+  R: number,
+  X: number,
+  droopLaw: boolean,
+  a: number,
+  v0: number,
+  tp: number,
+  qTarget: number,
+): number {
   const L = (pr * pr + qr * qr) / (vb * vb);
   const ps = pr + R * L;
   const qs = qr + X * L;
@@ -47,7 +59,21 @@ interface LocalOutcome {
 }
 
 /** The local 2 × 2 damped Newton from (pr, qr); leaves the feeder quantities of the answer in `w.l*`. */
-function localNewton(w: Work, pr: number, qr: number, vb: number, R: number, X: number, droopLaw: boolean, a: number, v0: number, tp: number, qTarget: number, scale: number, out: LocalOutcome): void {
+function localNewton(
+  w: Work,
+  pr: number,
+  qr: number,
+  vb: number,
+  R: number,
+  X: number,
+  droopLaw: boolean,
+  a: number,
+  v0: number,
+  tp: number,
+  qTarget: number,
+  scale: number,
+  out: LocalOutcome,
+): void {
   const inv = 1 / (vb * vb);
   let res = localEval(w, pr, qr, vb, R, X, droopLaw, a, v0, tp, qTarget);
   if (!Number.isFinite(res)) {
@@ -186,16 +212,7 @@ export function solveSet(w: Work, i: number): boolean {
   for (let j = 0; j < w.ny; j++) {
     // ∂e/∂y_j for y = (f or λ, V_b, unit kVAR level).
     const de1 = j === 0 ? -td : j === 1 ? R * dL : 0;
-    const de2 =
-      j === 0
-        ? -dQtdP * td
-        : j === 1
-          ? X * dL + (droopLaw ? a * dEdVb : 0)
-          : inUnit
-            ? reg === REG_CROSS
-              ? -m.ratedKVA[i]!
-              : -1
-            : 0;
+    const de2 = j === 0 ? -dQtdP * td : j === 1 ? X * dL + (droopLaw ? a * dEdVb : 0) : inUnit ? (reg === REG_CROSS ? -m.ratedKVA[i]! : -1) : 0;
     const dp = -(de1 * j22 - de2 * j12) / det;
     const dq = -(de2 * j11 - de1 * j21) / det;
     w.dPr[3 * i + j] = dp;

@@ -59,7 +59,9 @@ export function flagSentences(set: GenSet, x: SetOperatingFigures, flags: readon
       `${id} is in its overload range: ${kw0(x.kW)} of ${set.ratedKW} kW rated (${((100 * x.kW) / set.ratedKW).toFixed(0)} %; the overload allowance of a prime-rated set is ${set.overloadPct} % for one hour in twelve, ISO 8528-1, value from memory).`,
     );
   if (flags.includes('overload-kVA'))
-    out.push(`${id} is over its kVA rating: ${x.kVA.toFixed(0)} kVA of ${set.ratedKVA} kVA (${((100 * x.kVA) / set.ratedKVA).toFixed(0)} %): the stator current is above rating.`);
+    out.push(
+      `${id} is over its kVA rating: ${x.kVA.toFixed(0)} kVA of ${set.ratedKVA} kVA (${((100 * x.kVA) / set.ratedKVA).toFixed(0)} %): the stator current is above rating.`,
+    );
   if (flags.includes('reverse-power'))
     out.push(
       `${id} is motoring: it absorbs ${kw0(-x.kW)} (${((-100 * x.kW) / set.ratedKW).toFixed(1)} % of rating), beyond its reverse-power setting of ${set.reversePowerTripPct} % (${kw0(reverseTripKW(set))}): the 32 relay would trip it after ${set.reversePowerDelayS} s.`,

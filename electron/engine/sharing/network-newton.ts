@@ -127,7 +127,10 @@ function newtonStep(w: Work): boolean {
 
 /** Runs Newton–Raphson from `w.y`; returns the iteration count or throws. */
 function iterate(w: Work): number {
-  if (!evaluate(w)) throw new Diverged('The network solve could not start: a set cannot deliver its output through its feeder at the starting voltage. Check the feeder impedances.');
+  if (!evaluate(w))
+    throw new Diverged(
+      'The network solve could not start: a set cannot deliver its output through its feeder at the starting voltage. Check the feeder impedances.',
+    );
   let norm = residualNorm(w);
   const y0 = w.ySave;
   for (let it = 1; it <= MAX_OUTER; it++) {
@@ -180,7 +183,9 @@ function iterate(w: Work): number {
   }
   if (norm <= 1e-9) return MAX_OUTER;
   if (!w.isoMode && allDroopAtMax(w)) throw capabilityError(w);
-  throw new Diverged(`The network solve did not converge in ${MAX_OUTER} iterations (residual ${norm.toExponential(1)} of rating). Check for extreme feeder impedances or setpoints.`);
+  throw new Diverged(
+    `The network solve did not converge in ${MAX_OUTER} iterations (residual ${norm.toExponential(1)} of rating). Check for extreme feeder impedances or setpoints.`,
+  );
 }
 
 /**

@@ -110,11 +110,7 @@ export function solveNetwork(m: SharingModel, start: NetworkStart, work?: Work):
         if (!anyDroop) {
           let atLimitKW = 0;
           for (let i = 0; i < n; i++) atLimitKW += m.gov[i] === codes.GOV_ISO ? (lambda > hi ? m.maxKW[i]! : m.minKW[i]!) : w.pr[i]! / 1000;
-          throw new NoSteadyState(
-            lambda > hi
-              ? overCapabilityMessage(w.loadW / 1000, atLimitKW, true)
-              : underMinimumMessage(w.loadW / 1000, atLimitKW),
-          );
+          throw new NoSteadyState(lambda > hi ? overCapabilityMessage(w.loadW / 1000, atLimitKW, true) : underMinimumMessage(w.loadW / 1000, atLimitKW));
         }
         next = lambda > hi ? 'at-max' : 'at-min';
       }
@@ -124,7 +120,12 @@ export function solveNetwork(m: SharingModel, start: NetworkStart, work?: Work):
     }
     if (next === null) return finish(w, isoState, iterations);
     if (tried.includes(next)) {
-      throw firstError ?? new Diverged('The network solve could not decide whether the isochronous sets hold frequency (it switched back and forth). Check the isochronous setpoints and limits.');
+      throw (
+        firstError ??
+        new Diverged(
+          'The network solve could not decide whether the isochronous sets hold frequency (it switched back and forth). Check the isochronous setpoints and limits.',
+        )
+      );
     }
     isoState = next;
   }

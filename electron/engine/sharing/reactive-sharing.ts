@@ -27,7 +27,6 @@ import { fieldLimitKVAR } from '../capability';
 const REG_DROOP = codes.REG_DROOP;
 const REG_PF = codes.REG_PF;
 
-
 /** kVAR of a reactive-droop set at terminal voltage `voltageV` (its droop line, limits not applied). */
 export function droopKVAR(m: SharingModel, i: number, voltageV: number): number {
   return m.slopeKVARPerV[i]! * (m.noLoadV[i]! - voltageV);
@@ -68,13 +67,13 @@ export function solveReactive(m: SharingModel, p: Float64Array, q: Float64Array,
   const fr = m.ratedFrequencyHz;
   const f = frequencyHz;
   let qPF = 0;
-  for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_PF) qPF += (q[i] = limitKVAR(m, i, p[i]!, p[i]! * m.tanPhi[i]!));
+  for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_PF) qPF += q[i] = limitKVAR(m, i, p[i]!, p[i]! * m.tanPhi[i]!);
 
   if (m.voltageUnit.length > 0) {
     const v = m.voltageSetpointV;
     const loadKVAR = busLoadKVAR(m.loads, v, f, vr, fr);
     let others = qPF;
-    for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_DROOP) others += (q[i] = limitKVAR(m, i, p[i]!, droopKVAR(m, i, v)));
+    for (let i = 0; i < m.n; i++) if (m.reg[i] === REG_DROOP) others += q[i] = limitKVAR(m, i, p[i]!, droopKVAR(m, i, v));
     const unitKVAR = loadKVAR - others;
     let kva = 0;
     for (const i of m.voltageUnit) kva += m.ratedKVA[i]!;

@@ -10,7 +10,6 @@ import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE
 import { leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, overloadLimitKW } from './set-limits';
 
-
 /**
  * One load term on the common bus (powers at rated voltage and frequency) with its ZIP
  * shares: P(V) = kW (pZ u² + pI u + pP), Q(V) = kVAR (qZ u² + qI u + qP), u = V / V_rated.
@@ -223,12 +222,13 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
     }
     m.isoSetpointHz = sum / w;
     if (hi - lo > 1e-6)
-      m.notes.push(`The linked isochronous sets have different frequency setpoints (${lo} to ${hi} Hz); the link holds their kW-weighted mean, ${m.isoSetpointHz.toFixed(3)} Hz.`);
+      m.notes.push(
+        `The linked isochronous sets have different frequency setpoints (${lo} to ${hi} Hz); the link holds their kW-weighted mean, ${m.isoSetpointHz.toFixed(3)} Hz.`,
+      );
   } else {
     let anyDroop = false;
     for (let i = 0; i < n; i++) if (m.gov[i] === GOV_DROOP) anyDroop = true;
-    if (!anyDroop)
-      throw new NoSteadyState('No online set controls frequency (all are in base load): put at least one set in droop or isochronous.');
+    if (!anyDroop) throw new NoSteadyState('No online set controls frequency (all are in base load): put at least one set in droop or isochronous.');
   }
 
   // Voltage reference: one voltage-mode set, or the cross-current group, at most.
@@ -257,12 +257,16 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
     }
     m.voltageSetpointV = sum / w;
     if (hi - lo > 1e-6)
-      m.notes.push(`The cross-current sets have different voltage setpoints (${lo} to ${hi} V); the loop holds their kVA-weighted mean, ${m.voltageSetpointV.toFixed(1)} V.`);
+      m.notes.push(
+        `The cross-current sets have different voltage setpoints (${lo} to ${hi} V); the loop holds their kVA-weighted mean, ${m.voltageSetpointV.toFixed(1)} V.`,
+      );
   } else {
     let anyDroop = false;
     for (let i = 0; i < n; i++) if (m.reg[i] === REG_DROOP) anyDroop = true;
     if (!anyDroop)
-      throw new NoSteadyState('No online set controls voltage (all are in power-factor control): put at least one set in reactive droop, cross-current or voltage control.');
+      throw new NoSteadyState(
+        'No online set controls voltage (all are in power-factor control): put at least one set in reactive droop, cross-current or voltage control.',
+      );
   }
 
   if (load) m.loads.push(constantPowerTerm(load.kW, load.kVAR));

@@ -80,7 +80,15 @@ export interface SharingFigures {
 
 /** Empty figures for a plant of `sets` sets. */
 export function createSharingFigures(sets: number): SharingFigures {
-  return { frequencyHz: 0, voltageV: 0, kW: new Float64Array(sets), kVAR: new Float64Array(sets), kVA: new Float64Array(sets), loadingPct: new Float64Array(sets), circulatingA: new Float64Array(sets) };
+  return {
+    frequencyHz: 0,
+    voltageV: 0,
+    kW: new Float64Array(sets),
+    kVAR: new Float64Array(sets),
+    kVA: new Float64Array(sets),
+    loadingPct: new Float64Array(sets),
+    circulatingA: new Float64Array(sets),
+  };
 }
 
 /** Writes the figures of `op` into `out`. */

@@ -67,13 +67,17 @@ function solveModel(m: SharingModel, scratch?: SharingScratch): OperatingPoint {
   const closed = solveClosedForm(m);
   if (!m.hasFeeders) return closed;
   if (scratch) scratch.work = createNetworkWork(m, scratch.work);
-  return solveNetwork(m, {
-    frequencyHz: closed.frequencyHz,
-    voltageV: closed.busVoltageV,
-    kW: closed.kW,
-    kVAR: closed.kVAR,
-    isoState: closed.isoState,
-  }, scratch?.work);
+  return solveNetwork(
+    m,
+    {
+      frequencyHz: closed.frequencyHz,
+      voltageV: closed.busVoltageV,
+      kW: closed.kW,
+      kVAR: closed.kVAR,
+      isoState: closed.isoState,
+    },
+    scratch?.work,
+  );
 }
 
 /** Bisection steps on the load scale when looking for the most the sets can carry (2⁻⁴⁰ of the load). */

@@ -81,7 +81,10 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
       if (!open && !shutdown) throw new InvalidInput('trip: with openBreaker false the engine must shut down (shutdown true), or nothing trips.');
       if (open) m.online[i] = 0;
       if (shutdown) m.shutdown[i] = 1;
-      target.log(t, !open ? `${ev.setId} engine shut down, breaker still closed` : `${ev.setId} tripped${shutdown ? ' and shut down' : ' (breaker open, set running)'}`);
+      target.log(
+        t,
+        !open ? `${ev.setId} engine shut down, breaker still closed` : `${ev.setId} tripped${shutdown ? ' and shut down' : ' (breaker open, set running)'}`,
+      );
       return;
     }
     case 'close': {
@@ -119,11 +122,22 @@ export function applyEvent(target: EventTarget, ev: ScenarioEvent, t: number): v
         const preset = syncPreset(RUN_SYNC_PRESET_ID);
         const check = syncCheck({ slipHz, angleDeg: relDeg, voltageDifferencePct: dvPct, busPct: vBus * 100, incomingPct: vIn * 100, limits: preset.limits });
         const given = ev.angleDeg !== undefined || ev.frequencyHz !== undefined || ev.voltageV !== undefined;
-        target.closed({ setId: ev.setId, atS: t, angleDeg: relDeg, slipHz, voltageDifferencePct: dvPct, insideWindow: check.permissive, reasons: check.reasons, stateGiven: given });
+        target.closed({
+          setId: ev.setId,
+          atS: t,
+          angleDeg: relDeg,
+          slipHz,
+          voltageDifferencePct: dvPct,
+          insideWindow: check.permissive,
+          reasons: check.reasons,
+          stateGiven: given,
+        });
         const contact = `angle ${fmt(relDeg, 1)}°, slip ${fmt(slipHz, 3)} Hz, ΔV ${fmt(dvPct, 1)} % of rated at contact`;
         if (!given) target.warn(`${ev.setId} closed at t = ${fmt(t, 3)} s as the run had it (no angle, slip or voltage given): ${contact}.`);
         if (!check.permissive) {
-          target.warn(`${ev.setId} closed outside the sync-check window (${preset.label}: ±${preset.limits.angleDeg}°, ±${preset.limits.slipHz} Hz, ±${preset.limits.voltagePct} %) at t = ${fmt(t, 3)} s — ${check.reasons.join(' ')}`);
+          target.warn(
+            `${ev.setId} closed outside the sync-check window (${preset.label}: ±${preset.limits.angleDeg}°, ±${preset.limits.slipHz} Hz, ±${preset.limits.voltagePct} %) at t = ${fmt(t, 3)} s — ${check.reasons.join(' ')}`,
+          );
         }
       }
       m.online[i] = 1;

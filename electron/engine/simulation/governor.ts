@@ -20,7 +20,24 @@
 import { ACTUATOR, GOV_INT, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_BASE, GOV_DROOP } from '../mode-codes';
 import type { Outputs, SimModel } from './sim-types';
-import { O_P_OWN, P_GOV_MODE, P_INV_ACTUATOR_S, P_INV_DROOP, P_INV_ENGINE_S, P_INV_RESET_S, P_ISO_GAIN_PU, P_ISO_LINKED, P_KW_PU, P_MAX_PU, P_MIN_PU, P_MOTORING_PU, P_NO_LOAD_PU, P_ONLINE, P_SETPOINT_PU, P_SHUTDOWN } from './par-layout';
+import {
+  O_P_OWN,
+  P_GOV_MODE,
+  P_INV_ACTUATOR_S,
+  P_INV_DROOP,
+  P_INV_ENGINE_S,
+  P_INV_RESET_S,
+  P_ISO_GAIN_PU,
+  P_ISO_LINKED,
+  P_KW_PU,
+  P_MAX_PU,
+  P_MIN_PU,
+  P_MOTORING_PU,
+  P_NO_LOAD_PU,
+  P_ONLINE,
+  P_SETPOINT_PU,
+  P_SHUTDOWN,
+} from './par-layout';
 
 /** Base-load reference of set `i` at time `t`, pu of ratedKW, following a ramp if one runs. */
 export function baseReference(m: SimModel, i: number, t: number): number {

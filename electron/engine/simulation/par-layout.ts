@@ -172,4 +172,3 @@ export const O_ID = 11;
 export const O_IQ = 12;
 export const O_V_SENSED = 13;
 export const OUT_COLUMNS = 14;
-

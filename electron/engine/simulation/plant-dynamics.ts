@@ -11,7 +11,36 @@ import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { SimModel } from './sim-types';
-import { P_GOV_MODE, P_INERTIA_KVA, P_ISO_LINKED, P_KW_PU, P_ONLINE, P_OWN_SCALE, P_RATED_KVA, P_REG_MODE, P_SHUTDOWN, P_Y_IM, P_Y_RE, P_ZF_IM, P_ZF_RE, OUT_COLUMNS, O_COS_D, O_E_IM, O_E_RE, O_ID, O_IQ, O_I_IM, O_I_RE, O_P_OWN, O_Q_OWN, O_SIN_D, O_VT, O_VT_IM, O_VT_RE, O_V_SENSED } from './par-layout';
+import {
+  P_GOV_MODE,
+  P_INERTIA_KVA,
+  P_ISO_LINKED,
+  P_KW_PU,
+  P_ONLINE,
+  P_OWN_SCALE,
+  P_RATED_KVA,
+  P_REG_MODE,
+  P_SHUTDOWN,
+  P_Y_IM,
+  P_Y_RE,
+  P_ZF_IM,
+  P_ZF_RE,
+  OUT_COLUMNS,
+  O_COS_D,
+  O_E_IM,
+  O_E_RE,
+  O_ID,
+  O_IQ,
+  O_I_IM,
+  O_I_RE,
+  O_P_OWN,
+  O_Q_OWN,
+  O_SIN_D,
+  O_VT,
+  O_VT_IM,
+  O_VT_RE,
+  O_V_SENSED,
+} from './par-layout';
 
 export type { Outputs } from './sim-types';
 import type { Outputs } from './sim-types';
@@ -22,8 +51,20 @@ export function createOutputs(n: number): Outputs {
   const f = (k: number) => buf.subarray(k * n, (k + 1) * n);
   return {
     buf,
-    eRe: f(O_E_RE), eIm: f(O_E_IM), sinD: f(O_SIN_D), cosD: f(O_COS_D), iRe: f(O_I_RE), iIm: f(O_I_IM), vtRe: f(O_VT_RE), vtIm: f(O_VT_IM),
-    vt: f(O_VT), pOwn: f(O_P_OWN), qOwn: f(O_Q_OWN), id: f(O_ID), iq: f(O_IQ), vSensed: f(O_V_SENSED),
+    eRe: f(O_E_RE),
+    eIm: f(O_E_IM),
+    sinD: f(O_SIN_D),
+    cosD: f(O_COS_D),
+    iRe: f(O_I_RE),
+    iIm: f(O_I_IM),
+    vtRe: f(O_VT_RE),
+    vtIm: f(O_VT_IM),
+    vt: f(O_VT),
+    pOwn: f(O_P_OWN),
+    qOwn: f(O_Q_OWN),
+    id: f(O_ID),
+    iq: f(O_IQ),
+    vSensed: f(O_V_SENSED),
     // Non-integer starting values keep these fields stored as doubles.
     t: 0.5,
     pBarIso: 0.5,

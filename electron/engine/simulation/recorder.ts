@@ -63,7 +63,13 @@ export class Recorder {
     this.f = new Growable(cap);
     this.v = new Growable(cap);
     this.t = new Growable(cap);
-    this.sets = setIds.map(() => ({ kW: new Growable(cap), kVAR: new Growable(cap), currentA: new Growable(cap), speedHz: new Growable(cap), terminalV: new Growable(cap) }));
+    this.sets = setIds.map(() => ({
+      kW: new Growable(cap),
+      kVAR: new Growable(cap),
+      currentA: new Growable(cap),
+      speedHz: new Growable(cap),
+      terminalV: new Growable(cap),
+    }));
     const tcap = Math.ceil(totalSteps / this.traceStride) + 2;
     this.traceT = new Growable(tcap);
     this.traceF = new Growable(tcap);

@@ -26,7 +26,31 @@
 import { AVR_INT, EFD, OMEGA, STATES_PER_SET, VAR_TRIM } from './layout';
 import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
 import type { Outputs, SimModel } from './sim-types';
-import { O_P_OWN, O_Q_OWN, O_VT, O_V_SENSED, P_CEILING_PU, P_CROSS_GAIN, P_GAIN_PU, P_INV_AVR_RESET_S, P_INV_EXCITER_S, P_INV_PF_TRIM_S, P_NO_LOAD_VPU, P_OEL_ACTIVE, P_OEL_PU, P_ONLINE, P_Q_BASE_PU, P_REG_DROOP, P_REG_MODE, P_SETPOINT_VPU, P_SHUNT, P_SHUTDOWN, P_TAN_PHI, P_VHZ_KNEE_PU, P_VHZ_SLOPE_PU } from './par-layout';
+import {
+  O_P_OWN,
+  O_Q_OWN,
+  O_VT,
+  O_V_SENSED,
+  P_CEILING_PU,
+  P_CROSS_GAIN,
+  P_GAIN_PU,
+  P_INV_AVR_RESET_S,
+  P_INV_EXCITER_S,
+  P_INV_PF_TRIM_S,
+  P_NO_LOAD_VPU,
+  P_OEL_ACTIVE,
+  P_OEL_PU,
+  P_ONLINE,
+  P_Q_BASE_PU,
+  P_REG_DROOP,
+  P_REG_MODE,
+  P_SETPOINT_VPU,
+  P_SHUNT,
+  P_SHUTDOWN,
+  P_TAN_PHI,
+  P_VHZ_KNEE_PU,
+  P_VHZ_SLOPE_PU,
+} from './par-layout';
 
 /**
  * Under-frequency roll-off of the voltage reference, pu: below the knee the reference falls by
@@ -48,7 +72,7 @@ function setpointReference(m: SimModel, i: number, y: Float64Array, o: number, q
   if (mode === REG_VOLTAGE) return m.setpointVPU[i]!;
   if (mode === REG_CROSS) {
     if (!m.online[i]) return m.setpointVPU[i]!;
-    return m.setpointVPU[i]! - (crossCurrentGain(m, i) * (qOwn - qBarCross));
+    return m.setpointVPU[i]! - crossCurrentGain(m, i) * (qOwn - qBarCross);
   }
   return m.setpointVPU[i]! + y[o + VAR_TRIM]!;
 }

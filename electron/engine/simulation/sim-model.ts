@@ -56,7 +56,6 @@ function plantLoadSlot(l: Load, baseKVA: number): LoadSlot {
 /** Protection elements of a set, in the order checked (IEEE C37.2 device numbers). */
 export const PROTECTION_DEVICES = ['81U', '81O', '27', '59'] as const;
 
-
 /**
  * Compiles a validated plant (defaults filled) for a step of `stepS` seconds.
  * Lags shorter than two steps are raised to two steps (a lag that short has no
@@ -82,7 +81,8 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     omegaS: 2 * Math.PI * fr,
     par,
     ...views,
-    protPickupPU: new Float64Array(4 * n), protDelayS: new Float64Array(4 * n),
+    protPickupPU: new Float64Array(4 * n),
+    protDelayS: new Float64Array(4 * n),
     loads: [],
     raised: [],
   };

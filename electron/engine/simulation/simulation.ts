@@ -5,7 +5,17 @@
  * results recorded and decimated. Used by `simulate` for whole runs and by live views
  * (the operator trainer) a frame at a time.
  */
-import type { CloseRecord, ProtectionTrip, Scenario, ScenarioEvent, SharingResult, SimulationLogEntry, SimulationResult, SimulationSnapshot, SetSnapshot } from '../../../shared-types';
+import type {
+  CloseRecord,
+  ProtectionTrip,
+  Scenario,
+  ScenarioEvent,
+  SharingResult,
+  SimulationLogEntry,
+  SimulationResult,
+  SimulationSnapshot,
+  SetSnapshot,
+} from '../../../shared-types';
 import { Diverged, InvalidInput } from '../errors';
 import { wrapAngleDeg } from '../../../shared-types/angle';
 import { ratedCurrentA } from '../../../shared-types/laws';
@@ -125,7 +135,13 @@ class Run implements Simulation {
     this.events = [...scenario.events].sort((a, b) => a.atS - b.atS);
     const totalSteps = Math.round(scenario.durationS / this.stepS);
     this.recorder = new Recorder(m.ids, totalSteps, scenario.outputPoints ?? DEFAULT_OUTPUT_POINTS);
-    this.sample = { kW: new Float64Array(n), kVAR: new Float64Array(n), currentA: new Float64Array(n), speedHz: new Float64Array(n), terminalV: new Float64Array(n) };
+    this.sample = {
+      kW: new Float64Array(n),
+      kVAR: new Float64Array(n),
+      currentA: new Float64Array(n),
+      speedHz: new Float64Array(n),
+      terminalV: new Float64Array(n),
+    };
     this.reverseTimer = new Float64Array(n);
     this.protTimer = new Float64Array(PROTECTION_DEVICES.length * n);
     this.oelTimer = new Float64Array(n);
@@ -146,7 +162,8 @@ class Run implements Simulation {
       const w = fieldCeiling(s).warning;
       if (w) this.warnings.push(`${s.id}: ${w}`);
     }
-    if (m.raised.length > 0) this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
+    if (m.raised.length > 0)
+      this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
     this.evaluateAt(0);
     this.initialF = this.frequencyHz();
     this.initialV = this.voltageV();
@@ -310,7 +327,9 @@ class Run implements Simulation {
           m.oelActive[i] = 1;
           this.oelTimer[i] = 0;
           this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter acts: field held at ${lim.toFixed(2)} pu after ${m.oelDelayS[i]} s above it` });
-          this.warnings.push(`${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`);
+          this.warnings.push(
+            `${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`,
+          );
         }
       } else this.oelTimer[i] = 0;
     }
@@ -359,7 +378,12 @@ class Run implements Simulation {
         reverseTimer[i] = reverseTimer[i]! + h;
         if (reverseTimer[i]! >= m.reverseDelayS[i]! - 1e-9) {
           const setKW = m.kwPU[i]! * m.ratedKVA[i]!;
-          this.trip(i, t, '32', `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`);
+          this.trip(
+            i,
+            t,
+            '32',
+            `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`,
+          );
           operated = true;
           continue;
         }
@@ -380,7 +404,12 @@ class Run implements Simulation {
           const dev = PROTECTION_DEVICES[d]!;
           const what = ['under-frequency', 'over-frequency', 'undervoltage', 'overvoltage'][d]!;
           const pick = d < 2 ? `${(p * fr).toFixed(2)} Hz` : `${(p * vr).toFixed(0)} V`;
-          this.trip(i, t, dev, `${what} (device ${dev}): ${d % 2 === 0 ? 'below' : 'above'} ${pick} (${(p * 100).toFixed(1)} % of rated) for ${m.protDelayS[k]} s`);
+          this.trip(
+            i,
+            t,
+            dev,
+            `${what} (device ${dev}): ${d % 2 === 0 ? 'below' : 'above'} ${pick} (${(p * 100).toFixed(1)} % of rated) for ${m.protDelayS[k]} s`,
+          );
           operated = true;
           break;
         }
@@ -509,7 +538,8 @@ class Run implements Simulation {
     let droopPct = 0;
     for (let i = 0; i < m.n; i++) if (m.online[i] && m.govMode[i] === GOV_DROOP) droopPct = Math.max(droopPct, m.droop[i]! * 100);
     const warnings = [...this.warnings];
-    if (out.unconverged > 0) warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
+    if (out.unconverged > 0)
+      warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
     if (!out.anyOnline) warnings.push('No set is on line at the end of the run: the bus is dead.');
     if (this.lowVEpisodes > 0) {
       const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${this.lowVStartS.toFixed(2)} s).` : '';

@@ -50,7 +50,7 @@ export interface TimeDomainOptions {
 export function timeDomainClosingMapJob(req: ClosingMapRequest, options: TimeDomainOptions = {}): ClosingMapJob {
   const c = req.case;
   if (!c.plant || c.incomingSetId === undefined) {
-    throw new InvalidInput('method: the time-domain closing map needs the case\'s plant and incomingSetId (the simulator runs the whole plant).');
+    throw new InvalidInput("method: the time-domain closing map needs the case's plant and incomingSetId (the simulator runs the whole plant).");
   }
   if (req.angleSteps * req.slipSteps > TIME_DOMAIN_MAX_CELLS) {
     throw new InvalidInput(`angleSteps × slipSteps: must be ${TIME_DOMAIN_MAX_CELLS} cells or fewer for the time-domain map (each cell is a simulation).`);

@@ -3,7 +3,18 @@ export { evaluateSync } from './evaluate-sync';
 export { listSyncPresets, syncPreset, ieee1547PresetForRating } from './presets';
 export { syncCheck, sideState, DEFAULT_DEAD_PERMISSIVES } from './permissives';
 export type { SyncCheckInput, SyncCheckOutcome, SideState } from './permissives';
-export { closingSurge, closingSurgeForCase, surgeCircuit, surgeCurrentPU, powerStepPU, torqueStepPU, peakTorquePU, peakTorqueFactor, iecPeakFactor, noSurge } from './closing-surge';
+export {
+  closingSurge,
+  closingSurgeForCase,
+  surgeCircuit,
+  surgeCurrentPU,
+  powerStepPU,
+  torqueStepPU,
+  peakTorquePU,
+  peakTorqueFactor,
+  iecPeakFactor,
+  noSurge,
+} from './closing-surge';
 export type { SurgeCircuit } from './closing-surge';
 export { busEquivalent, incomingBranch, fictitiousROverX } from './bus-equivalent';
 export type { ImpedancePU } from './bus-equivalent';
@@ -15,13 +26,5 @@ export type { SyncBasis } from './sync-basis';
 export { incomingFromSet, plantBus } from './plant-case';
 export { phasorDifference, deltaVMagnitude, wrapAngleDeg, angleAfterDeg } from './phasor';
 export type { PhasorDifference } from './phasor';
-export {
-  slipPeriodS,
-  advanceAngleDeg,
-  windowOpenS,
-  windowTiming,
-  timeToAngleS,
-  closeCommandAngleDeg,
-  angleAtContactDeg,
-} from './slip-timing';
+export { slipPeriodS, advanceAngleDeg, windowOpenS, windowTiming, timeToAngleS, closeCommandAngleDeg, angleAtContactDeg } from './slip-timing';
 export type { WindowTiming } from './slip-timing';

@@ -68,9 +68,7 @@ function liveChecks(x: SyncCheckInput): SyncCheck[] {
       value: x.slipHz,
       limit: L.slipHz,
       unit: 'Hz',
-      message: slipOk
-        ? `Slip ${signed(x.slipHz, 3)} Hz is within ±${L.slipHz} Hz.`
-        : `Slip ${signed(x.slipHz, 3)} Hz is beyond the ±${L.slipHz} Hz limit.`,
+      message: slipOk ? `Slip ${signed(x.slipHz, 3)} Hz is within ±${L.slipHz} Hz.` : `Slip ${signed(x.slipHz, 3)} Hz is beyond the ±${L.slipHz} Hz limit.`,
     },
     {
       id: 'angle',

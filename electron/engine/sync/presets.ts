@@ -7,8 +7,7 @@ import type { SyncLimits, SyncPreset } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 
 const VERIFY = 'Verify against the standard you hold.';
-const UTILITY_NOTE =
-  'Written for a source closing onto a utility (area EPS); using it between generating sets is a convention.';
+const UTILITY_NOTE = 'Written for a source closing onto a utility (area EPS); using it between generating sets is a convention.';
 
 /** IEEE Std 1547-2018 clause 4.10 (enter service: synchronization), Table 5: parameter limits by aggregate rating [memory]. */
 const IEEE_1547: { id: string; band: string; minKVA: number; maxKVA: number | null; limits: SyncLimits }[] = [
@@ -18,17 +17,15 @@ const IEEE_1547: { id: string; band: string; minKVA: number; maxKVA: number | nu
 ];
 
 const PRESETS: readonly SyncPreset[] = [
-  ...IEEE_1547.map(
-    (b): SyncPreset => ({
-      id: b.id,
-      label: `IEEE 1547-2018, aggregate rating ${b.band}`,
-      source: `IEEE Std 1547-2018, clause 4.10 (synchronization), Table 5 (aggregate rating ${b.band})`,
-      note: `Values recalled, not confirmed against the published table (IEEE 1547-2003 Table 5 uses the same). ${VERIFY} ${UTILITY_NOTE}`,
-      limits: { ...b.limits },
-      confidence: 'memory',
-      ratingBandKVA: { minKVA: b.minKVA, maxKVA: b.maxKVA },
-    }),
-  ),
+  ...IEEE_1547.map((b): SyncPreset => ({
+    id: b.id,
+    label: `IEEE 1547-2018, aggregate rating ${b.band}`,
+    source: `IEEE Std 1547-2018, clause 4.10 (synchronization), Table 5 (aggregate rating ${b.band})`,
+    note: `Values recalled, not confirmed against the published table (IEEE 1547-2003 Table 5 uses the same). ${VERIFY} ${UTILITY_NOTE}`,
+    limits: { ...b.limits },
+    confidence: 'memory',
+    ratingBandKVA: { minKVA: b.minKVA, maxKVA: b.maxKVA },
+  })),
   {
     id: 'ieee-c50.12-c50.13',
     label: 'IEEE C50.12 / C50.13 (large synchronous generators)',
@@ -41,7 +38,7 @@ const PRESETS: readonly SyncPreset[] = [
     id: 'practice-generating-sets',
     label: 'Common practice, generating sets',
     source: 'Common practice for paralleling generating sets (no standard behind it)',
-    note: 'Typical sync-check settings: ΔV 2–5 % with the incoming set slightly high, Δf 0.05–0.2 Hz with the incoming set slightly fast, Δφ 5–10°. A rule of thumb: follow the makers\' and the site\'s settings.',
+    note: "Typical sync-check settings: ΔV 2–5 % with the incoming set slightly high, Δf 0.05–0.2 Hz with the incoming set slightly fast, Δφ 5–10°. A rule of thumb: follow the makers' and the site's settings.",
     limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5, incomingFaster: true },
     confidence: 'practice',
   },
@@ -49,7 +46,7 @@ const PRESETS: readonly SyncPreset[] = [
     id: 'practice-generating-sets-tight',
     label: 'Common practice, generating sets (tight)',
     source: 'Common practice for paralleling generating sets (no standard behind it)',
-    note: 'The tight end of the usual range: incoming slightly fast and slightly high. A rule of thumb: follow the makers\' and the site\'s settings.',
+    note: "The tight end of the usual range: incoming slightly fast and slightly high. A rule of thumb: follow the makers' and the site's settings.",
     limits: { slipHz: 0.1, angleDeg: 5, voltagePct: 2, incomingFaster: true, incomingHigher: true },
     confidence: 'practice',
   },

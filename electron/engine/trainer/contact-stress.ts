@@ -40,14 +40,7 @@ export function busReactanceOnMachineBasePU(machine: TrainerMachine, bus: Traine
  * - P = k V_bus² sin θ / (X''d + X_bus) (synchronizing power, Kundur 1994 eq. 6.2 form), torque T = P / ω;
  * - first-cycle peak torque (E1 E2 / X)(sin θ + 2 sin(θ/2)) / ω (see `peakTorqueFactor`).
  */
-export function contactStress(
-  machine: TrainerMachine,
-  bus: TrainerBus,
-  angleDeg: number,
-  voltageRatio: number,
-  speedPU = 1,
-  busVoltagePU = 1,
-): ContactStress {
+export function contactStress(machine: TrainerMachine, bus: TrainerBus, angleDeg: number, voltageRatio: number, speedPU = 1, busVoltagePU = 1): ContactStress {
   const loopXPU = machine.xddpPU + busReactanceOnMachineBasePU(machine, bus);
   // Base torque = rated kVA / mechanical speed; mechanical speed = 2π f / (poles / 2).
   const omegaMechRad = (2 * Math.PI * machine.ratedFrequencyHz) / (machine.poles / 2);

@@ -1,5 +1,13 @@
 /** The synchronizing trainer's engine: levels, exercises, the live model and the verdict of a close. */
-export { TRAINER_LEVELS, findLevel, DEFAULT_TRAINER_WINDOW, DEFAULT_TRAINER_MACHINE, DEFAULT_TRAINER_BUS, MACHINE_STANDARD_WINDOW, DEAD_BUS_CLOSE_LIMITS } from './levels';
+export {
+  TRAINER_LEVELS,
+  findLevel,
+  DEFAULT_TRAINER_WINDOW,
+  DEFAULT_TRAINER_MACHINE,
+  DEFAULT_TRAINER_BUS,
+  MACHINE_STANDARD_WINDOW,
+  DEAD_BUS_CLOSE_LIMITS,
+} from './levels';
 export { startExercise } from './exercise';
 export { stepTrainer, breakerActualMs, busFrequencyAt, governorDroopPU, SPEED_RAISE_HZ_PER_S, VOLTAGE_RAISE_PU_PER_S, MAX_FRAME_S } from './live-model';
 export { contactStress, busReactanceOnMachineBasePU } from './contact-stress';

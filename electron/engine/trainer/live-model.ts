@@ -28,7 +28,6 @@ export function governorDroopPU(machine: TrainerMachine): number {
   return Math.max(machine.droopPct, 1) / 100;
 }
 
-
 /** The breaker's real closing time, ms: the level's setting plus any slow-down scripted as a fault. */
 export function breakerActualMs(state: TrainerState): number {
   return state.level.breakerClosingMs + (state.faults?.breakerSlowMs ?? 0);
@@ -40,8 +39,7 @@ export function busFrequencyAt(state: TrainerState, tS: number): number {
   if (a === 0) return state.busBaseFrequencyHz;
   const d = state.drift;
   return (
-    state.busBaseFrequencyHz +
-    a * (0.65 * Math.sin((2 * Math.PI * tS) / d.period1S + d.phase1) + 0.35 * Math.sin((2 * Math.PI * tS) / d.period2S + d.phase2))
+    state.busBaseFrequencyHz + a * (0.65 * Math.sin((2 * Math.PI * tS) / d.period1S + d.phase1) + 0.35 * Math.sin((2 * Math.PI * tS) / d.period2S + d.phase2))
   );
 }
 

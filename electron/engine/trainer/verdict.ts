@@ -100,7 +100,14 @@ function judgeDeadBus(state: TrainerState, c: NonNullable<TrainerState['contact'
   const L = DEAD_BUS_CLOSE_LIMITS;
   const source = 'dead-bus close (common practice)';
   const checks: TrainerCheck[] = [
-    { quantity: 'Incoming voltage from rated', unit: '%', value: c.voltageDifferencePct, limit: L.voltagePct, source, within: Math.abs(c.voltageDifferencePct) <= L.voltagePct },
+    {
+      quantity: 'Incoming voltage from rated',
+      unit: '%',
+      value: c.voltageDifferencePct,
+      limit: L.voltagePct,
+      source,
+      within: Math.abs(c.voltageDifferencePct) <= L.voltagePct,
+    },
     { quantity: 'Incoming frequency from rated', unit: 'Hz', value: c.slipHz, limit: L.frequencyHz, source, within: Math.abs(c.slipHz) <= L.frequencyHz },
   ];
   const insideWindow = checks.every((k) => k.within);
@@ -113,7 +120,12 @@ function judgeDeadBus(state: TrainerState, c: NonNullable<TrainerState['contact'
   const at = `${f(m.ratedVoltageV * (1 + c.voltageDifferencePct / 100), 0)} V (${signed(c.voltageDifferencePct, 1)} % of rated), ${f(m.ratedFrequencyHz + c.slipHz, 2)} Hz (${signed(c.slipHz, 2)} Hz from rated)`;
   const parts = [
     insideWindow ? `Dead bus energised at ${at}: the bus takes rated voltage and frequency.` : `Dead bus energised off rated, at ${at}.`,
-    ...checks.filter((k) => !k.within).map((k) => `${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 2 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 2 : 1)} ${k.unit} a dead-bus close allows.`),
+    ...checks
+      .filter((k) => !k.within)
+      .map(
+        (k) =>
+          `${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 2 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 2 : 1)} ${k.unit} a dead-bus close allows.`,
+      ),
     'A dead bus has no voltage to synchronize to: no surge from an angle or slip; the loads the bus then picks up are not modelled here.',
     ...faultSentences(state),
   ];
@@ -128,7 +140,14 @@ function judgeDeadBus(state: TrainerState, c: NonNullable<TrainerState['contact'
     torqueStepKNm: 0,
     peakTorquePU: 0,
     peakTorqueKNm: 0,
-    machineLimits: { surgeCurrentPU: 0, torqueStepPU: 0, peakTorquePU: 0, peakCurrentPU: 0, peakPowerPU: 0, source: 'none: a dead-bus close has no synchronizing surge' },
+    machineLimits: {
+      surgeCurrentPU: 0,
+      torqueStepPU: 0,
+      peakTorquePU: 0,
+      peakCurrentPU: 0,
+      peakPowerPU: 0,
+      source: 'none: a dead-bus close has no synchronizing surge',
+    },
     checks,
     insideWindow,
     withinMachineLimits: true,
@@ -194,7 +213,14 @@ function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, 
   machineLimits.peakPowerPU = peak(edgeTraces.powerPU);
   const windowSource = state.level.mustSetWindow ? 'exercise window (graded)' : 'exercise window';
   const checks: TrainerCheck[] = [
-    { quantity: 'Phase angle at contact', unit: '°', value: c.angleDeg, limit: ref.angleDeg, source: windowSource, within: Math.abs(c.angleDeg) <= ref.angleDeg },
+    {
+      quantity: 'Phase angle at contact',
+      unit: '°',
+      value: c.angleDeg,
+      limit: ref.angleDeg,
+      source: windowSource,
+      within: Math.abs(c.angleDeg) <= ref.angleDeg,
+    },
     { quantity: 'Slip at contact', unit: 'Hz', value: c.slipHz, limit: ref.slipHz, source: windowSource, within: Math.abs(c.slipHz) <= ref.slipHz },
     {
       quantity: 'Voltage difference',
@@ -205,14 +231,36 @@ function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, 
       within: Math.abs(c.voltageDifferencePct) <= ref.voltagePct,
     },
   ];
-  if (ref.incomingFaster) checks.push({ quantity: 'Incoming faster than bus', unit: 'Hz', value: c.slipHz, limit: 0, source: windowSource, within: c.slipHz > 0 });
+  if (ref.incomingFaster)
+    checks.push({ quantity: 'Incoming faster than bus', unit: 'Hz', value: c.slipHz, limit: 0, source: windowSource, within: c.slipHz > 0 });
   if (ref.incomingHigher) {
-    checks.push({ quantity: 'Incoming voltage at or above bus', unit: '%', value: c.voltageDifferencePct, limit: 0, source: windowSource, within: c.voltageDifferencePct >= 0 });
+    checks.push({
+      quantity: 'Incoming voltage at or above bus',
+      unit: '%',
+      value: c.voltageDifferencePct,
+      limit: 0,
+      source: windowSource,
+      within: c.voltageDifferencePct >= 0,
+    });
   }
   const windowChecks = checks.length;
   checks.push(
-    { quantity: 'Surge current', unit: 'pu', value: stress.surgeCurrentPU, limit: machineLimits.surgeCurrentPU, source: 'machine limit', within: stress.surgeCurrentPU <= machineLimits.surgeCurrentPU * (1 + 1e-9) },
-    { quantity: 'Torque step', unit: 'pu', value: stress.torqueStepPU, limit: machineLimits.torqueStepPU, source: 'machine limit', within: Math.abs(stress.torqueStepPU) <= machineLimits.torqueStepPU * (1 + 1e-9) },
+    {
+      quantity: 'Surge current',
+      unit: 'pu',
+      value: stress.surgeCurrentPU,
+      limit: machineLimits.surgeCurrentPU,
+      source: 'machine limit',
+      within: stress.surgeCurrentPU <= machineLimits.surgeCurrentPU * (1 + 1e-9),
+    },
+    {
+      quantity: 'Torque step',
+      unit: 'pu',
+      value: stress.torqueStepPU,
+      limit: machineLimits.torqueStepPU,
+      source: 'machine limit',
+      within: Math.abs(stress.torqueStepPU) <= machineLimits.torqueStepPU * (1 + 1e-9),
+    },
     {
       quantity: 'Peak air-gap torque, first cycle',
       unit: 'pu',
@@ -221,8 +269,22 @@ function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, 
       source: 'machine limit',
       within: Math.abs(stress.peakTorquePU) <= machineLimits.peakTorquePU * (1 + 1e-9),
     },
-    { quantity: 'Peak current, first seconds', unit: 'pu', value: peakCurrentPU, limit: machineLimits.peakCurrentPU, source: 'machine limit (swing)', within: peakCurrentPU <= machineLimits.peakCurrentPU * (1 + 1e-9) },
-    { quantity: 'Peak power swing', unit: 'pu', value: peakPowerPU, limit: machineLimits.peakPowerPU, source: 'machine limit (swing)', within: peakPowerPU <= machineLimits.peakPowerPU * (1 + 1e-9) },
+    {
+      quantity: 'Peak current, first seconds',
+      unit: 'pu',
+      value: peakCurrentPU,
+      limit: machineLimits.peakCurrentPU,
+      source: 'machine limit (swing)',
+      within: peakCurrentPU <= machineLimits.peakCurrentPU * (1 + 1e-9),
+    },
+    {
+      quantity: 'Peak power swing',
+      unit: 'pu',
+      value: peakPowerPU,
+      limit: machineLimits.peakPowerPU,
+      source: 'machine limit (swing)',
+      within: peakPowerPU <= machineLimits.peakPowerPU * (1 + 1e-9),
+    },
   );
   const insideWindow = checks.slice(0, windowChecks).every((k) => k.within);
   const withinMachineLimits = checks.slice(windowChecks).every((k) => k.within);
@@ -265,7 +327,8 @@ function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, 
   const outside = checks.slice(0, windowChecks).filter((k) => !k.within);
   for (const k of outside) {
     if (k.limit === 0) parts.push(`${k.quantity} was required and not met.`);
-    else parts.push(`${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 3 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 3 : 1)} ${k.unit} limit.`);
+    else
+      parts.push(`${k.quantity} ${signed(k.value, k.unit === 'Hz' ? 3 : 1)} ${k.unit} exceeded the ±${f(k.limit, k.unit === 'Hz' ? 3 : 1)} ${k.unit} limit.`);
   }
   parts.push(
     `Surge ${f(stress.surgeCurrentPU, 2)} pu (${f(stress.surgeCurrentA, 0)} A), torque step ${f(stress.torqueStepPU, 2)} pu (${f(stress.torqueStepKNm, 2)} kN·m) ` +
@@ -280,7 +343,8 @@ function judgeContact(state: TrainerState, options: Partial<AfterCloseOptions>, 
       `In the first seconds the set swung to ${f(peakCurrentPU, 2)} pu current and ${f(peakPowerPU, 2)} pu power against ${f(machineLimits.peakCurrentPU, 2)} and ${f(machineLimits.peakPowerPU, 2)} pu for a close at the window's edge: it was pulled into step hard.`,
     );
   }
-  if (c.slipHz < 0 && Math.abs(c.angleDeg) < 90) parts.push('The incoming set was slower than the bus, so it took power from the bus at first (motoring) — reverse-power protection may see it.');
+  if (c.slipHz < 0 && Math.abs(c.angleDeg) < 90)
+    parts.push('The incoming set was slower than the bus, so it took power from the bus at first (motoring) — reverse-power protection may see it.');
   // The angle the set gained during the breaker's travel, the short way round (−34°, not 326°).
   const travel = wrapAngleDeg(c.angleDeg - c.commandAngleDeg);
   if (Math.abs(c.slipHz) > 1e-6 && Math.abs(c.angleDeg) > 3) {

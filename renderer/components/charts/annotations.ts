@@ -22,7 +22,13 @@ export interface HLineStyle {
 }
 
 /** A horizontal line at `y` on the `y` scale, labelled at its start (or end). */
-export function hLine(y: number, color: string, text: string, theme: ChartTheme, { dash = [6, 3], size = REGULAR_LABEL, position = 'start' }: HLineStyle = {}): AnnotationOptions<'line'> {
+export function hLine(
+  y: number,
+  color: string,
+  text: string,
+  theme: ChartTheme,
+  { dash = [6, 3], size = REGULAR_LABEL, position = 'start' }: HLineStyle = {},
+): AnnotationOptions<'line'> {
   return {
     type: 'line',
     yMin: y,
@@ -36,7 +42,15 @@ export function hLine(y: number, color: string, text: string, theme: ChartTheme,
 }
 
 /** A vertical line at `x` on the `x` scale, its label turned upright at `position`. */
-export function vLine(x: number, color: string, text: string, theme: ChartTheme, dash: number[], position: 'start' | 'end', size: LabelSize = SMALL_LABEL): AnnotationOptions<'line'> {
+export function vLine(
+  x: number,
+  color: string,
+  text: string,
+  theme: ChartTheme,
+  dash: number[],
+  position: 'start' | 'end',
+  size: LabelSize = SMALL_LABEL,
+): AnnotationOptions<'line'> {
   return {
     type: 'line',
     xMin: x,
@@ -45,6 +59,15 @@ export function vLine(x: number, color: string, text: string, theme: ChartTheme,
     borderColor: color,
     borderWidth: 1.5,
     borderDash: dash,
-    label: { display: true, content: text, position, rotation: -90, backgroundColor: theme.panel, color: theme.fg, font: { size: size.fontSize }, padding: size.padding },
+    label: {
+      display: true,
+      content: text,
+      position,
+      rotation: -90,
+      backgroundColor: theme.panel,
+      color: theme.fg,
+      font: { size: size.fontSize },
+      padding: size.padding,
+    },
   };
 }

@@ -80,15 +80,32 @@ export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 
       responsive: true,
       maintainAspectRatio: false,
       scales: {
-        x: { type: 'linear', min: xLo, max: xHi, title: { display: true, text: 'kW (motoring ← → generating)', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
-        y: { type: 'linear', min: yLo, max: yHi, title: { display: true, text: 'kVAR (leading ↓ ↑ lagging)', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
+        x: {
+          type: 'linear',
+          min: xLo,
+          max: xHi,
+          title: { display: true, text: 'kW (motoring ← → generating)', color: theme.fg },
+          ticks: { color: theme.muted },
+          grid: { color: theme.grid },
+        },
+        y: {
+          type: 'linear',
+          min: yLo,
+          max: yHi,
+          title: { display: true, text: 'kVAR (leading ↓ ↑ lagging)', color: theme.fg },
+          ticks: { color: theme.muted },
+          grid: { color: theme.grid },
+        },
       },
       plugins: {
         legend: { position: 'bottom', labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } },
         tooltip: { animation: false },
         annotation: {
           annotations: {
-            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, { dash: [3, 3], size: SMALL_LABEL }),
+            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, {
+              dash: [3, 3],
+              size: SMALL_LABEL,
+            }),
             rated: vLine(c.ratedKW, theme.muted, `${CAPABILITY_WORDS.rated} ${Math.round(c.ratedKW)} kW`, theme, [2, 4], 'end'),
             overload: vLine(c.overloadKW, theme.bad, `${CAPABILITY_WORDS.overload} ${Math.round(c.overloadKW)} kW`, theme, [10, 3], 'start'),
             zeroFuel: vLine(-c.motoringKW, theme.muted, `${CAPABILITY_WORDS.zeroFuel} −${Math.round(c.motoringKW)} kW`, theme, [4, 2], 'end'),

@@ -30,10 +30,22 @@ export function speedDroopLine(set: GenSet, plant: Plant): Characteristic {
   const lowKW = g.mode === 'droop' ? zeroFuelKW : Math.min(0, Math.max(zeroFuelKW, set.minKW));
   if (g.mode === 'baseload') return { kind: 'vertical', x: g.baseKW };
   if (g.mode === 'isochronous') {
-    return { kind: 'segment', points: [{ x: lowKW, y: g.setpointHz }, { x: highKW, y: g.setpointHz }] };
+    return {
+      kind: 'segment',
+      points: [
+        { x: lowKW, y: g.setpointHz },
+        { x: highKW, y: g.setpointHz },
+      ],
+    };
   }
   const f = (kW: number) => speedDroopHz(g.noLoadHz, g.droopPct, plant.ratedFrequencyHz, set.ratedKW, kW);
-  return { kind: 'segment', points: [{ x: lowKW, y: f(lowKW) }, { x: highKW, y: f(highKW) }] };
+  return {
+    kind: 'segment',
+    points: [
+      { x: lowKW, y: f(lowKW) },
+      { x: highKW, y: f(highKW) },
+    ],
+  };
 }
 
 /** Reactive base of `set` (the law in shared-types/laws.ts), kVAR. */
@@ -49,11 +61,23 @@ export function reactiveDroopLine(set: GenSet, plant: Plant, fromKVAR: number, t
   const r = set.regulator;
   if (r.mode === 'power-factor') return { kind: 'vertical', x: kW * tanPhi(r.pf) };
   if (r.mode !== 'reactive-droop') {
-    return { kind: 'segment', points: [{ x: fromKVAR, y: r.setpointV }, { x: toKVAR, y: r.setpointV }] };
+    return {
+      kind: 'segment',
+      points: [
+        { x: fromKVAR, y: r.setpointV },
+        { x: toKVAR, y: r.setpointV },
+      ],
+    };
   }
   const qBase = kVARBase(set);
   const v = (q: number) => reactiveDroopV(r.noLoadV, r.droopPct, plant.ratedVoltageV, qBase, q);
-  return { kind: 'segment', points: [{ x: fromKVAR, y: v(fromKVAR) }, { x: toKVAR, y: v(toKVAR) }] };
+  return {
+    kind: 'segment',
+    points: [
+      { x: fromKVAR, y: v(fromKVAR) },
+      { x: toKVAR, y: v(toKVAR) },
+    ],
+  };
 }
 
 /** The [min, max] of `values` widened by `pad` of the span (or by `minSpan` / 2 when flat). */
@@ -81,5 +105,10 @@ export function niceRange([lo, hi]: [number, number]): [number, number] {
 
 /** Points of a characteristic for a line dataset, with verticals spanning `[yLo, yHi]`. */
 export function characteristicPoints(c: Characteristic, yLo: number, yHi: number): XY[] {
-  return c.kind === 'segment' ? c.points : [{ x: c.x, y: yLo }, { x: c.x, y: yHi }];
+  return c.kind === 'segment'
+    ? c.points
+    : [
+        { x: c.x, y: yLo },
+        { x: c.x, y: yHi },
+      ];
 }

@@ -42,7 +42,16 @@ function basePlugins(theme: ChartTheme) {
   };
 }
 
-function setDatasets(setId: string, what: string, styleIndex: number, c: Characteristic, yLo: number, yHi: number, point: XY | null, theme: ChartTheme): Scatter[] {
+function setDatasets(
+  setId: string,
+  what: string,
+  styleIndex: number,
+  c: Characteristic,
+  yLo: number,
+  yHi: number,
+  point: XY | null,
+  theme: ChartTheme,
+): Scatter[] {
   const st = seriesStyle(styleIndex, theme);
   const datasets: Scatter[] = [
     {
@@ -161,7 +170,13 @@ export function reactiveDroopChart(plant: Plant, result: SharingResult | null, t
   for (const { s, i, r, c } of prepared) {
     const mode = s.regulator.mode;
     const what =
-      mode === 'reactive-droop' ? `reactive droop ${s.regulator.droopPct} %` : mode === 'cross-current' ? 'cross-current' : mode === 'voltage' ? 'voltage control' : `PF ${s.regulator.pf}`;
+      mode === 'reactive-droop'
+        ? `reactive droop ${s.regulator.droopPct} %`
+        : mode === 'cross-current'
+          ? 'cross-current'
+          : mode === 'voltage'
+            ? 'voltage control'
+            : `PF ${s.regulator.pf}`;
     datasets.push(...setDatasets(s.id, what, i, c, yLo, yHi, r ? { x: r.kVAR, y: r.terminalV } : null, theme));
   }
   return droopScatter(
@@ -187,7 +202,14 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
   const kva = rows.map(({ r }) => r?.kVA ?? 0);
   const ratedKW = rows.map(({ s }) => s.ratedKW);
   const ratedKVA = rows.map(({ s }) => s.ratedKVA);
-  const bar = (label: string, stack: string, data: number[], bg: (CanvasPattern | string)[] | CanvasPattern | string, border: string[] | string, borderWidth = 0) => ({
+  const bar = (
+    label: string,
+    stack: string,
+    data: number[],
+    bg: (CanvasPattern | string)[] | CanvasPattern | string,
+    border: string[] | string,
+    borderWidth = 0,
+  ) => ({
     label,
     stack,
     data,
@@ -199,12 +221,53 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
     categoryPercentage: 0.8,
   });
   const datasets = [
-    bar('kW output', 'kW', kw.map((v, k) => Math.min(v, ratedKW[k] ?? 0)), colors, colors),
-    bar('kW above rating', 'kW', kw.map((v, k) => Math.max(0, v - (ratedKW[k] ?? 0))), over, theme.bad, 1),
-    bar('kW spare to rating', 'kW', kw.map((v, k) => Math.max(0, (ratedKW[k] ?? 0) - Math.max(0, v))), colors.map((c) => withAlpha(c, 0.12)), colors, 1),
-    bar('kVA output', 'kVA', kva.map((v, k) => Math.min(v, ratedKVA[k] ?? 0)), colors.map((c) => hatch(c, withAlpha(c, 0.35))), colors, 1),
-    bar('kVA above rating', 'kVA', kva.map((v, k) => Math.max(0, v - (ratedKVA[k] ?? 0))), over, theme.bad, 1),
-    bar('kVA spare to rating', 'kVA', kva.map((v, k) => Math.max(0, (ratedKVA[k] ?? 0) - v)), colors.map((c) => withAlpha(c, 0.12)), colors, 1),
+    bar(
+      'kW output',
+      'kW',
+      kw.map((v, k) => Math.min(v, ratedKW[k] ?? 0)),
+      colors,
+      colors,
+    ),
+    bar(
+      'kW above rating',
+      'kW',
+      kw.map((v, k) => Math.max(0, v - (ratedKW[k] ?? 0))),
+      over,
+      theme.bad,
+      1,
+    ),
+    bar(
+      'kW spare to rating',
+      'kW',
+      kw.map((v, k) => Math.max(0, (ratedKW[k] ?? 0) - Math.max(0, v))),
+      colors.map((c) => withAlpha(c, 0.12)),
+      colors,
+      1,
+    ),
+    bar(
+      'kVA output',
+      'kVA',
+      kva.map((v, k) => Math.min(v, ratedKVA[k] ?? 0)),
+      colors.map((c) => hatch(c, withAlpha(c, 0.35))),
+      colors,
+      1,
+    ),
+    bar(
+      'kVA above rating',
+      'kVA',
+      kva.map((v, k) => Math.max(0, v - (ratedKVA[k] ?? 0))),
+      over,
+      theme.bad,
+      1,
+    ),
+    bar(
+      'kVA spare to rating',
+      'kVA',
+      kva.map((v, k) => Math.max(0, (ratedKVA[k] ?? 0) - v)),
+      colors.map((c) => withAlpha(c, 0.12)),
+      colors,
+      1,
+    ),
   ];
   const legendItems: LegendItem[] = [
     { text: 'kW output (solid)', fillStyle: theme.muted, strokeStyle: theme.muted, lineWidth: 1, fontColor: theme.fg },
@@ -242,7 +305,7 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
  */
 export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTheme, markKW: number | null): ChartConfiguration {
   const points = sweep?.points ?? [];
-  const datasets: ChartDataset<'scatter', ({ x: number; y: number | null })[]>[] = [
+  const datasets: ChartDataset<'scatter', { x: number; y: number | null }[]>[] = [
     {
       label: 'Bus frequency (Hz, left)',
       yAxisID: 'f',
@@ -296,7 +359,11 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
       animation: false,
       scales: {
         // The load axis ends on a round value (2500 kW, not 2244) so the last tick and the "no steady state" label fit.
-        x: axis(theme, 'Total load (kW)', { min: 0, max: points.length ? niceBounds(0, points[points.length - 1]!.loadKW)[1] : undefined, afterBuildTicks: roundTicks(6) }),
+        x: axis(theme, 'Total load (kW)', {
+          min: 0,
+          max: points.length ? niceBounds(0, points[points.length - 1]!.loadKW)[1] : undefined,
+          afterBuildTicks: roundTicks(6),
+        }),
         f: axis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
         p: axis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
       },
@@ -339,7 +406,15 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
                     borderColor: theme.accent,
                     borderWidth: 1.5,
                     borderDash: [4, 3],
-                    label: { display: true, content: `shown load ${fix(markKW, 0)} kW`, position: 'start', backgroundColor: theme.panel, color: theme.fg, font: { size: 11 }, padding: 3 },
+                    label: {
+                      display: true,
+                      content: `shown load ${fix(markKW, 0)} kW`,
+                      position: 'start',
+                      backgroundColor: theme.panel,
+                      color: theme.fg,
+                      font: { size: 11 },
+                      padding: 3,
+                    },
                   },
                 }),
           },

@@ -56,9 +56,13 @@ export function readChartTheme(): ChartTheme {
 export function useChartTheme(): ShallowRef<ChartTheme> {
   const theme = shallowRef(readChartTheme());
   // Follows the theme in use (the switch, or the system's setting under "System").
-  const stop = watch(themeInUse, () => {
-    theme.value = readChartTheme();
-  }, { flush: 'post' });
+  const stop = watch(
+    themeInUse,
+    () => {
+      theme.value = readChartTheme();
+    },
+    { flush: 'post' },
+  );
   onBeforeUnmount(stop);
   return theme;
 }

@@ -10,7 +10,13 @@ import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
 
 function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
-  return { type: 'linear', title: { display: true, text: title, color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid }, border: { color: theme.grid } } as ScaleOptions<'linear'>;
+  return {
+    type: 'linear',
+    title: { display: true, text: title, color: theme.fg },
+    ticks: { color: theme.muted },
+    grid: { color: theme.grid },
+    border: { color: theme.grid },
+  } as ScaleOptions<'linear'>;
 }
 
 const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
@@ -23,7 +29,15 @@ function config(datasets: ChartDataset<'scatter', XY[]>[], yTitle: string, theme
   return {
     type: 'scatter',
     data: { datasets },
-    options: { animation: false, responsive: true, maintainAspectRatio: false, parsing: false, normalized: true, scales: { x: axis(theme, 'time, s'), y: axis(theme, yTitle) }, plugins: { legend: legend(theme) } },
+    options: {
+      animation: false,
+      responsive: true,
+      maintainAspectRatio: false,
+      parsing: false,
+      normalized: true,
+      scales: { x: axis(theme, 'time, s'), y: axis(theme, yTitle) },
+      plugins: { legend: legend(theme) },
+    },
   };
 }
 
@@ -31,7 +45,21 @@ function config(datasets: ChartDataset<'scatter', XY[]>[], yTitle: string, theme
 export function recordChart(record: TestRecord, quantity: 'frequency' | 'voltage', theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
   const st = seriesStyle(0, theme);
   const y = quantity === 'frequency' ? record.frequencyHz : record.voltageV;
-  return config([{ label: `measured ${quantity}`, data: points(record.tS, y), showLine: true, borderColor: st.color, backgroundColor: st.color, borderWidth: 1.5, pointRadius: 0 }], quantity === 'frequency' ? 'frequency, Hz' : 'voltage, V', theme);
+  return config(
+    [
+      {
+        label: `measured ${quantity}`,
+        data: points(record.tS, y),
+        showLine: true,
+        borderColor: st.color,
+        backgroundColor: st.color,
+        borderWidth: 1.5,
+        pointRadius: 0,
+      },
+    ],
+    quantity === 'frequency' ? 'frequency, Hz' : 'voltage, V',
+    theme,
+  );
 }
 
 /** Measured (faint dots, drawn beneath), fitted model (line on top) and the model with the start values (thin dashed). */
@@ -42,9 +70,39 @@ export function overlayChart(fit: FitResult, quantity: 'frequency' | 'voltage', 
   const start = seriesStyle(2, theme);
   return config(
     [
-      { label: 'measured', data: points(fit.measured.tS, pick(fit.measured)), showLine: false, borderColor: withAlpha(measured.color, 0.55), backgroundColor: withAlpha(measured.color, 0.35), pointRadius: 1.2, pointStyle: 'circle', order: 3 },
-      { label: 'model, fitted', data: points(fit.fitted.tS, pick(fit.fitted)), showLine: true, borderColor: model.color, backgroundColor: model.color, borderWidth: 2, pointRadius: 0, pointStyle: 'line', order: 1 },
-      { label: 'model, start values', data: points(fit.startTrace.tS, pick(fit.startTrace)), showLine: true, borderColor: withAlpha(start.color, 0.8), backgroundColor: start.color, borderDash: [5, 4], borderWidth: 1.2, pointRadius: 0, pointStyle: 'line', order: 2 },
+      {
+        label: 'measured',
+        data: points(fit.measured.tS, pick(fit.measured)),
+        showLine: false,
+        borderColor: withAlpha(measured.color, 0.55),
+        backgroundColor: withAlpha(measured.color, 0.35),
+        pointRadius: 1.2,
+        pointStyle: 'circle',
+        order: 3,
+      },
+      {
+        label: 'model, fitted',
+        data: points(fit.fitted.tS, pick(fit.fitted)),
+        showLine: true,
+        borderColor: model.color,
+        backgroundColor: model.color,
+        borderWidth: 2,
+        pointRadius: 0,
+        pointStyle: 'line',
+        order: 1,
+      },
+      {
+        label: 'model, start values',
+        data: points(fit.startTrace.tS, pick(fit.startTrace)),
+        showLine: true,
+        borderColor: withAlpha(start.color, 0.8),
+        backgroundColor: start.color,
+        borderDash: [5, 4],
+        borderWidth: 1.2,
+        pointRadius: 0,
+        pointStyle: 'line',
+        order: 2,
+      },
     ],
     quantity === 'frequency' ? 'frequency, Hz' : 'voltage, V',
     theme,
@@ -59,8 +117,27 @@ export function residualChart(fit: FitResult, ratedFrequencyHz: number, ratedVol
   const rv = fit.measured.tS.map((t, k) => ({ x: t, y: ((fit.measured.voltageV[k]! - fit.fitted.voltageV[k]!) / ratedVoltageV) * 100 }));
   return config(
     [
-      { label: 'frequency residual', data: rf, showLine: true, borderColor: f.color, backgroundColor: f.color, borderWidth: 1, pointRadius: 0, pointStyle: f.pointStyle },
-      { label: 'voltage residual', data: rv, showLine: true, borderColor: v.color, backgroundColor: v.color, borderDash: [4, 3], borderWidth: 1, pointRadius: 0, pointStyle: v.pointStyle },
+      {
+        label: 'frequency residual',
+        data: rf,
+        showLine: true,
+        borderColor: f.color,
+        backgroundColor: f.color,
+        borderWidth: 1,
+        pointRadius: 0,
+        pointStyle: f.pointStyle,
+      },
+      {
+        label: 'voltage residual',
+        data: rv,
+        showLine: true,
+        borderColor: v.color,
+        backgroundColor: v.color,
+        borderDash: [4, 3],
+        borderWidth: 1,
+        pointRadius: 0,
+        pointStyle: v.pointStyle,
+      },
     ],
     'measured − model, % of rated',
     theme,

@@ -12,7 +12,13 @@ import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
 
 function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
-  return { type: 'linear', title: { display: true, text: title, color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid }, border: { color: theme.grid } } as ScaleOptions<'linear'>;
+  return {
+    type: 'linear',
+    title: { display: true, text: title, color: theme.fg },
+    ticks: { color: theme.muted },
+    grid: { color: theme.grid },
+    border: { color: theme.grid },
+  } as ScaleOptions<'linear'>;
 }
 
 const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
@@ -23,7 +29,10 @@ export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed
   now.sets.forEach((s, i) => {
     if (!s.online) return;
     const st = seriesStyle(i, theme);
-    for (const [plant, when] of [[now, 'now'], [proposed, 'proposed']] as const) {
+    for (const [plant, when] of [
+      [now, 'now'],
+      [proposed, 'proposed'],
+    ] as const) {
       const set = plant.sets[i]!;
       const qTop = kVARBase(set.ratedKVA, set.ratedPF);
       const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
@@ -46,12 +55,24 @@ export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed
   return {
     type: 'scatter',
     data: { datasets },
-    options: { animation: false, responsive: true, maintainAspectRatio: false, scales: { x: axis(theme, x), y: axis(theme, y) }, plugins: { legend: legend(theme) } },
+    options: {
+      animation: false,
+      responsive: true,
+      maintainAspectRatio: false,
+      scales: { x: axis(theme, x), y: axis(theme, y) },
+      plugins: { legend: legend(theme) },
+    },
   };
 }
 
 /** The bus across the load range, now and proposed, with the band drawn as two lines. */
-export function busAcrossChart(quantity: 'frequency' | 'voltage', now: PlanCheck, proposed: PlanCheck, band: Band, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
+export function busAcrossChart(
+  quantity: 'frequency' | 'voltage',
+  now: PlanCheck,
+  proposed: PlanCheck,
+  band: Band,
+  theme: ChartTheme,
+): ChartConfiguration<'scatter', XY[]> {
   const pick = (c: PlanCheck): XY[] =>
     c.points.flatMap((p) => {
       const y = quantity === 'frequency' ? p.frequencyHz : p.voltageV;
@@ -63,8 +84,27 @@ export function busAcrossChart(quantity: 'frequency' | 'voltage', now: PlanCheck
     type: 'scatter',
     data: {
       datasets: [
-        { label: 'now', data: pick(now), showLine: true, borderColor: theme.muted, backgroundColor: theme.muted, borderDash: [3, 3], borderWidth: 1.5, pointStyle: 'rect', pointRadius: 4 },
-        { label: 'proposed', data: pick(proposed), showLine: true, borderColor: theme.accent, backgroundColor: theme.accent, borderWidth: 2.5, pointStyle: 'circle', pointRadius: 4 },
+        {
+          label: 'now',
+          data: pick(now),
+          showLine: true,
+          borderColor: theme.muted,
+          backgroundColor: theme.muted,
+          borderDash: [3, 3],
+          borderWidth: 1.5,
+          pointStyle: 'rect',
+          pointRadius: 4,
+        },
+        {
+          label: 'proposed',
+          data: pick(proposed),
+          showLine: true,
+          borderColor: theme.accent,
+          backgroundColor: theme.accent,
+          borderWidth: 2.5,
+          pointStyle: 'circle',
+          pointRadius: 4,
+        },
       ],
     },
     options: {
@@ -72,7 +112,15 @@ export function busAcrossChart(quantity: 'frequency' | 'voltage', now: PlanCheck
       responsive: true,
       maintainAspectRatio: false,
       scales: { x: axis(theme, 'load, % of online rated kW'), y: axis(theme, `bus ${quantity}, ${unit}`) },
-      plugins: { legend: legend(theme), annotation: { annotations: { lo: edge(band.min, `band min ${band.min.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`), hi: edge(band.max, `band max ${band.max.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`) } } },
+      plugins: {
+        legend: legend(theme),
+        annotation: {
+          annotations: {
+            lo: edge(band.min, `band min ${band.min.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
+            hi: edge(band.max, `band max ${band.max.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
+          },
+        },
+      },
     },
   };
 }
@@ -82,7 +130,10 @@ export function histogramChart(d: Distribution, title: string, digits: number, t
   const labels = d.counts.map((_, k) => ((d.edges[k]! + d.edges[k + 1]!) / 2).toFixed(digits));
   return {
     type: 'bar',
-    data: { labels, datasets: [{ label: 'samples', data: d.counts, backgroundColor: withAlpha(theme.accent, 0.7), borderColor: theme.accent, borderWidth: 1 }] },
+    data: {
+      labels,
+      datasets: [{ label: 'samples', data: d.counts, backgroundColor: withAlpha(theme.accent, 0.7), borderColor: theme.accent, borderWidth: 1 }],
+    },
     options: {
       animation: false,
       responsive: true,

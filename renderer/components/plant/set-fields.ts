@@ -60,8 +60,14 @@ const regulatorModes: Choice[] = [
   { value: 'power-factor', label: 'power factor' },
 ];
 
-const govUnused = (used: string, ...modes: string[]) => (s: SetModes) => (modes.includes(s.governorMode) ? null : `used in ${used} mode`);
-const regUnused = (used: string, ...modes: string[]) => (s: SetModes) => (modes.includes(s.regulatorMode) ? null : `used in ${used} mode`);
+const govUnused =
+  (used: string, ...modes: string[]) =>
+  (s: SetModes) =>
+    modes.includes(s.governorMode) ? null : `used in ${used} mode`;
+const regUnused =
+  (used: string, ...modes: string[]) =>
+  (s: SetModes) =>
+    modes.includes(s.regulatorMode) ? null : `used in ${used} mode`;
 
 /** The groups of the set sheet, top to bottom. */
 export const SET_GROUPS: readonly SheetGroup[] = [
@@ -106,7 +112,14 @@ export const SET_GROUPS: readonly SheetGroup[] = [
         typical: '25 four-stroke diesel (IEEE C37.102, from memory)',
         hint: 'What the set draws from the bus at zero fuel: typical figure for a four-stroke diesel from the IEEE C37.102 table of motoring power (value from memory); verify with the engine maker',
       },
-      { key: 'minKW', label: 'Minimum output', unit: 'kW', kind: 'number', step: 10, hint: 'Lower limit of the load controller (isochronous and base load); a droop set goes down to zero fuel and motors' },
+      {
+        key: 'minKW',
+        label: 'Minimum output',
+        unit: 'kW',
+        kind: 'number',
+        step: 10,
+        hint: 'Lower limit of the load controller (isochronous and base load); a droop set goes down to zero fuel and motors',
+      },
       { key: 'reversePowerTripPct', label: 'Reverse-power trip (32)', unit: '% kW', kind: 'number', step: 1, typical: TYPICAL_RANGES.reversePowerTripPct },
       { key: 'reversePowerDelayS', label: 'Reverse-power delay (32)', unit: 's', kind: 'number', step: 0.5, typical: '2–10 (common practice)' },
       { key: 'leadingKVARLimitPct', label: 'Leading kVAR limit', unit: '% kVA', kind: 'number', step: 5 },
@@ -118,7 +131,15 @@ export const SET_GROUPS: readonly SheetGroup[] = [
     note: 'droop % = 100 × (f no-load − f at rated kW) / f rated',
     rows: [
       { key: 'governor.mode', label: 'Mode', unit: '', kind: 'select', choices: governorModes },
-      { key: 'governor.droopPct', label: 'Speed droop', unit: '%', kind: 'number', step: 0.5, typical: TYPICAL_RANGES['governor.droopPct'], unusedWhen: govUnused('droop', 'droop') },
+      {
+        key: 'governor.droopPct',
+        label: 'Speed droop',
+        unit: '%',
+        kind: 'number',
+        step: 0.5,
+        typical: TYPICAL_RANGES['governor.droopPct'],
+        unusedWhen: govUnused('droop', 'droop'),
+      },
       { key: 'governor.noLoadHz', label: 'No-load frequency', unit: 'Hz', kind: 'number', step: 0.1, unusedWhen: govUnused('droop', 'droop') },
       { key: 'governor.setpointHz', label: 'Setpoint frequency', unit: 'Hz', kind: 'number', step: 0.1, unusedWhen: govUnused('isochronous', 'isochronous') },
       { key: 'governor.baseKW', label: 'Base load', unit: 'kW', kind: 'number', step: 10, unusedWhen: govUnused('base-load', 'baseload') },
@@ -139,9 +160,24 @@ export const SET_GROUPS: readonly SheetGroup[] = [
     note: 'reactive droop: % of rated V at the kVAR of rated current and rated PF',
     rows: [
       { key: 'regulator.mode', label: 'Mode', unit: '', kind: 'select', choices: regulatorModes },
-      { key: 'regulator.droopPct', label: 'Reactive droop', unit: '%', kind: 'number', step: 0.5, typical: TYPICAL_RANGES['regulator.droopPct'], unusedWhen: regUnused('reactive-droop', 'reactive-droop') },
+      {
+        key: 'regulator.droopPct',
+        label: 'Reactive droop',
+        unit: '%',
+        kind: 'number',
+        step: 0.5,
+        typical: TYPICAL_RANGES['regulator.droopPct'],
+        unusedWhen: regUnused('reactive-droop', 'reactive-droop'),
+      },
       { key: 'regulator.noLoadV', label: 'No-load voltage', unit: 'V', kind: 'number', step: 1, unusedWhen: regUnused('reactive-droop', 'reactive-droop') },
-      { key: 'regulator.setpointV', label: 'Setpoint voltage', unit: 'V', kind: 'number', step: 1, unusedWhen: regUnused('voltage or cross-current', 'voltage', 'cross-current') },
+      {
+        key: 'regulator.setpointV',
+        label: 'Setpoint voltage',
+        unit: 'V',
+        kind: 'number',
+        step: 1,
+        unusedWhen: regUnused('voltage or cross-current', 'voltage', 'cross-current'),
+      },
       { key: 'regulator.pf', label: 'Power factor held', unit: 'lag', kind: 'number', step: 0.01, unusedWhen: regUnused('power-factor', 'power-factor') },
     ],
   },
@@ -172,7 +208,15 @@ export const SET_GROUPS: readonly SheetGroup[] = [
     rows: [
       { key: 'governor.actuatorLagS', label: 'Governor actuator lag', unit: 's', kind: 'number', step: 0.01, typical: '0.02–0.1' },
       { key: 'governor.engineLagS', label: 'Engine torque lag', unit: 's', kind: 'number', step: 0.05, typical: '0.1–0.5' },
-      { key: 'governor.isoResetS', label: 'Isochronous reset time', unit: 's', kind: 'number', step: 0.5, typical: '1–5', unusedWhen: govUnused('isochronous', 'isochronous') },
+      {
+        key: 'governor.isoResetS',
+        label: 'Isochronous reset time',
+        unit: 's',
+        kind: 'number',
+        step: 0.5,
+        typical: '1–5',
+        unusedWhen: govUnused('isochronous', 'isochronous'),
+      },
       {
         key: 'governor.isoGainPU',
         label: 'Isochronous gain',
@@ -211,13 +255,28 @@ export const SET_GROUPS: readonly SheetGroup[] = [
         kind: 'number',
         step: 0.1,
         typical: '1.5–2 × rated-load field',
-        hint: 'Leave empty to use 1.6 × the field at rated load and rated power factor, worked out from X d and X\'d',
+        hint: "Leave empty to use 1.6 × the field at rated load and rated power factor, worked out from X d and X'd",
       },
-      { key: 'regulator.shuntExcited', label: 'Excitation supply', unit: '', kind: 'check', words: ['shunt (self)', 'separate'], hint: 'Shunt: the field ceiling follows the terminal voltage' },
+      {
+        key: 'regulator.shuntExcited',
+        label: 'Excitation supply',
+        unit: '',
+        kind: 'check',
+        words: ['shunt (self)', 'separate'],
+        hint: 'Shunt: the field ceiling follows the terminal voltage',
+      },
       { key: 'regulator.residualPU', label: 'Residual voltage', unit: 'pu', kind: 'number', step: 0.01, typical: '0.01–0.05' },
       { key: 'regulator.vhzKneeBelowHz', label: 'V/Hz roll-off knee below rated', unit: 'Hz', kind: 'number', step: 0.5, typical: '1–2' },
       { key: 'regulator.vhzSlopePctPerHz', label: 'V/Hz roll-off slope (0: off)', unit: '% V/Hz', kind: 'number', step: 0.5, typical: 'a few % per Hz' },
-      { key: 'regulator.oelPct', label: 'Over-excitation limit (0: off)', unit: '% field', kind: 'number', step: 5, typical: '105–120', hint: '% of the field at rated load' },
+      {
+        key: 'regulator.oelPct',
+        label: 'Over-excitation limit (0: off)',
+        unit: '% field',
+        kind: 'number',
+        step: 5,
+        typical: '105–120',
+        hint: '% of the field at rated load',
+      },
       { key: 'regulator.oelDelayS', label: 'Over-excitation delay', unit: 's', kind: 'number', step: 1, typical: '5–20' },
       {
         key: 'regulator.oelResetS',
@@ -237,7 +296,7 @@ export const SET_GROUPS: readonly SheetGroup[] = [
         kind: 'number',
         step: 0.005,
         typical: `0.01–0.05 (${SET_DEFAULTS.tddopS}, typical data, from memory)`,
-        hint: 'How fast the damper windings’ flux decays; must be less than T\'d0',
+        hint: "How fast the damper windings’ flux decays; must be less than T'd0",
       },
       { key: 'protection.underFrequencyPct', label: 'Under-frequency 81U pickup (0: off)', unit: '% f', kind: 'number', step: 0.5, typical: '90–96' },
       { key: 'protection.underFrequencyDelayS', label: 'Under-frequency 81U delay', unit: 's', kind: 'number', step: 0.5, typical: '2–10' },

@@ -49,7 +49,23 @@ export function sharingRows(result: SharingResult, totalPF: number | null, total
     s.flags.map((f) => flagInfo(f).words).join('; '),
   ]);
   const t = result.totals;
-  rows.push(['Total', '', fmt(t.kW, 1), fmt(t.kVAR, 1), fmt(t.kVA, 1), totalPF === null ? '—' : fmtPF(totalPF, t.kVAR >= 0), '', '', fmt(totalLoadingPct, 1), '', '', '', '', '', '']);
+  rows.push([
+    'Total',
+    '',
+    fmt(t.kW, 1),
+    fmt(t.kVAR, 1),
+    fmt(t.kVA, 1),
+    totalPF === null ? '—' : fmtPF(totalPF, t.kVAR >= 0),
+    '',
+    '',
+    fmt(totalLoadingPct, 1),
+    '',
+    '',
+    '',
+    '',
+    '',
+    '',
+  ]);
   return rows;
 }
 

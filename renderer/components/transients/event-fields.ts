@@ -20,7 +20,7 @@ const newBlock = (e: Record<string, unknown>) => e['loadId'] === undefined;
 /** Fields per event type, in the order shown (time is always first and not listed here). */
 export const EVENT_FIELDS: Readonly<Record<ScenarioEventType, readonly EventField[]>> = {
   'load-step': [
-    { key: 'loadId', label: 'Load', unit: '', kind: 'load', optional: true, hint: 'a new block, or one of the plant\'s loads switched on or off' },
+    { key: 'loadId', label: 'Load', unit: '', kind: 'load', optional: true, hint: "a new block, or one of the plant's loads switched on or off" },
     { key: 'kW', label: 'Active', unit: 'kW', kind: 'number', hint: 'negative sheds load', when: newBlock },
     { key: 'kVAR', label: 'Reactive', unit: 'kVAR', kind: 'number', when: newBlock },
     { key: 'online', label: 'Switch', unit: '', kind: 'on-off', when: (e) => !newBlock(e) },

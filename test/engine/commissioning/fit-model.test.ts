@@ -22,9 +22,23 @@ const TEST: TestDescription = { setId: 'G1', onlineSetIds: ['G1'], startKW: 200,
 /** A record of the test from the true parameters, 10 ms samples over 6 s, with uniform noise ±0.01 Hz and ±0.4 V. */
 function syntheticRecord(seed: number): TestRecord {
   const plant = basePlant();
-  const set = withParameters(plant.sets[0]!, KEYS, KEYS.map((k) => TRUE[k]!));
-  const truth: Plant = { ...plant, sets: [set, { ...plant.sets[1]!, online: false }], loads: [{ id: 'LB', name: 'bank', online: true, kW: TEST.startKW, kVAR: TEST.startKVAR, model: 'constant-power', frequencySensitivity: 0 }] };
-  const r = simulate({ plant: truth, durationS: 6.01, stepMs: 2, outputPoints: 4000, events: [{ atS: 1, type: 'load-step', kW: TEST.stepKW, kVAR: TEST.stepKVAR, model: 'constant-power' }] });
+  const set = withParameters(
+    plant.sets[0]!,
+    KEYS,
+    KEYS.map((k) => TRUE[k]!),
+  );
+  const truth: Plant = {
+    ...plant,
+    sets: [set, { ...plant.sets[1]!, online: false }],
+    loads: [{ id: 'LB', name: 'bank', online: true, kW: TEST.startKW, kVAR: TEST.startKVAR, model: 'constant-power', frequencySensitivity: 0 }],
+  };
+  const r = simulate({
+    plant: truth,
+    durationS: 6.01,
+    stepMs: 2,
+    outputPoints: 4000,
+    events: [{ atS: 1, type: 'load-step', kW: TEST.stepKW, kVAR: TEST.stepKVAR, model: 'constant-power' }],
+  });
   const rng = xoroshiro128plus(42 + seed);
   const noise = (a: number) => a * (2 * uniformFloat64(rng) - 1);
   const rec: TestRecord = { tS: [], frequencyHz: [], voltageV: [] };

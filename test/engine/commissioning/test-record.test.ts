@@ -31,7 +31,12 @@ function refusal(req: ParseRecordRequest): string {
 
 describe('reading a test record', () => {
   it('reads seconds, hertz and volts, passing over comment lines', () => {
-    const r = parseTestRecord(base(SECONDS, { columns: { time: 't_s', frequency: 'frequency_Hz', voltage: 'voltage_V', kW: 'kW' }, units: { time: 's', frequency: 'Hz', voltage: 'V', kW: 'kW' } }));
+    const r = parseTestRecord(
+      base(SECONDS, {
+        columns: { time: 't_s', frequency: 'frequency_Hz', voltage: 'voltage_V', kW: 'kW' },
+        units: { time: 's', frequency: 'Hz', voltage: 'V', kW: 'kW' },
+      }),
+    );
     expect(r.record.tS).toEqual([0, 0.1, 0.2]);
     expect(r.record.frequencyHz).toEqual([50, 49.9, 49.8]);
     expect(r.record.kW).toEqual([200, 700, 700]);
@@ -49,7 +54,12 @@ describe('reading a test record', () => {
   });
 
   it('reads % of rated frequency and voltage', () => {
-    const r = parseTestRecord(base('t,f,v\n0,100,100\n1,99.5,97\n2,99,98\n', { columns: { time: 't', frequency: 'f', voltage: 'v' }, units: { time: 's', frequency: '%', voltage: '%' } }));
+    const r = parseTestRecord(
+      base('t,f,v\n0,100,100\n1,99.5,97\n2,99,98\n', {
+        columns: { time: 't', frequency: 'f', voltage: 'v' },
+        units: { time: 's', frequency: '%', voltage: '%' },
+      }),
+    );
     expect(r.record.frequencyHz[1]).toBeCloseTo(49.75, 12);
     expect(r.record.voltageV[1]).toBeCloseTo(388, 12);
   });
@@ -72,7 +82,9 @@ describe('reading a test record', () => {
   });
 
   it('refuses text in a number, naming the line and the column', () => {
-    expect(refusal(base('t_s,frequency_Hz,voltage_V\n0,50,400\n0.1,fifty,400\n0.2,50,400\n'))).toBe('line 3: frequency ("frequency_Hz"): "fifty" is not a number');
+    expect(refusal(base('t_s,frequency_Hz,voltage_V\n0,50,400\n0.1,fifty,400\n0.2,50,400\n'))).toBe(
+      'line 3: frequency ("frequency_Hz"): "fifty" is not a number',
+    );
     expect(refusal(base('t_s,frequency_Hz,voltage_V\n0,50,400\n0.1,50,\n0.2,50,400\n'))).toMatch(/^line 3: voltage \("voltage_V"\): "" is not a number/);
   });
 

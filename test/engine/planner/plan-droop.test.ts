@@ -28,7 +28,10 @@ describe('planDroop', () => {
   it('planDroop without feeders: droop and no-load frequency from the closed form', () => {
     // Two 1000 kW sets at 4 % now, band 49–51 Hz over 0–100 %: the swing 4 % × 50 Hz × 1 = 2 Hz fills
     // the band exactly, so the droop stays 4 % and the no-load frequency is 50 + 2/2 = 51 Hz (closed form).
-    const plant = makePlant([rawSet('A', { feeder: { rOhm: 0, xOhm: 0 } }), rawSet('B', { governor: { mode: 'droop', droopPct: 5, noLoadHz: 52 }, feeder: { rOhm: 0, xOhm: 0 } })]);
+    const plant = makePlant([
+      rawSet('A', { feeder: { rOhm: 0, xOhm: 0 } }),
+      rawSet('B', { governor: { mode: 'droop', droopPct: 5, noLoadHz: 52 }, feeder: { rOhm: 0, xOhm: 0 } }),
+    ]);
     const r = planDroop({ plant, frequencyBandHz: { min: 48.95, max: 51.05 }, voltageBandV: { min: 380, max: 420 } });
     expect(r.feasible).toBe(true);
     // Preferred droop is the kW-weighted mean of 4 and 5 %: 4.5 % swings 2.25 Hz, more than the 2.1 Hz band,
@@ -62,7 +65,14 @@ describe('planDroop', () => {
     const feeder = (k: number) => ({ rOhm: 0.001 * k, xOhm: 0.003 * k });
     const plant = makePlant([rawSet('A', { feeder: feeder(1) }), rawSet('B', { feeder: feeder(2) })]);
     const bands = { frequencyBandHz: { min: 49, max: 51.5 }, voltageBandV: { min: 370, max: 430 }, loadRangePct: { min: 0, max: 95 } };
-    const trimOnly = planDroop({ plant, ...bands, fixed: [{ setId: 'A', fields: ['reactiveDroopPct'] }, { setId: 'B', fields: ['reactiveDroopPct'] }] });
+    const trimOnly = planDroop({
+      plant,
+      ...bands,
+      fixed: [
+        { setId: 'A', fields: ['reactiveDroopPct'] },
+        { setId: 'B', fields: ['reactiveDroopPct'] },
+      ],
+    });
     const matched = planDroop({ plant, ...bands });
     expect(trimOnly.proposal.worstKVARErrorPct!).toBeGreaterThan(3);
     expect(matched.proposal.worstKVARErrorPct!).toBeLessThan(0.5);
@@ -85,7 +95,12 @@ describe('planDroop', () => {
   it('planDroop says the voltage band cannot be met when the feeders alone swing the bus more than it allows', () => {
     // Demo plant over 0–95 %: the smallest common slope (every set at least 1 % reactive droop plus its
     // feeder) swings the bus several volts; a 2 V band cannot hold it.
-    const r = planDroop({ plant: demoPlant(), frequencyBandHz: { min: 49.5, max: 50.5 }, voltageBandV: { min: 399, max: 401 }, loadRangePct: { min: 0, max: 95 } });
+    const r = planDroop({
+      plant: demoPlant(),
+      frequencyBandHz: { min: 49.5, max: 50.5 },
+      voltageBandV: { min: 399, max: 401 },
+      loadRangePct: { min: 0, max: 95 },
+    });
     expect(r.feasible).toBe(false);
     const v = r.bands.find((b) => b.quantity === 'voltage')!;
     expect(v.met).toBe(false);
@@ -96,14 +111,22 @@ describe('planDroop', () => {
 
   it('planDroop keeps a fixed droop and matches the others to it', () => {
     const plant = makePlant([rawSet('A', { governor: { mode: 'droop', droopPct: 3, noLoadHz: 51.5 } }), rawSet('B')]);
-    const r = planDroop({ plant, frequencyBandHz: { min: 49, max: 51 }, voltageBandV: { min: 380, max: 420 }, loadRangePct: { min: 0, max: 90 }, fixed: [{ setId: 'A', fields: ['droopPct'] }] });
+    const r = planDroop({
+      plant,
+      frequencyBandHz: { min: 49, max: 51 },
+      voltageBandV: { min: 380, max: 420 },
+      loadRangePct: { min: 0, max: 90 },
+      fixed: [{ setId: 'A', fields: ['droopPct'] }],
+    });
     expect(r.settings.map((s) => s.droopPct)).toEqual([3, 3]);
     expect(r.feasible).toBe(true);
   });
 
   it('planDroop refuses a fixed set that is not in the plant, naming it', () => {
     const plant = makePlant([rawSet('A'), rawSet('B')]);
-    expect(() => planDroop({ plant, frequencyBandHz: { min: 49, max: 51 }, voltageBandV: { min: 380, max: 420 }, fixed: [{ setId: 'Z', fields: ['droopPct'] }] })).toThrow('fixed: there is no set "Z"');
+    expect(() =>
+      planDroop({ plant, frequencyBandHz: { min: 49, max: 51 }, voltageBandV: { min: 380, max: 420 }, fixed: [{ setId: 'Z', fields: ['droopPct'] }] }),
+    ).toThrow('fixed: there is no set "Z"');
   });
 
   it('planDroop leaves isochronous and voltage-holding sets alone and says so', () => {
@@ -123,36 +146,42 @@ describe('planDroop', () => {
       xOhm: fc.double({ min: 0, max: 0.006, noNaN: true }),
     });
     fc.assert(
-      fc.property(fc.array(setArb, { minLength: 2, maxLength: 5 }), fc.double({ min: 1, max: 3, noNaN: true }), fc.double({ min: 30, max: 60, noNaN: true }), fc.double({ min: 0.75, max: 0.95, noNaN: true }), (sets, hzWidth, vWidth, pf) => {
-        const plant = makePlant(
-          sets.map((s, k) =>
-            rawSet(`G${k}`, {
-              ratedKW: s.kW,
-              ratedKVA: s.kW * 1.25,
-              governor: { mode: 'droop', droopPct: s.droop, noLoadHz: 52 },
-              regulator: { mode: 'reactive-droop', droopPct: s.qDroop, noLoadV: s.v0 },
-              feeder: { rOhm: s.rOhm * (1000 / s.kW), xOhm: s.xOhm * (1000 / s.kW) },
-            }),
-          ),
-        );
-        const range = { min: 0, max: 90 };
-        const fBand = { min: 50 - hzWidth / 2, max: 50 + hzWidth / 2 };
-        const vBand = { min: 400 - vWidth / 2, max: 400 + vWidth / 2 };
-        const r = planDroop({ plant, frequencyBandHz: fBand, voltageBandV: vBand, loadRangePct: range, pf });
-        expect(r.reasons).toEqual([]);
-        expect(r.feasible).toBe(true);
-        const bus = busAcross(r.plant, range, pf);
-        for (const f of bus.f) {
-          expect(f).toBeGreaterThanOrEqual(fBand.min - 1e-6);
-          expect(f).toBeLessThanOrEqual(fBand.max + 1e-6);
-        }
-        for (const v of bus.v) {
-          expect(v).toBeGreaterThanOrEqual(vBand.min - 1e-6);
-          expect(v).toBeLessThanOrEqual(vBand.max + 1e-6);
-        }
-        // What is left is the feeders' second-order drop, zero at the middle of the range.
-        expect(r.proposal.worstKVARErrorPct!).toBeLessThan(1);
-      }),
+      fc.property(
+        fc.array(setArb, { minLength: 2, maxLength: 5 }),
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        fc.double({ min: 30, max: 60, noNaN: true }),
+        fc.double({ min: 0.75, max: 0.95, noNaN: true }),
+        (sets, hzWidth, vWidth, pf) => {
+          const plant = makePlant(
+            sets.map((s, k) =>
+              rawSet(`G${k}`, {
+                ratedKW: s.kW,
+                ratedKVA: s.kW * 1.25,
+                governor: { mode: 'droop', droopPct: s.droop, noLoadHz: 52 },
+                regulator: { mode: 'reactive-droop', droopPct: s.qDroop, noLoadV: s.v0 },
+                feeder: { rOhm: s.rOhm * (1000 / s.kW), xOhm: s.xOhm * (1000 / s.kW) },
+              }),
+            ),
+          );
+          const range = { min: 0, max: 90 };
+          const fBand = { min: 50 - hzWidth / 2, max: 50 + hzWidth / 2 };
+          const vBand = { min: 400 - vWidth / 2, max: 400 + vWidth / 2 };
+          const r = planDroop({ plant, frequencyBandHz: fBand, voltageBandV: vBand, loadRangePct: range, pf });
+          expect(r.reasons).toEqual([]);
+          expect(r.feasible).toBe(true);
+          const bus = busAcross(r.plant, range, pf);
+          for (const f of bus.f) {
+            expect(f).toBeGreaterThanOrEqual(fBand.min - 1e-6);
+            expect(f).toBeLessThanOrEqual(fBand.max + 1e-6);
+          }
+          for (const v of bus.v) {
+            expect(v).toBeGreaterThanOrEqual(vBand.min - 1e-6);
+            expect(v).toBeLessThanOrEqual(vBand.max + 1e-6);
+          }
+          // What is left is the feeders' second-order drop, zero at the middle of the range.
+          expect(r.proposal.worstKVARErrorPct!).toBeLessThan(1);
+        },
+      ),
       { numRuns: 40, seed: 20 },
     );
   }, 60_000);

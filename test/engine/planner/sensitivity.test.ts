@@ -29,7 +29,13 @@ describe('sharingSensitivity', () => {
   it('sharingSensitivity closed form equals central finite differences of the solver', () => {
     const plant = makePlant([
       rawSet('A', { feeder: noFeeder }),
-      rawSet('B', { ratedKW: 500, ratedKVA: 625, governor: { mode: 'droop', droopPct: 5, noLoadHz: 52 }, regulator: { mode: 'reactive-droop', droopPct: 3, noLoadV: 410 }, feeder: noFeeder }),
+      rawSet('B', {
+        ratedKW: 500,
+        ratedKVA: 625,
+        governor: { mode: 'droop', droopPct: 5, noLoadHz: 52 },
+        regulator: { mode: 'reactive-droop', droopPct: 3, noLoadV: 410 },
+        feeder: noFeeder,
+      }),
       rawSet('C', { ratedKW: 800, ratedKVA: 1000, feeder: noFeeder }),
     ]);
     const load = { kW: 1500, kVAR: 900 };
@@ -49,8 +55,19 @@ describe('sharingSensitivity', () => {
     const plant = demoPlant();
     const r = sharingSensitivity(plant);
     expect(r.method).toBe('finite-difference');
-    expectClose(r.busHzPerSpeed.reduce((a, b) => a + b, 0), 0.1, { abs: 1e-7 }, 'Σ bus Hz');
-    for (const row of r.kWPerSpeed) expectClose(row.reduce((a, b) => a + b, 0), 0, { abs: 1e-5 }, 'Σ kW per row');
+    expectClose(
+      r.busHzPerSpeed.reduce((a, b) => a + b, 0),
+      0.1,
+      { abs: 1e-7 },
+      'Σ bus Hz',
+    );
+    for (const row of r.kWPerSpeed)
+      expectClose(
+        row.reduce((a, b) => a + b, 0),
+        0,
+        { abs: 1e-5 },
+        'Σ kW per row',
+      );
     expect(r.kWPerSpeed[0]![0]!).toBeGreaterThan(0);
     expect(r.largest.length).toBe(6);
     // Plant untouched.

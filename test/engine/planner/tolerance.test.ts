@@ -53,7 +53,9 @@ describe('toleranceAnalysis', () => {
 
   it('toleranceAnalysis: more samples narrow the spread of the estimated standard deviation', () => {
     const spread = (samples: number) => {
-      const est = [1, 2, 3, 4, 5].map((seed) => toleranceAnalysis({ plant: twin(), samples, seed, speedTolHz: 0.2, load: { kW: 1000, kVAR: 600 } }).sets[0]!.kW.std);
+      const est = [1, 2, 3, 4, 5].map(
+        (seed) => toleranceAnalysis({ plant: twin(), samples, seed, speedTolHz: 0.2, load: { kW: 1000, kVAR: 600 } }).sets[0]!.kW.std,
+      );
       const m = est.reduce((x, y) => x + y, 0) / est.length;
       return Math.sqrt(est.reduce((x, y) => x + (y - m) ** 2, 0) / (est.length - 1));
     };

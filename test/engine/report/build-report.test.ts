@@ -20,7 +20,13 @@ const table = (r: ReportResult, id: string): ReportTable => {
 };
 
 // Demo data for the test (our own invention): a 200 kW block load on the demo plant.
-const scenario: ProjectScenario = { id: 's1', name: 'Pump start block', durationS: 4, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', kW: 200, kVAR: 150 }] };
+const scenario: ProjectScenario = {
+  id: 's1',
+  name: 'Pump start block',
+  durationS: 4,
+  stepMs: 2,
+  events: [{ atS: 0.5, type: 'load-step', kW: 200, kVAR: 150 }],
+};
 const sync: ProjectSyncSettings = {
   presetId: null,
   limits: { slipHz: 0.2, angleDeg: 10, voltagePct: 5, incomingFaster: true },
@@ -100,10 +106,10 @@ describe('buildReport on the demo plant', () => {
 
   it('sync-check settings and closing map equal evaluateSync and closingMap', async () => {
     const c = edgeCase(plant, sync, 'G3');
-    const edge = await call<{ advanceAngleDeg: number; closeNow: { surgeCurrentA: number; peakCurrentA: number; peakTorqueKNm: number; torqueStepKNm: number } }>(
-      'evaluateSync',
-      c,
-    );
+    const edge = await call<{
+      advanceAngleDeg: number;
+      closeNow: { surgeCurrentA: number; peakCurrentA: number; peakTorqueKNm: number; torqueStepKNm: number };
+    }>('evaluateSync', c);
     const t = table(report, 'sync-settings');
     const value = (label: string) => t.rows.find((r) => r[0] === label)![1];
     // At the slip limit itself, not the edge case just inside it (closed form): advance 360 × 0.2 Hz × 0.08 s = 5.76°,
@@ -115,7 +121,12 @@ describe('buildReport on the demo plant', () => {
     expect(value('Surge closing at the window edge')).toBe(edge.closeNow.surgeCurrentA);
     expect(value('Peak with DC offset')).toBe(edge.closeNow.peakCurrentA);
     expect(value('Breaker closing time')).toBe(80);
-    const map = await call<{ surgeCurrentPU: number[]; anglesDeg: number[]; slipsHz: number[] }>('closingMap', { case: c, angleSteps: 13, slipSteps: 5, slipRangeHz: 0.4 });
+    const map = await call<{ surgeCurrentPU: number[]; anglesDeg: number[]; slipsHz: number[] }>('closingMap', {
+      case: c,
+      angleSteps: 13,
+      slipSteps: 5,
+      slipRangeHz: 0.4,
+    });
     const grid = table(report, 'closing-map');
     expect(grid.printed).toBe(false);
     expect(grid.rows.map((r) => r[2])).toEqual(map.surgeCurrentPU);
@@ -127,7 +138,17 @@ describe('buildReport on the demo plant', () => {
     const row = table(report, 'transient-metrics').rows[0]!;
     if (r.ok) {
       const m = r.value.metrics;
-      expect(row.slice(1, 10)).toEqual([m.frequencyNadirHz, m.frequencyPeakHz, m.frequencyDeviationPct, m.frequencyRecoveryS, m.voltageDipPct, m.voltagePeakPct, m.voltageRecoveryS, m.final.frequencyHz, m.final.voltageV]);
+      expect(row.slice(1, 10)).toEqual([
+        m.frequencyNadirHz,
+        m.frequencyPeakHz,
+        m.frequencyDeviationPct,
+        m.frequencyRecoveryS,
+        m.voltageDipPct,
+        m.voltagePeakPct,
+        m.voltageRecoveryS,
+        m.final.frequencyHz,
+        m.final.voltageV,
+      ]);
       const classes = table(report, 'transient-classes-1');
       expect(classes.rows.length).toBe(m.classes.length);
       expect(classes.rows[0]![9]).toBe(m.classes[0]!.source);
@@ -184,9 +205,18 @@ describe('buildReport input and control', () => {
 });
 
 describe('report: the loads in the plant description', () => {
-  it('shows each load\'s voltage-law shares, frequency sensitivities and shedding stage', async () => {
+  it("shows each load's voltage-law shares, frequency sensitivities and shedding stage", async () => {
     const plant = demoPlant();
-    plant.loads[0] = { ...plant.loads[0]!, model: 'zip', kWImpedancePct: 30, kWCurrentPct: 20, kVARImpedancePct: 100, kVARFrequencySensitivity: -2, shedFrequencyPct: 97, shedDelayS: 0.3 };
+    plant.loads[0] = {
+      ...plant.loads[0]!,
+      model: 'zip',
+      kWImpedancePct: 30,
+      kWCurrentPct: 20,
+      kVARImpedancePct: 100,
+      kVARFrequencySensitivity: -2,
+      shedFrequencyPct: 97,
+      shedDelayS: 0.3,
+    };
     const r = await call<ReportResult>('buildReport', { project: { plant }, date: '2026-12-02', loadsPct: [50] });
     const t = table(r, 'loads');
     expect(t.title).toContain('below 70 % voltage');

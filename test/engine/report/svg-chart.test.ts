@@ -39,7 +39,12 @@ describe('droop lines', () => {
 
 describe('SVG charts', () => {
   it('line chart breaks the line at blanks and escapes labels', () => {
-    const { svg } = lineChartSvg({ title: 'a<b', xLabel: 't (s)', yLabel: 'f (Hz)', series: [{ label: 'x&y', x: [0, 1, 2, 3], y: [1, null, 2, Number.NaN], style: 0 }] });
+    const { svg } = lineChartSvg({
+      title: 'a<b',
+      xLabel: 't (s)',
+      yLabel: 'f (Hz)',
+      series: [{ label: 'x&y', x: [0, 1, 2, 3], y: [1, null, 2, Number.NaN], style: 0 }],
+    });
     expect(svg).toContain('a&lt;b');
     expect(svg).toContain('x&amp;y');
     expect(svg).not.toContain('NaN');
@@ -47,7 +52,16 @@ describe('SVG charts', () => {
     expect(svg).toMatch(/<path d="M[\d. ]+M[\d. ]+"/);
   });
   it('heat map shades every cell and outlines the window', () => {
-    const { svg } = heatMapSvg({ title: 'm', xLabel: 'a', yLabel: 's', valueLabel: 'pu', x: [-10, 0, 10], y: [-0.1, 0.1], values: [3, 1, 3, 3, 1, 3], box: { x0: -5, x1: 5, y0: 0, y1: 0.1, label: 'window' } });
+    const { svg } = heatMapSvg({
+      title: 'm',
+      xLabel: 'a',
+      yLabel: 's',
+      valueLabel: 'pu',
+      x: [-10, 0, 10],
+      y: [-0.1, 0.1],
+      values: [3, 1, 3, 3, 1, 3],
+      box: { x0: -5, x1: 5, y0: 0, y1: 0.1, label: 'window' },
+    });
     expect(svg.match(/<rect [^>]*fill="#[0-9a-f]{6}"/g)!.length).toBeGreaterThanOrEqual(6);
     expect(svg).toContain('stroke-dasharray="6 3"');
     expect(svg).toContain('window');

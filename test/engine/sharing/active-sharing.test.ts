@@ -91,11 +91,7 @@ describe('solveSharing: droop sets (closed forms)', () => {
 
   it('three sets P = 50(50 − f), 100(51 − f), 150(52 − f) MW, 700 MW', () => {
     // Three droop lines (closed form): 49 Hz; 50 / 200 / 450 MW. 10 % droop keeps every set inside its rating.
-    const sets = [
-      droopSet('G1', 250_000, 10, 50),
-      droopSet('G2', 500_000, 10, 51),
-      droopSet('G3', 750_000, 10, 52),
-    ];
+    const sets = [droopSet('G1', 250_000, 10, 50), droopSet('G2', 500_000, 10, 51), droopSet('G3', 750_000, 10, 52)];
     const r = solveSharing(makePlant(sets, load(700_000)));
     expectClose(r.bus.frequencyHz, 49, { abs: 1e-9 }, 'f');
     expectClose(r.sets[0]!.kW, 50_000, { rel: 1e-12 }, 'G1');

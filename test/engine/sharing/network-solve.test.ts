@@ -90,9 +90,15 @@ function solveIndependent(sets: IndepSet[], loadW: number, loadVAR: number, x0: 
 }
 
 /** Reactive droop law: |V_t| = V0 − droop · V_r · Q / Qbase (the reactive-droop definition). */
-const droopQ = (v0: number, droopPct: number, qBaseKVAR: number, vr = 400) => (e: number, q: number) => e - (v0 - ((droopPct / 100) * vr * q) / 1e3 / qBaseKVAR);
+const droopQ =
+  (v0: number, droopPct: number, qBaseKVAR: number, vr = 400) =>
+  (e: number, q: number) =>
+    e - (v0 - ((droopPct / 100) * vr * q) / 1e3 / qBaseKVAR);
 /** Speed droop law: P = ratedKW (f_nl − f) / (droop · f_r), in W. */
-const droopP = (ratedKW: number, droopPct: number, fnl: number, fr = 50) => (f: number) => ((ratedKW * (fnl - f)) / ((droopPct / 100) * fr)) * 1e3;
+const droopP =
+  (ratedKW: number, droopPct: number, fnl: number, fr = 50) =>
+  (f: number) =>
+    ((ratedKW * (fnl - f)) / ((droopPct / 100) * fr)) * 1e3;
 
 function compare(r: SharingResult, ind: ReturnType<typeof solveIndependent>, tol = 1e-7) {
   ind.sets.forEach((s, i) => {
@@ -112,7 +118,13 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
     const plant = makePlant(
       [
         rawSet('A', { feeder: fA, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 416 } }),
-        rawSet('B', { ratedKW: 640, ratedKVA: 800, feeder: fB, governor: { mode: 'droop', droopPct: 5, noLoadHz: 52.4 }, regulator: { mode: 'reactive-droop', droopPct: 3, noLoadV: 410 } }),
+        rawSet('B', {
+          ratedKW: 640,
+          ratedKVA: 800,
+          feeder: fB,
+          governor: { mode: 'droop', droopPct: 5, noLoadHz: 52.4 },
+          regulator: { mode: 'reactive-droop', droopPct: 3, noLoadV: 410 },
+        }),
       ],
       [{ id: 'L', kW: 1100, kVAR: 650 }],
     );
@@ -189,7 +201,12 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
       makePlant(
         [
           rawSet('A', { feeder: { rOhm: 0.004 * scale, xOhm: 0.008 * scale } }),
-          rawSet('B', { ratedKW: 500, ratedKVA: 625, feeder: { rOhm: 0.009 * scale, xOhm: 0.005 * scale }, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 412 } }),
+          rawSet('B', {
+            ratedKW: 500,
+            ratedKVA: 625,
+            feeder: { rOhm: 0.009 * scale, xOhm: 0.005 * scale },
+            regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 412 },
+          }),
         ],
         [{ id: 'L', kW: 1000, kVAR: 600 }],
       );
@@ -225,10 +242,7 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
 
   it('the demo plant solves with losses reported and balanced', () => {
     const plant = makePlant(
-      [
-        rawSet('G1', { feeder: { rOhm: 0.0016, xOhm: 0.0024 } }),
-        rawSet('G2', { ratedKW: 640, ratedKVA: 800, feeder: { rOhm: 0.0035, xOhm: 0.003 } }),
-      ],
+      [rawSet('G1', { feeder: { rOhm: 0.0016, xOhm: 0.0024 } }), rawSet('G2', { ratedKW: 640, ratedKVA: 800, feeder: { rOhm: 0.0035, xOhm: 0.003 } })],
       [{ id: 'L', kW: 1200, kVAR: 700 }],
     );
     const r = solveSharing(plant);
@@ -260,6 +274,8 @@ describe('solveSharing with feeders (Newton–Raphson)', () => {
     expect(() => solveSharing(plant)).toThrow(NoSteadyState);
     // Just inside the overload limit (1100 kW) without feeders, over it with the losses.
     const edge = makePlant([rawSet('A', { feeder: { rOhm: 0.01, xOhm: 0.01 } })], [{ id: 'L', kW: 1095, kVAR: 300 }]);
-    expect(() => solveSharing(edge)).toThrow(/^The load \(1095 kW\) is more than the online sets can supply at their overload limits \(\d+ kW into the bus, after feeder losses\): \d+ kW short/);
+    expect(() => solveSharing(edge)).toThrow(
+      /^The load \(1095 kW\) is more than the online sets can supply at their overload limits \(\d+ kW into the bus, after feeder losses\): \d+ kW short/,
+    );
   });
 });

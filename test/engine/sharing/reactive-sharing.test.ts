@@ -31,7 +31,12 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
   it('circulating current between two sets in reactive droop at different no-load voltages', () => {
     // Closed form: 1250 kVA, PF 0.8 → Qbase 750 kVAR; 4 % of 400 V → 46.875 kVAR/V. V0 416 and 412 V, no
     // reactive load: V = 414 V, Q = ±93.75 kVAR; circulating = 93 750 / (√3 · 414) A each way.
-    const r = solveSharing(makePlant([rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 416 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 412 }))], load(1000, 0)));
+    const r = solveSharing(
+      makePlant(
+        [rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 416 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 412 }))],
+        load(1000, 0),
+      ),
+    );
     expectClose(r.bus.voltageV, 414, { rel: 1e-12 }, 'V');
     expectClose(r.sets[0]!.kVAR, 93.75, { rel: 1e-12 }, 'A kVAR');
     expectClose(r.sets[1]!.kVAR, -93.75, { rel: 1e-12 }, 'B kVAR');
@@ -105,32 +110,51 @@ describe('solveSharing: reactive sharing (closed forms)', () => {
     // Closed form: Qbase = 1250 × 0.6 = 750 kVAR, slope 750 / (0.04 × 400) = 46.875 kVAR/V. V0 416 and 380 V at no
     // reactive load would give ±46.875 × 18 = ±843.75 kVAR, but B's leading limit is 30 % of 1250 kVA = 375 kVAR:
     // B is held at −375 kVAR, A gives +375 kVAR on its droop line, V = 416 − 375 / 46.875 = 408 V.
-    const r = solveSharing(makePlant([rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 416 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 380 }))], load(1000, 0)));
+    const r = solveSharing(
+      makePlant(
+        [rawSet('A', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 416 })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 380 }))],
+        load(1000, 0),
+      ),
+    );
     expectClose(r.sets[1]!.kVAR, -0.3 * 1250, { rel: 1e-12 }, 'B held at the leading limit');
     expectClose(r.sets[0]!.kVAR, 375, { rel: 1e-12 }, 'A kVAR');
     expectClose(r.bus.voltageV, 416 - 375 / 46.875, { abs: 1e-9 }, 'V (closed form)');
     expect(r.sets[1]!.flags).toEqual(['under-excited']);
     expect(r.sets[0]!.flags).toEqual([]);
-    expect(r.warnings.join('\n')).toContain('B is held at its under-excitation limit: 375 kVAR leading (30 % of 1250 kVA); it absorbs reactive power from the other sets.');
+    expect(r.warnings.join('\n')).toContain(
+      'B is held at its under-excitation limit: 375 kVAR leading (30 % of 1250 kVA); it absorbs reactive power from the other sets.',
+    );
   });
 
   it('a voltage-holding set beyond its ratings is flagged (kVA and field heating), not held', () => {
     // Closed form: B (reactive droop, V0 372 V) would absorb 46.875 × 28 = 1312.5 kVAR at 400 V; held at −375 kVAR.
     // A holds 400 V and supplies load + 375 = 1375 kVAR at 0 kW: 110 % of 1250 kVA. Field limit at 0 kW (Xd 2.5,
     // rated PF 0.8): E = √((1 + 2.5 × 0.6)² + (2.5 × 0.8)²) = 3.2016 pu, Q = 1250 (E − 1) / 2.5 = 1100.8 kVAR.
-    const o = solveSharing(makePlant([rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 372 }))], load(0, 1000)));
+    const o = solveSharing(
+      makePlant([rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'reactive-droop', droopPct: 4, noLoadV: 372 }))], load(0, 1000)),
+    );
     expectClose(o.sets[0]!.kVAR, 1375, { rel: 1e-12 }, 'A kVAR');
     expect(o.sets[0]!.flags).toEqual(['overload-kVA', 'field-limit']);
     const e = Math.hypot(1 + 2.5 * 0.6, 2.5 * 0.8);
     expectClose(e, 3.2016, { abs: 1e-4 }, 'E at rated kVA and PF (closed form)');
     expect(o.warnings.join('\n')).toContain('A is over its kVA rating: 1375 kVA of 1250 kVA (110 %)');
-    expect(o.warnings.join('\n')).toContain(`A is beyond its field-heating limit: 1375 kVAR lagging at 0 kW (the limit there is ${((1250 * (e - 1)) / 2.5).toFixed(0)} kVAR).`);
+    expect(o.warnings.join('\n')).toContain(
+      `A is beyond its field-heating limit: 1375 kVAR lagging at 0 kW (the limit there is ${((1250 * (e - 1)) / 2.5).toFixed(0)} kVAR).`,
+    );
   });
 
   it('no steady state: two voltage holders, no voltage reference, voltage collapse', () => {
     const cases: [unknown[], unknown[], RegExp][] = [
-      [[rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'voltage' }))], load(100, 50), /Sets A and B all hold voltage without reactive droop or a shared cross-current loop/],
-      [[rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'cross-current' })), rawSet('C', reg({ mode: 'cross-current' }))], load(100, 50), /Sets A, B and C all hold voltage/],
+      [
+        [rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'voltage' }))],
+        load(100, 50),
+        /Sets A and B all hold voltage without reactive droop or a shared cross-current loop/,
+      ],
+      [
+        [rawSet('A', reg({ mode: 'voltage' })), rawSet('B', reg({ mode: 'cross-current' })), rawSet('C', reg({ mode: 'cross-current' }))],
+        load(100, 50),
+        /Sets A, B and C all hold voltage/,
+      ],
       [[rawSet('A', reg({ mode: 'power-factor' }))], load(100, 50), /No online set controls voltage/],
       [[rawSet('A')], load(100, 25_000), /more than the sets in reactive droop can supply at any voltage/],
     ];

@@ -29,7 +29,10 @@ const set = (i: number, wide: boolean) =>
       setpointV: wide ? fc.double({ min: 200, max: 600, noNaN: true }) : fc.double({ min: 395, max: 405, noNaN: true }),
       pf: fc.double({ min: 0.5, max: 1, noNaN: true }),
       minPu: fc.double({ min: -0.1, max: 0.05, noNaN: true }),
-      feeder: fc.oneof(fc.constant({ rOhm: 0, xOhm: 0 }), fc.record({ rOhm: fc.double({ min: 0, max: wide ? 1 : 0.01, noNaN: true }), xOhm: fc.double({ min: 0, max: wide ? 1 : 0.01, noNaN: true }) })),
+      feeder: fc.oneof(
+        fc.constant({ rOhm: 0, xOhm: 0 }),
+        fc.record({ rOhm: fc.double({ min: 0, max: wide ? 1 : 0.01, noNaN: true }), xOhm: fc.double({ min: 0, max: wide ? 1 : 0.01, noNaN: true }) }),
+      ),
     })
     .map((s) => ({
       id: `S${i}`,
@@ -93,7 +96,11 @@ describe('solveSharing invariants (fast-check)', () => {
         const r = attempt(plant);
         if (r instanceof EngineError) return;
         // Relative to the power flowing: the largest of the load's and the sets' kVA.
-        const scale = Math.max(1, Math.hypot(r.totals.loadKW, r.totals.loadKVAR), r.sets.reduce((a, s) => a + s.kVA, 0));
+        const scale = Math.max(
+          1,
+          Math.hypot(r.totals.loadKW, r.totals.loadKVAR),
+          r.sets.reduce((a, s) => a + s.kVA, 0),
+        );
         expect(Math.abs(r.totals.kW - r.totals.loadKW - r.totals.feederLossKW)).toBeLessThanOrEqual(1e-9 * scale);
         expect(Math.abs(r.totals.kVAR - r.totals.loadKVAR - r.totals.feederLossKVAR)).toBeLessThanOrEqual(1e-9 * scale);
       }),
@@ -141,7 +148,12 @@ describe('solveSharing invariants (fast-check)', () => {
   it('monotonicity: more load never raises the frequency of a droop-governed bus', () => {
     fc.assert(
       fc.property(plantArb(), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (plant, u1, u2) => {
-        const droopOnly: Plant = { ...plant, sets: plant.sets.map((s) => (s.governor.mode === 'isochronous' ? { ...s, governor: { ...s.governor, mode: 'droop' as const, droopPct: 4, noLoadHz: 52 } } : s)) };
+        const droopOnly: Plant = {
+          ...plant,
+          sets: plant.sets.map((s) =>
+            s.governor.mode === 'isochronous' ? { ...s, governor: { ...s.governor, mode: 'droop' as const, droopPct: 4, noLoadHz: 52 } } : s,
+          ),
+        };
         const rated = droopOnly.sets.reduce((a, s) => a + (s.online ? s.ratedKW : 0), 0);
         const [lo, hi] = u1 <= u2 ? [u1, u2] : [u2, u1];
         const a = attempt(droopOnly, { kW: lo * rated, kVAR: 0.5 * lo * rated });
@@ -165,7 +177,12 @@ describe('solveSharing invariants (fast-check)', () => {
             ...s,
             feeder: { rOhm: 0, xOhm: 0 },
             governor: { ...s.governor, mode: 'droop' as const, droopPct: Math.max(1, s.governor.droopPct), noLoadHz: Math.max(50.5, s.governor.noLoadHz) },
-            regulator: { ...s.regulator, mode: 'reactive-droop' as const, droopPct: Math.max(1, s.regulator.droopPct), noLoadV: Math.max(400, Math.min(440, s.regulator.noLoadV)) },
+            regulator: {
+              ...s.regulator,
+              mode: 'reactive-droop' as const,
+              droopPct: Math.max(1, s.regulator.droopPct),
+              noLoadV: Math.max(400, Math.min(440, s.regulator.noLoadV)),
+            },
           })),
         };
         let capability = 0;

@@ -55,7 +55,20 @@ describe('ZIP loads in the steady-state solve', () => {
   it('through feeders (network solve) the load still follows its law at the bus voltage', () => {
     const plant = makePlant(
       [rawSet('A', { feeder: { rOhm: 0.004, xOhm: 0.006 } }), rawSet('B', { feeder: { rOhm: 0.002, xOhm: 0.004 } })],
-      [{ id: 'L', kW: 1200, kVAR: 700, model: 'zip', kWImpedancePct: 40, kWCurrentPct: 30, kVARImpedancePct: 20, kVARCurrentPct: 50, frequencySensitivity: 1.5, kVARFrequencySensitivity: 2 }],
+      [
+        {
+          id: 'L',
+          kW: 1200,
+          kVAR: 700,
+          model: 'zip',
+          kWImpedancePct: 40,
+          kWCurrentPct: 30,
+          kVARImpedancePct: 20,
+          kVARCurrentPct: 50,
+          frequencySensitivity: 1.5,
+          kVARFrequencySensitivity: 2,
+        },
+      ],
     );
     const r = solveSharing(plant);
     expect(r.method).toBe('newton-raphson');

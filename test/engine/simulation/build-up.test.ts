@@ -12,10 +12,17 @@ import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
 
 function scenario(residualPU: number, ceilingPU: number): Scenario {
-  const plant = makePlant([
-    rawSet('A'),
-    rawSet('S', { online: false, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 400, shuntExcited: true, residualPU, ceilingPU }, machine: { tdopS: 1.5 } }),
-  ], [{ id: 'L', kW: 300, kVAR: 100 }]);
+  const plant = makePlant(
+    [
+      rawSet('A'),
+      rawSet('S', {
+        online: false,
+        regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 400, shuntExcited: true, residualPU, ceilingPU },
+        machine: { tdopS: 1.5 },
+      }),
+    ],
+    [{ id: 'L', kW: 300, kVAR: 100 }],
+  );
   return { plant, durationS: 12, stepMs: 2, startDeExcited: ['S'], events: [] };
 }
 

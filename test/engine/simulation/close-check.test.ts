@@ -27,12 +27,19 @@ describe('close events judged at contact', () => {
     expect(c.insideWindow).toBe(false);
     expect(c.reasons.join(' ')).toMatch(/[Ss]lip/);
     const w = r.warnings.join('\n');
-    expect(w).toMatch(/B closed at t = 1\.300 s as the run had it \(no angle, slip or voltage given\): angle -17\d\.\d°, slip 0\.400 Hz, ΔV -?\d+\.\d % of rated at contact/);
+    expect(w).toMatch(
+      /B closed at t = 1\.300 s as the run had it \(no angle, slip or voltage given\): angle -17\d\.\d°, slip 0\.400 Hz, ΔV -?\d+\.\d % of rated at contact/,
+    );
     expect(w).toMatch(/B closed outside the sync-check window/);
   });
 
   it('a close given inside the window is not flagged', () => {
-    const r = simulate({ plant: plant(), durationS: 2, stepMs: 1, events: [{ atS: 1, type: 'close', setId: 'B', angleDeg: 3, frequencyHz: 51.7, voltageV: 402 }] });
+    const r = simulate({
+      plant: plant(),
+      durationS: 2,
+      stepMs: 1,
+      events: [{ atS: 1, type: 'close', setId: 'B', angleDeg: 3, frequencyHz: 51.7, voltageV: 402 }],
+    });
     const c = r.metrics.closes[0]!;
     expect(c.stateGiven).toBe(true);
     expectClose(c.angleDeg, 3, { abs: 1e-6 }, 'angle, °');

@@ -10,7 +10,14 @@ import { makePlant, rawSet } from '../../helpers/plants';
 //   Power pulse (E1 E2 / X) sin θ: 30° → 1.667 pu.
 function pair() {
   const set = (id: string, online: boolean) =>
-    rawSet(id, { online, ratedKVA: 1000, ratedKW: 800, governor: { mode: 'droop', droopPct: 4, noLoadHz: 60 }, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 480 }, machine: { xddpPU: 0.15, xdpPU: 0.25 } });
+    rawSet(id, {
+      online,
+      ratedKVA: 1000,
+      ratedKW: 800,
+      governor: { mode: 'droop', droopPct: 4, noLoadHz: 60 },
+      regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 480 },
+      machine: { xddpPU: 0.15, xdpPU: 0.25 },
+    });
   return makePlant([set('RUN', true), set('IN', false)], [], { ratedFrequencyHz: 60, ratedVoltageV: 480 });
 }
 
@@ -64,7 +71,10 @@ describe('breaker close of an incoming set out of phase', () => {
     const f = (60 + 58.3 - 600 / k) / 2;
     expectClose(s.frequencyHz, f, { abs: 0.002 }, 'bus frequency after the close, Hz');
     expectClose(s.sets[1]!.kW, k * (58.3 - f), { abs: 0.5 }, 'incoming set kW on its droop line');
-    const log = r.result().log.map((l) => l.text).join('\n');
+    const log = r
+      .result()
+      .log.map((l) => l.text)
+      .join('\n');
     expect(log).toMatch(/IN breaker closed at 10\.0° \(slip 0\.(09|10)\d Hz\)/);
   });
 });

@@ -15,7 +15,12 @@ import { demoPlant, makePlant, rawSet } from '../../helpers/plants';
 
 const block = { id: 'B', name: 'B', online: true, kW: 300, kVAR: 180, model: 'constant-power' as const, frequencySensitivity: 0 };
 
-function settlesOnSolver(plant: Plant, durationS: number, stepMs = 5, events: ScenarioEvent[] = [{ atS: 0.5, type: 'load-step', kW: block.kW, kVAR: block.kVAR }]): void {
+function settlesOnSolver(
+  plant: Plant,
+  durationS: number,
+  stepMs = 5,
+  events: ScenarioEvent[] = [{ atS: 0.5, type: 'load-step', kW: block.kW, kVAR: block.kVAR }],
+): void {
   const r = simulate({ plant, durationS, stepMs, events, outputPoints: 50 });
   const after = { ...plant, loads: [...plant.loads, block] };
   const ss = solveSharing(after);
@@ -59,7 +64,10 @@ describe('simulation run to rest agrees with solveSharing', () => {
 
   it('cross-current group holding voltage, sharing kVAR by ratedKVA (unequal feeders)', () => {
     const cc = { mode: 'cross-current', droopPct: 4 };
-    const plant = makePlant([rawSet('A', { regulator: cc, ...feederA }), rawSet('B', { ratedKVA: 800, ratedKW: 640, regulator: cc, ...feederB })], [load(900, 650, 'constant-impedance')]);
+    const plant = makePlant(
+      [rawSet('A', { regulator: cc, ...feederA }), rawSet('B', { ratedKVA: 800, ratedKW: 640, regulator: cc, ...feederB })],
+      [load(900, 650, 'constant-impedance')],
+    );
     settlesOnSolver(plant, 14);
   });
 
@@ -90,28 +98,33 @@ describe('property: any droop plant comes to rest where solveSharing puts it', (
       xOhm: fc.double({ min: 0, max: 0.01, noNaN: true }),
     });
     fc.assert(
-      fc.property(fc.array(setArb, { minLength: 2, maxLength: 4 }), fc.double({ min: 0.2, max: 0.5, noNaN: true }), fc.double({ min: -0.15, max: 0.2, noNaN: true }), (sets, loadFraction, stepFraction) => {
-        const raw = sets.map((x, i) =>
-          rawSet(`G${i + 1}`, {
-            ratedKVA: x.kva,
-            ratedKW: 0.8 * x.kva,
-            governor: { mode: 'droop', droopPct: x.droop, noLoadHz: 50 * (1 + x.droop / 100) + x.dfHz },
-            regulator: { mode: 'reactive-droop', droopPct: x.qDroop, noLoadV: 400 * (1 + x.qDroop / 100) + x.dV },
-            feeder: { rOhm: x.xOhm / 2, xOhm: x.xOhm },
-          }),
-        );
-        const ratedKW = sets.reduce((sum, x) => sum + 0.8 * x.kva, 0);
-        const plant = makePlant(raw, [load(loadFraction * ratedKW, 0.5 * loadFraction * ratedKW)]);
-        const stepKW = stepFraction * ratedKW;
-        const r = simulate({ plant, durationS: 14, stepMs: 5, outputPoints: 20, events: [{ atS: 0.5, type: 'load-step', kW: stepKW, kVAR: stepKW / 3 }] });
-        const ss = solveSharing({ ...plant, loads: [...plant.loads, { ...block, kW: stepKW, kVAR: stepKW / 3 }] });
-        expectClose(r.metrics.final.frequencyHz, ss.bus.frequencyHz, { abs: 0.003 }, 'bus frequency, Hz');
-        expectClose(r.metrics.final.voltageV, ss.bus.voltageV, { abs: 0.3 }, 'bus voltage, V');
-        ss.sets.forEach((x, i) => {
-          expectClose(r.metrics.final.sets[i]!.kW, x.kW, { abs: 1.5 }, `${x.id} kW`);
-          expectClose(r.metrics.final.sets[i]!.kVAR, x.kVAR, { abs: 1.5 }, `${x.id} kVAR`);
-        });
-      }),
+      fc.property(
+        fc.array(setArb, { minLength: 2, maxLength: 4 }),
+        fc.double({ min: 0.2, max: 0.5, noNaN: true }),
+        fc.double({ min: -0.15, max: 0.2, noNaN: true }),
+        (sets, loadFraction, stepFraction) => {
+          const raw = sets.map((x, i) =>
+            rawSet(`G${i + 1}`, {
+              ratedKVA: x.kva,
+              ratedKW: 0.8 * x.kva,
+              governor: { mode: 'droop', droopPct: x.droop, noLoadHz: 50 * (1 + x.droop / 100) + x.dfHz },
+              regulator: { mode: 'reactive-droop', droopPct: x.qDroop, noLoadV: 400 * (1 + x.qDroop / 100) + x.dV },
+              feeder: { rOhm: x.xOhm / 2, xOhm: x.xOhm },
+            }),
+          );
+          const ratedKW = sets.reduce((sum, x) => sum + 0.8 * x.kva, 0);
+          const plant = makePlant(raw, [load(loadFraction * ratedKW, 0.5 * loadFraction * ratedKW)]);
+          const stepKW = stepFraction * ratedKW;
+          const r = simulate({ plant, durationS: 14, stepMs: 5, outputPoints: 20, events: [{ atS: 0.5, type: 'load-step', kW: stepKW, kVAR: stepKW / 3 }] });
+          const ss = solveSharing({ ...plant, loads: [...plant.loads, { ...block, kW: stepKW, kVAR: stepKW / 3 }] });
+          expectClose(r.metrics.final.frequencyHz, ss.bus.frequencyHz, { abs: 0.003 }, 'bus frequency, Hz');
+          expectClose(r.metrics.final.voltageV, ss.bus.voltageV, { abs: 0.3 }, 'bus voltage, V');
+          ss.sets.forEach((x, i) => {
+            expectClose(r.metrics.final.sets[i]!.kW, x.kW, { abs: 1.5 }, `${x.id} kW`);
+            expectClose(r.metrics.final.sets[i]!.kVAR, x.kVAR, { abs: 1.5 }, `${x.id} kVAR`);
+          });
+        },
+      ),
       { numRuns: 8, seed: 20261202 },
     );
   });

@@ -21,11 +21,19 @@ describe('load step on a set in droop', () => {
   // Chapman, Electric Machinery Fundamentals, parallel operation of generators (example):
   // G1 f_nl 61.5 Hz, G2 61.0 Hz, both 1 MW/Hz, load 2.5 MW → 60 Hz, 1.5 / 1.0 MW; add 1 MW →
   // 59.5 Hz, 2.0 / 1.5 MW; raise G2 by 0.5 Hz → 59.75 Hz, 1.75 / 1.75 MW.
-  it('reproduces Chapman\'s two-set example through a load step and a speed raise', () => {
+  it("reproduces Chapman's two-set example through a load step and a speed raise", () => {
     // 1 MW/Hz = ratedKW / (droop · 60 Hz) with ratedKW 3000 kW and 5 % droop.
     const set = (id: string, noLoadHz: number) => rawSet(id, { ratedKVA: 3750, ratedKW: 3000, governor: { mode: 'droop', droopPct: 5, noLoadHz } });
     const plant = makePlant([set('G1', 61.5), set('G2', 61)], [{ id: 'L', kW: 2500, kVAR: 800 }], { ratedFrequencyHz: 60 });
-    const sim = createSimulation({ plant, durationS: 30, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', kW: 1000, kVAR: 0 }, { atS: 15, type: 'setpoint', setId: 'G2', frequencyHz: 61.5 }] });
+    const sim = createSimulation({
+      plant,
+      durationS: 30,
+      stepMs: 2,
+      events: [
+        { atS: 0.5, type: 'load-step', kW: 1000, kVAR: 0 },
+        { atS: 15, type: 'setpoint', setId: 'G2', frequencyHz: 61.5 },
+      ],
+    });
     const s0 = sim.snapshot();
     expectClose(s0.frequencyHz, 60, { abs: 1e-6 }, 'f, Hz (Chapman: 60)');
     expectClose(s0.sets[0]!.kW, 1500, { abs: 1e-3 }, 'G1 kW (Chapman: 1500)');

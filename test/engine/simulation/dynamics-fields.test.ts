@@ -24,7 +24,14 @@ describe('dynamics fields', () => {
 
   it('the simulator takes each from the plant', () => {
     const p = makePlant(
-      [rawSet('A', { machine: { tddopS: 0.02 }, governor: { mode: 'isochronous', isoGainPU: 33 }, regulator: { mode: 'power-factor', pf: 0.9, resetS: 0.7, pfTrimS: 8, oelResetS: 12 } }), rawSet('B')],
+      [
+        rawSet('A', {
+          machine: { tddopS: 0.02 },
+          governor: { mode: 'isochronous', isoGainPU: 33 },
+          regulator: { mode: 'power-factor', pf: 0.9, resetS: 0.7, pfTrimS: 8, oelResetS: 12 },
+        }),
+        rawSet('B'),
+      ],
       [],
       { powerLoadBreakPct: 60 },
     );

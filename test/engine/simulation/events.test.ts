@@ -47,7 +47,10 @@ describe('simulation events', () => {
   });
 
   it('a base-load set asked for less than its minKW backs off to minKW and does not motor', () => {
-    const plant = makePlant([rawSet('A'), rawSet('B', { reversePowerTripPct: 5, governor: { mode: 'baseload', baseKW: 300 } })], [{ id: 'L', kW: 800, kVAR: 400 }]);
+    const plant = makePlant(
+      [rawSet('A'), rawSet('B', { reversePowerTripPct: 5, governor: { mode: 'baseload', baseKW: 300 } })],
+      [{ id: 'L', kW: 800, kVAR: 400 }],
+    );
     const r = simulate({ plant, durationS: 8, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint', setId: 'B', kW: -400 }] });
     expect(r.log.some((l) => l.text.includes('reverse power'))).toBe(false);
     expectClose(r.metrics.final.sets[1]!.kW, 0, { abs: 0.5 }, 'B at minKW = 0, kW');
@@ -65,14 +68,22 @@ describe('simulation events', () => {
     const s = sim.snapshot();
     expectClose(s.sets[1]!.kW, 200, { abs: 0.5 }, 'ramped set kW');
     expectClose(s.sets[0]!.kW, 900, { abs: 0.5 }, 'the other set takes the rest, kW');
-    expectClose(s.frequencyHz, 52 - 0.04 * 50 * 0.9, { abs: 0.002 }, 'frequency on A\'s droop line, Hz');
+    expectClose(s.frequencyHz, 52 - 0.04 * 50 * 0.9, { abs: 0.002 }, "frequency on A's droop line, Hz");
   });
 
   it('a motor start dips the voltage while the locked rotor lasts, then the running load stays', () => {
     const plant = twoSets();
-    const r = simulate({ plant, durationS: 10, stepMs: 2, events: [{ atS: 1, type: 'motor-start', kVA: 1500, pf: 0.3, durationS: 3, runningKW: 150, runningKVAR: 90 }] });
+    const r = simulate({
+      plant,
+      durationS: 10,
+      stepMs: 2,
+      events: [{ atS: 1, type: 'motor-start', kVA: 1500, pf: 0.3, durationS: 3, runningKW: 150, runningKVAR: 90 }],
+    });
     expect(r.metrics.voltageDipPct).toBeGreaterThan(5);
-    const after = { ...plant, loads: [...plant.loads, { id: 'M', name: 'M', online: true, kW: 150, kVAR: 90, model: 'constant-power' as const, frequencySensitivity: 0 }] };
+    const after = {
+      ...plant,
+      loads: [...plant.loads, { id: 'M', name: 'M', online: true, kW: 150, kVAR: 90, model: 'constant-power' as const, frequencySensitivity: 0 }],
+    };
     const ss = solveSharing(after);
     expectClose(r.metrics.final.voltageV, ss.bus.voltageV, { abs: 0.3 }, 'final voltage with the running motor, V');
     expect(r.log.map((l) => l.text).join('\n')).toMatch(/motor up to speed/);
@@ -85,7 +96,10 @@ describe('simulation events', () => {
     const kW = 170;
     const kVAR = 200 * Math.sqrt(1 - 0.85 * 0.85);
     expect(r.log.map((l) => l.text).join('\n')).toMatch(/running load 170 kW, 105 kVAR \(not given: locked-rotor 1200 kVA \/ 6 at 0.85 power factor\)/);
-    const ss = solveSharing({ ...plant, loads: [...plant.loads, { id: 'M', name: 'M', online: true, kW, kVAR, model: 'constant-power' as const, frequencySensitivity: 0 }] });
+    const ss = solveSharing({
+      ...plant,
+      loads: [...plant.loads, { id: 'M', name: 'M', online: true, kW, kVAR, model: 'constant-power' as const, frequencySensitivity: 0 }],
+    });
     expectClose(r.metrics.final.frequencyHz, ss.bus.frequencyHz, { abs: 0.002 }, 'final frequency with the running motor, Hz');
     expectClose(r.metrics.steadyState!.frequencyHz, ss.bus.frequencyHz, { abs: 1e-6 }, 'run target = closed form with the running motor, Hz');
   });
@@ -107,8 +121,12 @@ describe('simulation events', () => {
 
   it('names an unknown set or load in a user sentence', () => {
     expect(() => simulate({ plant: twoSets(), durationS: 1, events: [{ atS: 0.1, type: 'trip', setId: 'Z' }] })).toThrow(InvalidInput);
-    expect(() => simulate({ plant: twoSets(), durationS: 1, events: [{ atS: 0.1, type: 'trip', setId: 'Z' }] })).toThrow('trip: there is no set "Z" in the plant.');
-    expect(() => simulate({ plant: twoSets(), durationS: 1, events: [{ atS: 0.1, type: 'load-step', loadId: 'Q' }] })).toThrow('load-step: there is no load "Q" in the plant.');
+    expect(() => simulate({ plant: twoSets(), durationS: 1, events: [{ atS: 0.1, type: 'trip', setId: 'Z' }] })).toThrow(
+      'trip: there is no set "Z" in the plant.',
+    );
+    expect(() => simulate({ plant: twoSets(), durationS: 1, events: [{ atS: 0.1, type: 'load-step', loadId: 'Q' }] })).toThrow(
+      'load-step: there is no load "Q" in the plant.',
+    );
   });
 
   it('reports progress and stops when cancelled', () => {
@@ -125,7 +143,15 @@ describe('simulation events', () => {
 
   it('does not touch the scenario or plant it is given', () => {
     const plant = twoSets();
-    const scenario = { plant, durationS: 2, stepMs: 2, events: [{ atS: 0.5, type: 'setpoint' as const, setId: 'A', frequencyHz: 51 }, { atS: 0.2, type: 'trip' as const, setId: 'B' }] };
+    const scenario = {
+      plant,
+      durationS: 2,
+      stepMs: 2,
+      events: [
+        { atS: 0.5, type: 'setpoint' as const, setId: 'A', frequencyHz: 51 },
+        { atS: 0.2, type: 'trip' as const, setId: 'B' },
+      ],
+    };
     const before = JSON.stringify(scenario);
     simulate(scenario);
     expect(JSON.stringify(scenario)).toBe(before);

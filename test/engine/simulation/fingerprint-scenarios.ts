@@ -28,11 +28,17 @@ function pick(xs: number[], count: number): number[] {
 export function fingerprint(r: SimulationResult): Fingerprint {
   const s = r.series;
   const samples = [...pick(s.frequencyHz, 25), ...pick(s.voltageV, 25)];
-  for (let i = 0; i < s.setIds.length; i++) samples.push(...pick(s.setKW[i]!, 12), ...pick(s.setKVAR[i]!, 12), ...pick(s.setSpeedHz[i]!, 12), ...pick(s.setTerminalV[i]!, 12));
+  for (let i = 0; i < s.setIds.length; i++)
+    samples.push(...pick(s.setKW[i]!, 12), ...pick(s.setKVAR[i]!, 12), ...pick(s.setSpeedHz[i]!, 12), ...pick(s.setTerminalV[i]!, 12));
   const m = r.metrics;
-  const metrics = [m.frequencyNadirHz, m.frequencyPeakHz, m.voltageDipPct, m.final.frequencyHz, m.final.voltageV, ...m.final.sets.flatMap((x) => [x.kW, x.kVAR])].map((x) =>
-    typeof x === 'number' ? x : Number.NaN,
-  );
+  const metrics = [
+    m.frequencyNadirHz,
+    m.frequencyPeakHz,
+    m.voltageDipPct,
+    m.final.frequencyHz,
+    m.final.voltageV,
+    ...m.final.sets.flatMap((x) => [x.kW, x.kVAR]),
+  ].map((x) => (typeof x === 'number' ? x : Number.NaN));
   return { steps: r.steps, samples, metrics, log: r.log.map((l) => `${l.atS.toFixed(4)} ${l.text}`) };
 }
 
@@ -42,9 +48,19 @@ export function fingerprintScenarios(): { name: string; scenario: Scenario }[] {
     [
       rawSet('D', { governor: { mode: 'droop', droopPct: 4, noLoadHz: 52 }, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 416 } }),
       rawSet('I1', { governor: { mode: 'isochronous', setpointHz: 50 }, regulator: { mode: 'cross-current', droopPct: 4, setpointV: 400 } }),
-      rawSet('I2', { ratedKVA: 800, ratedKW: 640, governor: { mode: 'isochronous', setpointHz: 50 }, regulator: { mode: 'cross-current', droopPct: 4, setpointV: 400 }, feeder: { rOhm: 0.004, xOhm: 0.003 } }),
+      rawSet('I2', {
+        ratedKVA: 800,
+        ratedKW: 640,
+        governor: { mode: 'isochronous', setpointHz: 50 },
+        regulator: { mode: 'cross-current', droopPct: 4, setpointV: 400 },
+        feeder: { rOhm: 0.004, xOhm: 0.003 },
+      }),
       rawSet('B', { governor: { mode: 'baseload', baseKW: 300 }, regulator: { mode: 'power-factor', pf: 0.95, setpointV: 400 } }),
-      rawSet('V', { online: false, governor: { mode: 'droop', droopPct: 3, noLoadHz: 51.5 }, regulator: { mode: 'voltage', setpointV: 400, shuntExcited: true } }),
+      rawSet('V', {
+        online: false,
+        governor: { mode: 'droop', droopPct: 3, noLoadHz: 51.5 },
+        regulator: { mode: 'voltage', setpointV: 400, shuntExcited: true },
+      }),
     ],
     [
       { id: 'P', kW: 1400, kVAR: 900, frequencySensitivity: 1.5 },
@@ -56,7 +72,15 @@ export function fingerprintScenarios(): { name: string; scenario: Scenario }[] {
   return [
     {
       name: 'demo plant, load step and trip',
-      scenario: { plant: demo, durationS: 6, stepMs: 1, events: [{ atS: 1, type: 'load-step', kW: 300, kVAR: 150 }, { atS: 3.5, type: 'trip', setId: 'G3' }] },
+      scenario: {
+        plant: demo,
+        durationS: 6,
+        stepMs: 1,
+        events: [
+          { atS: 1, type: 'load-step', kW: 300, kVAR: 150 },
+          { atS: 3.5, type: 'trip', setId: 'G3' },
+        ],
+      },
     },
     {
       name: 'mixed modes: close, ramp, setpoints, motor start, shedding',
@@ -77,7 +101,15 @@ export function fingerprintScenarios(): { name: string; scenario: Scenario }[] {
     },
     {
       name: 'overloaded pair: reverse power, under-frequency and the limits',
-      scenario: { plant: weak, durationS: 5, stepMs: 2, events: [{ atS: 0.5, type: 'trip', setId: 'A', openBreaker: false }, { atS: 2, type: 'load-step', kW: 700, kVAR: 500 }] },
+      scenario: {
+        plant: weak,
+        durationS: 5,
+        stepMs: 2,
+        events: [
+          { atS: 0.5, type: 'trip', setId: 'A', openBreaker: false },
+          { atS: 2, type: 'load-step', kW: 700, kVAR: 500 },
+        ],
+      },
     },
   ];
 }

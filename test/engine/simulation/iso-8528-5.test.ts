@@ -102,11 +102,27 @@ describe('recovery around the steady state of the final load', () => {
       v[k] = t[k]! < 1 ? 400 : finalV + (300 - finalV) * Math.exp(-(t[k]! - 1) / 0.5);
     }
     return computeMetrics({
-      ratedFrequencyHz: 50, ratedVoltageV: 400, disturbanceS: 1, initialFrequencyHz: 50, initialVoltageV: 400,
-      nadirHz: 50, peakHz: 50, minVoltageV: 300, maxVoltageV: 400,
-      frequency: { t, x: f, length: n }, voltage: { t, x: v, length: n }, finalSets: [], droopPct: 0,
-      unservedKWh: 0, maxUnservedKW: 0, closes: [], trips: [],
-      target: target === null ? { frequencyHz: null, voltageV: null, note: 'no set is on line at the end of the run' } : { frequencyHz: 50, voltageV: target, note: null },
+      ratedFrequencyHz: 50,
+      ratedVoltageV: 400,
+      disturbanceS: 1,
+      initialFrequencyHz: 50,
+      initialVoltageV: 400,
+      nadirHz: 50,
+      peakHz: 50,
+      minVoltageV: 300,
+      maxVoltageV: 400,
+      frequency: { t, x: f, length: n },
+      voltage: { t, x: v, length: n },
+      finalSets: [],
+      droopPct: 0,
+      unservedKWh: 0,
+      maxUnservedKW: 0,
+      closes: [],
+      trips: [],
+      target:
+        target === null
+          ? { frequencyHz: null, voltageV: null, note: 'no set is on line at the end of the run' }
+          : { frequencyHz: 50, voltageV: target, note: null },
     });
   }
   const row = (m: ReturnType<typeof metricsOf>) => m.classes.find((c) => c.quantity === 'voltage recovery time')!;

@@ -6,7 +6,14 @@ import { makePlant, rawSet } from '../../helpers/plants';
 
 function plant() {
   return makePlant(
-    [rawSet('BUS1'), rawSet('INC', { online: false, governor: { mode: 'droop', droopPct: 4, noLoadHz: 50.6 }, regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 396 } })],
+    [
+      rawSet('BUS1'),
+      rawSet('INC', {
+        online: false,
+        governor: { mode: 'droop', droopPct: 4, noLoadHz: 50.6 },
+        regulator: { mode: 'reactive-droop', droopPct: 4, noLoadV: 396 },
+      }),
+    ],
     [{ id: 'L', kW: 600, kVAR: 300 }],
   );
 }

@@ -130,8 +130,20 @@ describe('rated 0.8 PF load step on default data', () => {
     const run = (oelResetS: number) =>
       simulate({
         plant: makePlant(
-          [{ id: 'G1', ratedKVA: 1000, ratedKW: 800, governor: { mode: 'droop' }, regulator: { mode: 'reactive-droop', oelPct: 110, oelDelayS: 0.2, oelResetS, vhzSlopePctPerHz: 0 }, protection: { underFrequencyPct: 0, underVoltagePct: 0 } }],
-          [{ id: 'L', kW: 400, kVAR: 300 }, { id: 'L2', kW: 400, kVAR: 300, online: false }],
+          [
+            {
+              id: 'G1',
+              ratedKVA: 1000,
+              ratedKW: 800,
+              governor: { mode: 'droop' },
+              regulator: { mode: 'reactive-droop', oelPct: 110, oelDelayS: 0.2, oelResetS, vhzSlopePctPerHz: 0 },
+              protection: { underFrequencyPct: 0, underVoltagePct: 0 },
+            },
+          ],
+          [
+            { id: 'L', kW: 400, kVAR: 300 },
+            { id: 'L2', kW: 400, kVAR: 300, online: false },
+          ],
         ),
         durationS: 14,
         stepMs: 2,

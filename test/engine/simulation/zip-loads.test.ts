@@ -5,7 +5,19 @@
  */
 import { describe, expect, it } from 'vitest';
 import { createSimulation, simulate } from '../../../electron/engine';
-import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from '../../../electron/engine/simulation/network';
+import {
+  NET_A_IM,
+  NET_A_RE,
+  NET_BREAK,
+  NET_IN_IM,
+  NET_IN_RE,
+  NET_LENGTH,
+  NET_P,
+  NET_PI,
+  NET_Q,
+  NET_QI,
+  solveBus,
+} from '../../../electron/engine/simulation/network';
 import type { BusVoltage } from '../../../electron/engine/simulation/network';
 import { expectClose } from '../../helpers/expect-close';
 import { makePlant, rawSet } from '../../helpers/plants';
@@ -45,7 +57,18 @@ describe('bus solve with constant-current loads', () => {
   });
 });
 
-const zipLoad = { id: 'Z', kW: 500, kVAR: 300, model: 'zip', kWImpedancePct: 40, kWCurrentPct: 30, kVARImpedancePct: 20, kVARCurrentPct: 50, frequencySensitivity: 1.5, kVARFrequencySensitivity: 2 };
+const zipLoad = {
+  id: 'Z',
+  kW: 500,
+  kVAR: 300,
+  model: 'zip',
+  kWImpedancePct: 40,
+  kWCurrentPct: 30,
+  kVARImpedancePct: 20,
+  kVARCurrentPct: 50,
+  frequencySensitivity: 1.5,
+  kVARFrequencySensitivity: 2,
+};
 
 /** The ZIP law of `zipLoad` at bus voltage v (V) and frequency f (Hz), 400 V / 50 Hz plant. */
 function law(v: number, f: number): { kW: number; kVAR: number } {
@@ -69,7 +92,13 @@ describe('ZIP loads in a run', () => {
   });
 
   it('after a ZIP load switches on the run settles on the closed-form steady state of the final loads', () => {
-    const plant = makePlant([rawSet('A')], [{ id: 'L', kW: 300, kVAR: 200 }, { ...zipLoad, online: false }]);
+    const plant = makePlant(
+      [rawSet('A')],
+      [
+        { id: 'L', kW: 300, kVAR: 200 },
+        { ...zipLoad, online: false },
+      ],
+    );
     const r = simulate({ plant, durationS: 20, stepMs: 2, events: [{ atS: 1, type: 'load-step', loadId: 'Z', online: true }] });
     const ss = r.metrics.steadyState!;
     expect(ss).not.toBeNull();

@@ -16,14 +16,14 @@ function plantCase(plant: Plant, incomingSetId: string): SyncCase {
   };
 }
 
-describe('busEquivalent from a plant (Thevenin of the online sets: X\'\'d on a common base, plus feeders)', () => {
-  it('puts two equal sets in parallel: X = X\'\'d / 2, R = R_Gf / 2 (closed form)', () => {
+describe("busEquivalent from a plant (Thevenin of the online sets: X''d on a common base, plus feeders)", () => {
+  it("puts two equal sets in parallel: X = X''d / 2, R = R_Gf / 2 (closed form)", () => {
     const plant = makePlant([rawSet('G1'), rawSet('G2'), rawSet('G3', { online: false })]);
     const c = plantCase(plant, 'G3');
     const b = busEquivalent(c, syncBasis(c));
     expect(b.from).toBe('plant');
     expect(b.setIds).toEqual(['G1', 'G2']);
-    expectClose(b.xPU, 0.075, { rel: 1e-12 }, 'X (schema default X\'\'d 0.15 pu)');
+    expectClose(b.xPU, 0.075, { rel: 1e-12 }, "X (schema default X''d 0.15 pu)");
     expectClose(b.rPU, 0.15 * 0.075, { rel: 1e-12 }, 'R = 0.15 X at 400 V (IEC 60909 R_Gf [memory])');
     // Short-circuit level at 1 pu: S / |Z|.
     expectClose(b.shortCircuitKVA!, 1250 / Math.hypot(0.075, 0.15 * 0.075), { rel: 1e-12 });
@@ -42,7 +42,7 @@ describe('busEquivalent from a plant (Thevenin of the online sets: X\'\'d on a c
     expectClose(b.xPU, (x1 * x2) / (x1 + x2), { rel: 1e-12 });
   });
 
-  it('adds each set\'s feeder in ohms on Z_base = V² / S (400 V, 1250 kVA: 0.128 Ω)', () => {
+  it("adds each set's feeder in ohms on Z_base = V² / S (400 V, 1250 kVA: 0.128 Ω)", () => {
     const plant = makePlant([rawSet('G1', { feeder: { rOhm: 0, xOhm: 0.0128 } }), rawSet('G2', { online: false, feeder: { rOhm: 0.00128, xOhm: 0.0064 } })]);
     const c = plantCase(plant, 'G2');
     const basis = syncBasis(c);

@@ -52,7 +52,7 @@ describe('closingMap, time-domain method (simulator, first cycle after the close
     for (let i = 1; i < row.length; i++) expect(row[i]!).toBeGreaterThan(row[i - 1]!);
   });
 
-  it('needs the case\'s plant, and refuses grids too large to simulate', () => {
+  it("needs the case's plant, and refuses grids too large to simulate", () => {
     const c = demoCase();
     delete c.plant;
     delete c.incomingSetId;

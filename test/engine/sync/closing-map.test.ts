@@ -96,20 +96,28 @@ describe('closingMap (closed form)', () => {
 
   it('is symmetric in angle at zero voltage difference (contact axis, or no breaker delay) — property', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.05, max: 1, noNaN: true }), fc.double({ min: 0.1, max: 2, noNaN: true }), fc.integer({ min: 0, max: 200 }), (xBus, range, ms) => {
-        const c = mapCase({ busSource: { ratedKVA: 1000, xPU: xBus }, breakerClosingMs: ms });
-        for (const m of [closingMap(request(c, { angleSteps: 37, slipSteps: 9, slipRangeHz: range, angleAxis: 'contact' })), closingMap(request({ ...c, breakerClosingMs: 0 }, { angleSteps: 37, slipSteps: 9, slipRangeHz: range }))]) {
-          const n = m.anglesDeg.length;
-          let worst = 0;
-          for (let row = 0; row < m.slipsHz.length; row++) {
-            for (let col = 0; col < n; col++) {
-              worst = Math.max(worst, Math.abs(at(m, m.surgeCurrentPU, row, col) - at(m, m.surgeCurrentPU, row, n - 1 - col)));
-              worst = Math.max(worst, Math.abs(at(m, m.torqueStepPU, row, col) + at(m, m.torqueStepPU, row, n - 1 - col)));
+      fc.property(
+        fc.double({ min: 0.05, max: 1, noNaN: true }),
+        fc.double({ min: 0.1, max: 2, noNaN: true }),
+        fc.integer({ min: 0, max: 200 }),
+        (xBus, range, ms) => {
+          const c = mapCase({ busSource: { ratedKVA: 1000, xPU: xBus }, breakerClosingMs: ms });
+          for (const m of [
+            closingMap(request(c, { angleSteps: 37, slipSteps: 9, slipRangeHz: range, angleAxis: 'contact' })),
+            closingMap(request({ ...c, breakerClosingMs: 0 }, { angleSteps: 37, slipSteps: 9, slipRangeHz: range })),
+          ]) {
+            const n = m.anglesDeg.length;
+            let worst = 0;
+            for (let row = 0; row < m.slipsHz.length; row++) {
+              for (let col = 0; col < n; col++) {
+                worst = Math.max(worst, Math.abs(at(m, m.surgeCurrentPU, row, col) - at(m, m.surgeCurrentPU, row, n - 1 - col)));
+                worst = Math.max(worst, Math.abs(at(m, m.torqueStepPU, row, col) + at(m, m.torqueStepPU, row, n - 1 - col)));
+              }
             }
+            expect(worst).toBeLessThan(1e-12);
           }
-          expect(worst).toBeLessThan(1e-12);
-        }
-      }),
+        },
+      ),
       { numRuns: 30 },
     );
   });
@@ -140,7 +148,9 @@ describe('closingMap (closed form)', () => {
   });
 
   it('refuses a dead bus and bad grids with a sentence naming the field', () => {
-    expect(() => closingMap(request(mapCase({ bus: { frequencyHz: 0, voltageV: 0 }, ratedVoltageV: 480 })))).toThrow(/^case\.bus\.voltageV: the bus is not live/);
+    expect(() => closingMap(request(mapCase({ bus: { frequencyHz: 0, voltageV: 0 }, ratedVoltageV: 480 })))).toThrow(
+      /^case\.bus\.voltageV: the bus is not live/,
+    );
     expect(() => closingMap(request(mapCase(), { angleSteps: 1 }))).toThrow('angleSteps, slipSteps: must be whole numbers of 2 or more.');
     expect(() => closingMap(request(mapCase(), { slipRangeHz: 0 }))).toThrow('slipRangeHz: must be greater than 0.');
   });

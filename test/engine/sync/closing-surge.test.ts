@@ -60,7 +60,7 @@ describe('closingSurge: two 1000 kVA 480 V sets, X total 0.30 pu', () => {
     expectClose(s.torqueStepPU, s.powerStepPU / 1.01, { rel: 1e-12 });
   });
 
-  it('peaks at √2 × 2.0 × I\'\' for a purely reactive loop (IEC 60909: κ(0) = 2.0)', () => {
+  it("peaks at √2 × 2.0 × I'' for a purely reactive loop (IEC 60909: κ(0) = 2.0)", () => {
     const s = closingSurge(circuit, 20);
     expect(s.peakFactor).toBe(2);
     expectClose(s.peakCurrentA, 2 * Math.SQRT2 * s.surgeCurrentA, { rel: 1e-12 });
@@ -144,14 +144,16 @@ describe('iecPeakFactor', () => {
   });
 
   it('falls as R/X grows (property)', () => {
-    fc.assert(fc.property(fc.double({ min: 0, max: 5, noNaN: true }), fc.double({ min: 1e-3, max: 1, noNaN: true }), (r, d) => {
-      expect(iecPeakFactor(r + d)).toBeLessThan(iecPeakFactor(r));
-    }));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 5, noNaN: true }), fc.double({ min: 1e-3, max: 1, noNaN: true }), (r, d) => {
+        expect(iecPeakFactor(r + d)).toBeLessThan(iecPeakFactor(r));
+      }),
+    );
   });
 });
 
 describe('surge circuit from the case', () => {
-  it('takes R/X from the IEC 60909 fictitious generator resistance when not given (0.15 X\'\'d at ≤ 1 kV [memory])', () => {
+  it("takes R/X from the IEC 60909 fictitious generator resistance when not given (0.15 X''d at ≤ 1 kV [memory])", () => {
     const c = twoSets({ rOverX: undefined });
     delete c.incoming.rOverX;
     const circuit = surgeCircuit(c);

@@ -28,7 +28,7 @@ describe('evaluateSync', () => {
     expectClose(r.windowOpenS!, 0.556, { abs: 5e-4 }, '±10° at 0.1 Hz → 0.556 s');
   });
 
-  it('is open on the window\'s edge at −10°, closes after 20/36 s, and times the command at −3.6°', () => {
+  it("is open on the window's edge at −10°, closes after 20/36 s, and times the command at −3.6°", () => {
     const r = evaluateSync(baseCase());
     expect(r.windowOpenNow).toBe(true);
     expect(r.permissive).toBe(true);
@@ -90,7 +90,7 @@ describe('evaluateSync', () => {
     expect(off.reasons).toEqual(['The bus is dead (0.0 %) and dead-bus closing is not enabled.']);
   });
 
-  it('names the preset as the source when the limits are the preset\'s, and says when they were edited', () => {
+  it("names the preset as the source when the limits are the preset's, and says when they were edited", () => {
     const as = evaluateSync(baseCase({ presetId: 'ieee1547-2018-500-1500', limits: { slipHz: 0.2, voltagePct: 5, angleDeg: 15 } }));
     expect(as.limitsSource).toContain('IEEE Std 1547-2018');
     const edited = evaluateSync(baseCase({ presetId: 'ieee1547-2018-500-1500', limits: { slipHz: 0.1, voltagePct: 5, angleDeg: 15 } }));

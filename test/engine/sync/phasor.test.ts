@@ -33,13 +33,18 @@ describe('phasorDifference', () => {
 
   it('deltaVMagnitude agrees with phasorDifference and is even in angle (property)', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 2, noNaN: true }), fc.double({ min: 0, max: 2, noNaN: true }), fc.double({ min: -720, max: 720, noNaN: true }), (v1, v2, th) => {
-        const a = deltaVMagnitude(v1, v2, th);
-        expectClose(a, phasorDifference(v1, v2, th).magnitude, { abs: 1e-9 });
-        expectClose(a, deltaVMagnitude(v1, v2, -th), { abs: 1e-12 });
-        expect(a).toBeGreaterThanOrEqual(Math.abs(v1 - v2) - 1e-9);
-        expect(a).toBeLessThanOrEqual(v1 + v2 + 1e-9);
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 2, noNaN: true }),
+        fc.double({ min: 0, max: 2, noNaN: true }),
+        fc.double({ min: -720, max: 720, noNaN: true }),
+        (v1, v2, th) => {
+          const a = deltaVMagnitude(v1, v2, th);
+          expectClose(a, phasorDifference(v1, v2, th).magnitude, { abs: 1e-9 });
+          expectClose(a, deltaVMagnitude(v1, v2, -th), { abs: 1e-12 });
+          expect(a).toBeGreaterThanOrEqual(Math.abs(v1 - v2) - 1e-9);
+          expect(a).toBeLessThanOrEqual(v1 + v2 + 1e-9);
+        },
+      ),
     );
   });
 });

@@ -1,14 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import {
-  advanceAngleDeg,
-  angleAtContactDeg,
-  closeCommandAngleDeg,
-  slipPeriodS,
-  timeToAngleS,
-  windowOpenS,
-  windowTiming,
-} from '../../../electron/engine';
+import { advanceAngleDeg, angleAtContactDeg, closeCommandAngleDeg, slipPeriodS, timeToAngleS, windowOpenS, windowTiming } from '../../../electron/engine';
 import { expectClose } from '../../helpers/expect-close';
 
 describe('advanceAngleDeg', () => {

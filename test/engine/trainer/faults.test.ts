@@ -73,7 +73,13 @@ describe('trainer faults scripted by an instructor', () => {
     expect(s0.busVoltageV).toBe(0);
     expect(s0.busFrequencyHz).toBe(50);
     expect(s0.level.busDriftHz).toBe(0);
-    const atRated: TrainerState = { ...s0, incomingFrequencyHz: 50.1, incomingVoltageV: 404, phase: 'closed', contact: { atS: 1, angleDeg: 0, slipHz: 0.1, voltageDifferencePct: 1, deltaVPU: 1.01, commandAngleDeg: 0 } };
+    const atRated: TrainerState = {
+      ...s0,
+      incomingFrequencyHz: 50.1,
+      incomingVoltageV: 404,
+      phase: 'closed',
+      contact: { atS: 1, angleDeg: 0, slipHz: 0.1, voltageDifferencePct: 1, deltaVPU: 1.01, commandAngleDeg: 0 },
+    };
     const v = judgeClose(atRated);
     expect(v.deadBusClose).toBe(true);
     expect(v.insideWindow).toBe(true);
@@ -93,10 +99,17 @@ describe('trainer faults scripted by an instructor', () => {
   });
 
   it('judges pass criteria with a sentence for each miss', () => {
-    expect(judgePass({ score: 85, insideWindow: true, withinMachineLimits: true }, { minScore: 70, insideWindow: true, withinMachineLimits: true })).toEqual({ passed: true, reasons: [] });
+    expect(judgePass({ score: 85, insideWindow: true, withinMachineLimits: true }, { minScore: 70, insideWindow: true, withinMachineLimits: true })).toEqual({
+      passed: true,
+      reasons: [],
+    });
     const r = judgePass({ score: 40, insideWindow: false, withinMachineLimits: false }, { minScore: 70, insideWindow: true, withinMachineLimits: true });
     expect(r.passed).toBe(false);
-    expect(r.reasons).toEqual(['Score 40 is below the pass mark of 70.', 'The contact was outside the graded window.', "The close exceeded the machine's limits."]);
+    expect(r.reasons).toEqual([
+      'Score 40 is below the pass mark of 70.',
+      'The contact was outside the graded window.',
+      "The close exceeded the machine's limits.",
+    ]);
     expect(faultWords({ breakerSlowMs: 150, deadBus: true })).toBe('breaker 150 ms slower than its setting; dead bus to energise');
   });
 

@@ -24,7 +24,14 @@ function closedAt(angleDeg: number, slipHz: number, voltagePct: number, levelId 
     incomingVoltageV: vi,
     emfPU: vi / 400,
     fieldPU: vi / 400,
-    contact: { atS: 5, angleDeg, slipHz, voltageDifferencePct: voltagePct, deltaVPU: Math.sqrt(1 + k * k - 2 * k * Math.cos(rad)), commandAngleDeg: angleDeg - 2 },
+    contact: {
+      atS: 5,
+      angleDeg,
+      slipHz,
+      voltageDifferencePct: voltagePct,
+      deltaVPU: Math.sqrt(1 + k * k - 2 * k * Math.cos(rad)),
+      commandAngleDeg: angleDeg - 2,
+    },
   };
 }
 
@@ -56,7 +63,7 @@ describe('contactStress', () => {
 });
 
 describe('judgeClose: peak torque and the breaker-travel sentence', () => {
-  it('checks the first-cycle peak torque against the same quantity at the machine standard\'s window corner', () => {
+  it("checks the first-cycle peak torque against the same quantity at the machine standard's window corner", () => {
     const v = judgeClose(closedAt(30, 0.05, 0));
     const row = v.checks.find((k) => k.quantity.startsWith('Peak air-gap torque'))!;
     // Limit: (E1E2/X)(sin 10° + 2 sin 5°) with E2 = 1.05 (corner of ±10°, +5 %), X = 0.1875 pu — closed form.
