@@ -8,9 +8,8 @@ import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, 
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from '../schemas/plant-schema';
+import { num, text } from '../schemas/schema-kit';
 
-const num = (unit: string) => z.number({ error: `must be a number (${unit})` }).refine(Number.isFinite, 'must be a finite number');
-const text = () => z.string({ error: 'must be text' });
 /** Largest record text accepted, characters (about 50 MB, the CLI's file limit). */
 const MAX_TEXT = 50_000_000;
 const recordText = () => text().max(MAX_TEXT, `must be at most ${MAX_TEXT.toLocaleString('en')} characters`);
@@ -134,7 +133,7 @@ const syncLimits = z
   })
   .strip();
 
-const finite = () => z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
+const finite = () => num();
 const nullableNumber = () => z.union([finite(), z.null()], { error: 'must be a number or null' });
 const classRow = z
   .object({

@@ -4,6 +4,7 @@ import { EngineError, describePlant, solveSharing, solveSharingAtMost } from '..
 import { loadAtPct } from '../../shared-types';
 import type { CheckedPlant, Plant } from '../../shared-types';
 import { plantSchema } from '../schemas/plant-schema';
+import { num } from '../schemas/schema-kit';
 import type { HandlerGroup } from './handler';
 import { parseOrThrow } from '../schemas/validate';
 
@@ -37,9 +38,7 @@ export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant' | 'ch
     schema: z
       .object({
         plant: z.unknown(),
-        loadPct: z
-          .number({ error: 'must be a number (%)' })
-          .refine(Number.isFinite, 'must be a finite number')
+        loadPct: num('%')
           .refine((v) => v >= 0 && v <= 500, 'must be from 0 to 500 %')
           .optional(),
       })
