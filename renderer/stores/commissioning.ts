@@ -43,7 +43,7 @@ export const EXAMPLE_TEST: TestDescription = {
   startKVAR: 150,
   stepKW: 500,
   stepKVAR: 300,
-  stepAtS: 2,
+  stepAtS: 2.01,
   measuredAt: 'set',
 };
 
@@ -52,7 +52,9 @@ const FIRST_CHOICE: FitParameterKey[] = ['machine.inertiaS', 'governor.engineLag
 
 /**
  * A guess at the test from a record with a kW column: the step is where kW jumps most between
- * samples; the load before and after are the means of kW (and kVAR) on either side.
+ * samples, taken halfway between the last sample before the jump and the first after it (a
+ * record does not show when, between two samples, the load bank closed); the load before and
+ * after are the means of kW (and kVAR) on either side.
  */
 export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
   const r = p.record;
@@ -69,7 +71,8 @@ export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
   const mean = (x: number[], a: number, b: number) => x.slice(a, b).reduce((s, v) => s + v, 0) / Math.max(1, b - a);
   const n = r.kW.length;
   const startKW = mean(r.kW, 0, k);
-  const guess: Partial<TestDescription> = { stepAtS: r.tS[k]!, startKW: Math.round(startKW), stepKW: Math.round(mean(r.kW, k, n) - startKW) };
+  const stepAtS = Math.round(((r.tS[k - 1]! + r.tS[k]!) / 2) * 1e6) / 1e6;
+  const guess: Partial<TestDescription> = { stepAtS, startKW: Math.round(startKW), stepKW: Math.round(mean(r.kW, k, n) - startKW) };
   if (r.kVAR) {
     const q0 = mean(r.kVAR, 0, k);
     guess.startKVAR = Math.round(q0);
