@@ -2,6 +2,7 @@
  * A Droopline project file: the plant plus everything the user set up around it.
  * Saved as JSON (`format: "droopline.project"`); older versions migrate forward.
  */
+import type { FitParameterKey, FitResult, RecordColumns, RecordUnits, SignOff, TestDescription } from './commissioning';
 import type { Plant } from './plant';
 import type { ScenarioEvent } from './simulation';
 import type { DeadPermissives, SyncLimits } from './sync';
@@ -30,6 +31,28 @@ export interface ProjectSyncSettings {
   incomingSetId: string | null;
 }
 
+/** A number the user has left blank is kept as null. */
+export type Blankable<T> = { [K in keyof T]: T[K] extends number ? number | null : T[K] };
+
+/**
+ * The Commissioning view's work kept in a project. Every part may be missing (a new view's starting state);
+ * the project reader checks each part on its own and leaves a damaged one out with a note naming the field.
+ */
+export interface ProjectCommissioning {
+  /** The accepted test record: the file's name and text and the column and unit choice it was read with. */
+  record?: { fileName: string; text: string; columns: RecordColumns; units: RecordUnits } | null;
+  /** The test description as entered. */
+  test?: Blankable<TestDescription>;
+  /** The parameter choice: which to fit and each one's range. */
+  params?: { key: FitParameterKey; chosen: boolean; min: number | null; max: number | null }[];
+  maxIterations?: number | null;
+  /** The last fit, the test it ran with, and whether its values were applied to the plant. */
+  fit?: { result: FitResult; test: TestDescription; applied: boolean } | null;
+  signOff?: SignOff;
+  /** The set the commissioning record is of. */
+  recordSetId?: string;
+}
+
 /** The whole project file. */
 export interface Project {
   format: typeof PROJECT_FORMAT;
@@ -41,6 +64,8 @@ export interface Project {
   trainerLog: TrainerAttempt[];
   /** An instructor's exercise sets (levels, seeds, faults, pass criteria), run as sessions in the Trainer. */
   trainerExercises: TrainerExerciseSet[];
+  /** The Commissioning view's record, test, fit and sign-off (absent in files saved before it was kept). */
+  commissioning?: ProjectCommissioning | null;
   /** View settings (current view, slider positions, chart choices). */
   view: Record<string, unknown>;
 }

@@ -20,12 +20,15 @@ const test: Plant = {
   sets: [g1],
   loads: [{ id: 'bank', name: 'load bank', online: true, kW: 250, kVAR: 150, model: 'constant-power', frequencySensitivity: 0 }],
 };
+// The step falls between two samples (2.00 s and 2.02 s), as a real record has it: no sample is taken at the
+// very instant the load bank closes, so record and model agree on which samples come before the step.
+const STEP_AT_S = 2.01;
 const r = simulate({
   plant: test,
   durationS: 8.01,
   stepMs: 1,
   outputPoints: 8010,
-  events: [{ atS: 2, type: 'load-step', kW: 500, kVAR: 300, model: 'constant-power' }],
+  events: [{ atS: STEP_AT_S, type: 'load-step', kW: 500, kVAR: 300, model: 'constant-power' }],
 });
 const s = r.series;
 const rng = xoroshiro128plus(20261202);
@@ -33,7 +36,7 @@ const noise = (a: number) => a * (2 * uniformFloat64(rng) - 1);
 const lines = [
   CSV_CAUTION_LINE,
   '# Example load-bank test record (invented data): set G1 of the demo plant alone on the bus,',
-  '# load bank at 250 kW / 150 kVAR, a step of 500 kW / 300 kVAR at 2.00 s, sampled every 20 ms.',
+  '# load bank at 250 kW / 150 kVAR, a step of 500 kW / 300 kVAR at 2.01 s (between the 2.00 s and 2.02 s samples), sampled every 20 ms.',
   'time_s,frequency_Hz,voltage_V,P_kW,Q_kVAR',
 ];
 let j = 0;

@@ -3,35 +3,15 @@
  * rounds, with progress and cancel), and the commissioning record of a set.
  */
 import { z } from 'zod';
-import { FIT_PARAMETERS } from '../../shared-types';
 import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from '../schemas/plant-schema';
+import { FIT_KEYS, fitResultPrintedSchema, recordColumnFields, recordText, recordUnitFields, testDescriptionFields } from '../schemas/commissioning-schema';
 import { num, text } from '../schemas/schema-kit';
 
-/** Largest record text accepted, characters (about 50 MB, the CLI's file limit). */
-const MAX_TEXT = 50_000_000;
-const recordText = () => text().max(MAX_TEXT, `must be at most ${MAX_TEXT.toLocaleString('en')} characters`);
-const column = () =>
-  z.union([text().min(1, 'must not be empty'), z.number().int('must be a whole number').gte(1, 'must be 1 or more')], {
-    error: 'must be a column name or a column number (1, 2, …)',
-  });
-
-const columnsSchema = z
-  .object({ time: column(), frequency: column(), voltage: column(), kW: column().optional(), kVAR: column().optional(), current: column().optional() })
-  .strict();
-
-const unitsSchema = z
-  .object({
-    time: z.enum(['s', 'ms'], { error: 'must be "s" or "ms"' }),
-    frequency: z.enum(['Hz', 'pu', '%'], { error: 'must be "Hz", "pu" or "%"' }),
-    voltage: z.enum(['V', 'kV', 'pu', '%'], { error: 'must be "V", "kV", "pu" or "%"' }),
-    kW: z.enum(['kW', 'MW'], { error: 'must be "kW" or "MW"' }).optional(),
-    kVAR: z.enum(['kVAR', 'MVAR'], { error: 'must be "kVAR" or "MVAR"' }).optional(),
-    current: z.enum(['A', 'kA'], { error: 'must be "A" or "kA"' }).optional(),
-  })
-  .strict();
+const columnsSchema = z.object(recordColumnFields).strict();
+const unitsSchema = z.object(recordUnitFields).strict();
 
 export const parseRecordSchema: z.ZodType<ParseRecordRequest> = z
   .object({
@@ -69,20 +49,9 @@ const recordSchema = z
       }
   });
 
-const testSchema = z
-  .object({
-    setId: text().min(1, 'must not be empty'),
-    onlineSetIds: z.array(text(), { error: 'must be a list of set ids' }).min(1, 'must name at least one set'),
-    startKW: num('kW').gte(0, 'must be 0 or more').lte(10_000_000, 'must be 10 000 000 kW or less'),
-    startKVAR: num('kVAR').gte(-10_000_000, 'must be −10 000 000 kVAR or more').lte(10_000_000, 'must be 10 000 000 kVAR or less'),
-    stepKW: num('kW').gte(-10_000_000, 'must be −10 000 000 kW or more').lte(10_000_000, 'must be 10 000 000 kW or less'),
-    stepKVAR: num('kVAR').gte(-10_000_000, 'must be −10 000 000 kVAR or more').lte(10_000_000, 'must be 10 000 000 kVAR or less'),
-    stepAtS: num('s'),
-    measuredAt: z.enum(['set', 'bus'], { error: 'must be "set" or "bus"' }).optional(),
-  })
-  .strict();
+const testSchema = z.object(testDescriptionFields).strict();
 
-const KEYS = FIT_PARAMETERS.map((p) => p.key) as [string, ...string[]];
+const KEYS = FIT_KEYS;
 
 const paramSchema = z
   .object({
@@ -133,48 +102,8 @@ const syncLimits = z
   })
   .strip();
 
-const finite = () => num();
-const nullableNumber = () => z.union([finite(), z.null()], { error: 'must be a number or null' });
-const classRow = z
-  .object({
-    quantity: text(),
-    unit: text(),
-    measured: nullableNumber(),
-    limits: z.object({ G1: finite(), G2: finite(), G3: finite() }),
-    pass: z.object({ G1: z.boolean().nullable(), G2: z.boolean().nullable(), G3: z.boolean().nullable() }),
-  })
-  .loose();
-const verdictSchema = z
-  .object({
-    initialFrequencyHz: finite(),
-    initialVoltageV: finite(),
-    frequencyNadirHz: finite(),
-    frequencyPeakHz: finite(),
-    voltageMinV: finite(),
-    voltageMaxV: finite(),
-    settledFrequencyHz: finite(),
-    settledVoltageV: finite(),
-    frequencyRecoveryS: nullableNumber(),
-    voltageRecoveryS: nullableNumber(),
-    classes: z.array(classRow).max(20, 'must have at most 20 rows'),
-  })
-  .loose();
 /** The parts of a fit result the commissioning record prints (a result of `fitTestRecord`, passed back). */
-const fitResultSchema = z
-  .object({
-    setId: text(),
-    parameters: z
-      .array(
-        z
-          .object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: finite(), value: finite(), confidence: text() })
-          .loose(),
-      )
-      .max(KEYS.length, `at most ${KEYS.length} parameters`),
-    residual: z.object({ frequencyPct: finite(), voltagePct: finite(), totalPct: finite() }).loose(),
-    measuredVerdict: verdictSchema,
-    modelVerdict: verdictSchema,
-  })
-  .loose() as unknown as z.ZodType<FitResult>;
+const fitResultSchema = fitResultPrintedSchema as unknown as z.ZodType<FitResult>;
 
 export const commissioningRecordSchema: z.ZodType<CommissioningRecordRequest> = z
   .object({

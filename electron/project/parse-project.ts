@@ -3,8 +3,10 @@
  * Droopline files forward and validates the result. The one way any part of Droopline
  * (the app through the `parseProject` engine method, the CLI) reads a project.
  */
+import { issueInWords } from '../../shared-types';
 import type { ParsedProject, Project } from '../../shared-types';
 import { z } from 'zod';
+import { COMMISSIONING_PART_WORDS, COMMISSIONING_PARTS } from '../schemas/commissioning-schema';
 import { projectSchema } from '../schemas/project-schema';
 import { checkEvents } from '../schemas/scenario-events';
 import { parseOrThrow, ValidationError } from '../schemas/validate';
@@ -76,7 +78,7 @@ export function parseProject(text: string): ParsedProject {
   const migrated = migrateToCurrent(content);
   const notes = [...migrated.notes];
   if (check === 'mismatch') notes.push(CHECKSUM_MISMATCH);
-  const project = validate(migrated.raw);
+  const project = validate(readableCommissioning(migrated.raw, notes));
   notes.push(...scenarioNotes(project));
   return { project, migratedFrom: migrated.migratedFrom, notes };
 }
@@ -95,6 +97,39 @@ function scenarioNotes(project: Project): string[] {
       ),
     );
   return notes;
+}
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const AFTER_LEFT_OUT = 'The rest of the project opened; saving writes it without that part (Save As keeps this file as it is).';
+
+/**
+ * The commissioning section is the Commissioning view's work in progress, not the plant: a damaged part of it (the
+ * record, the test, the parameter choice, the iteration cap, the fit, the sign-off, the record's set) is left out
+ * with a note naming the field and the rule, and the rest — of the section and of the project — opens.
+ */
+function readableCommissioning(raw: Record<string, unknown>, notes: string[]): Record<string, unknown> {
+  const section = raw.commissioning;
+  if (section === undefined || section === null) return raw;
+  if (!isObject(section)) {
+    const { commissioning: _left, ...rest } = raw;
+    notes.push(`The commissioning work was left out (commissioning: must be an object). ${AFTER_LEFT_OUT}`);
+    return rest;
+  }
+  const kept: Record<string, unknown> = { ...section };
+  for (const key of Object.keys(COMMISSIONING_PARTS) as (keyof typeof COMMISSIONING_PARTS)[]) {
+    if (!(key in kept)) continue;
+    try {
+      parseOrThrow(COMMISSIONING_PARTS[key] as z.ZodType, kept[key], ['commissioning', key]);
+    } catch (e) {
+      if (!(e instanceof ValidationError)) throw e;
+      delete kept[key];
+      // In words for the screen, with the field path for whoever edits the file.
+      const first = e.issues.slice(0, 3).map((i) => `${issueInWords({ ...i, path: i.path.replace(/^commissioning\./, '') })} [${i.path}]`);
+      const more = e.issues.length > 3 ? `, and ${e.issues.length - 3} more` : '';
+      notes.push(`Commissioning: ${COMMISSIONING_PART_WORDS[key]} was left out (${first.join('; ')}${more}). ${AFTER_LEFT_OUT}`);
+    }
+  }
+  return { ...raw, commissioning: kept };
 }
 
 /** The note of a project whose content no longer matches the checksum it was saved with. */

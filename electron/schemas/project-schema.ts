@@ -1,12 +1,13 @@
 /**
  * The project-file schema: the plant (checked by `plantSchema`, the plant-file definition)
  * plus the parts kept around it. Parts owned by other views (scenarios, sync settings,
- * trainer log, view settings) are checked for shape and keep any field this version does
+ * trainer log, commissioning work, view settings) are checked for shape and keep any field this version does
  * not know, so a project never loses data on its way through open and save.
  */
 import { z } from 'zod';
 import { PROJECT_FORMAT, PROJECT_VERSION } from '../../shared-types';
 import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt, TrainerExerciseSet } from '../../shared-types';
+import { projectCommissioningSchema } from './commissioning-schema';
 import { plantSchema } from './plant-schema';
 import { projectEventSchema } from './scenario-events';
 import { trainerExerciseShape } from '../handlers/trainer-handlers';
@@ -75,6 +76,8 @@ export const projectSchema = z
     trainerLog: z.array(trainerAttemptSchema, { error: 'must be a list of attempts' }).default([]),
     // Files saved before exercise sets existed have none.
     trainerExercises: z.array(trainerExerciseSetSchema, { error: 'must be a list of exercise sets' }).default([]),
+    // The Commissioning view's work (files saved before it was kept have none; null is the same as none).
+    commissioning: projectCommissioningSchema.nullable().optional(),
     view: z.record(z.string(), z.unknown(), { error: 'must be an object' }).default({}),
   })
   .strict()
@@ -94,5 +97,6 @@ export const projectSchema = z
     sync: p.sync as ProjectSyncSettings | null,
     trainerLog: p.trainerLog as TrainerAttempt[],
     trainerExercises: p.trainerExercises as TrainerExerciseSet[],
+    ...(p.commissioning ? { commissioning: p.commissioning } : {}),
     view: p.view,
   }));

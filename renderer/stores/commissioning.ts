@@ -2,7 +2,9 @@
  * The Commissioning view's store: the test record (text, column and unit choice, the parsed
  * record), the test description, the parameters to fit with their bounds, the fit (progress,
  * cancel), applying the fitted values to the plant as one undoable edit, and the
- * commissioning record (sign-off, CSV and HTML).
+ * commissioning record (sign-off, CSV and HTML). The work is part of the project (`snapshot()` /
+ * `restore()`, wired in `project-parts.ts`): the accepted record with its column and unit choice, the
+ * test, the parameter choice, the last fit and the sign-off.
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
@@ -12,6 +14,7 @@ import type {
   FitParameterKey,
   FitResult,
   ParsedTestRecord,
+  ProjectCommissioning,
   RecordColumns,
   RecordInspection,
   RecordUnits,
@@ -43,16 +46,32 @@ export const EXAMPLE_TEST: TestDescription = {
   startKVAR: 150,
   stepKW: 500,
   stepKVAR: 300,
-  stepAtS: 2,
+  stepAtS: 2.01,
   measuredAt: 'set',
 };
 
 /** Parameters chosen at first: the ones a load step shows best. */
 const FIRST_CHOICE: FitParameterKey[] = ['machine.inertiaS', 'governor.engineLagS', 'regulator.gainPU', 'regulator.exciterLagS'];
 
+/** A new view's test, parameter choice and iteration cap. */
+const blankTest = (): TestDescription => ({ setId: '', onlineSetIds: [], startKW: 0, startKVAR: 0, stepKW: 0, stepKVAR: 0, stepAtS: 0, measuredAt: 'set' });
+const firstParams = (): ParamChoice[] =>
+  FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax }));
+const FIRST_ITERATIONS = 30;
+
+/** The record in use as it came: file name, text, and the column and unit choice it was read with. */
+type AcceptedRecord = NonNullable<ProjectCommissioning['record']>;
+
+/** A number as the file keeps it: a blank (or unreadable) entry is null. */
+const kept = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
+/** A kept number back in an entry: null is a blank entry. */
+const entry = (v: number | null | undefined, fallback: number): number => (v === undefined ? fallback : v === null ? Number.NaN : v);
+
 /**
  * A guess at the test from a record with a kW column: the step is where kW jumps most between
- * samples; the load before and after are the means of kW (and kVAR) on either side.
+ * samples, taken halfway between the last sample before the jump and the first after it (a
+ * record does not show when, between two samples, the load bank closed); the load before and
+ * after are the means of kW (and kVAR) on either side.
  */
 export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
   const r = p.record;
@@ -69,7 +88,8 @@ export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
   const mean = (x: number[], a: number, b: number) => x.slice(a, b).reduce((s, v) => s + v, 0) / Math.max(1, b - a);
   const n = r.kW.length;
   const startKW = mean(r.kW, 0, k);
-  const guess: Partial<TestDescription> = { stepAtS: r.tS[k]!, startKW: Math.round(startKW), stepKW: Math.round(mean(r.kW, k, n) - startKW) };
+  const stepAtS = Math.round(((r.tS[k - 1]! + r.tS[k]!) / 2) * 1e6) / 1e6;
+  const guess: Partial<TestDescription> = { stepAtS, startKW: Math.round(startKW), stepKW: Math.round(mean(r.kW, k, n) - startKW) };
   if (r.kVAR) {
     const q0 = mean(r.kVAR, 0, k);
     guess.startKVAR = Math.round(q0);
@@ -77,6 +97,13 @@ export function guessTest(p: ParsedTestRecord): Partial<TestDescription> {
   }
   return guess;
 }
+
+/** The section of a new view (what `snapshot()` compares with). */
+const NEW_SECTION = {
+  test: blankTest(),
+  params: firstParams().map((p) => ({ key: p.key, chosen: p.chosen, min: p.min, max: p.max })),
+  maxIterations: FIRST_ITERATIONS,
+};
 
 export const useCommissioningStore = defineStore('commissioning', () => {
   const plantStore = usePlantStore();
@@ -94,13 +121,15 @@ export const useCommissioningStore = defineStore('commissioning', () => {
   const dialogOpen = ref(false);
 
   // The test.
-  const test = ref<TestDescription>({ setId: '', onlineSetIds: [], startKW: 0, startKVAR: 0, stepKW: 0, stepKVAR: 0, stepAtS: 0, measuredAt: 'set' });
+  const test = ref<TestDescription>(blankTest());
+  /** The record in use as it came (kept in the project; `parsed` is read from it). */
+  const accepted = shallowRef<AcceptedRecord | null>(null);
+  /** Why a record kept in the project could not be read again on opening it (null when it could). */
+  const restoreError = ref<string | null>(null);
 
   // The parameters.
-  const params = ref<ParamChoice[]>(
-    FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax })),
-  );
-  const maxIterations = ref(30);
+  const params = ref<ParamChoice[]>(firstParams());
+  const maxIterations = ref(FIRST_ITERATIONS);
 
   // The fit.
   const fitState = ref<RunState>('idle');
@@ -220,8 +249,10 @@ export const useCommissioningStore = defineStore('commissioning', () => {
 
   /** Takes the previewed record into use; the test is guessed from its kW column where it has one. */
   function acceptImport(): void {
-    if (!preview.value) return;
+    if (!preview.value || text.value === null) return;
     parsed.value = preview.value;
+    accepted.value = { fileName: fileName.value ?? '', text: text.value, columns: { ...columns.value } as RecordColumns, units: { ...units.value } };
+    restoreError.value = null;
     dialogOpen.value = false;
     fit.value = null;
     fitState.value = 'idle';
@@ -345,6 +376,115 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     }
   }
 
+  /**
+   * The work as the project keeps it, or null while there is none: no record, no fit, no name or remark in the
+   * sign-off, and the test and parameter choice as a new view has them (the date and the record's set the view fills
+   * in on its own are not work, so opening the view leaves the project unchanged).
+   */
+  function snapshot(): ProjectCommissioning | null {
+    const t = test.value;
+    const section: Required<ProjectCommissioning> = {
+      record: accepted.value ? structuredClone(accepted.value) : null,
+      test: {
+        setId: t.setId,
+        onlineSetIds: [...t.onlineSetIds],
+        startKW: kept(t.startKW),
+        startKVAR: kept(t.startKVAR),
+        stepKW: kept(t.stepKW),
+        stepKVAR: kept(t.stepKVAR),
+        stepAtS: kept(t.stepAtS),
+        ...(t.measuredAt ? { measuredAt: t.measuredAt } : {}),
+      },
+      params: params.value.map((p) => ({ key: p.key, chosen: !!p.chosen, min: kept(p.min), max: kept(p.max) })),
+      maxIterations: kept(maxIterations.value),
+      // Through JSON: what the file holds (a figure that is not finite becomes null, as the file would have it).
+      fit:
+        fit.value && fitTest.value
+          ? { result: JSON.parse(JSON.stringify(fit.value)) as FitResult, test: structuredClone(fitTest.value), applied: applied.value }
+          : null,
+      signOff: { ...signOff.value },
+      recordSetId: recordSetId.value,
+    };
+    const untouched =
+      !section.record &&
+      !section.fit &&
+      !signOff.value.by &&
+      !signOff.value.remarks &&
+      JSON.stringify(section.test) === JSON.stringify(NEW_SECTION.test) &&
+      JSON.stringify(section.params) === JSON.stringify(NEW_SECTION.params) &&
+      section.maxIterations === NEW_SECTION.maxIterations;
+    return untouched ? null : section;
+  }
+
+  /** Puts a project's work in place (null: a new view's state); the record is read again with its choices. */
+  function restore(value: ProjectCommissioning | null | undefined): void {
+    abort?.abort();
+    abort = null;
+    const c = value ?? {};
+    dialogOpen.value = false;
+    preview.value = null;
+    inspection.value = null;
+    importError.value = null;
+    knownTest = null;
+    const rec = c.record ?? null;
+    accepted.value = rec ? structuredClone(rec) : null;
+    fileName.value = rec?.fileName ?? null;
+    text.value = rec?.text ?? null;
+    columns.value = rec ? { ...rec.columns } : {};
+    units.value = rec ? { ...rec.units } : { time: 's', frequency: 'Hz', voltage: 'V' };
+    parsed.value = null;
+    restoreError.value = null;
+    const t = c.test;
+    const base = blankTest();
+    test.value = t
+      ? {
+          setId: t.setId,
+          onlineSetIds: [...t.onlineSetIds],
+          startKW: entry(t.startKW, base.startKW),
+          startKVAR: entry(t.startKVAR, base.startKVAR),
+          stepKW: entry(t.stepKW, base.stepKW),
+          stepKVAR: entry(t.stepKVAR, base.stepKVAR),
+          stepAtS: entry(t.stepAtS, base.stepAtS),
+          ...(t.measuredAt ? { measuredAt: t.measuredAt } : {}),
+        }
+      : base;
+    params.value = firstParams().map((p) => {
+      const saved = c.params?.find((q) => q.key === p.key);
+      return saved ? { ...p, chosen: saved.chosen, min: entry(saved.min, p.min), max: entry(saved.max, p.max) } : p;
+    });
+    maxIterations.value = entry(c.maxIterations, FIRST_ITERATIONS);
+    fit.value = c.fit ? structuredClone(c.fit.result) : null;
+    fitTest.value = c.fit ? structuredClone(c.fit.test) : null;
+    applied.value = c.fit?.applied ?? false;
+    fitState.value = c.fit ? 'done' : 'idle';
+    fitProgress.value = 0;
+    fitError.value = null;
+    signOff.value = c.signOff ? { ...c.signOff } : { by: '', date: '', remarks: '' };
+    recordSetId.value = c.recordSetId ?? '';
+    record.value = null;
+    recordError.value = null;
+    if (rec) void rereadAccepted(rec);
+  }
+
+  /** Reads a kept record again (on opening a project): the fit needs it as numbers. */
+  async function rereadAccepted(rec: AcceptedRecord): Promise<void> {
+    const plant = plantStore.plant;
+    try {
+      const p = await engine().call('parseTestRecord', {
+        text: rec.text,
+        columns: rec.columns,
+        units: rec.units,
+        ratedFrequencyHz: plant?.ratedFrequencyHz ?? 50,
+        ratedVoltageV: plant?.ratedVoltageV ?? 400,
+      });
+      // A newer restore or import took over meanwhile.
+      if (accepted.value?.text === rec.text) parsed.value = p;
+    } catch (e) {
+      if (accepted.value?.text === rec.text)
+        restoreError.value = `The test record kept in the project ("${rec.fileName}") could not be read again: ${messageOf(e)}`;
+    }
+  }
+
   return {
     fileName,
     text,
@@ -368,6 +508,8 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     recordSetId,
     record,
     recordError,
+    accepted,
+    restoreError,
     setIds,
     fitProblems,
     openText,
@@ -381,5 +523,7 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     cancelFit,
     applyFit,
     buildRecord,
+    snapshot,
+    restore,
   };
 });

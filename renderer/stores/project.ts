@@ -1,7 +1,7 @@
 /**
  * The project store: the one place in the renderer that knows the project file. It
  * composes the file from the stores that own its parts (plant, scenarios, sync settings,
- * trainer log, view settings), opens files through the host (Electron's file service or
+ * trainer log, commissioning work, view settings), opens files through the host (Electron's file service or
  * the browser preview's own), tracks unsaved changes, keeps a recovery copy a moment after
  * each edit, and offers to restore that copy after a crash.
  */
@@ -45,7 +45,7 @@ interface Origin {
 }
 
 type Held = Pick<Project, PartKey | 'view'>;
-const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], trainerExercises: [], view: {} };
+const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], trainerExercises: [], commissioning: null, view: {} };
 
 export const useProjectStore = defineStore('project', () => {
   const plantStore = usePlantStore();
@@ -82,6 +82,7 @@ export const useProjectStore = defineStore('project', () => {
   function current(): Project | null {
     const plant = plantStore.plant;
     if (!plant) return null;
+    const commissioning = part('commissioning');
     return {
       format: PROJECT_FORMAT,
       version: PROJECT_VERSION,
@@ -91,6 +92,8 @@ export const useProjectStore = defineStore('project', () => {
       sync: part('sync'),
       trainerLog: part('trainerLog'),
       trainerExercises: part('trainerExercises'),
+      // Written only once there is commissioning work (files without it open as before).
+      ...(commissioning ? { commissioning } : {}),
       view: { ...held.value.view, view: ui.view },
     };
   }
@@ -151,7 +154,7 @@ export const useProjectStore = defineStore('project', () => {
       notice.value = { tone: 'error', text: `Could not open "${label}": ${plantStore.error ?? 'the plant was refused'}` };
       return false;
     }
-    for (const key of ['scenarios', 'sync', 'trainerLog', 'trainerExercises'] as const) {
+    for (const key of ['scenarios', 'sync', 'trainerLog', 'trainerExercises', 'commissioning'] as const) {
       (parts[key] as { restore(v: unknown): void } | undefined)?.restore(project[key]);
     }
     held.value = {
@@ -159,6 +162,7 @@ export const useProjectStore = defineStore('project', () => {
       sync: project.sync,
       trainerLog: project.trainerLog,
       trainerExercises: project.trainerExercises,
+      commissioning: project.commissioning ?? null,
       view: project.view,
     };
     const view = project.view.view;

@@ -33,7 +33,7 @@ export function run(): BenchResult[] {
   const fitReq = {
     plant,
     record,
-    test: { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2 },
+    test: { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2.01 },
     params: keys.map((key) => ({ key, min: bounds[key]![0], max: bounds[key]![1] })),
   };
   fitTestRecord({ ...fitReq, maxIterations: 2 }); // warm the compiled code

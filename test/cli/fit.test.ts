@@ -5,7 +5,7 @@ import { runCli } from '../../electron/cli/run-cli';
 import { memoryIO } from '../helpers/memory-io';
 
 const demo = (name: string) => readFileSync(new URL(`../../renderer/demo/${name}`, import.meta.url), 'utf8');
-const ARGS = ['--set', 'G1', '--start-kw', '250', '--start-kvar', '150', '--step-kw', '500', '--step-kvar', '300', '--step-at', '2'];
+const ARGS = ['--set', 'G1', '--start-kw', '250', '--start-kvar', '150', '--step-kw', '500', '--step-kvar', '300', '--step-at', '2.01'];
 
 describe('droopline fit', () => {
   it('fits the example record and prints the fitted plant with the caution (--json)', { timeout: 120_000 }, async () => {

@@ -29,13 +29,13 @@ describe('Commissioning view in the browser preview', () => {
     await page.screenshot({ path: join(ARTIFACTS, 'commissioning-import.png') });
     await page.getByTestId('import-accept').click();
 
-    // The test as the example's comment lines describe it (the kW column gives the step's time).
+    // The test as the example's comment lines describe it (the kW column gives the step's time: 2.01 s, between two samples).
     await page.getByTestId('test-set').selectOption('G1');
     await page.getByTestId('test-start-kw').fill('250');
     await page.getByTestId('test-start-kvar').fill('150');
     await page.getByTestId('test-step-kw').fill('500');
     await page.getByTestId('test-step-kvar').fill('300');
-    await page.getByTestId('test-step-at').fill('2');
+    await page.getByTestId('test-step-at').fill('2.01');
     await page.getByTestId('fit-run').click();
     await page.locator('section.commissioning-view[data-fit-state="done"]').waitFor({ timeout: 90_000 });
     const values = (await page.getByTestId('fit-values').textContent()) ?? '';

@@ -117,7 +117,7 @@ describe('a fit passed back into the commissioning record', () => {
       ratedVoltageV: 400,
     });
     if (!parsed.ok) throw new Error(parsed.error.message);
-    const t = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2 };
+    const t = { setId: 'G1', onlineSetIds: ['G1'], startKW: 250, startKVAR: 150, stepKW: 500, stepKVAR: 300, stepAtS: 2.01 };
     const fit = await dispatch('fitTestRecord', {
       plant: demoPlantJson(),
       record: parsed.value.record,
@@ -138,5 +138,31 @@ describe('a fit passed back into the commissioning record', () => {
     const nadir = r.value.rows.find((x) => x.item === 'frequency nadir')!;
     expect(Number(nadir.measured)).toBeCloseTo(fit.value.measuredVerdict.frequencyNadirHz, 3);
     expect(r.value.rows.some((x) => x.section === 'Fitted parameters' && x.item === 'inertia constant H')).toBe(true);
+  });
+});
+
+describe('the example record', () => {
+  it('has its step between two samples, as its test description says (no sample at the instant of the step)', async () => {
+    const { readFileSync } = await import('node:fs');
+    const text = readFileSync('renderer/demo/example.load-bank.csv', 'utf8');
+    const parsed = await dispatch('parseTestRecord', {
+      text,
+      columns: { time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V', kW: 'P_kW' },
+      units: { time: 's', frequency: 'Hz', voltage: 'V', kW: 'kW' },
+      ratedFrequencyHz: 50,
+      ratedVoltageV: 400,
+    });
+    if (!parsed.ok) throw new Error(parsed.error.message);
+    const { tS, kW, voltageV } = parsed.value.record;
+    // The step is at 2.01 s (its comment line, `EXAMPLE_TEST` in the commissioning store and `--step-at` in the CLI test):
+    // every sample up to 2.00 s is the load bank at 250 kW (noise ±2 kW, build/scripts/make-example-record.ts), every one
+    // from 2.02 s on carries the 500 kW step.
+    expect(text).toContain('a step of 500 kW / 300 kVAR at 2.01 s');
+    const at200 = tS.findIndex((t) => Math.abs(t - 2) < 1e-9);
+    expect(tS[at200 + 1]).toBeCloseTo(2.02, 9);
+    for (let k = 0; k <= at200; k++) expect(Math.abs(kW![k]! - 250)).toBeLessThanOrEqual(3);
+    for (let k = at200 + 1; k < tS.length; k++) expect(kW![k]!).toBeGreaterThan(700);
+    // The voltage at 2.00 s is still the value before the step (within the ±0.3 V noise of the samples before it).
+    expect(Math.abs(voltageV[at200]! - voltageV[at200 - 1]!)).toBeLessThan(1);
   });
 });

@@ -3,14 +3,16 @@
  * wrong types, missing fields, text in number fields), over plant, scenario and sync-check files (which
  * it migrates), and over raw text damage (a flipped byte, a cut, an inserted character). It must either
  * open the file or refuse it with a `ProjectFileError` whose sentence is there and, for an invalid file,
- * names each field; what it opens saves and reopens to the same project. `FUZZ_RUNS` (npm run test:fuzz)
+ * names each field; what it opens saves and reopens to the same project. A project with a commissioning section is
+ * fuzzed too, and a mutation inside that section never refuses the file: the damaged part is left out with a note
+ * naming its field. `FUZZ_RUNS` (npm run test:fuzz)
  * sets the cases.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parseProject, ProjectFileError, serializeProject } from '../../electron/project';
 import { demoPlantJson } from '../helpers/plants';
-import { rawProject } from '../helpers/projects';
+import { rawCommissioning, rawProject } from '../helpers/projects';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 120);
 const SEED = Number(process.env.FUZZ_SEED ?? 20261202);
@@ -63,6 +65,7 @@ function judge(text: string): void {
 
 const files: [string, unknown][] = [
   ['project', rawProject()],
+  ['project with commissioning work', rawProject({ commissioning: rawCommissioning() })],
   ['plant file', demoPlantJson()],
   [
     'scenario file',
@@ -80,6 +83,25 @@ describe('file readers under fuzz', () => {
       );
     });
   }
+
+  it('parseProject: damage inside the commissioning section opens the project, naming the field of any part left out', () => {
+    const raw = rawProject({ commissioning: rawCommissioning() });
+    const paths = leafPaths(raw).filter((p) => p[0] === 'commissioning');
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: paths.length - 1 }), replacement, (i, value) => {
+        const path = paths[i]!;
+        const { project, notes } = parseProject(JSON.stringify(mutate(raw, path, value)));
+        const part = String(path[1]);
+        const left = !(part in (project.commissioning ?? {}));
+        // A part is left out only with a note naming a field inside it; a part kept has no note.
+        if (left && value !== MISSING) expect(notes.join(' ')).toContain(`commissioning.${part}`);
+        if (!left) expect(notes.join(' ')).not.toContain(`commissioning.${part}`);
+        expect(project.sync?.incomingSetId).toBe('G2');
+        expect(parseProject(serializeProject(project)).project).toEqual(project);
+      }),
+      { numRuns: RUNS, seed: SEED },
+    );
+  });
 
   it('parseProject: raw damage to a saved project (flipped byte, cut, inserted character) is refused in words or opens intact', () => {
     const text = serializeProject(parseProject(JSON.stringify(rawProject())).project);

@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { parseProject, serializeProject, ProjectFileError } from '../../electron/project';
 import { dispatch } from '../../electron/handlers';
 import { demoPlantJson, rawPlant, rawSet } from '../helpers/plants';
-import { projectText, rawProject } from '../helpers/projects';
+import { projectText, rawCommissioning, rawProject } from '../helpers/projects';
 
 /** The error a parse throws (fails the test when it does not throw). */
 function failure(text: string): ProjectFileError {
@@ -74,6 +74,86 @@ describe('parseProject', () => {
     expect(project.sync).toBeNull();
     expect(project.trainerLog).toEqual([]);
     expect(project.view).toEqual({});
+  });
+
+  describe('the commissioning section', () => {
+    const withSection = (section: unknown) => JSON.stringify(rawProject({ commissioning: section }));
+
+    it('round-trips: the record with its choices, the test (a blank kept as null), the parameter choice, the fit and the sign-off', () => {
+      const { project, notes } = parseProject(withSection(rawCommissioning()));
+      expect(notes).toEqual([]);
+      expect(project.commissioning).toEqual(rawCommissioning());
+      const text = serializeProject(project);
+      const again = parseProject(text);
+      expect(again.project).toEqual(project);
+      expect(again.notes).toEqual([]);
+      expect(serializeProject(again.project)).toBe(text);
+    });
+
+    it('is absent from a project saved before it was kept, which opens as before (and null reads as absent)', () => {
+      const old = parseProject(projectText());
+      expect(old.notes).toEqual([]);
+      expect('commissioning' in old.project).toBe(false);
+      expect(serializeProject(old.project)).not.toContain('commissioning');
+      expect('commissioning' in parseProject(withSection(null)).project).toBe(false);
+    });
+
+    it('keeps fields it does not know, and every part may be left out', () => {
+      const section: Record<string, unknown> = { ...rawCommissioning(), lastView: 'fit' };
+      (section.record as Record<string, unknown>).encoding = 'utf-8';
+      const { project } = parseProject(withSection(section));
+      expect((project.commissioning as Record<string, unknown>).lastView).toBe('fit');
+      expect((project.commissioning!.record as Record<string, unknown>).encoding).toBe('utf-8');
+      const partial = parseProject(withSection({ signOff: { by: 'A', date: '', remarks: '' } }));
+      expect(partial.notes).toEqual([]);
+      expect(partial.project.commissioning).toEqual({ signOff: { by: 'A', date: '', remarks: '' } });
+    });
+
+    it('leaves out a damaged part with a note naming the field and the rule; the rest of the section and the project open', () => {
+      const section = rawCommissioning();
+      (section.test as Record<string, unknown>).stepAtS = 'two';
+      (section.fit as { result: { residual: Record<string, unknown> } }).result.residual.totalPct = 'small';
+      const { project, notes } = parseProject(withSection(section));
+      expect(notes).toHaveLength(2);
+      expect(notes[0]).toContain(
+        'Commissioning: the test description was left out (test step time: must be a number or null (blank) [commissioning.test.stepAtS])',
+      );
+      expect(notes[1]).toContain(
+        'the fit result was left out (fit result RMS error both together: must be a number [commissioning.fit.result.residual.totalPct])',
+      );
+      expect(notes[1]).toContain('saving writes it without that part');
+      const c = project.commissioning!;
+      expect(c.test).toBeUndefined();
+      expect(c.fit).toBeUndefined();
+      // Nothing else is lost: the record, the parameter choice and the sign-off, and the project's other parts.
+      expect(c.record).toEqual(rawCommissioning().record);
+      expect(c.params).toEqual(rawCommissioning().params);
+      expect(c.signOff).toEqual(rawCommissioning().signOff);
+      expect(project.scenarios).toHaveLength(1);
+      expect(project.sync?.incomingSetId).toBe('G2');
+    });
+
+    it("names the record's fields: a column, a unit and text that is not text", () => {
+      const section = rawCommissioning();
+      const record = section.record as Record<string, Record<string, unknown>>;
+      record.columns!.time = true;
+      record.units!.voltage = 'volts';
+      const { notes } = parseProject(withSection(section));
+      expect(notes.join(' ')).toContain('test record column of time: must be a column name or a column number (1, 2, …) [commissioning.record.columns.time]');
+      expect(notes.join(' ')).toContain('test record unit of voltage: must be "V", "kV", "pu" or "%" [commissioning.record.units.voltage]');
+      const notText = parseProject(withSection({ ...rawCommissioning(), record: { ...(rawCommissioning().record as object), text: 42 } }));
+      expect(notText.notes.join(' ')).toContain('must be text [commissioning.record.text]');
+      expect(notText.project.commissioning!.record).toBeUndefined();
+    });
+
+    it('leaves out a section that is not an object, saying so', () => {
+      for (const bad of [7, 'fit', [rawCommissioning()]]) {
+        const { project, notes } = parseProject(withSection(bad));
+        expect(notes).toEqual([expect.stringContaining('The commissioning work was left out (commissioning: must be an object)')]);
+        expect('commissioning' in project).toBe(false);
+        expect(project.trainerLog).toHaveLength(1);
+      }
+    });
   });
 
   it('opens a project saved before exercise sets existed with none, and keeps a set through save and open', () => {

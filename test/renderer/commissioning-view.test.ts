@@ -42,7 +42,7 @@ describe('Commissioning view', () => {
     expect(w.get('[data-test="import-ok"]').text()).toContain('401 samples over 8 s');
     await w.get('[data-test="import-accept"]').trigger('click');
     await settle();
-    expect(store.test).toMatchObject({ setId: 'G1', startKW: 250, stepKW: 500, stepAtS: 2 });
+    expect(store.test).toMatchObject({ setId: 'G1', startKW: 250, stepKW: 500, stepAtS: 2.01 });
     // Two parameters keep the component test quick; the engine tests fit four.
     for (const p of store.params) p.chosen = p.key === 'machine.inertiaS' || p.key === 'governor.engineLagS';
     await settle();
@@ -77,13 +77,13 @@ describe('Commissioning view', () => {
     expect(store.record!.csv.startsWith('# Caution:')).toBe(true);
   });
 
-  it('guesses the step from the kW column', () => {
+  it('guesses the step from the kW column: halfway between the samples either side of the jump', () => {
     const g = guessTest({
       record: { tS: [0, 1, 2, 3], frequencyHz: [50, 50, 50, 50], voltageV: [400, 400, 400, 400], kW: [100, 100, 400, 400], kVAR: [50, 50, 250, 250] },
       rows: 4,
       skippedLines: 0,
       notes: [],
     });
-    expect(g).toEqual({ stepAtS: 2, startKW: 100, stepKW: 300, startKVAR: 50, stepKVAR: 200 });
+    expect(g).toEqual({ stepAtS: 1.5, startKW: 100, stepKW: 300, startKVAR: 50, stepKVAR: 200 });
   });
 });

@@ -18,6 +18,7 @@ import { useUiStore } from '../../renderer/stores/ui';
 import { useSyncStore } from '../../renderer/stores/sync';
 import { useTrainerStore } from '../../renderer/stores/trainer';
 import { useTransientsStore } from '../../renderer/stores/transients';
+import { useCommissioningStore } from '../../renderer/stores/commissioning';
 import { parseProject, serializeProject } from '../../electron/project';
 import { directClient } from '../helpers/direct-client';
 import { demoPlantJson } from '../helpers/plants';
@@ -202,6 +203,71 @@ describe('project store', () => {
     const withSet = parseProject(readFileSync(file, 'utf8')).project;
     expect(withSet.trainerExercises.map((x) => x.id)).toEqual([setId]);
     expect(withSet.trainerExercises[0]!.exercises).toHaveLength(1);
+  });
+
+  it('keeps the commissioning work through save and open: the record with its choices, the test, the fit, the sign-off', { timeout: 60_000 }, async () => {
+    const first = session();
+    await first.start();
+    const work = useCommissioningStore();
+    // A new view's state is no work: the project has no section, and the view's own defaults change nothing.
+    expect(work.snapshot()).toBeNull();
+    work.recordSetId = 'G1';
+    work.signOff.date = '2026-12-02';
+    expect(first.dirty).toBe(false);
+    await work.openExample();
+    await vi.waitFor(() => expect(work.preview).not.toBeNull());
+    work.acceptImport();
+    expect(first.dirty).toBe(true);
+    work.test.stepKVAR = '' as unknown as number; // a blank entry, as a cleared number field gives it
+    for (const p of work.params) p.chosen = p.key === 'machine.inertiaS';
+    work.maxIterations = 1;
+    work.test.stepKVAR = 300;
+    await work.runFit();
+    expect(work.fitState, work.fitError ?? '').toBe('done');
+    work.test.stepKVAR = '' as unknown as number;
+    work.signOff.by = 'R. Tester';
+    saveDialogAnswers(join(dir, 'bank.droopline.json'));
+    expect(await first.saveAs()).toBe(true);
+    const saved = parseProject(readFileSync(join(dir, 'bank.droopline.json'), 'utf8'));
+    expect(saved.notes).toEqual([]);
+    const c = saved.project.commissioning!;
+    expect(c.record!.fileName).toBe('example.load-bank.csv');
+    expect(c.record!.text).toBe(readFileSync('renderer/demo/example.load-bank.csv', 'utf8'));
+    expect(c.record!.columns).toMatchObject({ time: 'time_s', frequency: 'frequency_Hz', voltage: 'voltage_V' });
+    expect(c.test).toMatchObject({ setId: 'G1', stepAtS: 2.01, stepKVAR: null });
+    expect(c.fit!.test.stepKVAR).toBe(300);
+    expect(c.signOff).toEqual({ by: 'R. Tester', date: '2026-12-02', remarks: '' });
+    const fitBefore = JSON.parse(JSON.stringify(work.fit)) as unknown;
+
+    const second = session();
+    await second.start();
+    const fresh = useCommissioningStore();
+    expect(fresh.snapshot()).toBeNull();
+    openDialogAnswers(join(dir, 'bank.droopline.json'));
+    expect(await second.open(), second.notice?.text).toBe(true);
+    expect(second.current()).toEqual(saved.project);
+    expect(second.dirty).toBe(false);
+    expect(fresh.fit).toEqual(fitBefore);
+    expect(fresh.fitState).toBe('done');
+    expect(fresh.test.stepKVAR).toBeNaN();
+    expect(fresh.params.filter((p) => p.chosen).map((p) => p.key)).toEqual(['machine.inertiaS']);
+    expect(fresh.signOff.by).toBe('R. Tester');
+    // The record is read again with its choices, so the fit may run again at once.
+    await vi.waitFor(() => expect(fresh.parsed?.rows).toBe(401));
+    expect(fresh.restoreError).toBeNull();
+    fresh.test.stepKVAR = 300;
+    expect(fresh.fitProblems).toEqual([]);
+    expect(second.dirty).toBe(true);
+
+    // A project without commissioning work puts the view back to its new state.
+    const plain = join(dir, 'plain.droopline.json');
+    writeFileSync(plain, projectText());
+    await second.save();
+    expect(await openOffered(second, plain)).toBe(true);
+    expect(fresh.snapshot()).toBeNull();
+    expect(fresh.parsed).toBeNull();
+    expect(fresh.fit).toBeNull();
+    expect('commissioning' in second.current()!).toBe(false);
   });
 
   it('opens a version-1 plant file as a new, unsaved-to-file project; Save asks where', async () => {

@@ -7,7 +7,10 @@ import WindowPlane from '../../renderer/components/sync/WindowPlane.vue';
 import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
 import {
   angleAtX,
+  CONTACT_R,
+  contactMarker,
   keepRecent,
+  POINT_R,
   planeFrame,
   planeSlipSpanHz,
   planeX,
@@ -108,6 +111,49 @@ describe('window plane geometry', () => {
   });
 });
 
+describe('contact marker beside the operating point', () => {
+  const f = planeFrame(0.5);
+  const at = (angleDeg: number, slipHz: number) => ({ x: planeX(f, angleDeg), y: planeY(f, slipHz) });
+
+  it('stays on its place when it is clear of the point', () => {
+    // 20° apart: 20/360 of the 568-unit plot is about 32 units, well beyond the two radii.
+    const m = contactMarker(f, at(-30, 0.1), at(-10, 0.1));
+    expect(m).toEqual({ ...at(-10, 0.1), lifted: false, leader: null });
+  });
+
+  it('is lifted clear of the point at a small advance, keeping its angle, with a leader across the slip line at that angle', () => {
+    // Closed form: slip 0.1 Hz, breaker 50 ms → advance 360 × 0.1 × 0.05 = 1.8°, about 3 units on the plane.
+    const point = at(-20, 0.1);
+    const contact = at(-20 + 1.8, 0.1);
+    expect(Math.hypot(contact.x - point.x, contact.y - point.y)).toBeLessThan(POINT_R + CONTACT_R);
+    const m = contactMarker(f, point, contact);
+    expect(m.lifted).toBe(true);
+    // Both markers readable: their edges at least a gap apart.
+    expect(Math.hypot(m.x - point.x, m.y - point.y)).toBeGreaterThanOrEqual(POINT_R + CONTACT_R + 4);
+    // The angle is the contact's, read back through the plane's inverse; lifted above the slip line.
+    expectClose(angleAtX(f, m.x), -18.2, { abs: 1e-9 }, 'marker angle = contact angle');
+    expect(m.y).toBeLessThan(contact.y);
+    // The leader runs from the marker's edge down across the slip line at the contact's angle.
+    expect(m.leader!.x).toBe(contact.x);
+    expect(m.leader!.y1).toBeCloseTo(m.y + CONTACT_R, 9);
+    expect(m.leader!.y1).toBeLessThan(contact.y);
+    expect(m.leader!.y2).toBeGreaterThan(contact.y);
+  });
+
+  it('goes below the slip line near the top edge, and is lifted when it sits exactly on the point (no advance)', () => {
+    const top = at(40, 0.5);
+    const m = contactMarker(f, top, top);
+    expect(m.lifted).toBe(true);
+    expect(m.y).toBeGreaterThan(top.y);
+    expect(m.y - CONTACT_R).toBeGreaterThanOrEqual(top.y + POINT_R);
+    expect(m.leader!.y2).toBeLessThan(top.y);
+  });
+
+  it('is not moved when there is no point to keep clear of (after a close)', () => {
+    expect(contactMarker(f, null, at(3, 0)).lifted).toBe(false);
+  });
+});
+
 describe('window plane component', () => {
   it("draws the operating point at the engine's angle and slip, and the command and contact points on its slip line", () => {
     const r = evaluateSync(CASE);
@@ -132,6 +178,28 @@ describe('window plane component', () => {
     expectClose(angleAtX(planeFrame(span), cmdX), -5.184, { abs: 1e-9 }, 'command point one advance angle before the in-phase moment');
     expect(w.get('[data-test="plane-now"]').text()).toContain('outside the window');
     expect(w.find('[data-test="plane-window"]').exists()).toBe(true);
+  });
+
+  it('draws the point and a lifted contact marker apart when the advance is small, the leader at the contact angle', () => {
+    // Closed form: slip 0.08 Hz, breaker 40 ms → advance 360 × 0.08 × 0.04 = 1.152°; contact now = 12 + 1.152.
+    const w = mount(WindowPlane, { props: { angleDeg: 12, slipHz: 0.08, commandAngleDeg: -1.152, contactAngleDeg: 12 + 1.152 } });
+    const span = Number(w.get('svg').attributes('data-slip-span'));
+    const f = planeFrame(span);
+    const point = w.get('[data-test="plane-point"]');
+    const marker = w.get('[data-test="plane-contact"] circle');
+    const d = Math.hypot(Number(marker.attributes('cx')) - Number(point.attributes('cx')), Number(marker.attributes('cy')) - Number(point.attributes('cy')));
+    expect(d).toBeGreaterThanOrEqual(Number(point.attributes('r')) + Number(marker.attributes('r')));
+    expect(w.get('[data-test="plane-contact"]').attributes('data-lifted')).toBe('true');
+    const leader = w.get('[data-test="plane-contact-leader"]');
+    expectClose(angleAtX(f, Number(leader.attributes('x1'))), 13.152, { abs: 1e-9 }, 'leader at the contact angle');
+    const lineY = planeY(f, 0.08);
+    const [y1, y2] = [Number(leader.attributes('y1')), Number(leader.attributes('y2'))];
+    expect(Math.min(y1, y2)).toBeLessThan(lineY);
+    expect(Math.max(y1, y2)).toBeGreaterThan(lineY);
+    // The point is drawn after the contact marker (on top of the leader's end), and the key says the marker was moved.
+    const svg = w.get('svg').html();
+    expect(svg.indexOf('data-test="plane-point"')).toBeGreaterThan(svg.indexOf('data-test="plane-contact"'));
+    expect(w.get('figcaption').text()).toContain('drawn clear of the point');
   });
 
   it('draws no point without a verdict and says so', () => {

@@ -160,7 +160,7 @@ export const fitCommand: CliCommand = {
   usage:
     'droopline fit plant.json record.csv --set ID --step-kw N --step-at S [--step-kvar N] [--start-kw N] [--start-kvar N] [--online ID,ID] [--params a,b,c] [--bounds NAME=MIN:MAX,…] [--columns time=NAME,frequency=NAME,voltage=NAME] [--units time=s|ms,frequency=Hz|pu|%,voltage=V|kV|pu|%] [--measured-at set|bus] [--max-iterations N] [--json]',
   example:
-    'renderer/demo/example.load-bank.csv with renderer/demo/water-works.plant.json: --set G1 --start-kw 250 --start-kvar 150 --step-kw 500 --step-kvar 300 --step-at 2',
+    'renderer/demo/example.load-bank.csv with renderer/demo/water-works.plant.json: --set G1 --start-kw 250 --start-kvar 150 --step-kw 500 --step-kvar 300 --step-at 2.01',
   valueFlags: [
     'set',
     'step-kw',

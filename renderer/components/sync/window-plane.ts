@@ -160,3 +160,37 @@ export function planeTicks(f: PlaneFrame): { angles: number[]; slips: number[]; 
   const d = step >= 1 ? 0 : step >= 0.1 ? (Math.abs(step * 10 - Math.round(step * 10)) < 1e-9 ? 1 : 2) : step >= 0.01 ? 2 : 3;
   return { angles: [-180, -135, -90, -45, 0, 45, 90, 135, 180], slips, slipDecimals: d };
 }
+
+/** Radii of the operating point and the contact marker, SVG units. */
+export const POINT_R = 6;
+export const CONTACT_R = 7;
+/** Clear space kept between the two markers' edges, SVG units. */
+const MARKER_GAP = 4;
+/** How far a leader crosses the slip line below (or above) the contact point, so the exact angle is marked. */
+const TICK = 5;
+
+/** Where the contact marker is drawn: on its own place, or lifted clear of the operating point with a leader down to it. */
+export interface ContactMarker {
+  /** Centre of the marker: x is always the contact's angle; y is its slip line unless lifted. */
+  x: number;
+  y: number;
+  lifted: boolean;
+  /** The leader from the lifted marker's edge across the slip line at the contact's angle (null when not lifted). */
+  leader: { x: number; y1: number; y2: number } | null;
+}
+
+/**
+ * Places the contact marker so it and the operating point both stay readable. With a small advance (a fast breaker,
+ * a low slip) the contact a command given now would land at is only a few units from the point itself, and the two
+ * circles would cover each other: the marker is then lifted off the slip line (above it, or below near the top edge)
+ * by the two radii and a gap, keeping its x — its angle — and a leader runs from it across the slip line at that
+ * angle, so where contact lands is still drawn exactly.
+ */
+export function contactMarker(f: PlaneFrame, point: { x: number; y: number } | null, contact: { x: number; y: number }): ContactMarker {
+  const clear = POINT_R + CONTACT_R + MARKER_GAP;
+  if (!point || Math.hypot(contact.x - point.x, contact.y - point.y) >= clear) return { x: contact.x, y: contact.y, lifted: false, leader: null };
+  const up = contact.y - clear - CONTACT_R >= f.pad.t;
+  const dir = up ? -1 : 1;
+  const y = contact.y + dir * clear;
+  return { x: contact.x, y, lifted: true, leader: { x: contact.x, y1: y - dir * CONTACT_R, y2: contact.y - dir * TICK } };
+}
