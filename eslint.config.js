@@ -7,6 +7,10 @@ import vueParser from 'vue-eslint-parser';
 import globals from 'globals';
 
 const nodeBuiltins = ['node:*', 'fs', 'path', 'os', 'child_process', 'worker_threads', 'url', 'crypto'];
+const rendererBoundary = {
+  group: ['electron', ...nodeBuiltins, '**/electron/**'],
+  message: 'The renderer reaches the engine only through the transport (EngineApi).',
+};
 
 export default tseslint.config(
   { ignores: ['out/**', 'dist/**', 'node_modules/**', 'release/**'] },
@@ -55,8 +59,21 @@ export default tseslint.config(
       'no-restricted-imports': [
         'error',
         {
+          patterns: [rendererBoundary],
+        },
+      ],
+    },
+  },
+  {
+    // Views and components see the stores through their public face (`renderer/stores/index.ts`) only.
+    files: ['renderer/App.vue', 'renderer/views/**/*.{ts,vue}', 'renderer/components/**/*.{ts,vue}'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
           patterns: [
-            { group: ['electron', ...nodeBuiltins, '**/electron/**'], message: 'The renderer reaches the engine only through the transport (EngineApi).' },
+            rendererBoundary,
+            { group: ['**/stores/*'], message: "Import stores from 'renderer/stores' (its index is the stores' public face), not from a store's own file." },
           ],
         },
       ],

@@ -7,7 +7,7 @@
  */
 import { Cancelled, Diverged, EngineError, InvalidInput, NoSteadyState } from '../engine';
 import type { EngineErrorCode } from '../../shared-types';
-import type { ChunkPool } from './pool-tasks';
+import type { ChunkPool, PoolTaskName, PoolTasks } from './pool-tasks';
 import { breathe } from './handler';
 import type { HandlerContext } from './handler';
 
@@ -27,6 +27,47 @@ export function engineErrorFromWorker(err: unknown): unknown {
   const message = err instanceof Error ? err.message : String(err);
   const Type = typeof code === 'string' ? ERRORS[code as EngineErrorCode] : undefined;
   return Type ? new Type(message) : err;
+}
+
+/** What `chunkPoolOver` needs of a worker pool (workerpool's `Pool` over threads or Web Workers). */
+export interface TaskPool {
+  exec(task: string, args: unknown[]): PromiseLike<unknown> & { cancel(): unknown };
+}
+
+/**
+ * A `ChunkPool` of `size` workers over a worker pool: the one scheduling routine of the Node hosts' pool and the
+ * preview's Web Worker pool. A cancel stops the task's worker (workerpool ends it and starts a fresh one for the next
+ * task) and the task rejects with `Cancelled`; a worker's error comes back as the typed engine error it was.
+ */
+export function chunkPoolOver(pool: TaskPool, size: number): ChunkPool {
+  return {
+    size,
+    run<K extends PoolTaskName>(task: K, args: Parameters<PoolTasks[K]>, signal: AbortSignal): Promise<ReturnType<PoolTasks[K]>> {
+      if (signal.aborted) return Promise.reject(new Cancelled());
+      const p = pool.exec(task, args as unknown[]);
+      const onAbort = () => {
+        // Stops the worker (workerpool ends it and starts a fresh one for the next task); the rejection below says so.
+        try {
+          p.cancel();
+        } catch {
+          // already settled
+        }
+      };
+      signal.addEventListener('abort', onAbort, { once: true });
+      return new Promise<ReturnType<PoolTasks[K]>>((resolve, reject) => {
+        void p.then(
+          (v: unknown) => {
+            signal.removeEventListener('abort', onAbort);
+            resolve(v as ReturnType<PoolTasks[K]>);
+          },
+          (err: unknown) => {
+            signal.removeEventListener('abort', onAbort);
+            reject(signal.aborted ? new Cancelled() : engineErrorFromWorker(err));
+          },
+        );
+      });
+    },
+  };
 }
 
 /** How `runChunks` cuts and reports a job. */

@@ -4,9 +4,8 @@
  */
 import { availableParallelism } from 'node:os';
 import workerpool from 'workerpool';
-import { Cancelled } from '../engine';
-import { engineErrorFromWorker } from '../handlers/pool';
-import type { ChunkPool, PoolTaskName, PoolTasks } from '../handlers/pool';
+import { chunkPoolOver } from '../handlers/pool';
+import type { ChunkPool } from '../handlers/pool';
 
 /** A Node pool and its end. */
 export interface NodePool extends ChunkPool {
@@ -45,32 +44,7 @@ export function createNodePool(workerScript: string, options: NodePoolOptions = 
     },
   });
   return {
-    size,
-    run<K extends PoolTaskName>(task: K, args: Parameters<PoolTasks[K]>, signal: AbortSignal): Promise<ReturnType<PoolTasks[K]>> {
-      if (signal.aborted) return Promise.reject(new Cancelled());
-      const p = pool.exec(task, args as unknown[]);
-      const onAbort = () => {
-        // Stops the worker (workerpool ends it and starts a fresh one for the next task); the rejection below says so.
-        try {
-          p.cancel();
-        } catch {
-          // already settled
-        }
-      };
-      signal.addEventListener('abort', onAbort, { once: true });
-      return new Promise<ReturnType<PoolTasks[K]>>((resolve, reject) => {
-        void p.then(
-          (v: unknown) => {
-            signal.removeEventListener('abort', onAbort);
-            resolve(v as ReturnType<PoolTasks[K]>);
-          },
-          (err: unknown) => {
-            signal.removeEventListener('abort', onAbort);
-            reject(signal.aborted ? new Cancelled() : engineErrorFromWorker(err));
-          },
-        );
-      });
-    },
+    ...chunkPoolOver(pool, size),
     async close() {
       await pool.terminate(true);
     },

@@ -1,27 +1,14 @@
 import { describe, it, expect, beforeEach, afterEach } from 'vitest';
-import { mount, flushPromises } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import CommissioningView from '../../renderer/views/CommissioningView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { guessTest, useCommissioningStore } from '../../renderer/stores/commissioning';
-import { setEngineClient } from '../../renderer/transport';
-import { directClient } from '../helpers/direct-client';
-
-async function settle(): Promise<void> {
-  await flushPromises();
-  await usePlantStore().settled();
-  await flushPromises();
-}
+import { mountView, settle } from './view-harness';
 
 describe('Commissioning view', () => {
   let w: VueWrapper;
   beforeEach(async () => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    await usePlantStore().loadDemo();
-    w = mount(CommissioningView, { attachTo: document.body });
-    await settle();
+    w = await mountView(CommissioningView);
   });
   afterEach(() => w.unmount());
 

@@ -1,11 +1,10 @@
 /** An edit reaches the sharing table in one engine request (`checkPlant`), and a stale answer never wins. */
 import { beforeEach, describe, expect, it } from 'vitest';
-import { createPinia, setActivePinia } from 'pinia';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useSharingStore } from '../../renderer/stores/sharing';
-import { setEngineClient } from '../../renderer/transport';
 import type { EngineClient } from '../../renderer/transport';
 import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 
 function countingClient(): { client: EngineClient; calls: string[] } {
   const inner = directClient();
@@ -24,10 +23,9 @@ function countingClient(): { client: EngineClient; calls: string[] } {
 describe('edit → sharing table', () => {
   let calls: string[];
   beforeEach(() => {
-    setActivePinia(createPinia());
     const c = countingClient();
     calls = c.calls;
-    setEngineClient(c.client);
+    freshStores(c.client);
   });
 
   it('costs one request that validates and solves; the table is up to date with the edited plant', async () => {

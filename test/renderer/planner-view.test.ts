@@ -1,28 +1,15 @@
 import { describe, it, expect, beforeEach, afterEach } from 'vitest';
-import { mount, flushPromises } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import PlannerView from '../../renderer/views/PlannerView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { planInputProblem, usePlannerStore } from '../../renderer/stores/planner';
-import { setEngineClient } from '../../renderer/transport';
 import { planDroop } from '../../electron/engine';
-import { directClient } from '../helpers/direct-client';
-
-async function settle(): Promise<void> {
-  await flushPromises();
-  await usePlantStore().settled();
-  await flushPromises();
-}
+import { mountView, settle } from './view-harness';
 
 describe('Planner view', () => {
   let w: VueWrapper;
   beforeEach(async () => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    await usePlantStore().loadDemo();
-    w = mount(PlannerView, { attachTo: document.body });
-    await settle();
+    w = await mountView(PlannerView);
   });
   afterEach(() => w.unmount());
 

@@ -1,18 +1,15 @@
 /** The set sheet's "Advanced: dynamics" section: every simulator constant a user may change, units, typical ranges, the derived field ceiling and refused values with their reason. */
 import { describe, it, expect, beforeEach } from 'vitest';
 import { mount, flushPromises } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import PlantView from '../../renderer/views/PlantView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
-import { setEngineClient } from '../../renderer/transport';
 import { fieldCeiling } from '../../electron/engine';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { demoPlant } from '../helpers/plants';
 
 describe('Advanced: dynamics section', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
 
   it('shows governor, regulator, machine and protection constants with units and typical ranges', async () => {
@@ -90,8 +87,7 @@ describe('Advanced: dynamics section', () => {
 
 describe('load table: voltage law (ZIP) and under-frequency shedding', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
 
   it('edits the ZIP shares, shows the constant-power rest, and refuses shares over 100 % by name', async () => {

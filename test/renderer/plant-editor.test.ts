@@ -1,14 +1,11 @@
 import { describe, it, expect, beforeEach, afterEach } from 'vitest';
-import { mount, flushPromises } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import PlantView from '../../renderer/views/PlantView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useSharingStore } from '../../renderer/stores/sharing';
-import { setEngineClient } from '../../renderer/transport';
 import { solveSharing } from '../../electron/engine';
 import { cableImpedance } from '../../shared-types';
-import { directClient } from '../helpers/direct-client';
+import { mountView, settle as settleOn } from './view-harness';
 import { expectClose } from '../helpers/expect-close';
 
 const field = (w: VueWrapper, path: string) => w.get(`[data-test="field-${path}"]`);
@@ -16,20 +13,12 @@ const field = (w: VueWrapper, path: string) => w.get(`[data-test="field-${path}"
 const reasonBeside = (w: VueWrapper, path: string) =>
   field(w, path).element.parentElement?.querySelector('[data-test="field-issue"]')?.textContent?.trim() ?? null;
 
-async function settle(): Promise<void> {
-  await flushPromises();
-  await useSharingStore().settled();
-  await flushPromises();
-}
+const settle = () => settleOn(useSharingStore());
 
 describe('Plant editor', () => {
   let w: VueWrapper;
   beforeEach(async () => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    await usePlantStore().loadDemo();
-    w = mount(PlantView, { attachTo: document.body });
-    await settle();
+    w = await mountView(PlantView, { settleOn: useSharingStore });
   });
   afterEach(() => w.unmount());
 

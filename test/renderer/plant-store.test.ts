@@ -1,9 +1,9 @@
 import { describe, it, expect, beforeEach } from 'vitest';
-import { createPinia, setActivePinia } from 'pinia';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { setEngineClient } from '../../renderer/transport';
 import type { EngineClient } from '../../renderer/transport';
 import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { demoPlantJson } from '../helpers/plants';
 
 /** A client whose `validatePlant` answers wait until released, to reorder replies. */
@@ -21,8 +21,7 @@ function gatedClient(): { client: EngineClient; release(): void; pending(): numb
 
 describe('plant store editing', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
 
   it('accepts a valid edit: the plant follows, revision counts up, dirty is set', async () => {

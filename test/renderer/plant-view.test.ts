@@ -1,18 +1,15 @@
 import { describe, it, expect, beforeEach } from 'vitest';
 import { mount, flushPromises } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import PlantView from '../../renderer/views/PlantView.vue';
 import StatusBar from '../../renderer/components/StatusBar.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
-import { setEngineClient } from '../../renderer/transport';
 import { describePlant } from '../../electron/engine';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { demoPlant, demoPlantJson } from '../helpers/plants';
 
 describe('PlantView with the demo plant', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
 
   it('shows the rated figures the engine computed', async () => {

@@ -1,6 +1,5 @@
 import { describe, it, expect, beforeEach, afterEach } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import type { HostMethod, HostRequest, HostResponse, RecentFile, RecoveryCopy } from '../../shared-types';
 import FileBar from '../../renderer/components/project/FileBar.vue';
 import ProjectDialogs from '../../renderer/components/project/ProjectDialogs.vue';
@@ -9,8 +8,7 @@ import { setHostClient } from '../../renderer/host';
 import type { HostClient } from '../../renderer/host';
 import { useProjectStore } from '../../renderer/stores/project';
 import { usePlantStore } from '../../renderer/stores/plant';
-import { setEngineClient } from '../../renderer/transport';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { projectText } from '../helpers/projects';
 
 /** A host in memory: answers from fixed data and records the calls. */
@@ -52,8 +50,7 @@ const recovery: RecoveryCopy = {
 
 describe('project file bar and dialogs', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
   afterEach(() => {
     useProjectStore().$dispose();

@@ -7,9 +7,7 @@ import { describe, it, expect, vi, beforeEach, afterEach } from 'vitest';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createPinia, setActivePinia } from 'pinia';
 import type { HostBridge, HostCommand, Plant } from '../../shared-types';
-import { setEngineClient } from '../../renderer/transport';
 import { setHostClient } from '../../renderer/host';
 import { createElectronHost } from '../../renderer/host/electron-host';
 import { useProjectStore } from '../../renderer/stores/project';
@@ -20,7 +18,7 @@ import { useTrainerStore } from '../../renderer/stores/trainer';
 import { useTransientsStore } from '../../renderer/stores/transients';
 import { useCommissioningStore } from '../../renderer/stores/commissioning';
 import { parseProject, serializeProject } from '../../electron/project';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { demoPlantJson } from '../helpers/plants';
 import { projectText } from '../helpers/projects';
 
@@ -69,8 +67,7 @@ function session(): ReturnType<typeof useProjectStore> {
     },
     openDropped: () => Promise.resolve(null),
   };
-  setActivePinia(createPinia());
-  setEngineClient(directClient());
+  freshStores();
   setHostClient(createElectronHost(bridge));
   const project = useProjectStore();
   sessions.push(project);

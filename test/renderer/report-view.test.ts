@@ -1,19 +1,16 @@
 import { describe, it, expect, beforeEach, vi } from 'vitest';
 import { mount, flushPromises } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import ReportView from '../../renderer/views/ReportView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { parseLoads, useReportStore } from '../../renderer/stores/report';
 import { useTransientsStore } from '../../renderer/stores/transients';
-import { setEngineClient } from '../../renderer/transport';
 import { dispatch } from '../../electron/handlers';
 import type { ReportResult } from '../../shared-types';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 
 describe('ReportView', () => {
   beforeEach(async () => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
     await usePlantStore().loadDemo();
   });
 

@@ -1,7 +1,5 @@
 import { describe, it, expect, beforeEach, afterEach } from 'vitest';
-import { mount, flushPromises } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import SharingView from '../../renderer/views/SharingView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { loadAtPct, useSharingStore } from '../../renderer/stores/sharing';
@@ -11,13 +9,10 @@ import { solveSharing } from '../../electron/engine';
 import { sharingCsv, sharingText } from '../../renderer/components/sharing/sharing-export';
 import type { LoadOverride, Plant } from '../../shared-types';
 import { directClient } from '../helpers/direct-client';
+import { freshStores, mountView, settle as settleOn } from './view-harness';
 import { expectClose } from '../helpers/expect-close';
 
-async function settle(): Promise<void> {
-  await flushPromises();
-  await useSharingStore().settled();
-  await flushPromises();
-}
+const settle = () => settleOn(useSharingStore());
 
 const text = (w: VueWrapper, sel: string) => w.get(sel).text();
 const pfText = (pf: number, lagging: boolean) => (pf.toFixed(2) === '1.00' ? '1.00' : `${pf.toFixed(2)} ${lagging ? 'lag' : 'lead'}`);
@@ -25,11 +20,7 @@ const pfText = (pf: number, lagging: boolean) => (pf.toFixed(2) === '1.00' ? '1.
 describe('Sharing view', () => {
   let w: VueWrapper;
   beforeEach(async () => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    await usePlantStore().loadDemo();
-    w = mount(SharingView, { attachTo: document.body });
-    await settle();
+    w = await mountView(SharingView, { settleOn: useSharingStore });
   });
   afterEach(() => w.unmount());
 
@@ -142,8 +133,7 @@ describe('Sharing view', () => {
 
 describe('sharing store coalescing', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
   });
 
   it('sends only the newest slider position while a solve is running', async () => {

@@ -1,15 +1,13 @@
 import 'vitest-canvas-mock';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import PhasorScope from '../../renderer/components/sync/PhasorScope.vue';
 import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
 import { angleOfTip, phasorTip, REACH_FRACTION, windowOutlinePath } from '../../renderer/components/sync/phasor-geometry';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { DEFAULT_SYNC_SETTINGS, useSyncStore } from '../../renderer/stores/sync';
-import { setEngineClient } from '../../renderer/transport';
 import { evaluateSync } from '../../electron/engine';
-import { directClient } from '../helpers/direct-client';
+import { freshStores, holdFrames } from './view-harness';
 import { expectClose } from '../helpers/expect-close';
 import type { VueWrapper } from '@vue/test-utils';
 
@@ -75,10 +73,8 @@ describe('phasor diagram geometry', () => {
 
 describe('SynchronizingView with the engine', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    vi.stubGlobal('requestAnimationFrame', () => 1);
-    vi.stubGlobal('cancelAnimationFrame', () => undefined);
+    freshStores();
+    holdFrames();
   });
   afterEach(() => vi.unstubAllGlobals());
 

@@ -2,12 +2,10 @@ import 'vitest-canvas-mock';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import TrainerView from '../../renderer/views/TrainerView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useTrainerStore } from '../../renderer/stores/trainer';
-import { setEngineClient } from '../../renderer/transport';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import type { TrainerAttempt } from '../../shared-types';
 import { CSV_CAUTION_LINE } from '../../shared-types';
 import { sessionCsv } from '../../renderer/components/trainer/session-csv';
@@ -62,8 +60,7 @@ function operator(trainer: ReturnType<typeof useTrainerStore>) {
 describe('TrainerView driven by key presses', () => {
   let w: VueWrapper | null = null;
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
+    freshStores();
     // The test is the clock: no animation frames of its own.
     vi.stubGlobal('requestAnimationFrame', () => 1);
     vi.stubGlobal('cancelAnimationFrame', () => undefined);

@@ -1,18 +1,15 @@
 import { describe, it, expect, beforeEach } from 'vitest';
 import { mount, flushPromises } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import ScenarioEditor from '../../renderer/components/transients/ScenarioEditor.vue';
 import TransientsView from '../../renderer/views/TransientsView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useTransientsStore } from '../../renderer/stores/transients';
 import { scenarioIssues } from '../../renderer/stores/transients-rules';
-import { setEngineClient } from '../../renderer/transport';
-import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 import { demoPlant } from '../helpers/plants';
 
 async function ready() {
-  setActivePinia(createPinia());
-  setEngineClient(directClient());
+  freshStores();
   await usePlantStore().loadDemo();
   const store = useTransientsStore();
   store.ensureScenarios();

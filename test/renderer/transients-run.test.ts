@@ -1,6 +1,5 @@
 import { describe, it, expect, beforeEach } from 'vitest';
 import { mount, flushPromises } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import MetricsTable from '../../renderer/components/transients/MetricsTable.vue';
 import TransientsView from '../../renderer/views/TransientsView.vue';
 import { usePlantStore } from '../../renderer/stores/plant';
@@ -10,13 +9,13 @@ import type { EngineClient } from '../../renderer/transport';
 import { dispatch } from '../../electron/handlers';
 import type { SimulationResult } from '../../shared-types';
 import { directClient } from '../helpers/direct-client';
+import { freshStores } from './view-harness';
 
 // A short run keeps the test quick: 3 s at 2 ms steps, a 300 kW / 200 kVAR block at 0.5 s (our own example).
 const SHORT = { id: 'short', name: 'Short block', durationS: 3, stepMs: 2, events: [{ atS: 0.5, type: 'load-step' as const, kW: 300, kVAR: 200 }] };
 
 async function ready(client: EngineClient = directClient()) {
-  setActivePinia(createPinia());
-  setEngineClient(client);
+  freshStores(client);
   const plantStore = usePlantStore();
   await plantStore.loadDemo();
   const store = useTransientsStore();

@@ -2,7 +2,6 @@ import 'vitest-canvas-mock';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import type { VueWrapper } from '@vue/test-utils';
-import { createPinia, setActivePinia } from 'pinia';
 import WindowPlane from '../../renderer/components/sync/WindowPlane.vue';
 import SynchronizingView from '../../renderer/views/SynchronizingView.vue';
 import {
@@ -22,10 +21,9 @@ import {
 } from '../../renderer/components/sync/window-plane';
 import { usePlantStore } from '../../renderer/stores/plant';
 import { useSyncStore } from '../../renderer/stores/sync';
-import { setEngineClient } from '../../renderer/transport';
 import { evaluateSync } from '../../electron/engine';
 import type { SyncCase } from '../../shared-types';
-import { directClient } from '../helpers/direct-client';
+import { freshStores, holdFrames } from './view-harness';
 import { expectClose } from '../helpers/expect-close';
 
 /** The (angle, slip) a drawn marker stands for, read back through the plane's inverse. */
@@ -211,10 +209,8 @@ describe('window plane component', () => {
 
 describe('window plane in the Synchronizing view', () => {
   beforeEach(() => {
-    setActivePinia(createPinia());
-    setEngineClient(directClient());
-    vi.stubGlobal('requestAnimationFrame', () => 1);
-    vi.stubGlobal('cancelAnimationFrame', () => undefined);
+    freshStores();
+    holdFrames();
   });
   afterEach(() => vi.unstubAllGlobals());
 

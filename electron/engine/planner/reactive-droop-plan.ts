@@ -17,6 +17,8 @@ import type { Band, PlanLimits, Plant } from '../../../shared-types';
 import { kVARBase } from '../../../shared-types';
 import type { LoadPoint } from './load-points';
 import { clamp, fmt } from './plan-limits';
+import { overrunsBand, pickSlope, planByLaw, weightedDroop } from './plan-shape';
+import type { PlanFound, PlanInput, PlanLaw } from './plan-shape';
 
 /** What the planner chose for the regulators. */
 export interface ReactivePlan {
@@ -76,24 +78,18 @@ export function slopeForDroop(plant: Plant, i: number, feeder: number, droopPct:
   return plant.sets[i]!.ratedKVA * ((droopPct / 100) * droopGain(plant, i) + feeder);
 }
 
-/** Plans reactive droop and no-load voltage for the online reactive-droop sets. */
-export function planReactiveDroop(
-  plant: Plant,
-  points: readonly LoadPoint[],
-  band: Band,
-  limits: PlanLimits,
-  fixed: (i: number, field: 'reactiveDroopPct' | 'noLoadV') => boolean,
-): ReactivePlan {
-  const notes: string[] = [];
-  const reasons: string[] = [];
-  const planned: number[] = [];
-  plant.sets.forEach((s, i) => {
-    if (!s.online) return;
-    if (s.regulator.mode === 'reactive-droop') planned.push(i);
-    else if (s.regulator.mode === 'power-factor') notes.push(`${s.name} holds a power factor of ${fmt(s.regulator.pf, 2)}: it is left as it is.`);
-    else notes.push(`${s.name} holds the voltage (${s.regulator.mode}): the regulators are left as they are.`);
-  });
-  const none: ReactivePlan = {
+type ReactiveField = 'reactiveDroopPct' | 'noLoadV';
+
+/** The reactive-droop law's part of the plan: the regulators of the online reactive-droop sets. */
+const REACTIVE_LAW: PlanLaw<ReactiveField, ReactivePlan> = {
+  sort: (s) =>
+    s.regulator.mode === 'reactive-droop'
+      ? true
+      : s.regulator.mode === 'power-factor'
+        ? `${s.name} holds a power factor of ${fmt(s.regulator.pf, 2)}: it is left as it is.`
+        : `${s.name} holds the voltage (${s.regulator.mode}): the regulators are left as they are.`,
+  holds: (s) => s.regulator.mode === 'voltage' || s.regulator.mode === 'cross-current',
+  none: ({ reasons, notes }) => ({
     planned: [],
     slopePerKVA: 0,
     droopPct: [],
@@ -104,10 +100,22 @@ export function planReactiveDroop(
     reasons,
     tradeoffs: [],
     notes,
-  };
-  const holder = plant.sets.some((s) => s.online && (s.regulator.mode === 'voltage' || s.regulator.mode === 'cross-current'));
-  if (planned.length === 0 || holder) return none;
+  }),
+  solve: solveReactive,
+};
 
+/** Plans reactive droop and no-load voltage for the online reactive-droop sets. */
+export function planReactiveDroop(
+  plant: Plant,
+  points: readonly LoadPoint[],
+  band: Band,
+  limits: PlanLimits,
+  fixed: (i: number, field: ReactiveField) => boolean,
+): ReactivePlan {
+  return planByLaw({ plant, points, band, limits, fixed }, REACTIVE_LAW);
+}
+
+function solveReactive({ plant, points, band, limits, fixed }: PlanInput<ReactiveField>, { planned, reasons, notes }: PlanFound): ReactivePlan {
   const vr = plant.ratedVoltageV;
   let kvaSum = 0;
   for (const i of planned) kvaSum += plant.sets[i]!.ratedKVA;
@@ -128,13 +136,15 @@ export function planReactiveDroop(
     notes.push('More than one set has its reactive droop fixed: the planner matches the first, so the others may not share kVAR in proportion.');
 
   // Preferred: the kVA-weighted mean reactive droop of today's settings, within the limits.
-  let wSum = 0;
-  let wDroop = 0;
-  for (const i of planned) {
-    wSum += plant.sets[i]!.ratedKVA;
-    wDroop += plant.sets[i]!.ratedKVA * plant.sets[i]!.regulator.droopPct;
-  }
-  const m0 = clamp(wDroop / wSum, limits.reactiveDroopPct.min, limits.reactiveDroopPct.max);
+  const m0 = clamp(
+    weightedDroop(
+      planned,
+      (i) => plant.sets[i]!.ratedKVA,
+      (i) => plant.sets[i]!.regulator.droopPct,
+    ),
+    limits.reactiveDroopPct.min,
+    limits.reactiveDroopPct.max,
+  );
   // σ with that kVA-weighted mean droop: Σ S_i m_i(σ) = m0 Σ S_i, m_i linear in σ.
   let a = 0;
   let b = 0;
@@ -143,7 +153,7 @@ export function planReactiveDroop(
     a += 100 / droopGain(plant, i);
     b += (s.ratedKVA * 100 * feeder[k]!) / droopGain(plant, i);
   });
-  const sigma0 = (m0 * wSum + b) / a;
+  const sigma0 = (m0 * kvaSum + b) / a;
   let sMin = 0;
   let sMax = Number.POSITIVE_INFINITY;
   planned.forEach((i, k) => {
@@ -152,12 +162,14 @@ export function planReactiveDroop(
   });
   const sBand = qHi > qLo ? width / (qHi - qLo) : Number.POSITIVE_INFINITY;
 
-  let sigma: number;
-  if (fixedDroop.length > 0) {
-    const f = fixedDroop[0]!;
-    sigma = slopeForDroop(plant, f, feeder[planned.indexOf(f)]!, plant.sets[f]!.regulator.droopPct);
-  } else if (sMin <= Math.min(sMax, sBand)) sigma = clamp(sigma0, sMin, Math.min(sMax, sBand));
-  else sigma = sMin;
+  const f = fixedDroop[0];
+  const sigma = pickSlope(
+    f === undefined ? null : slopeForDroop(plant, f, feeder[planned.indexOf(f)]!, plant.sets[f]!.regulator.droopPct),
+    sigma0,
+    sMin,
+    Math.min(sMax, sBand),
+    sMin,
+  );
 
   const droopPct = planned.map((i, k) => droopForSlope(plant, i, feeder[k]!, sigma));
   planned.forEach((i, k) => {
@@ -174,7 +186,7 @@ export function planReactiveDroop(
     }
   });
   const swing = sigma * (qHi - qLo);
-  if (swing > width * (1 + 1e-9)) {
+  if (overrunsBand(swing, width)) {
     reasons.push(
       `Voltage band: the smallest common slope the feeders and the droop limits allow swings the bus about ${fmt(swing, 1)} V over the load range, ${fmt(swing - width, 1)} V more than the ${fmt(width, 1)} V band allows.`,
     );

@@ -10,6 +10,8 @@
 import type { Band, PlanLimits, Plant } from '../../../shared-types';
 import type { LoadPoint } from './load-points';
 import { clamp, fmt } from './plan-limits';
+import { overrunsBand, pickSlope, planByLaw, weightedDroop } from './plan-shape';
+import type { PlanFound, PlanInput, PlanLaw } from './plan-shape';
 
 /** What the planner chose for the governors. */
 export interface SpeedPlan {
@@ -33,26 +35,33 @@ export function droopLoading(plant: Plant, planned: readonly number[], points: r
   return points.map((p) => (p.load.kW - base) / rated);
 }
 
+type SpeedField = 'droopPct' | 'noLoadHz';
+
+/** The speed-droop law's part of the plan: the governors of the online droop sets. */
+const SPEED_LAW: PlanLaw<SpeedField, SpeedPlan> = {
+  sort: (s) =>
+    s.governor.mode === 'droop'
+      ? true
+      : s.governor.mode === 'isochronous'
+        ? `${s.name} is isochronous: it holds the frequency, so the governors are left as they are.`
+        : `${s.name} is in base load (${fmt(s.governor.baseKW, 0)} kW): it is left as it is and the droop sets carry the rest.`,
+  holds: (s) => s.governor.mode === 'isochronous',
+  none: ({ reasons, notes }) => ({ planned: [], droopPct: 0, noLoadHz: 0, droopFree: false, noLoadFree: false, reasons, tradeoffs: [], notes }),
+  solve: solveSpeed,
+};
+
 /** Plans droop and no-load frequency for the online droop sets. */
 export function planSpeedDroop(
   plant: Plant,
   points: readonly LoadPoint[],
   band: Band,
   limits: PlanLimits,
-  fixed: (i: number, field: 'droopPct' | 'noLoadHz') => boolean,
+  fixed: (i: number, field: SpeedField) => boolean,
 ): SpeedPlan {
-  const notes: string[] = [];
-  const reasons: string[] = [];
-  const planned: number[] = [];
-  plant.sets.forEach((s, i) => {
-    if (!s.online) return;
-    if (s.governor.mode === 'droop') planned.push(i);
-    else if (s.governor.mode === 'isochronous') notes.push(`${s.name} is isochronous: it holds the frequency, so the governors are left as they are.`);
-    else notes.push(`${s.name} is in base load (${fmt(s.governor.baseKW, 0)} kW): it is left as it is and the droop sets carry the rest.`);
-  });
-  const none: SpeedPlan = { planned: [], droopPct: 0, noLoadHz: 0, droopFree: false, noLoadFree: false, reasons, tradeoffs: [], notes };
-  if (planned.length === 0 || plant.sets.some((s) => s.online && s.governor.mode === 'isochronous')) return none;
+  return planByLaw({ plant, points, band, limits, fixed }, SPEED_LAW);
+}
 
+function solveSpeed({ plant, points, band, limits, fixed }: PlanInput<SpeedField>, { planned, reasons, notes }: PlanFound): SpeedPlan {
   const fr = plant.ratedFrequencyHz;
   const u = droopLoading(plant, planned, points);
   const uLo = Math.min(...u);
@@ -69,13 +78,11 @@ export function planSpeedDroop(
   if (new Set(fixedNoLoad.map(noLoadOf)).size > 1)
     notes.push('Sets with different fixed no-load frequencies cannot share kW in proportion; the planner matches the first.');
 
-  let ratedSum = 0;
-  let weighted = 0;
-  for (const i of planned) {
-    ratedSum += plant.sets[i]!.ratedKW;
-    weighted += plant.sets[i]!.ratedKW * droopOf(i);
-  }
-  const preferred = clamp(weighted / ratedSum, limits.speedDroopPct.min, limits.speedDroopPct.max);
+  const preferred = clamp(
+    weightedDroop(planned, (i) => plant.sets[i]!.ratedKW, droopOf),
+    limits.speedDroopPct.min,
+    limits.speedDroopPct.max,
+  );
   const fnlFixed = fixedNoLoad.length > 0 ? noLoadOf(fixedNoLoad[0]!) : null;
 
   // Interval of droop (%) that keeps the swing in the band and meets a fixed no-load frequency.
@@ -88,13 +95,16 @@ export function planSpeedDroop(
     if (uHi > 0) hi = Math.min(hi, (100 * (fnlFixed - band.min)) / (fr * uHi));
   }
 
-  let droopPct: number;
-  if (fixedDroop.length > 0) droopPct = droopOf(fixedDroop[0]!);
-  else if (lo <= hi) droopPct = clamp(preferred, lo, hi);
-  else droopPct = clamp(bandMax, limits.speedDroopPct.min, limits.speedDroopPct.max);
+  const droopPct = pickSlope(
+    fixedDroop.length > 0 ? droopOf(fixedDroop[0]!) : null,
+    preferred,
+    lo,
+    hi,
+    clamp(bandMax, limits.speedDroopPct.min, limits.speedDroopPct.max),
+  );
 
   const swing = (droopPct / 100) * fr * du;
-  if (swing > width * (1 + 1e-9)) {
+  if (overrunsBand(swing, width)) {
     const why = fixedDroop.length > 0 ? `the fixed speed droop of ${fmt(droopPct, 2)} %` : `even the smallest speed droop allowed, ${fmt(droopPct, 2)} %,`;
     reasons.push(
       `Frequency band: ${why} swings the bus ${fmt(swing, 3)} Hz over the load range, ${fmt(swing - width, 3)} Hz more than the ${fmt(width, 3)} Hz band allows.`,

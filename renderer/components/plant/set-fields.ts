@@ -4,7 +4,7 @@
  * a set (the engine's issue path is `sets[i].` + this key) and shows its unit.
  */
 import { SET_DEFAULTS } from '../../../shared-types';
-import { TYPICAL_RANGES } from '../../stores/plant-draft';
+import { TYPICAL_RANGES } from '../../stores';
 
 /** The modes of a set, which decide which of its fields are in use. */
 export interface SetModes {

@@ -4,7 +4,7 @@
  */
 import { FLAG_WORDS, flagWords } from '../../../shared-types';
 import type { SetFlag } from '../../../shared-types';
-import type { IconName } from '../plant/icons';
+import type { IconName } from '../common/icons';
 
 /** How a flag is shown. */
 export interface FlagInfo {

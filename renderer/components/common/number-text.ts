@@ -18,3 +18,16 @@ export function showNumber(v: unknown): string {
 export function unreadable(text: string): boolean {
   return text.trim() !== '' && parseNumber(text) === null;
 }
+
+/**
+ * A `NumberInput`'s reason props for the field at `path` of a map of refused fields (path → rule): the rule, the
+ * reason's element id (`scope`-`path`, unique on the page) and its test id (`testPrefix` + path).
+ */
+export function reasonAt(
+  errors: Partial<Record<string, string>>,
+  path: string,
+  scope: string,
+  testPrefix = 'error-',
+): { issue: string | undefined; issueKey: string; issueTest: string } {
+  return { issue: errors[path], issueKey: `${scope}-${path}`, issueTest: `${testPrefix}${path}` };
+}
