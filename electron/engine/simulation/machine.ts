@@ -60,7 +60,8 @@ export function machineDerivatives(m: SimModel, y: Float64Array, dy: Float64Arra
   for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
     const idOwn = O[oId + i]!;
     const w = y[o + OMEGA]!;
-    const wt = w > MIN_TORQUE_SPEED_PU ? w : MIN_TORQUE_SPEED_PU;
+    // Math.max keeps the value unboxed (a conditional between w and the module constant makes V8 box it every set, every stage).
+    const wt = Math.max(w, MIN_TORQUE_SPEED_PU);
     dy[o + DELTA] = omegaS * (w - 1);
     const d = P[pOnline + i] ? P[pDampingPu + i]! * (w - omegaBus) : 0;
     let dw = ((y[o + PMECH]! - O[oPOwn + i]!) / wt - d) * P[pInv2H + i]!;

@@ -171,4 +171,8 @@ export const O_Q_OWN = 10;
 export const O_ID = 11;
 export const O_IQ = 12;
 export const O_V_SENSED = 13;
-export const OUT_COLUMNS = 14;
+/** Anchor angle of each rotor's sine and cosine, and those (`rotor-trig.ts`). */
+export const O_ANCHOR_D = 14;
+export const O_ANCHOR_SIN = 15;
+export const O_ANCHOR_COS = 16;
+export const OUT_COLUMNS = 17;

@@ -11,6 +11,7 @@ import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { SimModel } from './sim-types';
+import { rotorSinCos } from './rotor-trig';
 import {
   P_GOV_MODE,
   P_INERTIA_KVA,
@@ -26,6 +27,9 @@ import {
   P_ZF_IM,
   P_ZF_RE,
   OUT_COLUMNS,
+  O_ANCHOR_COS,
+  O_ANCHOR_D,
+  O_ANCHOR_SIN,
   O_COS_D,
   O_E_IM,
   O_E_RE,
@@ -49,6 +53,8 @@ import type { Outputs } from './sim-types';
 export function createOutputs(n: number): Outputs {
   const buf = new Float64Array(OUT_COLUMNS * n);
   const f = (k: number) => buf.subarray(k * n, (k + 1) * n);
+  // No rotor-angle anchor yet: the first evaluation takes one.
+  f(O_ANCHOR_D).fill(Number.NaN);
   return {
     buf,
     eRe: f(O_E_RE),
@@ -108,6 +114,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const oVtIm = O_VT_IM * n;
   const oVtRe = O_VT_RE * n;
   const oVSensed = O_V_SENSED * n;
+  const oAnchorD = O_ANCHOR_D * n;
+  const oAnchorSin = O_ANCHOR_SIN * n;
+  const oAnchorCos = O_ANCHOR_COS * n;
   const pGovMode = P_GOV_MODE * n;
   const pInertiaKva = P_INERTIA_KVA * n;
   const pIsoLinked = P_ISO_LINKED * n;
@@ -130,11 +139,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   let inIm = 0;
   let anyOnline = false;
   for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
-    const d = y[o + DELTA]!;
-    const s = Math.sin(d);
-    const c = Math.cos(d);
-    O[oSinD + i] = s;
-    O[oCosD + i] = c;
+    rotorSinCos(O, y[o + DELTA]!, oSinD + i, oCosD + i, oAnchorD + i, oAnchorSin + i, oAnchorCos + i);
+    const s = O[oSinD + i]!;
+    const c = O[oCosD + i]!;
     const ed = y[o + ED2]!;
     const eq = y[o + EQ2]!;
     // (E''d + jE''q) e^{j(δ − π/2)} = (E''d + jE''q)(sin δ − j cos δ)
@@ -297,7 +304,7 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       const cross = P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i];
       O[oVSensed + i] = cross ? vBarCross : O[oVt + i]!;
     }
-  } else O.copyWithin(oVSensed, oVt, (O_VT + 1) * n);
+  } else for (let i = 0; i < n; i++) O[oVSensed + i] = O[oVt + i]!;
 
   // Pass 3: derivatives, one call per block for the whole plant (inputs through `out`).
   machineDerivatives(m, y, dy, out);
