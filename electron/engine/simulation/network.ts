@@ -73,13 +73,15 @@ export function solveBus(net: Float64Array, bus: BusVoltage): void {
     const ai = pi * x + qi * y;
     const bi = pi * y - qi * x;
     if (r2 >= brk2) {
-      const r4 = r2 * r2;
-      gr = a / r2;
-      gi = b / r2;
-      grx = (p * r2 - 2 * a * x) / r4;
-      gry = (q * r2 - 2 * a * y) / r4;
-      gix = (-q * r2 - 2 * b * x) / r4;
-      giy = (p * r2 - 2 * b * y) / r4;
+      // One division: the reciprocals of |V|² and |V|⁴ serve every term.
+      const ir2 = 1 / r2;
+      const ir4 = ir2 * ir2;
+      gr = a * ir2;
+      gi = b * ir2;
+      grx = (p * r2 - 2 * a * x) * ir4;
+      gry = (q * r2 - 2 * a * y) * ir4;
+      gix = (-q * r2 - 2 * b * x) * ir4;
+      giy = (p * r2 - 2 * b * y) * ir4;
       if (pi !== 0 || qi !== 0) {
         // S_I* V / |V|: d(a_i / r)/dx = (p_i r² − a_i x) / r³, and alike.
         const r = Math.sqrt(r2);
@@ -107,9 +109,9 @@ export function solveBus(net: Float64Array, bus: BusVoltage): void {
     const j01 = -aIm + gry;
     const j10 = aIm + gix;
     const j11 = aRe + giy;
-    const det = j00 * j11 - j01 * j10;
-    const dx = (fr * j11 - fi * j01) / det;
-    const dyv = (j00 * fi - j10 * fr) / det;
+    const idet = 1 / (j00 * j11 - j01 * j10);
+    const dx = (fr * j11 - fi * j01) * idet;
+    const dyv = (j00 * fi - j10 * fr) * idet;
     x -= dx;
     y -= dyv;
     if (Math.abs(dx) + Math.abs(dyv) < 1e-12) {

@@ -75,8 +75,9 @@ export const P_ISO_GAIN_PU = 64;
 export const P_PF_TRIM_S = 65;
 export const P_INV_PF_TRIM_S = 66;
 export const P_OEL_RESET_S = 67;
+export const P_REG_DROOP_PER_QBASE = 68;
 /** Number of columns. */
-export const PAR_COLUMNS = 68;
+export const PAR_COLUMNS = 69;
 
 /** Column of each named per-set field of `SimModel`. */
 export const PAR_FIELDS = {
@@ -148,6 +149,7 @@ export const PAR_FIELDS = {
   pfTrimS: P_PF_TRIM_S,
   invPfTrimS: P_INV_PF_TRIM_S,
   oelResetS: P_OEL_RESET_S,
+  regDroopPerQBase: P_REG_DROOP_PER_QBASE,
 } as const;
 
 /** A named per-set field of `SimModel`. */

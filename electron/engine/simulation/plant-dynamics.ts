@@ -4,24 +4,31 @@
  * regulator derivatives. The outputs of the last evaluation stay in the `Outputs`
  * arrays (the simulator reads them after the first RK4 stage of each step).
  */
-import { DELTA, ED2, EQ2, OMEGA, STATES_PER_SET } from './layout';
+import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_ISO, REG_CROSS } from '../mode-codes';
-import { machineDerivatives } from './machine';
+import { MIN_TORQUE_SPEED_PU } from './machine';
 import { governorDerivatives } from './governor';
 import { regulatorDerivatives } from './regulator';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { SimModel } from './sim-types';
 import { rotorSinCos } from './rotor-trig';
 import {
+  P_DAMPING_PU,
   P_GOV_MODE,
   P_INERTIA_KVA,
+  P_INV2_H,
+  P_INV_TD0,
+  P_INV_TD20,
   P_ISO_LINKED,
   P_KW_PU,
   P_ONLINE,
   P_OWN_SCALE,
   P_RATED_KVA,
   P_REG_MODE,
+  P_RESIDUAL_PU,
   P_SHUTDOWN,
+  P_XD1_MINUS_XD2,
+  P_XD_MINUS_XD1,
   P_Y_IM,
   P_Y_RE,
   P_ZF_IM,
@@ -130,6 +137,13 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const pYRe = P_Y_RE * n;
   const pZfIm = P_ZF_IM * n;
   const pZfRe = P_ZF_RE * n;
+  const pDampingPu = P_DAMPING_PU * n;
+  const pInv2H = P_INV2_H * n;
+  const pInvTd0 = P_INV_TD0 * n;
+  const pInvTd20 = P_INV_TD20 * n;
+  const pResidualPu = P_RESIDUAL_PU * n;
+  const pXd1MinusXd2 = P_XD1_MINUS_XD2 * n;
+  const pXdMinusXd1 = P_XD_MINUS_XD1 * n;
   // Pass 1: internal voltages in the network frame, bus speed, Norton sums.
   let hw = 0;
   let hsum = 0;
@@ -227,8 +241,10 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   out.unservedP = below ? pP * (1 - pScale) + pI * (v1 - iScale) : 0;
   out.unservedQ = below ? qP * (1 - pScale) + qI * (v1 - iScale) : 0;
 
-  // Pass 2: currents, terminal voltages, powers, the current on each rotor's d- and q-axes;
-  // group sums for the sharing links.
+  // Pass 2: currents, terminal voltages, powers, the current on each rotor's d- and q-axes,
+  // group sums for the sharing links, and the machine's derivatives (`machine.ts`), which need
+  // nothing from the other sets.
+  const omegaS = m.omegaS;
   let isoKW = 0;
   let isoRated = 0;
   let crossKVAR = 0;
@@ -236,10 +252,14 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   let crossV = 0;
   let loss = 0;
   let anyCross = false;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
     const er = O[oERe + i]!;
     const ei = O[oEIm + i]!;
-    if (P[pOnline + i]) {
+    const on = P[pOnline + i]!;
+    let p = 0;
+    let idOwn = 0;
+    let iqOwn = 0;
+    if (on) {
       const dr = er - vr;
       const di = ei - vi;
       const yr = P[pYRe + i]!;
@@ -256,8 +276,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       O[oVtIm + i] = ti;
       const vmag = Math.sqrt(tr * tr + ti * ti);
       O[oVt + i] = vmag;
+      O[oVSensed + i] = vmag;
       const scale = P[pOwnScale + i]!;
-      const p = (tr * ir + ti * ii) * scale;
+      p = (tr * ir + ti * ii) * scale;
       const q = (ti * ir - tr * ii) * scale;
       O[oPOwn + i] = p;
       O[oQOwn + i] = q;
@@ -267,8 +288,8 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       const iiOwn = ii * scale;
       const s = O[oSinD + i]!;
       const c = O[oCosD + i]!;
-      O[oId + i] = irOwn * s - iiOwn * c;
-      O[oIq + i] = irOwn * c + iiOwn * s;
+      idOwn = irOwn * s - iiOwn * c;
+      iqOwn = irOwn * c + iiOwn * s;
       if (!P[pShutdown + i]) {
         const sk = P[pRatedKva + i]!;
         if (P[pGovMode + i] === GOV_ISO && P[pIsoLinked + i]) {
@@ -287,12 +308,30 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       O[oIIm + i] = 0;
       O[oVtRe + i] = er;
       O[oVtIm + i] = ei;
-      O[oVt + i] = Math.sqrt(er * er + ei * ei);
+      const vmag = Math.sqrt(er * er + ei * ei);
+      O[oVt + i] = vmag;
+      O[oVSensed + i] = vmag;
       O[oPOwn + i] = 0;
       O[oQOwn + i] = 0;
-      O[oId + i] = 0;
-      O[oIq + i] = 0;
     }
+    O[oId + i] = idOwn;
+    O[oIq + i] = iqOwn;
+    // The machine: swing equation (torque form) and the d-axis flux dynamics.
+    const w = y[o + OMEGA]!;
+    // Math.max keeps the value unboxed (a conditional between w and the module constant makes V8 box it every set, every stage).
+    const wt = Math.max(w, MIN_TORQUE_SPEED_PU);
+    dy[o + DELTA] = omegaS * (w - 1);
+    const damp = on ? P[pDampingPu + i]! * (w - omegaBus) : 0;
+    let dw = ((y[o + PMECH]! - p) / wt - damp) * P[pInv2H + i]!;
+    // A stopped engine does not run backwards.
+    if (w <= 0 && dw < 0) dw = 0;
+    dy[o + OMEGA] = dw;
+    const eq1 = y[o + EQ1]!;
+    dy[o + EQ1] = (y[o + EFD]! + P[pResidualPu + i]! - eq1 - P[pXdMinusXd1 + i]! * idOwn) * P[pInvTd0 + i]!;
+    const t2 = P[pInvTd20 + i]!;
+    const k = P[pXd1MinusXd2 + i]!;
+    dy[o + EQ2] = (eq1 - y[o + EQ2]! - k * idOwn) * t2;
+    dy[o + ED2] = (-y[o + ED2]! + k * iqOwn) * t2;
   }
   out.feederLossP = loss;
   out.pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
@@ -300,14 +339,10 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
   // The voltage each regulator compares with its reference: its own, or the cross-current group's mean.
   if (anyCross) {
-    for (let i = 0; i < n; i++) {
-      const cross = P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i];
-      O[oVSensed + i] = cross ? vBarCross : O[oVt + i]!;
-    }
-  } else for (let i = 0; i < n; i++) O[oVSensed + i] = O[oVt + i]!;
+    for (let i = 0; i < n; i++) if (P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i]) O[oVSensed + i] = vBarCross;
+  }
 
-  // Pass 3: derivatives, one call per block for the whole plant (inputs through `out`).
-  machineDerivatives(m, y, dy, out);
+  // Pass 3: the controls' derivatives, one call per block for the whole plant (inputs through `out`).
   governorDerivatives(m, y, dy, out);
   regulatorDerivatives(m, y, dy, out);
 }

@@ -41,8 +41,7 @@ import {
   P_OEL_ACTIVE,
   P_OEL_PU,
   P_ONLINE,
-  P_Q_BASE_PU,
-  P_REG_DROOP,
+  P_REG_DROOP_PER_QBASE,
   P_REG_MODE,
   P_SETPOINT_VPU,
   P_SHUNT,
@@ -68,7 +67,7 @@ export function voltageReference(m: SimModel, i: number, y: Float64Array, o: num
 
 function setpointReference(m: SimModel, i: number, y: Float64Array, o: number, qOwn: number, qBarCross: number): number {
   const mode = m.regMode[i]!;
-  if (mode === REG_DROOP) return m.noLoadVPU[i]! - (m.regDroop[i]! * qOwn) / m.qBasePU[i]!;
+  if (mode === REG_DROOP) return m.noLoadVPU[i]! - m.regDroopPerQBase[i]! * qOwn;
   if (mode === REG_VOLTAGE) return m.setpointVPU[i]!;
   if (mode === REG_CROSS) {
     if (!m.online[i]) return m.setpointVPU[i]!;
@@ -115,8 +114,7 @@ export function regulatorDerivatives(m: SimModel, y: Float64Array, dy: Float64Ar
   const pOelActive = P_OEL_ACTIVE * n;
   const pOelPu = P_OEL_PU * n;
   const pOnline = P_ONLINE * n;
-  const pQBasePu = P_Q_BASE_PU * n;
-  const pRegDroop = P_REG_DROOP * n;
+  const pRegDroopPerQBase = P_REG_DROOP_PER_QBASE * n;
   const pRegMode = P_REG_MODE * n;
   const pSetpointVpu = P_SETPOINT_VPU * n;
   const pShunt = P_SHUNT * n;
@@ -133,7 +131,7 @@ export function regulatorDerivatives(m: SimModel, y: Float64Array, dy: Float64Ar
       const qOwn = O[oQOwn + i]!;
       const mode = P[pRegMode + i]!;
       let ref: number;
-      if (mode === REG_DROOP) ref = P[pNoLoadVpu + i]! - (P[pRegDroop + i]! * qOwn) / P[pQBasePu + i]!;
+      if (mode === REG_DROOP) ref = P[pNoLoadVpu + i]! - P[pRegDroopPerQBase + i]! * qOwn;
       else if (mode === REG_VOLTAGE) ref = P[pSetpointVpu + i]!;
       else if (mode === REG_CROSS) ref = P[pOnline + i] ? P[pSetpointVpu + i]! - P[pCrossGain + i]! * (qOwn - qBarCross) : P[pSetpointVpu + i]!;
       else ref = P[pSetpointVpu + i]! + y[o + VAR_TRIM]!;

@@ -152,6 +152,8 @@ export interface SimModel {
   invExciterS: Float64Array;
   /** 1 / the power-factor trim's time constant, 1/s. */
   invPfTrimS: Float64Array;
+  /** Reactive droop over its base, regDroop / qBasePU: pu voltage per pu (own kVA base) of kVAR. */
+  regDroopPerQBase: Float64Array;
 
   loads: LoadSlot[];
   /** Time constants raised to two steps so the fixed-step integrator stays stable. */
