@@ -56,6 +56,15 @@ import {
 export type { Outputs } from './sim-types';
 import type { Outputs } from './sim-types';
 
+/** Offsets of the frequency-independent load sums in `Outputs.loadSums` (pu at 1 pu voltage and rated frequency). */
+const LOAD_PZ = 0;
+const LOAD_PI = 1;
+const LOAD_PP = 2;
+const LOAD_QZ = 3;
+const LOAD_QI = 4;
+const LOAD_QP = 5;
+const LOAD_SUMS = 6;
+
 /** Allocates the output arrays for `n` sets. */
 export function createOutputs(n: number): Outputs {
   const buf = new Float64Array(OUT_COLUMNS * n);
@@ -84,6 +93,8 @@ export function createOutputs(n: number): Outputs {
     qBarCross: 0.5,
     bus: { re: 1, im: 0, iterations: 0, converged: true },
     net: new Float64Array(NET_LENGTH),
+    loadSums: new Float64Array(LOAD_SUMS),
+    frequencyLoads: [],
     anyOnline: false,
     omegaBus: 1,
     loadP: 0,
@@ -97,12 +108,13 @@ export function createOutputs(n: number): Outputs {
 
 /**
  * Evaluates the plant at time `out.t` (the caller sets it), state `y`: writes dy/dt into `dy` and the algebraic
- * outputs into `out`. Allocates nothing. Runs four times per step (the RK4 stages), so
+ * outputs into `out`. Allocates nothing. `stage` is true for the RK4 stages after the first of a step
+ * (nothing about the plant has changed since the step's first evaluation, only the state). Runs four times per step (the RK4 stages), so
  * every per-set parameter array is read into a local once per call and each pass is one
  * plain loop over the sets; the machine, governor and regulator each take the whole plant
  * in one call.
  */
-export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs): void {
+export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs, stage = false): void {
   const n = m.n;
   const P = m.par;
   const O = out.buf;
@@ -182,16 +194,48 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
 
   // Loads (ZIP): the constant-impedance shares join A; constant-current and constant-power
   // shares (with their frequency factors) stay apart.
-  let pP = 0;
-  let qP = 0;
-  let pI = 0;
-  let qI = 0;
-  let pZ = 0;
-  let qZ = 0;
-  const loads = m.loads;
-  for (let k = 0; k < loads.length; k++) {
-    const l = loads[k]!;
-    if (!l.on) continue;
+  // The loads that do not follow frequency are summed once a step (`stage` false: loads switch only
+  // between steps) and kept in `out.loadSums`; the others are worked out at every evaluation.
+  const sums = out.loadSums;
+  const varying = out.frequencyLoads;
+  if (!stage) {
+    let sPZ = 0;
+    let sPI = 0;
+    let sPP = 0;
+    let sQZ = 0;
+    let sQI = 0;
+    let sQP = 0;
+    varying.length = 0;
+    const loads = m.loads;
+    for (let k = 0; k < loads.length; k++) {
+      const l = loads[k]!;
+      if (!l.on) continue;
+      if (l.frequencySensitivity !== 0 || l.kVARFrequencySensitivity !== 0) {
+        varying.push(l);
+        continue;
+      }
+      sPZ += l.pPU * l.pZ;
+      sPI += l.pPU * l.pI;
+      sPP += l.pPU * l.pP;
+      sQZ += l.qPU * l.qZ;
+      sQI += l.qPU * l.qI;
+      sQP += l.qPU * l.qP;
+    }
+    sums[LOAD_PZ] = sPZ;
+    sums[LOAD_PI] = sPI;
+    sums[LOAD_PP] = sPP;
+    sums[LOAD_QZ] = sQZ;
+    sums[LOAD_QI] = sQI;
+    sums[LOAD_QP] = sQP;
+  }
+  let pZ = sums[LOAD_PZ]!;
+  let pI = sums[LOAD_PI]!;
+  let pP = sums[LOAD_PP]!;
+  let qZ = sums[LOAD_QZ]!;
+  let qI = sums[LOAD_QI]!;
+  let qP = sums[LOAD_QP]!;
+  for (let k = 0; k < varying.length; k++) {
+    const l = varying[k]!;
     let p = l.pPU;
     let q = l.qPU;
     if (l.frequencySensitivity !== 0) {

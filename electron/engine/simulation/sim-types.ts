@@ -193,6 +193,12 @@ export interface Outputs {
   bus: BusVoltage;
   /** Inputs of the bus solve (see `network.ts`). */
   net: Float64Array;
+  /**
+   * The on-line loads that do not follow frequency, summed per ZIP share (`plant-dynamics.ts`), and the on-line
+   * loads that do; both worked out at the first evaluation of each step and reused by its later RK4 stages.
+   */
+  loadSums: Float64Array;
+  frequencyLoads: LoadSlot[];
   anyOnline: boolean;
   /** Bus speed: inertia-weighted mean speed of the on-line sets, pu. */
   omegaBus: number;

@@ -122,7 +122,8 @@ class Run implements Simulation {
     this.rk = createRk4(this.y.length, this.stepS);
     const m = this.m;
     const out = this.out;
-    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out);
+    // The later RK4 stages of a step: loads and breakers stay as the step's first evaluation found them.
+    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out, true);
     const deExcited = new Set(scenario.startDeExcited ?? []);
     for (const id of deExcited) {
       const i = m.ids.indexOf(id);
