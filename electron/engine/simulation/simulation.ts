@@ -249,7 +249,9 @@ class Run implements Simulation {
       const sk = m.ratedKVA[i]!;
       s.kW[i] = out.pOwn[i]! * sk;
       s.kVAR[i] = out.qOwn[i]! * sk;
-      s.currentA[i] = Math.hypot(out.iRe[i]!, out.iIm[i]!) * this.currentScaleA;
+      const ir = out.iRe[i]!;
+      const ii = out.iIm[i]!;
+      s.currentA[i] = Math.sqrt(ir * ir + ii * ii) * this.currentScaleA;
       s.speedHz[i] = this.y[i * STATES_PER_SET + OMEGA]! * m.ratedFrequencyHz;
       s.terminalV[i] = out.vt[i]! * m.ratedVoltageV;
     }
