@@ -7,8 +7,7 @@
 import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_ISO, REG_CROSS } from '../mode-codes';
 import { MIN_TORQUE_SPEED_PU } from './machine';
-import { governorDerivatives } from './governor';
-import { regulatorDerivatives } from './regulator';
+import { controlDerivatives } from './controls';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { SimModel } from './sim-types';
 import { rotorSinCos } from './rotor-trig';
@@ -387,6 +386,5 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   }
 
   // Pass 3: the controls' derivatives, one call per block for the whole plant (inputs through `out`).
-  governorDerivatives(m, y, dy, out);
-  regulatorDerivatives(m, y, dy, out);
+  controlDerivatives(m, y, dy, out);
 }
