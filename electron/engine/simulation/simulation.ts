@@ -174,11 +174,11 @@ class Run implements Simulation {
 
   /**
    * Evaluates the plant now and at the present state: outputs into `out`, f(t, y) into `rk.k1`.
-   * (The methods run every step read the time from `timeS` rather than take it as an argument: a
-   * number passed to a call that is not inlined is boxed on the heap.)
+   * (The methods run every step work the time out as k·h rather than take it as an argument or read the
+   * `timeS` getter: a number passed to or returned from a call that is not inlined is boxed on the heap.)
    */
   private evaluateNow(): void {
-    this.out.t = this.timeS;
+    this.out.t = this.k * this.stepS;
     evaluatePlant(this.m, this.y, this.rk.k1, this.out);
   }
 
@@ -206,7 +206,7 @@ class Run implements Simulation {
   }
 
   private applyDue(): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const half = 0.5 * this.stepS;
     const dueEvent = this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half;
     const duePending = this.pending.length > 0 && this.pending[0]!.atS <= t + half;
@@ -221,7 +221,7 @@ class Run implements Simulation {
   }
 
   private observe(force: boolean): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const f = this.frequencyHz();
     const v = this.voltageV();
     this.lastF = f;
@@ -264,7 +264,7 @@ class Run implements Simulation {
    * nothing (log lines, warning, energy).
    */
   private watchLowVoltage(): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const dead = !this.out.anyOnline;
     let kw = 0;
     if (dead) {
@@ -314,7 +314,7 @@ class Run implements Simulation {
    * limiter lets go and the field may force again (common practice, values from memory).
    */
   private limitExcitation(): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const m = this.m;
     for (let i = 0; i < m.n; i++) {
       const lim = m.oelPU[i]!;
@@ -363,7 +363,7 @@ class Run implements Simulation {
    * true when anything operated.
    */
   private protect(): boolean {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const m = this.m;
     const n = m.n;
     const h = this.stepS;
@@ -451,7 +451,7 @@ class Run implements Simulation {
 
   /** Throws `Diverged` when the state or the bus voltage is no longer finite (after a step: at the new time). */
   private checkFinite(): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     const m = this.m;
     const y = this.y;
     for (let i = 0; i < m.n; i++) {
@@ -496,14 +496,14 @@ class Run implements Simulation {
   }
 
   applyEvent(event: ScenarioEvent): void {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     this.evaluateNow();
     this.markDisturbance(t);
     applyEvent(this.target, event, t);
   }
 
   snapshot(): SimulationSnapshot {
-    const t = this.timeS;
+    const t = this.k * this.stepS;
     this.evaluateNow();
     const m = this.m;
     const out = this.out;
