@@ -84,7 +84,7 @@ describe('import graph', () => {
 
   it('reads the source tree (the guard is looking at real files)', () => {
     expect(graph.size).toBeGreaterThan(100);
-    expect(graph.get('electron/engine/simulation/plant-dynamics.ts')).toContain('electron/engine/simulation/governor.ts');
+    expect(graph.get('electron/engine/simulation/plant-dynamics.ts')).toContain('electron/engine/simulation/controls.ts');
   });
 
   it('finds a loop when there is one (the guard can fail)', () => {

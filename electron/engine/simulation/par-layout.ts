@@ -75,8 +75,9 @@ export const P_ISO_GAIN_PU = 64;
 export const P_PF_TRIM_S = 65;
 export const P_INV_PF_TRIM_S = 66;
 export const P_OEL_RESET_S = 67;
+export const P_REG_DROOP_PER_QBASE = 68;
 /** Number of columns. */
-export const PAR_COLUMNS = 68;
+export const PAR_COLUMNS = 69;
 
 /** Column of each named per-set field of `SimModel`. */
 export const PAR_FIELDS = {
@@ -148,6 +149,7 @@ export const PAR_FIELDS = {
   pfTrimS: P_PF_TRIM_S,
   invPfTrimS: P_INV_PF_TRIM_S,
   oelResetS: P_OEL_RESET_S,
+  regDroopPerQBase: P_REG_DROOP_PER_QBASE,
 } as const;
 
 /** A named per-set field of `SimModel`. */
@@ -171,4 +173,8 @@ export const O_Q_OWN = 10;
 export const O_ID = 11;
 export const O_IQ = 12;
 export const O_V_SENSED = 13;
-export const OUT_COLUMNS = 14;
+/** Anchor angle of each rotor's sine and cosine, and those (`rotor-trig.ts`). */
+export const O_ANCHOR_D = 14;
+export const O_ANCHOR_SIN = 15;
+export const O_ANCHOR_COS = 16;
+export const OUT_COLUMNS = 17;

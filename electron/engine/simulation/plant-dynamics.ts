@@ -4,28 +4,38 @@
  * regulator derivatives. The outputs of the last evaluation stay in the `Outputs`
  * arrays (the simulator reads them after the first RK4 stage of each step).
  */
-import { DELTA, ED2, EQ2, OMEGA, STATES_PER_SET } from './layout';
+import { DELTA, ED2, EFD, EQ1, EQ2, OMEGA, PMECH, STATES_PER_SET } from './layout';
 import { GOV_ISO, REG_CROSS } from '../mode-codes';
-import { machineDerivatives } from './machine';
-import { governorDerivatives } from './governor';
-import { regulatorDerivatives } from './regulator';
+import { MIN_TORQUE_SPEED_PU } from './machine';
+import { controlDerivatives } from './controls';
 import { NET_A_IM, NET_A_RE, NET_BREAK, NET_IN_IM, NET_IN_RE, NET_LENGTH, NET_P, NET_PI, NET_Q, NET_QI, solveBus } from './network';
 import type { SimModel } from './sim-types';
+import { rotorSinCos } from './rotor-trig';
 import {
+  P_DAMPING_PU,
   P_GOV_MODE,
   P_INERTIA_KVA,
+  P_INV2_H,
+  P_INV_TD0,
+  P_INV_TD20,
   P_ISO_LINKED,
   P_KW_PU,
   P_ONLINE,
   P_OWN_SCALE,
   P_RATED_KVA,
   P_REG_MODE,
+  P_RESIDUAL_PU,
   P_SHUTDOWN,
+  P_XD1_MINUS_XD2,
+  P_XD_MINUS_XD1,
   P_Y_IM,
   P_Y_RE,
   P_ZF_IM,
   P_ZF_RE,
   OUT_COLUMNS,
+  O_ANCHOR_COS,
+  O_ANCHOR_D,
+  O_ANCHOR_SIN,
   O_COS_D,
   O_E_IM,
   O_E_RE,
@@ -45,10 +55,21 @@ import {
 export type { Outputs } from './sim-types';
 import type { Outputs } from './sim-types';
 
+/** Offsets of the frequency-independent load sums in `Outputs.loadSums` (pu at 1 pu voltage and rated frequency). */
+const LOAD_PZ = 0;
+const LOAD_PI = 1;
+const LOAD_PP = 2;
+const LOAD_QZ = 3;
+const LOAD_QI = 4;
+const LOAD_QP = 5;
+const LOAD_SUMS = 6;
+
 /** Allocates the output arrays for `n` sets. */
 export function createOutputs(n: number): Outputs {
   const buf = new Float64Array(OUT_COLUMNS * n);
   const f = (k: number) => buf.subarray(k * n, (k + 1) * n);
+  // No rotor-angle anchor yet: the first evaluation takes one.
+  f(O_ANCHOR_D).fill(Number.NaN);
   return {
     buf,
     eRe: f(O_E_RE),
@@ -71,6 +92,8 @@ export function createOutputs(n: number): Outputs {
     qBarCross: 0.5,
     bus: { re: 1, im: 0, iterations: 0, converged: true },
     net: new Float64Array(NET_LENGTH),
+    loadSums: new Float64Array(LOAD_SUMS),
+    frequencyLoads: [],
     anyOnline: false,
     omegaBus: 1,
     loadP: 0,
@@ -84,12 +107,13 @@ export function createOutputs(n: number): Outputs {
 
 /**
  * Evaluates the plant at time `out.t` (the caller sets it), state `y`: writes dy/dt into `dy` and the algebraic
- * outputs into `out`. Allocates nothing. Runs four times per step (the RK4 stages), so
+ * outputs into `out`. Allocates nothing. `stage` is true for the RK4 stages after the first of a step
+ * (nothing about the plant has changed since the step's first evaluation, only the state). Runs four times per step (the RK4 stages), so
  * every per-set parameter array is read into a local once per call and each pass is one
  * plain loop over the sets; the machine, governor and regulator each take the whole plant
  * in one call.
  */
-export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs): void {
+export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs, stage = false): void {
   const n = m.n;
   const P = m.par;
   const O = out.buf;
@@ -108,6 +132,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const oVtIm = O_VT_IM * n;
   const oVtRe = O_VT_RE * n;
   const oVSensed = O_V_SENSED * n;
+  const oAnchorD = O_ANCHOR_D * n;
+  const oAnchorSin = O_ANCHOR_SIN * n;
+  const oAnchorCos = O_ANCHOR_COS * n;
   const pGovMode = P_GOV_MODE * n;
   const pInertiaKva = P_INERTIA_KVA * n;
   const pIsoLinked = P_ISO_LINKED * n;
@@ -121,6 +148,13 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const pYRe = P_Y_RE * n;
   const pZfIm = P_ZF_IM * n;
   const pZfRe = P_ZF_RE * n;
+  const pDampingPu = P_DAMPING_PU * n;
+  const pInv2H = P_INV2_H * n;
+  const pInvTd0 = P_INV_TD0 * n;
+  const pInvTd20 = P_INV_TD20 * n;
+  const pResidualPu = P_RESIDUAL_PU * n;
+  const pXd1MinusXd2 = P_XD1_MINUS_XD2 * n;
+  const pXdMinusXd1 = P_XD_MINUS_XD1 * n;
   // Pass 1: internal voltages in the network frame, bus speed, Norton sums.
   let hw = 0;
   let hsum = 0;
@@ -130,11 +164,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   let inIm = 0;
   let anyOnline = false;
   for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
-    const d = y[o + DELTA]!;
-    const s = Math.sin(d);
-    const c = Math.cos(d);
-    O[oSinD + i] = s;
-    O[oCosD + i] = c;
+    rotorSinCos(O, y[o + DELTA]!, oSinD + i, oCosD + i, oAnchorD + i, oAnchorSin + i, oAnchorCos + i);
+    const s = O[oSinD + i]!;
+    const c = O[oCosD + i]!;
     const ed = y[o + ED2]!;
     const eq = y[o + EQ2]!;
     // (E''d + jE''q) e^{j(δ − π/2)} = (E''d + jE''q)(sin δ − j cos δ)
@@ -161,16 +193,48 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
 
   // Loads (ZIP): the constant-impedance shares join A; constant-current and constant-power
   // shares (with their frequency factors) stay apart.
-  let pP = 0;
-  let qP = 0;
-  let pI = 0;
-  let qI = 0;
-  let pZ = 0;
-  let qZ = 0;
-  const loads = m.loads;
-  for (let k = 0; k < loads.length; k++) {
-    const l = loads[k]!;
-    if (!l.on) continue;
+  // The loads that do not follow frequency are summed once a step (`stage` false: loads switch only
+  // between steps) and kept in `out.loadSums`; the others are worked out at every evaluation.
+  const sums = out.loadSums;
+  const varying = out.frequencyLoads;
+  if (!stage) {
+    let sPZ = 0;
+    let sPI = 0;
+    let sPP = 0;
+    let sQZ = 0;
+    let sQI = 0;
+    let sQP = 0;
+    varying.length = 0;
+    const loads = m.loads;
+    for (let k = 0; k < loads.length; k++) {
+      const l = loads[k]!;
+      if (!l.on) continue;
+      if (l.frequencySensitivity !== 0 || l.kVARFrequencySensitivity !== 0) {
+        varying.push(l);
+        continue;
+      }
+      sPZ += l.pPU * l.pZ;
+      sPI += l.pPU * l.pI;
+      sPP += l.pPU * l.pP;
+      sQZ += l.qPU * l.qZ;
+      sQI += l.qPU * l.qI;
+      sQP += l.qPU * l.qP;
+    }
+    sums[LOAD_PZ] = sPZ;
+    sums[LOAD_PI] = sPI;
+    sums[LOAD_PP] = sPP;
+    sums[LOAD_QZ] = sQZ;
+    sums[LOAD_QI] = sQI;
+    sums[LOAD_QP] = sQP;
+  }
+  let pZ = sums[LOAD_PZ]!;
+  let pI = sums[LOAD_PI]!;
+  let pP = sums[LOAD_PP]!;
+  let qZ = sums[LOAD_QZ]!;
+  let qI = sums[LOAD_QI]!;
+  let qP = sums[LOAD_QP]!;
+  for (let k = 0; k < varying.length; k++) {
+    const l = varying[k]!;
     let p = l.pPU;
     let q = l.qPU;
     if (l.frequencySensitivity !== 0) {
@@ -220,8 +284,10 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   out.unservedP = below ? pP * (1 - pScale) + pI * (v1 - iScale) : 0;
   out.unservedQ = below ? qP * (1 - pScale) + qI * (v1 - iScale) : 0;
 
-  // Pass 2: currents, terminal voltages, powers, the current on each rotor's d- and q-axes;
-  // group sums for the sharing links.
+  // Pass 2: currents, terminal voltages, powers, the current on each rotor's d- and q-axes,
+  // group sums for the sharing links, and the machine's derivatives (`machine.ts`), which need
+  // nothing from the other sets.
+  const omegaS = m.omegaS;
   let isoKW = 0;
   let isoRated = 0;
   let crossKVAR = 0;
@@ -229,10 +295,14 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   let crossV = 0;
   let loss = 0;
   let anyCross = false;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
     const er = O[oERe + i]!;
     const ei = O[oEIm + i]!;
-    if (P[pOnline + i]) {
+    const on = P[pOnline + i]!;
+    let p = 0;
+    let idOwn = 0;
+    let iqOwn = 0;
+    if (on) {
       const dr = er - vr;
       const di = ei - vi;
       const yr = P[pYRe + i]!;
@@ -249,8 +319,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       O[oVtIm + i] = ti;
       const vmag = Math.sqrt(tr * tr + ti * ti);
       O[oVt + i] = vmag;
+      O[oVSensed + i] = vmag;
       const scale = P[pOwnScale + i]!;
-      const p = (tr * ir + ti * ii) * scale;
+      p = (tr * ir + ti * ii) * scale;
       const q = (ti * ir - tr * ii) * scale;
       O[oPOwn + i] = p;
       O[oQOwn + i] = q;
@@ -260,8 +331,8 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       const iiOwn = ii * scale;
       const s = O[oSinD + i]!;
       const c = O[oCosD + i]!;
-      O[oId + i] = irOwn * s - iiOwn * c;
-      O[oIq + i] = irOwn * c + iiOwn * s;
+      idOwn = irOwn * s - iiOwn * c;
+      iqOwn = irOwn * c + iiOwn * s;
       if (!P[pShutdown + i]) {
         const sk = P[pRatedKva + i]!;
         if (P[pGovMode + i] === GOV_ISO && P[pIsoLinked + i]) {
@@ -280,12 +351,30 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
       O[oIIm + i] = 0;
       O[oVtRe + i] = er;
       O[oVtIm + i] = ei;
-      O[oVt + i] = Math.sqrt(er * er + ei * ei);
+      const vmag = Math.sqrt(er * er + ei * ei);
+      O[oVt + i] = vmag;
+      O[oVSensed + i] = vmag;
       O[oPOwn + i] = 0;
       O[oQOwn + i] = 0;
-      O[oId + i] = 0;
-      O[oIq + i] = 0;
     }
+    O[oId + i] = idOwn;
+    O[oIq + i] = iqOwn;
+    // The machine: swing equation (torque form) and the d-axis flux dynamics.
+    const w = y[o + OMEGA]!;
+    // Math.max keeps the value unboxed (a conditional between w and the module constant makes V8 box it every set, every stage).
+    const wt = Math.max(w, MIN_TORQUE_SPEED_PU);
+    dy[o + DELTA] = omegaS * (w - 1);
+    const damp = on ? P[pDampingPu + i]! * (w - omegaBus) : 0;
+    let dw = ((y[o + PMECH]! - p) / wt - damp) * P[pInv2H + i]!;
+    // A stopped engine does not run backwards.
+    if (w <= 0 && dw < 0) dw = 0;
+    dy[o + OMEGA] = dw;
+    const eq1 = y[o + EQ1]!;
+    dy[o + EQ1] = (y[o + EFD]! + P[pResidualPu + i]! - eq1 - P[pXdMinusXd1 + i]! * idOwn) * P[pInvTd0 + i]!;
+    const t2 = P[pInvTd20 + i]!;
+    const k = P[pXd1MinusXd2 + i]!;
+    dy[o + EQ2] = (eq1 - y[o + EQ2]! - k * idOwn) * t2;
+    dy[o + ED2] = (-y[o + ED2]! + k * iqOwn) * t2;
   }
   out.feederLossP = loss;
   out.pBarIso = isoRated > 0 ? isoKW / isoRated : 0;
@@ -293,14 +382,9 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
   const vBarCross = crossKVA > 0 ? crossV / crossKVA : 0;
   // The voltage each regulator compares with its reference: its own, or the cross-current group's mean.
   if (anyCross) {
-    for (let i = 0; i < n; i++) {
-      const cross = P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i];
-      O[oVSensed + i] = cross ? vBarCross : O[oVt + i]!;
-    }
-  } else O.copyWithin(oVSensed, oVt, (O_VT + 1) * n);
+    for (let i = 0; i < n; i++) if (P[pOnline + i] && P[pRegMode + i] === REG_CROSS && !P[pShutdown + i]) O[oVSensed + i] = vBarCross;
+  }
 
-  // Pass 3: derivatives, one call per block for the whole plant (inputs through `out`).
-  machineDerivatives(m, y, dy, out);
-  governorDerivatives(m, y, dy, out);
-  regulatorDerivatives(m, y, dy, out);
+  // Pass 3: the controls' derivatives, one call per block for the whole plant (inputs through `out`).
+  controlDerivatives(m, y, dy, out);
 }

@@ -24,7 +24,12 @@ class Growable {
     return this.data[this.length - 1]!;
   }
   toArray(): number[] {
-    return Array.from(this.data.subarray(0, this.length));
+    // A plain loop: Array.from over a typed array walks an iterator, several times slower.
+    const n = this.length;
+    const d = this.data;
+    const out = new Array<number>(n);
+    for (let i = 0; i < n; i++) out[i] = d[i]!;
+    return out;
   }
 }
 

@@ -22,35 +22,12 @@
  * With shunt (self) excitation the ceiling follows terminal voltage (ST1A's V_t·V_Rmax),
  * so a set de-excited at start builds up from its residual voltage only if the loop
  * gain `ceilingPU` exceeds one, and not at all without residual magnetism.
+ *
+ * The derivatives are worked out in `controls.ts` (`controlDerivatives`), together with the governor's.
  */
-import { AVR_INT, EFD, OMEGA, STATES_PER_SET, VAR_TRIM } from './layout';
-import { REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
-import type { Outputs, SimModel } from './sim-types';
-import {
-  O_P_OWN,
-  O_Q_OWN,
-  O_VT,
-  O_V_SENSED,
-  P_CEILING_PU,
-  P_CROSS_GAIN,
-  P_GAIN_PU,
-  P_INV_AVR_RESET_S,
-  P_INV_EXCITER_S,
-  P_INV_PF_TRIM_S,
-  P_NO_LOAD_VPU,
-  P_OEL_ACTIVE,
-  P_OEL_PU,
-  P_ONLINE,
-  P_Q_BASE_PU,
-  P_REG_DROOP,
-  P_REG_MODE,
-  P_SETPOINT_VPU,
-  P_SHUNT,
-  P_SHUTDOWN,
-  P_TAN_PHI,
-  P_VHZ_KNEE_PU,
-  P_VHZ_SLOPE_PU,
-} from './par-layout';
+import { OMEGA, VAR_TRIM } from './layout';
+import { REG_CROSS, REG_DROOP, REG_VOLTAGE } from '../mode-codes';
+import type { SimModel } from './sim-types';
 
 /**
  * Under-frequency roll-off of the voltage reference, pu: below the knee the reference falls by
@@ -68,7 +45,7 @@ export function voltageReference(m: SimModel, i: number, y: Float64Array, o: num
 
 function setpointReference(m: SimModel, i: number, y: Float64Array, o: number, qOwn: number, qBarCross: number): number {
   const mode = m.regMode[i]!;
-  if (mode === REG_DROOP) return m.noLoadVPU[i]! - (m.regDroop[i]! * qOwn) / m.qBasePU[i]!;
+  if (mode === REG_DROOP) return m.noLoadVPU[i]! - m.regDroopPerQBase[i]! * qOwn;
   if (mode === REG_VOLTAGE) return m.setpointVPU[i]!;
   if (mode === REG_CROSS) {
     if (!m.online[i]) return m.setpointVPU[i]!;
@@ -87,79 +64,4 @@ export function fieldCeiling(m: SimModel, i: number, vt: number): number {
   const c = m.shunt[i] ? m.ceilingPU[i]! * vt : m.ceilingPU[i]!;
   // The over-excitation limiter, while it acts, holds the field at its limit.
   return m.oelActive[i] && m.oelPU[i]! < c ? m.oelPU[i]! : c;
-}
-
-/**
- * Writes the regulator derivatives of every set, reading from `out` each set's terminal
- * voltage, the voltage its regulator senses (its own, or the cross-current group's mean), its
- * kW/kVAR at the terminals (pu own base) and the cross-current mean. One loop over the plant
- * reading `m.par` and `out.buf` at constant column offsets: the reference, ceiling and roll-off
- * are those of `voltageReference` and `fieldCeiling` above, written out so nothing is called per set.
- */
-export function regulatorDerivatives(m: SimModel, y: Float64Array, dy: Float64Array, out: Outputs): void {
-  const n = m.n;
-  const P = m.par;
-  const O = out.buf;
-  // Column offsets, in locals once per call.
-  const oPOwn = O_P_OWN * n;
-  const oQOwn = O_Q_OWN * n;
-  const oVt = O_VT * n;
-  const oVSensed = O_V_SENSED * n;
-  const pCeilingPu = P_CEILING_PU * n;
-  const pCrossGain = P_CROSS_GAIN * n;
-  const pGainPu = P_GAIN_PU * n;
-  const pInvAvrResetS = P_INV_AVR_RESET_S * n;
-  const pInvExciterS = P_INV_EXCITER_S * n;
-  const pInvPfTrimS = P_INV_PF_TRIM_S * n;
-  const pNoLoadVpu = P_NO_LOAD_VPU * n;
-  const pOelActive = P_OEL_ACTIVE * n;
-  const pOelPu = P_OEL_PU * n;
-  const pOnline = P_ONLINE * n;
-  const pQBasePu = P_Q_BASE_PU * n;
-  const pRegDroop = P_REG_DROOP * n;
-  const pRegMode = P_REG_MODE * n;
-  const pSetpointVpu = P_SETPOINT_VPU * n;
-  const pShunt = P_SHUNT * n;
-  const pShutdown = P_SHUTDOWN * n;
-  const pTanPhi = P_TAN_PHI * n;
-  const pVhzKneePu = P_VHZ_KNEE_PU * n;
-  const pVhzSlopePu = P_VHZ_SLOPE_PU * n;
-  const qBarCross = out.qBarCross;
-  for (let i = 0, o = 0; i < n; i++, o += STATES_PER_SET) {
-    let u = 0;
-    let dz = 0;
-    let dTrim = 0;
-    if (!P[pShutdown + i]) {
-      const qOwn = O[oQOwn + i]!;
-      const mode = P[pRegMode + i]!;
-      let ref: number;
-      if (mode === REG_DROOP) ref = P[pNoLoadVpu + i]! - (P[pRegDroop + i]! * qOwn) / P[pQBasePu + i]!;
-      else if (mode === REG_VOLTAGE) ref = P[pSetpointVpu + i]!;
-      else if (mode === REG_CROSS) ref = P[pOnline + i] ? P[pSetpointVpu + i]! - P[pCrossGain + i]! * (qOwn - qBarCross) : P[pSetpointVpu + i]!;
-      else ref = P[pSetpointVpu + i]! + y[o + VAR_TRIM]!;
-      const below = P[pVhzKneePu + i]! - y[o + OMEGA]!;
-      if (below > 0) ref -= P[pVhzSlopePu + i]! * below;
-      const e = ref - O[oVSensed + i]!;
-      const ceiling = P[pCeilingPu + i]!;
-      let hi = P[pShunt + i] ? ceiling * O[oVt + i]! : ceiling;
-      // The over-excitation limiter, while it acts, holds the field at its limit.
-      if (P[pOelActive + i]) {
-        const lim = P[pOelPu + i]!;
-        if (lim < hi) hi = lim;
-      }
-      u = P[pGainPu + i]! * (e + y[o + AVR_INT]!);
-      dz = e * P[pInvAvrResetS + i]!;
-      if (u >= hi) {
-        u = hi;
-        if (dz > 0) dz = 0;
-      } else if (u <= 0) {
-        u = 0;
-        if (dz < 0) dz = 0;
-      }
-      if (mode === REG_PF && P[pOnline + i]) dTrim = (O[oPOwn + i]! * P[pTanPhi + i]! - qOwn) * P[pInvPfTrimS + i]!;
-    }
-    dy[o + AVR_INT] = dz;
-    dy[o + VAR_TRIM] = dTrim;
-    dy[o + EFD] = (u - y[o + EFD]!) * P[pInvExciterS + i]!;
-  }
 }

@@ -179,6 +179,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.invAvrResetS[i] = 1 / m.avrResetS[i]!;
     m.invExciterS[i] = 1 / m.exciterS[i]!;
     m.invPfTrimS[i] = 1 / m.pfTrimS[i]!;
+    m.regDroopPerQBase[i] = m.regDroop[i]! / m.qBasePU[i]!;
   });
   for (const l of plant.loads) m.loads.push(plantLoadSlot(l, baseKVA));
   return m;

@@ -152,6 +152,8 @@ export interface SimModel {
   invExciterS: Float64Array;
   /** 1 / the power-factor trim's time constant, 1/s. */
   invPfTrimS: Float64Array;
+  /** Reactive droop over its base, regDroop / qBasePU: pu voltage per pu (own kVA base) of kVAR. */
+  regDroopPerQBase: Float64Array;
 
   loads: LoadSlot[];
   /** Time constants raised to two steps so the fixed-step integrator stays stable. */
@@ -191,6 +193,12 @@ export interface Outputs {
   bus: BusVoltage;
   /** Inputs of the bus solve (see `network.ts`). */
   net: Float64Array;
+  /**
+   * The on-line loads that do not follow frequency, summed per ZIP share (`plant-dynamics.ts`), and the on-line
+   * loads that do; both worked out at the first evaluation of each step and reused by its later RK4 stages.
+   */
+  loadSums: Float64Array;
+  frequencyLoads: LoadSlot[];
   anyOnline: boolean;
   /** Bus speed: inertia-weighted mean speed of the on-line sets, pu. */
   omegaBus: number;

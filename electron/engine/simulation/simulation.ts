@@ -122,7 +122,8 @@ class Run implements Simulation {
     this.rk = createRk4(this.y.length, this.stepS);
     const m = this.m;
     const out = this.out;
-    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out);
+    // The later RK4 stages of a step: loads and breakers stay as the step's first evaluation found them.
+    this.rhs = (y, dy) => evaluatePlant(m, y, dy, out, true);
     const deExcited = new Set(scenario.startDeExcited ?? []);
     for (const id of deExcited) {
       const i = m.ids.indexOf(id);
@@ -164,16 +165,20 @@ class Run implements Simulation {
     }
     if (m.raised.length > 0)
       this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
-    this.evaluateAt(0);
+    this.evaluateNow();
     this.initialF = this.frequencyHz();
     this.initialV = this.voltageV();
     this.lastF = this.initialF;
     this.lastV = this.initialV;
   }
 
-  /** Evaluates the plant at time `t` and the present state: outputs into `out`, f(t, y) into `rk.k1`. */
-  private evaluateAt(t: number): void {
-    this.out.t = t;
+  /**
+   * Evaluates the plant now and at the present state: outputs into `out`, f(t, y) into `rk.k1`.
+   * (The methods run every step work the time out as k·h rather than take it as an argument or read the
+   * `timeS` getter: a number passed to or returned from a call that is not inlined is boxed on the heap.)
+   */
+  private evaluateNow(): void {
+    this.out.t = this.k * this.stepS;
     evaluatePlant(this.m, this.y, this.rk.k1, this.out);
   }
 
@@ -200,13 +205,14 @@ class Run implements Simulation {
     this.vMax = -Infinity;
   }
 
-  private applyDue(t: number): void {
+  private applyDue(): void {
+    const t = this.k * this.stepS;
     const half = 0.5 * this.stepS;
     const dueEvent = this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half;
     const duePending = this.pending.length > 0 && this.pending[0]!.atS <= t + half;
     if (!dueEvent && !duePending) return;
     // Fresh outputs at this exact state (bus angle for a close, present kW for a ramp).
-    this.evaluateAt(t);
+    this.evaluateNow();
     if (dueEvent) this.markDisturbance(t);
     while (this.nextEvent < this.events.length && this.events[this.nextEvent]!.atS <= t + half) {
       applyEvent(this.target, this.events[this.nextEvent++]!, t);
@@ -214,7 +220,8 @@ class Run implements Simulation {
     while (this.pending.length > 0 && this.pending[0]!.atS <= t + half) this.pending.shift()!.run();
   }
 
-  private observe(t: number, force: boolean): void {
+  private observe(force: boolean): void {
+    const t = this.k * this.stepS;
     const f = this.frequencyHz();
     const v = this.voltageV();
     this.lastF = f;
@@ -232,7 +239,7 @@ class Run implements Simulation {
       if (v < this.vMin) this.vMin = v;
       if (v > this.vMax) this.vMax = v;
     }
-    this.watchLowVoltage(t);
+    this.watchLowVoltage();
     this.recorder.trace(this.k, t, f, v, force);
     if (!this.recorder.wants(this.k, force)) return;
     const m = this.m;
@@ -242,7 +249,9 @@ class Run implements Simulation {
       const sk = m.ratedKVA[i]!;
       s.kW[i] = out.pOwn[i]! * sk;
       s.kVAR[i] = out.qOwn[i]! * sk;
-      s.currentA[i] = Math.hypot(out.iRe[i]!, out.iIm[i]!) * this.currentScaleA;
+      const ir = out.iRe[i]!;
+      const ii = out.iIm[i]!;
+      s.currentA[i] = Math.sqrt(ir * ir + ii * ii) * this.currentScaleA;
       s.speedHz[i] = this.y[i * STATES_PER_SET + OMEGA]! * m.ratedFrequencyHz;
       s.terminalV[i] = out.vt[i]! * m.ratedVoltageV;
     }
@@ -254,7 +263,8 @@ class Run implements Simulation {
    * impedance below the plant's break voltage (`m.breakPU`; the bus solve needs it), and a dead bus serves
    * nothing (log lines, warning, energy).
    */
-  private watchLowVoltage(t: number): void {
+  private watchLowVoltage(): void {
+    const t = this.k * this.stepS;
     const dead = !this.out.anyOnline;
     let kw = 0;
     if (dead) {
@@ -303,7 +313,8 @@ class Run implements Simulation {
    * fall back below the limit and it has stayed there for the reset time (`oelResetS`), the
    * limiter lets go and the field may force again (common practice, values from memory).
    */
-  private limitExcitation(t: number): void {
+  private limitExcitation(): void {
+    const t = this.k * this.stepS;
     const m = this.m;
     for (let i = 0; i < m.n; i++) {
       const lim = m.oelPU[i]!;
@@ -351,7 +362,8 @@ class Run implements Simulation {
    * opens the breaker and stops the engine) and the loads' under-frequency shedding stages;
    * true when anything operated.
    */
-  private protect(t: number): boolean {
+  private protect(): boolean {
+    const t = this.k * this.stepS;
     const m = this.m;
     const n = m.n;
     const h = this.stepS;
@@ -415,7 +427,7 @@ class Run implements Simulation {
         }
       }
     }
-    this.limitExcitation(t);
+    this.limitExcitation();
     // Under-frequency load shedding on the bus frequency.
     if (this.out.anyOnline) {
       const fb = this.out.omegaBus;
@@ -437,7 +449,9 @@ class Run implements Simulation {
     return operated;
   }
 
-  private checkFinite(t: number): void {
+  /** Throws `Diverged` when the state or the bus voltage is no longer finite (after a step: at the new time). */
+  private checkFinite(): void {
+    const t = this.k * this.stepS;
     const m = this.m;
     const y = this.y;
     for (let i = 0; i < m.n; i++) {
@@ -454,15 +468,13 @@ class Run implements Simulation {
   }
 
   private step(): void {
-    const t = this.timeS;
-    this.applyDue(t);
-    this.evaluateAt(t);
-    this.observe(t, false);
-    if (this.protect(t)) this.evaluateAt(t);
-    this.out.t = t;
+    this.applyDue();
+    this.evaluateNow();
+    this.observe(false);
+    if (this.protect()) this.evaluateNow();
     rk4StepFromK1(this.rhs, this.out, this.y, this.rk);
     this.k++;
-    this.checkFinite(this.timeS);
+    this.checkFinite();
   }
 
   advance(seconds: number): void {
@@ -484,15 +496,15 @@ class Run implements Simulation {
   }
 
   applyEvent(event: ScenarioEvent): void {
-    const t = this.timeS;
-    this.evaluateAt(t);
+    const t = this.k * this.stepS;
+    this.evaluateNow();
     this.markDisturbance(t);
     applyEvent(this.target, event, t);
   }
 
   snapshot(): SimulationSnapshot {
-    const t = this.timeS;
-    this.evaluateAt(t);
+    const t = this.k * this.stepS;
+    this.evaluateNow();
     const m = this.m;
     const out = this.out;
     const busAngle = Math.atan2(out.bus.im, out.bus.re);
@@ -528,10 +540,9 @@ class Run implements Simulation {
   }
 
   result(): SimulationResult {
-    const t = this.timeS;
-    this.applyDue(t);
-    this.evaluateAt(t);
-    this.observe(t, true);
+    this.applyDue();
+    this.evaluateNow();
+    this.observe(true);
     const m = this.m;
     const out = this.out;
     const rec = this.recorder;

@@ -57,6 +57,60 @@ describe('bus solve with constant-current loads', () => {
   });
 });
 
+/** A complex bus: admittance A, Norton current I_N, constant-power load P + jQ, break b, warm start (re, im). */
+function complexBus(a: [number, number], iN: [number, number], pq: [number, number], b: number, warm: [number, number]): BusVoltage {
+  const net = new Float64Array(NET_LENGTH);
+  net[NET_A_RE] = a[0];
+  net[NET_A_IM] = a[1];
+  net[NET_IN_RE] = iN[0];
+  net[NET_IN_IM] = iN[1];
+  net[NET_P] = pq[0];
+  net[NET_Q] = pq[1];
+  net[NET_BREAK] = b;
+  const bus: BusVoltage = { re: warm[0], im: warm[1], iterations: -1, converged: false };
+  solveBus(net, bus);
+  expect(bus.converged).toBe(true);
+  return bus;
+}
+
+describe('bus solve with constant-power loads and no constant-current share (direct solution)', () => {
+  it('a real bus: g V² − I_N V + P = 0, the larger root, without iterating (closed form)', () => {
+    // 10 V² − 10.5 V + 0.5 = 0 → V = (10.5 + √(10.5² − 20)) / 20.
+    const bus = complexBus([10, 0], [10.5, 0], [0.5, 0], 0.7, [1, 0]);
+    expect(bus.iterations).toBe(0);
+    expectClose(bus.re, (10.5 + Math.sqrt(10.5 * 10.5 - 20)) / 20, { abs: 1e-14 }, 'V, pu (quadratic)');
+    expectClose(bus.im, 0, { abs: 1e-15 }, 'imaginary part of a real bus');
+  });
+
+  it('a complex bus: the direct answer satisfies A V + S* / V* = I_N and equals the Newton answer (closed form: residual 0)', () => {
+    const a: [number, number] = [6.2, -9.1];
+    const iN: [number, number] = [7.9, -7.4];
+    const pq: [number, number] = [0.45, 0.3];
+    const direct = complexBus(a, iN, pq, 0.7, [0.92, 0.18]);
+    expect(direct.iterations).toBe(0);
+    const [vr, vi] = [direct.re, direct.im];
+    const v2 = vr * vr + vi * vi;
+    // S* / V* = (P − jQ) V / |V|².
+    const fr = a[0] * vr - a[1] * vi + (pq[0] * vr + pq[1] * vi) / v2 - iN[0];
+    const fi = a[0] * vi + a[1] * vr + (pq[0] * vi - pq[1] * vr) / v2 - iN[1];
+    expect(Math.hypot(fr, fi)).toBeLessThan(1e-13);
+    // A warm start 0.45 pu away is left to Newton's method, which reaches the same voltage.
+    const newton = complexBus(a, iN, pq, 0.7, [0.6, 0.5]);
+    expect(newton.iterations).toBeGreaterThan(0);
+    expectClose(newton.re, vr, { abs: 1e-13 }, 'V real part, pu (Newton against the direct solution)');
+    expectClose(newton.im, vi, { abs: 1e-13 }, 'V imaginary part, pu (Newton against the direct solution)');
+  });
+
+  it('near the nose of the curve (roots about to meet) it iterates instead', () => {
+    // 10 V² − 10.5 V + P = 0 has a double root at P = 10.5² / 40 = 2.75625; at P = 2.7562495 the quadratic in
+    // |V|² has a discriminant of 7.3e-7 of b², under the 1e-6 below which the direct solution is not taken.
+    const p = 2.7562495;
+    const bus = complexBus([10, 0], [10.5, 0], [p, 0], 0.1, [0.53, 0]);
+    expect(bus.iterations).toBeGreaterThan(0);
+    expectClose(bus.re, (10.5 + Math.sqrt(10.5 * 10.5 - 40 * p)) / 20, { abs: 1e-6 }, 'V, pu (quadratic, larger root)');
+  });
+});
+
 const zipLoad = {
   id: 'Z',
   kW: 500,
