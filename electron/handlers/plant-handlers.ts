@@ -2,25 +2,33 @@
 import { z } from 'zod';
 import { EngineError, describePlant, solveSharing, solveSharingAtMost } from '../engine';
 import { loadAtPct } from '../../shared-types';
-import type { CheckedPlant, Plant } from '../../shared-types';
+import type { CheckedPlant, Plant, PlantDescription } from '../../shared-types';
 import { plantSchema } from '../schemas/plant-schema';
 import { num } from '../schemas/schema-kit';
 import type { HandlerGroup } from './handler';
 import { parseOrThrow } from '../schemas/validate';
 
 /**
- * `checkPlant`: the plant is parsed once, then solved from that parse (the sharing solver takes
+ * `checkPlant`: the plant is parsed once, then described and solved from that parse (the sharing solver takes
  * a validated plant; no second schema pass). A plant without an operating point is still a valid
  * plant: the reason comes back in `sharingError`.
  */
 export function checkPlant(raw: unknown, loadPct: number | undefined): CheckedPlant {
   const plant: Plant = parseOrThrow(plantSchema, raw);
   const load = loadPct === undefined ? null : loadAtPct(plant, loadPct);
+  // The rated figures come in the same answer, so the editor redraws once per edit.
+  let description: PlantDescription | null = null;
+  let descriptionError: string | null = null;
+  try {
+    description = describePlant(plant);
+  } catch (e) {
+    descriptionError = e instanceof Error ? e.message : String(e);
+  }
   try {
     const sharing = load ? solveSharingAtMost(plant, load) : solveSharing(plant);
-    return { plant, load, sharing, sharingError: null };
+    return { plant, load, sharing, sharingError: null, description, descriptionError };
   } catch (e) {
-    if (e instanceof EngineError) return { plant, load, sharing: null, sharingError: e.message };
+    if (e instanceof EngineError) return { plant, load, sharing: null, sharingError: e.message, description, descriptionError };
     throw e;
   }
 }
