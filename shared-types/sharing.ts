@@ -47,13 +47,15 @@ export interface SolveSharingRequest {
 export interface CheckPlantRequest {
   plant: unknown;
   loadPct?: number;
+  /** Also describe the plant (`describePlant`'s rated figures in `description`): an edit's one answer. */
+  describe?: boolean;
 }
 
 /**
  * Answer of `checkPlant`: the plant with defaults filled in and, from the same request, its
  * operating point (as `solveSharing` gives it, at most what the sets can carry when `loadPct`
- * is given) or the sentence saying why it has none, and its rated figures (as `describePlant`
- * gives them). An invalid plant is refused as `validatePlant` refuses it (field issues), with
+ * is given) or the sentence saying why it has none, and, when asked, its rated figures (as
+ * `describePlant` gives them). An invalid plant is refused as `validatePlant` refuses it (field issues), with
  * no operating point.
  */
 export interface CheckedPlant {
@@ -62,7 +64,7 @@ export interface CheckedPlant {
   load: LoadOverride | null;
   sharing: SharingResult | null;
   sharingError: string | null;
-  /** Rated figures and capability curves (`describePlant`), or null with `descriptionError`. */
+  /** Rated figures and capability curves (`describePlant`) when asked for, or null (with `descriptionError` if describing failed). */
   description: PlantDescription | null;
   descriptionError: string | null;
 }

@@ -9,20 +9,22 @@ import type { HandlerGroup } from './handler';
 import { parseOrThrow } from '../schemas/validate';
 
 /**
- * `checkPlant`: the plant is parsed once, then described and solved from that parse (the sharing solver takes
+ * `checkPlant`: the plant is parsed once, then solved (and described, when asked) from that parse (the sharing solver takes
  * a validated plant; no second schema pass). A plant without an operating point is still a valid
  * plant: the reason comes back in `sharingError`.
  */
-export function checkPlant(raw: unknown, loadPct: number | undefined): CheckedPlant {
+export function checkPlant(raw: unknown, loadPct: number | undefined, describe = false): CheckedPlant {
   const plant: Plant = parseOrThrow(plantSchema, raw);
   const load = loadPct === undefined ? null : loadAtPct(plant, loadPct);
-  // The rated figures come in the same answer, so the editor redraws once per edit.
+  // Asked for by an edit: the rated figures come in the same answer, so the editor redraws once.
   let description: PlantDescription | null = null;
   let descriptionError: string | null = null;
-  try {
-    description = describePlant(plant);
-  } catch (e) {
-    descriptionError = e instanceof Error ? e.message : String(e);
+  if (describe) {
+    try {
+      description = describePlant(plant);
+    } catch (e) {
+      descriptionError = e instanceof Error ? e.message : String(e);
+    }
   }
   try {
     const sharing = load ? solveSharingAtMost(plant, load) : solveSharing(plant);
@@ -49,8 +51,9 @@ export const plantHandlers: HandlerGroup<'describePlant' | 'validatePlant' | 'ch
         loadPct: num('%')
           .refine((v) => v >= 0 && v <= 500, 'must be from 0 to 500 %')
           .optional(),
+        describe: z.boolean().optional(),
       })
       .strict(),
-    run: ({ plant, loadPct }) => checkPlant(plant, loadPct),
+    run: ({ plant, loadPct, describe }) => checkPlant(plant, loadPct, describe),
   },
 };

@@ -100,12 +100,8 @@ export const usePlantStore = defineStore('plant', () => {
         const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
         valid = checked.plant;
         solver.take(checked, pct);
-        error.value = null;
-        takeDescription(checked);
-      } else {
-        valid = await engine().call('validatePlant', { plant: candidate });
-        error.value = null;
-      }
+      } else valid = await engine().call('validatePlant', { plant: candidate });
+      error.value = null;
       plant.value = valid;
       draft.value = draftOf(valid);
       checkedDraft.value = draft.value;
@@ -118,7 +114,8 @@ export const usePlantStore = defineStore('plant', () => {
       lastEditKey = null;
       revision.value++;
       dirty.value = false;
-      if (!solver) await describe(valid);
+      // The rated figures follow (the first figures on screen need not wait for them).
+      await describe(valid);
       return true;
     } catch (e) {
       issues.value = e instanceof EngineCallError ? e.issues : [];
@@ -144,7 +141,10 @@ export const usePlantStore = defineStore('plant', () => {
       let valid: Plant;
       if (solver) {
         const pct = solver.loadPct();
-        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        const checked = await engine().call(
+          'checkPlant',
+          pct === null ? { plant: candidate, describe: true } : { plant: candidate, loadPct: pct, describe: true },
+        );
         if (candidate !== draft.value) return;
         valid = checked.plant;
         checkedDraft.value = candidate;
