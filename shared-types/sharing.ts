@@ -1,4 +1,5 @@
 /** Steady-state sharing: requests and results (`solveSharing`, `sweepLoad`). */
+import type { PlantDescription } from './describe';
 import type { Plant } from './plant';
 
 /** Per-set conditions, as words (shown with icons and text, never colour alone). */
@@ -46,13 +47,16 @@ export interface SolveSharingRequest {
 export interface CheckPlantRequest {
   plant: unknown;
   loadPct?: number;
+  /** Also describe the plant (`describePlant`'s rated figures in `description`): an edit's one answer. */
+  describe?: boolean;
 }
 
 /**
  * Answer of `checkPlant`: the plant with defaults filled in and, from the same request, its
  * operating point (as `solveSharing` gives it, at most what the sets can carry when `loadPct`
- * is given) or the sentence saying why it has none. An invalid plant is refused as
- * `validatePlant` refuses it (field issues), with no operating point.
+ * is given) or the sentence saying why it has none, and, when asked, its rated figures (as
+ * `describePlant` gives them). An invalid plant is refused as `validatePlant` refuses it (field issues), with
+ * no operating point.
  */
 export interface CheckedPlant {
   plant: Plant;
@@ -60,6 +64,9 @@ export interface CheckedPlant {
   load: LoadOverride | null;
   sharing: SharingResult | null;
   sharingError: string | null;
+  /** Rated figures and capability curves (`describePlant`) when asked for, or null (with `descriptionError` if describing failed). */
+  description: PlantDescription | null;
+  descriptionError: string | null;
 }
 
 /** A load the sets could not carry, and what was solved instead (`SolveSharingRequest.atMost`). */

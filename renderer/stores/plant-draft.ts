@@ -69,6 +69,24 @@ export function clonePlain<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T;
 }
 
+/** True when `a` and `b` hold the same JSON values (plain data only: objects, arrays, numbers, strings, booleans, null). */
+export function samePlain(a: unknown, b: unknown): boolean {
+  if (Object.is(a, b)) return true;
+  if (a === null || b === null || typeof a !== 'object' || typeof b !== 'object') return false;
+  if (Array.isArray(a)) {
+    if (!Array.isArray(b) || a.length !== b.length) return false;
+    for (let i = 0; i < a.length; i++) if (!samePlain(a[i], b[i])) return false;
+    return true;
+  }
+  if (Array.isArray(b)) return false;
+  const ka = Object.keys(a);
+  if (ka.length !== Object.keys(b).length) return false;
+  for (const k of ka) {
+    if (!Object.prototype.hasOwnProperty.call(b, k) || !samePlain((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k])) return false;
+  }
+  return true;
+}
+
 /** The first id `prefix + n` (n = 1, 2, …) not in `used`. */
 export function nextId(prefix: string, used: readonly string[]): string {
   for (let n = 1; ; n++) {

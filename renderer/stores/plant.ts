@@ -13,7 +13,7 @@ import type { CheckedPlant, FieldIssue, Plant, PlantDescription } from '../../sh
 import demoPlant from '../demo/water-works.plant.json';
 import { EngineCallError, engine, messageOf } from '../transport';
 import { latestOnly } from './latest-only';
-import { clonePlain, draftOf, getIn, setIn } from './plant-draft';
+import { clonePlain, draftOf, getIn, samePlain, setIn } from './plant-draft';
 import type { PlantDraft } from './plant-draft';
 
 /** How many steps undo keeps. */
@@ -69,6 +69,17 @@ export const usePlantStore = defineStore('plant', () => {
   /** True when the draft has problems (results come from the last valid plant). */
   const draftInvalid = computed(() => draftIssues.value.length > 0);
 
+  /**
+   * Takes rated figures that came with a check. Figures equal to the ones shown keep the shown
+   * object, so an edit that changes no rating (a droop, a setpoint) redraws nothing that depends
+   * on them (rated table, capability limits).
+   */
+  function takeDescription(checked: CheckedPlant): void {
+    if (checked.description) {
+      if (!samePlain(description.value, checked.description)) description.value = checked.description;
+    } else error.value = `rated figures: ${checked.descriptionError ?? 'not available'}`;
+  }
+
   async function describe(valid: Plant): Promise<void> {
     if (plant.value !== valid) return; // a newer plant is on its way
     try {
@@ -90,6 +101,7 @@ export const usePlantStore = defineStore('plant', () => {
         valid = checked.plant;
         solver.take(checked, pct);
       } else valid = await engine().call('validatePlant', { plant: candidate });
+      error.value = null;
       plant.value = valid;
       draft.value = draftOf(valid);
       checkedDraft.value = draft.value;
@@ -97,12 +109,12 @@ export const usePlantStore = defineStore('plant', () => {
       issues.value = [];
       issuesFrom.value = null;
       draftIssues.value = [];
-      error.value = null;
       past.value = [];
       future.value = [];
       lastEditKey = null;
       revision.value++;
       dirty.value = false;
+      // The rated figures follow (the first figures on screen need not wait for them).
       await describe(valid);
       return true;
     } catch (e) {
@@ -121,21 +133,28 @@ export const usePlantStore = defineStore('plant', () => {
   const describer = latestOnly(describe);
 
   // Validation of the draft: one request at a time, always for the newest draft. With the sharing
-  // store attached, the same request solves the plant (`checkPlant`): one round trip per edit.
+  // store attached, the same request solves and describes the plant (`checkPlant`): one round trip
+  // per edit, one redraw.
   const validator = latestOnly(async (candidate: PlantDraft) => {
     if (candidate !== draft.value) return; // an older draft: a newer one is queued or done
     try {
       let valid: Plant;
       if (solver) {
         const pct = solver.loadPct();
-        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        const checked = await engine().call(
+          'checkPlant',
+          pct === null ? { plant: candidate, describe: true } : { plant: candidate, loadPct: pct, describe: true },
+        );
         if (candidate !== draft.value) return;
         valid = checked.plant;
         checkedDraft.value = candidate;
         solver.take(checked, pct);
+        error.value = null;
+        takeDescription(checked);
       } else {
         valid = await engine().call('validatePlant', { plant: candidate });
         if (candidate !== draft.value) return;
+        error.value = null;
       }
       plant.value = valid;
       checkedDraft.value = candidate;
@@ -145,11 +164,10 @@ export const usePlantStore = defineStore('plant', () => {
         issues.value = [];
         issuesFrom.value = null;
       }
-      error.value = null;
       revision.value++;
       dirty.value = true;
-      // Rated figures follow on their own queue, so the next edit's check need not wait.
-      void describer.push(valid);
+      // Without the sharing store, rated figures follow on their own queue, so the next edit's check need not wait.
+      if (!solver) void describer.push(valid);
     } catch (e) {
       if (candidate !== draft.value) return;
       checkedDraft.value = candidate;

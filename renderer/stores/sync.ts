@@ -281,17 +281,15 @@ export const useSyncStore = defineStore('sync', () => {
     settings.value = { ...settings.value, incomingSetId: id };
   }
 
-  // Any change of the window or the plant invalidates the verdict and the map.
-  watch(
-    [settings, () => plantStore.plant],
-    () => {
-      map.value = null;
-      const t = typeof performance === 'undefined' ? Date.now() : performance.now();
-      rebase(displayAngleDeg(t), t);
-      void evaluate(t);
-    },
-    { deep: true },
-  );
+  // Any change of the window or the plant invalidates the verdict and the map. Both are replaced,
+  // never changed in place (the setters above and `restore` build new settings; every accepted plant
+  // is a new object), so the watch compares references and never walks the plant.
+  watch([settings, () => plantStore.plant], () => {
+    map.value = null;
+    const t = typeof performance === 'undefined' ? Date.now() : performance.now();
+    rebase(displayAngleDeg(t), t);
+    void evaluate(t);
+  });
 
   /**
    * Computes the closing map off the UI thread, with progress; a new request cancels the old. `method`

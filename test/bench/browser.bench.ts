@@ -9,6 +9,7 @@
  * line that says so, when Chromium is not installed.
  */
 import { existsSync, rmSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { build, preview } from 'vite';
 import { chromium } from 'playwright-core';
@@ -116,9 +117,14 @@ export async function run(): Promise<BenchResult[]> {
   });
   try {
     if (!url) throw new Error('The preview server did not report its URL.');
+    // The machine's 1-minute load average around each part: on a shared machine the tails follow it.
+    const load = () => loadavg()[0]!.toFixed(1);
+    const startLoad = load();
     const starts: StartTimes[] = [];
     for (let k = 0; k < STARTS; k++) starts.push(await startOnce(browser, url));
+    const editLoad = load();
     const edits = await editTimes(browser, url);
+    const endLoad = load();
     const first = starts.map((s) => s.firstFigure);
     const med = (xs: number[]) => quantile(xs, 0.5);
     return [
@@ -130,13 +136,14 @@ export async function run(): Promise<BenchResult[]> {
           p95: `${quantile(first, 0.95).toFixed(0)} ms`,
           'DOM ready (median)': `${med(starts.map((s) => s.domReady)).toFixed(0)} ms`,
           'app mounted (median)': `${med(starts.map((s) => s.mounted)).toFixed(0)} ms`,
+          'load average': `${startLoad}–${editLoad}`,
         },
       },
       {
         name: 'plant edit → sharing figures in the DOM (droop edit, demo plant)',
         medianMs: med(edits),
         runs: edits.length,
-        extra: { p95: `${quantile(edits, 0.95).toFixed(1)} ms`, max: `${Math.max(...edits).toFixed(1)} ms` },
+        extra: { p95: `${quantile(edits, 0.95).toFixed(1)} ms`, max: `${Math.max(...edits).toFixed(1)} ms`, 'load average': `${editLoad}–${endLoad}` },
       },
     ];
   } finally {

@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { dispatch } from '../../electron/handlers';
 import { loadAtPct } from '../../shared-types';
-import type { CheckedPlant, Plant, SharingResult } from '../../shared-types';
+import type { CheckedPlant, Plant, PlantDescription, SharingResult } from '../../shared-types';
 import { demoPlantJson } from '../helpers/plants';
 
 async function ok<T>(method: Parameters<typeof dispatch>[0], req: unknown): Promise<T> {
@@ -21,6 +21,19 @@ describe('checkPlant', () => {
     expect(checked.load).toBeNull();
     expect(checked.sharingError).toBeNull();
     expect(checked.sharing).toEqual(solved);
+  });
+
+  it('brings describePlant’s rated figures in the same answer when asked (an edit), and none otherwise', async () => {
+    const raw = demoPlantJson();
+    const valid = await ok<Plant>('validatePlant', { plant: raw });
+    const described = await ok<PlantDescription>('describePlant', { plant: valid });
+    const asked = await ok<CheckedPlant>('checkPlant', { plant: raw, describe: true });
+    expect(asked.description).toEqual(described);
+    expect(asked.descriptionError).toBeNull();
+    const plain = await ok<CheckedPlant>('checkPlant', { plant: raw });
+    expect(plain.description).toBeNull();
+    expect(plain.descriptionError).toBeNull();
+    expect(plain.sharing).toEqual(asked.sharing);
   });
 
   it('solves at the slider position as the sharing store would (solveSharing with atMost)', async () => {

@@ -30,4 +30,18 @@ describe('capability chart', () => {
       CAPABILITY_WORDS.point,
     );
   });
+
+  it('keeps the limit curves of one capability and theme from edit to edit, and redraws them for another theme', () => {
+    const plant = demoPlant();
+    const d = describePlant(plant).sets[0]!;
+    const r = solveSharing(plant).sets[0]!;
+    const a = capabilityChart(d.capability, r, theme).data.datasets as unknown as Ds[];
+    const b = capabilityChart(d.capability, { ...r, kW: r.kW + 50 }, theme).data.datasets as unknown as Ds[];
+    expect(b[0]).toBe(a[0]);
+    expect(b[1]).toBe(a[1]);
+    expect(b[2]!.data).toEqual([{ x: r.kW + 50, y: r.kVAR }]);
+    const other = capabilityChart(d.capability, r, { ...theme }).data.datasets as unknown as Ds[];
+    expect(other[0]).not.toBe(a[0]);
+    expect(other[0]!.data).toEqual(a[0]!.data);
+  });
 });

@@ -37,8 +37,8 @@ describe('edit → sharing table', () => {
     calls.length = 0;
     await plant.edit('sets[1].governor.noLoadHz', 51.4);
     await sharing.settled();
-    const tableCalls = calls.filter((m) => m !== 'describePlant');
-    expect(tableCalls).toEqual(['checkPlant']);
+    // The rated figures come in the same answer: no describePlant after it.
+    expect(calls).toEqual(['checkPlant']);
     expect(sharing.upToDate).toBe(true);
     expect(sharing.resultPlant).toBe(plant.plant);
     expect(plant.plant!.sets[1]!.governor.noLoadHz).toBe(51.4);
@@ -55,13 +55,33 @@ describe('edit → sharing table', () => {
     calls.length = 0;
     await plant.edit('sets[0].governor.droopPct', 5);
     await sharing.settled();
-    expect(calls.filter((m) => m !== 'describePlant')).toEqual(['checkPlant']);
+    expect(calls).toEqual(['checkPlant']);
     expect(sharing.resultLoadPct).toBe(80);
     expect(sharing.upToDate).toBe(true);
     // 80 % of the demo plant's 2040 kW on line (the slider's definition); the sets also cover the feeder losses.
     expect(sharing.resultLoad!.kW).toBeCloseTo(0.8 * 2040, 6);
     expect(sharing.result!.totals.kW).toBeGreaterThan(0.8 * 2040);
     expect(sharing.result!.totals.kW).toBeLessThan(0.8 * 2040 * 1.03);
+  });
+
+  it('keeps the rated figures’ object when an edit leaves them as they were, and replaces it when a rating changes', async () => {
+    const plant = usePlantStore();
+    const sharing = useSharingStore();
+    await plant.loadDemo();
+    await sharing.settled();
+    const shown = plant.description;
+    expect(shown).not.toBeNull();
+    // A droop changes the sharing, not a rating: the rated table and capability limits have nothing to redraw.
+    await plant.edit('sets[1].governor.droopPct', 5);
+    await sharing.settled();
+    expect(plant.plant!.sets[1]!.governor.droopPct).toBe(5);
+    expect(plant.description).toBe(shown);
+    // A rating does change them (the online kW is the sum of the online sets' ratings).
+    const before = shown!.onlineKW;
+    await plant.edit('sets[0].ratedKW', plant.plant!.sets[0]!.ratedKW + 100);
+    await sharing.settled();
+    expect(plant.description).not.toBe(shown);
+    expect(plant.description!.onlineKW).toBeCloseTo(before + 100, 9);
   });
 
   it('a slider move answered after a newer edit does not replace the edited plant’s result', async () => {

@@ -9,6 +9,7 @@ import {
   nextId,
   parsePath,
   removeItem,
+  samePlain,
   setIn,
 } from '../../renderer/stores/plant-draft';
 import { plantSchema } from '../../electron/handlers';
@@ -89,5 +90,21 @@ describe('changeRatedFrequency', () => {
     // 51.2 Hz no-load at 50 Hz is 2.4 % above rated; at 60 Hz that is 61.44 Hz (closed form).
     expectClose(d.sets[0]?.governor.noLoadHz ?? NaN, 61.44, { abs: 1e-9 }, 'noLoadHz');
     expectClose(d.sets[0]?.governor.setpointHz ?? NaN, 60, { abs: 1e-9 }, 'setpointHz');
+  });
+});
+
+describe('samePlain', () => {
+  it('compares JSON values by content, whatever the key order', () => {
+    const d = draftOf(demoPlant());
+    expect(samePlain(d, JSON.parse(JSON.stringify(d)))).toBe(true);
+    expect(samePlain({ a: 1, b: [1, 2] }, { b: [1, 2], a: 1 })).toBe(true);
+    expect(samePlain(setIn(d, 'sets[1].governor.droopPct', 5), d)).toBe(false);
+    expect(samePlain({ a: 1 }, { a: 1, b: 2 })).toBe(false);
+    expect(samePlain({ a: 1, b: undefined }, { a: 1, c: undefined })).toBe(false);
+    expect(samePlain([1, 2], { 0: 1, 1: 2 })).toBe(false);
+    expect(samePlain([1, 2], [1, 2, 3])).toBe(false);
+    expect(samePlain(null, {})).toBe(false);
+    expect(samePlain(0, -0)).toBe(false);
+    expect(samePlain(Number.NaN, Number.NaN)).toBe(true);
   });
 });

@@ -33,11 +33,17 @@ export function capabilityKVARRange(c: SetCapability): [number, number] {
   return [-r, r];
 }
 
-/** Chart.js configuration of `c` with the set's operating point (null when offline or unsolved). */
-export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 'kVAR' | 'online'> | null, theme: ChartTheme): ChartConfiguration {
-  const [yLo, yHi] = capabilityKVARRange(c);
-  const xLo = Math.min(c.minChartKW, point && point.online ? point.kW * 1.1 : 0);
-  const xHi = Math.max(c.maxChartKW, point && point.online ? point.kW * 1.05 : 0);
+/**
+ * The two limit curves of `c` (stator circle, field heating) as datasets, kept per capability
+ * object and theme: an edit that moves only the operating point (the rated figures unchanged,
+ * so the same `SetCapability` object) reuses them, and Chart.js finds the same data arrays.
+ */
+const curveCache = new WeakMap<SetCapability, { theme: ChartTheme; curves: [Scatter, Scatter] }>();
+
+function limitCurves(c: SetCapability, theme: ChartTheme): [Scatter, Scatter] {
+  const kept = curveCache.get(c);
+  if (kept && kept.theme === theme) return kept.curves;
+  const yHi = capabilityKVARRange(c)[1];
   const stator: Scatter = {
     label: CAPABILITY_WORDS.stator,
     data: c.stator.map((p) => ({ x: p.kW, y: p.kVAR })),
@@ -59,7 +65,17 @@ export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 
     pointRadius: 0,
     pointStyle: 'line',
   };
-  const datasets: Scatter[] = [stator, field];
+  const curves: [Scatter, Scatter] = [stator, field];
+  curveCache.set(c, { theme, curves });
+  return curves;
+}
+
+/** Chart.js configuration of `c` with the set's operating point (null when offline or unsolved). */
+export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 'kVAR' | 'online'> | null, theme: ChartTheme): ChartConfiguration {
+  const [yLo, yHi] = capabilityKVARRange(c);
+  const xLo = Math.min(c.minChartKW, point && point.online ? point.kW * 1.1 : 0);
+  const xHi = Math.max(c.maxChartKW, point && point.online ? point.kW * 1.05 : 0);
+  const datasets: Scatter[] = [...limitCurves(c, theme)];
   if (point && point.online) {
     datasets.push({
       label: CAPABILITY_WORDS.point,
