@@ -8,13 +8,13 @@ import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, 
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from '../schemas/plant-schema';
-import { num, text } from '../schemas/schema-kit';
+import { nonNegative, num, numOrNull, text, whole } from '../schemas/schema-kit';
 
 /** Largest record text accepted, characters (about 50 MB, the CLI's file limit). */
 const MAX_TEXT = 50_000_000;
 const recordText = () => text().max(MAX_TEXT, `must be at most ${MAX_TEXT.toLocaleString('en')} characters`);
 const column = () =>
-  z.union([text().min(1, 'must not be empty'), z.number().int('must be a whole number').gte(1, 'must be 1 or more')], {
+  z.union([text().min(1, 'must not be empty'), whole().gte(1, 'must be 1 or more')], {
     error: 'must be a column name or a column number (1, 2, …)',
   });
 
@@ -125,37 +125,35 @@ export const fitRequestSchema: z.ZodType<FitRequest> = z
 
 const syncLimits = z
   .object({
-    slipHz: num('Hz').gte(0, 'must be 0 or more'),
-    angleDeg: num('°').gte(0, 'must be 0 or more'),
-    voltagePct: num('%').gte(0, 'must be 0 or more'),
+    slipHz: nonNegative('Hz'),
+    angleDeg: nonNegative('°'),
+    voltagePct: nonNegative('%'),
     incomingFaster: z.boolean().optional(),
     incomingHigher: z.boolean().optional(),
   })
   .strip();
 
-const finite = () => num();
-const nullableNumber = () => z.union([finite(), z.null()], { error: 'must be a number or null' });
 const classRow = z
   .object({
     quantity: text(),
     unit: text(),
-    measured: nullableNumber(),
-    limits: z.object({ G1: finite(), G2: finite(), G3: finite() }),
+    measured: numOrNull(),
+    limits: z.object({ G1: num(), G2: num(), G3: num() }),
     pass: z.object({ G1: z.boolean().nullable(), G2: z.boolean().nullable(), G3: z.boolean().nullable() }),
   })
   .loose();
 const verdictSchema = z
   .object({
-    initialFrequencyHz: finite(),
-    initialVoltageV: finite(),
-    frequencyNadirHz: finite(),
-    frequencyPeakHz: finite(),
-    voltageMinV: finite(),
-    voltageMaxV: finite(),
-    settledFrequencyHz: finite(),
-    settledVoltageV: finite(),
-    frequencyRecoveryS: nullableNumber(),
-    voltageRecoveryS: nullableNumber(),
+    initialFrequencyHz: num(),
+    initialVoltageV: num(),
+    frequencyNadirHz: num(),
+    frequencyPeakHz: num(),
+    voltageMinV: num(),
+    voltageMaxV: num(),
+    settledFrequencyHz: num(),
+    settledVoltageV: num(),
+    frequencyRecoveryS: numOrNull(),
+    voltageRecoveryS: numOrNull(),
     classes: z.array(classRow).max(20, 'must have at most 20 rows'),
   })
   .loose();
@@ -165,12 +163,10 @@ const fitResultSchema = z
     setId: text(),
     parameters: z
       .array(
-        z
-          .object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: finite(), value: finite(), confidence: text() })
-          .loose(),
+        z.object({ key: z.enum(KEYS, { error: `must be one of ${KEYS.join(', ')}` }), unit: text(), start: num(), value: num(), confidence: text() }).loose(),
       )
       .max(KEYS.length, `at most ${KEYS.length} parameters`),
-    residual: z.object({ frequencyPct: finite(), voltagePct: finite(), totalPct: finite() }).loose(),
+    residual: z.object({ frequencyPct: num(), voltagePct: num(), totalPct: num() }).loose(),
     measuredVerdict: verdictSchema,
     modelVerdict: verdictSchema,
   })
@@ -183,7 +179,7 @@ export const commissioningRecordSchema: z.ZodType<CommissioningRecordRequest> = 
     fit: fitResultSchema.optional(),
     test: testSchema.optional(),
     syncCheck: z
-      .object({ limits: syncLimits, breakerClosingMs: num('ms').gte(0, 'must be 0 or more') })
+      .object({ limits: syncLimits, breakerClosingMs: nonNegative('ms') })
       .strict()
       .optional(),
     signOff: z
