@@ -16,6 +16,11 @@ export const CAUTION_AFTER_LABEL = CAUTION.charAt(0).toLowerCase() + CAUTION.sli
 /** A `#` comment line carrying the caution, placed first in CSV files (common CSV readers skip it with a comment option). */
 export const CSV_CAUTION_LINE = `# Caution: ${CAUTION_AFTER_LABEL}`;
 
+/** Escapes the five HTML-special characters so user text (names, ids) cannot become markup (the report, the commissioning record). */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
 /** `value` with `decimals` decimals; "—" for null, NaN or infinite (never "NaN"); "-0.0" prints as "0.0". */
 export function formatNumber(value: number | null | undefined, decimals = 0): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';

@@ -5,9 +5,8 @@
  * (for the screen), CSV (caution line first, `#`) and self-contained HTML (no scripts).
  */
 import type { ClassCheck, CommissioningRecord, CommissioningRecordRequest, CommissioningRow, PerformanceClass, RecordVerdict } from '../../../shared-types';
-import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, advanceAngleDeg, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
+import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, advanceAngleDeg, escapeHtml, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
 import { InvalidInput } from '../errors';
-import { escapeHtml } from '../report/format';
 import { fieldCeiling } from '../simulation/excitation';
 
 const f = formatNumber;

@@ -1,9 +1,9 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL, PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
-import { flagWords, isoClassName } from '../../../shared-types/presentation';
-import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
-import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../sync/slip-timing';
-import type { ReportData, SyncPart } from './report-data';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL, PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../shared-types';
+import { flagWords, isoClassName } from '../../shared-types/presentation';
+import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../shared-types';
+import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../engine';
+import type { ReportData, SyncPart } from '../engine/report';
 
 /** True when the sync section was built (it may still carry a problem of its own). */
 export function isSyncPart(s: ReportData['sync']): s is SyncPart {

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
-import { formatNumber, heatMapSvg, lineChartSvg, niceTicks, reactiveDroopLine, speedDroopLine } from '../../../electron/engine/report';
-import { demoPlant } from '../../helpers/plants';
-import { expectClose } from '../../helpers/expect-close';
+import { formatNumber, heatMapSvg, lineChartSvg, niceTicks, reactiveDroopLine, speedDroopLine } from '../../electron/report';
+import { demoPlant } from '../helpers/plants';
+import { expectClose } from '../helpers/expect-close';
 
 describe('niceTicks', () => {
   it('covers the range with 1-2-2.5-5 steps', () => {

@@ -3,13 +3,13 @@
  * operating points of the sharing table, the closing map (surge and first-cycle peak torque), and each
  * scenario's frequency and voltage. The droop laws themselves live in shared-types/laws.ts.
  */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
-import type { GenSet, Plant, ReportChart, SimulationResult } from '../../../shared-types';
-import { kVARBase, reactiveDroopV, speedDroopHz } from '../../../shared-types';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../shared-types';
+import type { GenSet, Plant, ReportChart, SimulationResult } from '../../shared-types';
+import { kVARBase, reactiveDroopV, speedDroopHz } from '../../shared-types';
 import { heatMapSvg } from './svg-heat-map';
 import { lineChartSvg } from './svg-line-chart';
 import type { ChartSeries } from './svg-line-chart';
-import type { ReportData } from './report-data';
+import type { ReportData } from '../engine/report';
 import { isSyncPart } from './report-tables';
 
 /**
