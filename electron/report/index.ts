@@ -3,7 +3,7 @@
  * report handler assembles with the engine (`electron/engine/report/`). Pure string building; no engine calls.
  */
 export { renderReport } from './build-report';
-export { speedDroopLine, reactiveDroopLine } from './report-charts';
+export { characteristicSeries } from './report-charts';
 export { lineChartSvg } from './svg-line-chart';
 export { heatMapSvg } from './svg-heat-map';
 export { niceTicks } from './svg-axes';

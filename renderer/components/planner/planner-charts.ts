@@ -3,9 +3,7 @@
  * bus across the load range against the band, and a histogram of one tolerance figure. Pure.
  */
 import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
-import type { Band, Distribution, PlanCheck, Plant } from '../../../shared-types';
-import { kVARBase } from '../../../shared-types';
-import { reactiveDroopLine, speedDroopLine } from '../charts/droop-lines';
+import type { Band, Distribution, PlanCheck, Plant, PlanResult } from '../../../shared-types';
 import type { XY } from '../charts/droop-lines';
 import { hLine } from '../charts/annotations';
 import { seriesStyle, withAlpha } from '../charts/series-style';
@@ -23,20 +21,19 @@ function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
 
 const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
 
-/** Droop lines of the online sets, now (thin, faded) and proposed (heavy). */
-export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed: Plant, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
+/** Droop lines of the online sets, now (thin, faded) and proposed (heavy): the plan's characteristics of each set. */
+export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, plan: PlanResult, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
   const datasets: ChartDataset<'scatter', XY[]>[] = [];
   now.sets.forEach((s, i) => {
     if (!s.online) return;
     const st = seriesStyle(i, theme);
-    for (const [plant, when] of [
-      [now, 'now'],
-      [proposed, 'proposed'],
+    for (const [lines, when] of [
+      [plan.characteristics.current, 'now'],
+      [plan.characteristics.proposal, 'proposed'],
     ] as const) {
-      const set = plant.sets[i]!;
-      const qTop = kVARBase(set.ratedKVA, set.ratedPF);
-      const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
-      if (c.kind !== 'segment') continue;
+      const set = lines[i];
+      const c = set && (kind === 'speed' ? set.speed : set.voltage);
+      if (!c || c.kind !== 'segment') continue;
       datasets.push({
         label: `${s.id} ${when}`,
         data: c.points,
