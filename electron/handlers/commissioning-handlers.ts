@@ -3,7 +3,7 @@
  * rounds, with progress and cancel), and the commissioning record of a set.
  */
 import { z } from 'zod';
-import { FIT_PARAMETERS } from '../../shared-types';
+import { FIT_PARAMETERS, formatNumber } from '../../shared-types';
 import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
@@ -119,7 +119,7 @@ export const fitRequestSchema: z.ZodType<FitRequest> = z
       ctx.addIssue({
         code: 'custom',
         path: ['record', 'tS'],
-        message: `the record (${span.toFixed(1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs`,
+        message: `the record (${formatNumber(span, 1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs`,
       });
   }) as unknown as z.ZodType<FitRequest>;
 

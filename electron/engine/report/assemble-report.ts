@@ -9,6 +9,7 @@ import type { BuildReportRequest, CappedLoad, Plant, ProjectScenario, ProjectSyn
 import { describePlant } from '../describe-plant';
 import { EngineError, InvalidInput } from '../errors';
 import type { ReportData, SharingPoint, SyncPart, TransientPart } from './report-data';
+import { formatNumber } from '../../../shared-types';
 
 /** Sharing-table loads when the request names none, % of the online sets' rated kW. */
 export const DEFAULT_LOADS_PCT: readonly number[] = [25, 50, 75, 100];
@@ -86,7 +87,7 @@ export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: st
   };
 }
 
-const formatPct = (v: number) => (Math.abs(v - Math.round(v)) < 0.05 ? String(Math.round(v)) : v.toFixed(1));
+const formatPct = (v: number) => (Math.abs(v - Math.round(v)) < 0.05 ? String(Math.round(v)) : formatNumber(v, 1));
 
 /** A load point the sharing table solves: the plant's own loads, or a constant-power override. */
 export interface WantedLoad {

@@ -14,8 +14,9 @@ import { breakerActualMs, governorDroopPU } from './live-model';
 import { judgePass } from './pass';
 import { wrapAngleDeg } from '../sync/phasor';
 import { advanceAngleDeg } from '../sync/slip-timing';
+import { formatNumber } from '../../../shared-types';
 
-const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
+const f = (v: number, d: number): string => formatNumber(v, d);
 const signed = (v: number, d: number): string => (v > 0 ? '+' : '') + f(v, d);
 
 /** A copy of `state` closed at the corner of the machine standard's window (+10°, +5 %, +0.067 Hz), running light. */

@@ -5,6 +5,7 @@
  */
 import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, TooltipItem } from 'chart.js';
 import type { LoadSweep, Plant, PlantDescription, SharingResult } from '../../../shared-types';
+import { formatNumber } from '../../../shared-types';
 import { hLine } from './annotations';
 import { characteristicPoints, characteristicsOf, niceRange, paddedRange } from './droop-lines';
 import type { Characteristic, XY } from './droop-lines';
@@ -14,7 +15,7 @@ import type { ChartTheme } from './theme';
 
 type Scatter = ChartDataset<'scatter', XY[]>;
 
-const fix = (v: number, d: number) => (Number.isFinite(v) ? v.toFixed(d) : '—');
+const fix = formatNumber;
 
 function axis(theme: ChartTheme, title: string, extra: ScaleOptions<'linear'> | object = {}): ScaleOptions<'linear'> {
   return {

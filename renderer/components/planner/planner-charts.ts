@@ -8,6 +8,7 @@ import type { XY } from '../charts/droop-lines';
 import { hLine } from '../charts/annotations';
 import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
+import { formatNumber } from '../../../shared-types';
 
 function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
   return {
@@ -113,8 +114,8 @@ export function busAcrossChart(
         legend: legend(theme),
         annotation: {
           annotations: {
-            lo: edge(band.min, `band min ${band.min.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
-            hi: edge(band.max, `band max ${band.max.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
+            lo: edge(band.min, `band min ${formatNumber(band.min, quantity === 'frequency' ? 2 : 1)} ${unit}`),
+            hi: edge(band.max, `band max ${formatNumber(band.max, quantity === 'frequency' ? 2 : 1)} ${unit}`),
           },
         },
       },
@@ -124,7 +125,7 @@ export function busAcrossChart(
 
 /** A histogram of one tolerance figure, with its 5th and 95th percentiles marked. */
 export function histogramChart(d: Distribution, title: string, digits: number, theme: ChartTheme): ChartConfiguration<'bar', number[], string> {
-  const labels = d.counts.map((_, k) => ((d.edges[k]! + d.edges[k + 1]!) / 2).toFixed(digits));
+  const labels = d.counts.map((_, k) => formatNumber((d.edges[k]! + d.edges[k + 1]!) / 2, digits));
   return {
     type: 'bar',
     data: {
