@@ -52,6 +52,24 @@ export default tseslint.config(
     },
   },
   {
+    // The report's rendering: pure string building over the engine's data (the handler assembles, this writes).
+    files: ['electron/report/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['electron', 'vue', 'pinia', 'zod', ...nodeBuiltins, '**/renderer/**', '**/handlers/**', '**/schemas/**'],
+              message: 'The report renderer is pure TypeScript over engine data: no Electron, Node, DOM, schema or handler imports.',
+            },
+          ],
+        },
+      ],
+      'no-restricted-globals': ['error', 'window', 'document', 'process', 'require', 'localStorage', 'navigator'],
+    },
+  },
+  {
     files: ['renderer/**/*.ts', 'renderer/**/*.vue'],
     // The engine worker and the pool it starts run the handlers themselves (off the UI thread).
     ignores: ['renderer/transport/engine.worker.ts', 'renderer/transport/pool.worker.ts', 'renderer/transport/web-pool.ts'],

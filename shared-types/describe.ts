@@ -22,6 +22,56 @@ export interface SetDescription {
   fieldCeilingWarning: string | null;
   /** The set's capability chart (limit curves in kW and kVAR). */
   capability: SetCapability;
+  /** The set's speed and voltage characteristics as its droop charts draw them. */
+  characteristics: SetCharacteristics;
+}
+
+/** A point of a droop characteristic: x in kW (speed) or kVAR (voltage), y in Hz or V. */
+export interface CharacteristicPoint {
+  x: number;
+  y: number;
+}
+
+/** A straight characteristic between the set's limits (a droop line, or flat at an isochronous or voltage setpoint). */
+export interface CharacteristicSegment {
+  kind: 'segment';
+  points: [CharacteristicPoint, CharacteristicPoint];
+}
+
+/** A characteristic that holds x whatever y is (a base-load set's kW): a vertical line spanning the chart. */
+export interface CharacteristicVertical {
+  kind: 'vertical';
+  x: number;
+}
+
+/**
+ * A power-factor regulator's characteristic: it holds `kVAR = kVARPerKW · kW` (tan φ of its setpoint) whatever the
+ * voltage, i.e. a vertical line at its operating kW times `kVARPerKW`.
+ */
+export interface CharacteristicPowerFactor {
+  kind: 'power-factor';
+  pf: number;
+  kVARPerKW: number;
+}
+
+/** The speed characteristic: frequency (Hz) against output (kW). */
+export type SpeedCharacteristic = CharacteristicSegment | CharacteristicVertical;
+/** The voltage characteristic: terminal voltage (V) against reactive output (kVAR, + lagging). */
+export type VoltageCharacteristic = CharacteristicSegment | CharacteristicPowerFactor;
+
+/**
+ * A set's characteristics, computed by the engine (`electron/engine/characteristics.ts`) so that every chart — the
+ * Sharing and Planner views' and the report's — draws the same lines without computing a law:
+ * - speed: droop `f = f_nl − (R/100) f_r P / P_r` from zero fuel (−motoring power) to the overload (fuel) limit;
+ *   isochronous flat at `setpointHz` from the lower of 0 and `minKW` to the overload limit; base load vertical at
+ *   `baseKW`;
+ * - voltage: reactive droop `V = V_nl − (R_Q/100) V_r Q / Qbase` from the leading (under-excitation) limit to the
+ *   field-heating limit at zero kW; cross-current and voltage control flat at `setpointV` over the same span;
+ *   power-factor control `Q = P tan φ`.
+ */
+export interface SetCharacteristics {
+  speed: SpeedCharacteristic;
+  voltage: VoltageCharacteristic;
 }
 
 /** A point of a capability curve, kW and kVAR (generator convention, kVAR > 0 lagging). */

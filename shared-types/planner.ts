@@ -2,6 +2,7 @@
  * Droop planner, sensitivity matrix and setpoint-tolerance analysis: requests and results
  * (`planDroop`, `sharingSensitivity`, `toleranceAnalysis`).
  */
+import type { SetCharacteristics } from './describe';
 import type { Plant } from './plant';
 import type { LoadOverride } from './sharing';
 
@@ -119,6 +120,8 @@ export interface PlanResult {
   notes: string[];
   /** Set ids in the order of `setKW` / `setKVAR` of the points. */
   setIds: string[];
+  /** Each set's characteristics (in `setIds` order), now and as proposed, for the droop-line charts. */
+  characteristics: { current: SetCharacteristics[]; proposal: SetCharacteristics[] };
 }
 
 /** Request of `sharingSensitivity`. */

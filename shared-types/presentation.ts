@@ -1,6 +1,7 @@
 /**
  * Words and numbers, one home for the renderer, the CLI and the report: the caution sentence,
- * number formats, the flag vocabulary, field names in words and the ISO 8528-5 class names.
+ * number formats (one formatter per kind of figure), the chart palette, the flag vocabulary, field names in words
+ * and the ISO 8528-5 class names.
  * Pure constants and tiny pure functions only (no DOM, no Node, no clock).
  */
 import type { SetFlag } from './sharing';
@@ -16,6 +17,11 @@ export const CAUTION_AFTER_LABEL = CAUTION.charAt(0).toLowerCase() + CAUTION.sli
 /** A `#` comment line carrying the caution, placed first in CSV files (common CSV readers skip it with a comment option). */
 export const CSV_CAUTION_LINE = `# Caution: ${CAUTION_AFTER_LABEL}`;
 
+/** Escapes the five HTML-special characters so user text (names, ids) cannot become markup (the report, the commissioning record). */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
 /** `value` with `decimals` decimals; "—" for null, NaN or infinite (never "NaN"); "-0.0" prints as "0.0". */
 export function formatNumber(value: number | null | undefined, decimals = 0): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
@@ -24,11 +30,51 @@ export function formatNumber(value: number | null | undefined, decimals = 0): st
   return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
 }
 
-/** A signed figure ("+1.2", "−0.4", "0.0") for errors and deviations (true minus sign). */
-export function formatSigned(value: number | null | undefined, decimals = 1): string {
+/**
+ * A signed figure ("+1.2", "−0.4", "0.0") for errors and deviations: true minus sign by default; `{ ascii: true }`
+ * writes "-0.4" where a readout has always shown the keyboard minus. Zero (and what rounds to it) has no sign.
+ */
+export function formatSigned(value: number | null | undefined, decimals = 1, { ascii = false }: { ascii?: boolean } = {}): string {
   const s = formatNumber(value, decimals);
   if (s === '—' || Number(s) === 0) return s;
-  return s.startsWith('-') ? `−${s.slice(1)}` : `+${s}`;
+  return s.startsWith('-') ? `${ascii ? '-' : '−'}${s.slice(1)}` : `+${s}`;
+}
+
+/** A figure with its unit after a space ("12.5 %", "50.000 Hz", "80 ms", "1.05 pu"); a blank is "—" without the unit. */
+function withUnit(value: number | null | undefined, decimals: number, unit: string): string {
+  const s = formatNumber(value, decimals);
+  return s === '—' ? s : `${s} ${unit}`;
+}
+
+/** A percentage: "12.5 %". */
+export function formatPercent(value: number | null | undefined, decimals = 1): string {
+  return withUnit(value, decimals, '%');
+}
+
+/** A frequency: "50.000 Hz" (three decimals by default: slip and bus frequency are read to the mHz). */
+export function formatHz(value: number | null | undefined, decimals = 3): string {
+  return withUnit(value, decimals, 'Hz');
+}
+
+/** An angle in degrees, the sign kept: "12.3°", "-7.2°" (no space before the degree sign). */
+export function formatAngleDeg(value: number | null | undefined, decimals = 1): string {
+  const s = formatNumber(value, decimals);
+  return s === '—' ? s : `${s}°`;
+}
+
+/** A time in milliseconds: "80 ms". */
+export function formatMs(value: number | null | undefined, decimals = 0): string {
+  return withUnit(value, decimals, 'ms');
+}
+
+/** A time in seconds: "1.25 s". */
+export function formatSeconds(value: number | null | undefined, decimals = 2): string {
+  return withUnit(value, decimals, 's');
+}
+
+/** A per-unit figure: "1.05 pu". */
+export function formatPU(value: number | null | undefined, decimals = 2): string {
+  return withUnit(value, decimals, 'pu');
 }
 
 /** A power factor with its sense: "0.85 lag", "0.97 lead", "1.00". */
@@ -42,6 +88,28 @@ export function formatPF(pf: number | null | undefined, lagging: boolean): strin
 export function formatCurrentA(value: number | null | undefined): string {
   return formatNumber(value, 0);
 }
+
+/**
+ * The chart palette, one home for the report's SVG charts and the app's charts (`renderer/components/charts/theme.ts`
+ * falls back to these where the CSS variables of `renderer/styles/base.css` cannot be read; the light theme's
+ * variables hold the same values). Print-safe: text colours keep 4.5:1 on white.
+ */
+export const CHART_PALETTE = {
+  fg: '#1d2329',
+  muted: '#5b6670',
+  grid: '#d4d9de',
+  panel: '#ffffff',
+  accent: '#1f6f8b',
+  good: '#1b7a43',
+  warn: '#8a5a00',
+  bad: '#b02a2a',
+  /** The plot frame and the faint grid lines of the printed charts. */
+  frame: '#9aa6b0',
+  gridLine: '#e3e7ea',
+  gridMinor: '#eef1f3',
+  /** The sets' colours, in plant order (wrapping around). */
+  series: ['#1f6f8b', '#a85a12', '#6b4c9a', '#2e7d32', '#8d2f4f'],
+} as const;
 
 /** How a per-set flag reads: short words for tables, a sentence for tooltips, and its weight. */
 export interface FlagWords {

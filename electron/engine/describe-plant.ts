@@ -1,6 +1,7 @@
 import type { Plant, PlantDescription, SetDescription } from '../../shared-types';
 import { kVARBase, ratedCurrentA, ratedSpeedRpm } from '../../shared-types';
 import { setCapability } from './capability';
+import { setCharacteristics } from './characteristics';
 import { settingWarnings } from './setting-checks';
 import { fieldCeiling } from './simulation/excitation';
 
@@ -18,6 +19,7 @@ export function describePlant(plant: Plant): PlantDescription {
       ratedKVA: s.ratedKVA,
       kVARBase: kVARBase(s.ratedKVA, s.ratedPF),
       capability: setCapability(s),
+      characteristics: setCharacteristics(s, plant),
       ratedFieldPU: fc.ratedFieldPU,
       fieldCeilingPU: fc.ceilingPU,
       fieldCeilingDerived: fc.derived,

@@ -5,6 +5,7 @@ export type { SharingFigures } from './sharing';
 export type { ImpliedPowerFactor } from './sharing';
 export { settingWarnings, SETPOINT_BAND_PCT, DROOP_USUAL_MIN_PCT, DROOP_USUAL_MAX_PCT } from './setting-checks';
 export { setCapability, fieldLimitKVAR, leadingLimitKVAR, ratedFieldEmfPU } from './capability';
+export { setCharacteristics, speedDroopLine, reactiveDroopLine, reactiveSpanKVAR } from './characteristics';
 export { overloadLimitKW, motoringKW, reverseTripKW, lowerLimitKW } from './sharing/set-limits';
 export * from './planner';
 export * from './sync';

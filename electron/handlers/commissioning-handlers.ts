@@ -3,12 +3,13 @@
  * rounds, with progress and cancel), and the commissioning record of a set.
  */
 import { z } from 'zod';
+import { formatNumber } from '../../shared-types';
 import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
 import { plantSchema } from '../schemas/plant-schema';
 import { FIT_KEYS, fitResultPrintedSchema, recordColumnFields, recordText, recordUnitFields, testDescriptionFields } from '../schemas/commissioning-schema';
-import { num, text } from '../schemas/schema-kit';
+import { nonNegative, num, text } from '../schemas/schema-kit';
 
 const columnsSchema = z.object(recordColumnFields).strict();
 const unitsSchema = z.object(recordUnitFields).strict();
@@ -88,15 +89,15 @@ export const fitRequestSchema: z.ZodType<FitRequest> = z
       ctx.addIssue({
         code: 'custom',
         path: ['record', 'tS'],
-        message: `the record (${span.toFixed(1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs`,
+        message: `the record (${formatNumber(span, 1)} s at ${r.stepMs ?? 2} ms with ${sets} sets) is beyond the 2 000 000 set-steps one fit simulation may take; shorten the record or use a longer stepMs`,
       });
   }) as unknown as z.ZodType<FitRequest>;
 
 const syncLimits = z
   .object({
-    slipHz: num('Hz').gte(0, 'must be 0 or more'),
-    angleDeg: num('°').gte(0, 'must be 0 or more'),
-    voltagePct: num('%').gte(0, 'must be 0 or more'),
+    slipHz: nonNegative('Hz'),
+    angleDeg: nonNegative('°'),
+    voltagePct: nonNegative('%'),
     incomingFaster: z.boolean().optional(),
     incomingHigher: z.boolean().optional(),
   })
@@ -112,7 +113,7 @@ export const commissioningRecordSchema: z.ZodType<CommissioningRecordRequest> = 
     fit: fitResultSchema.optional(),
     test: testSchema.optional(),
     syncCheck: z
-      .object({ limits: syncLimits, breakerClosingMs: num('ms').gte(0, 'must be 0 or more') })
+      .object({ limits: syncLimits, breakerClosingMs: nonNegative('ms') })
       .strict()
       .optional(),
     signOff: z

@@ -5,10 +5,10 @@
  */
 import { z } from 'zod';
 import { SCENARIO_FORMAT, SCENARIO_VERSION } from '../../shared-types';
-import type { Scenario, SimulationResult } from '../../shared-types';
-import { Cancelled, createSimulation, MAX_STEP_MS, MIN_CHUNK_STEPS } from '../engine';
-import { breathe } from './handler';
-import type { HandlerContext, HandlerGroup } from './handler';
+import type { Scenario } from '../../shared-types';
+import { MAX_STEP_MS } from '../engine';
+import type { HandlerGroup } from './handler';
+import { runScenario } from './long-jobs';
 import { plantSchema } from '../schemas/plant-schema';
 
 import { id, num, positive, text } from '../schemas/schema-kit';
@@ -83,21 +83,6 @@ export const scenarioSchema: z.ZodType<Scenario> = z
     });
     checkEvents(s.events, s.durationS, plant, (path, message) => ctx.addIssue({ code: 'custom', path, message }));
   }) as unknown as z.ZodType<Scenario>;
-
-/** Runs the scenario in chunks, reporting progress and stopping when cancelled. */
-async function runScenario(scenario: Scenario, ctx: HandlerContext): Promise<SimulationResult> {
-  const sim = createSimulation(scenario);
-  const total = Math.round(scenario.durationS / sim.stepS);
-  const chunk = Math.max(MIN_CHUNK_STEPS, Math.ceil(total / 50));
-  while (sim.stepCount < total) {
-    if (ctx.signal.aborted) throw new Cancelled('The simulation was cancelled.');
-    sim.steps(Math.min(chunk, total - sim.stepCount));
-    ctx.progress(sim.stepCount / total, 'simulating');
-    await breathe();
-  }
-  if (ctx.signal.aborted) throw new Cancelled('The simulation was cancelled.');
-  return sim.result();
-}
 
 export const simulationHandlers: HandlerGroup<'simulate'> = {
   simulate: {

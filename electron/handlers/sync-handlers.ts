@@ -6,10 +6,9 @@
 import { z } from 'zod';
 import { CLOSING_MAP_ANGLE_AXES, CLOSING_MAP_METHODS, SYNC_FORMAT } from '../../shared-types';
 import type { ClosingMapRequest, SyncCase } from '../../shared-types';
-import { closingMapJobFor, evaluateSync, incomingFromSet, listSyncPresets, plantBus, putRows, TIME_DOMAIN_MAX_CELLS } from '../engine';
-import type { ClosingMapRows } from '../engine';
-import type { HandlerContext, HandlerGroup } from './handler';
-import { runChunks } from './pool';
+import { evaluateSync, incomingFromSet, listSyncPresets, plantBus, TIME_DOMAIN_MAX_CELLS } from '../engine';
+import { runClosingMap } from './long-jobs';
+import type { HandlerGroup } from './handler';
 import { plantSchema } from '../schemas/plant-schema';
 
 import { breakerClosingMs, deadFields, id, nonNegative, num, oneOf, positive, syncLimitsSchema as limitsSchema, text } from '../schemas/schema-kit';
@@ -168,45 +167,11 @@ export const closingMapRequestSchema: z.ZodType<ClosingMapRequest> = z
       });
   }) as unknown as z.ZodType<ClosingMapRequest>;
 
-/** Cells computed between progress reports and cancel checks (closed form). */
-const CELLS_PER_CHUNK = 4096;
-/** Time-domain cells per chunk: a few rows of the default grid (each cell is a short simulation). */
-const TIME_DOMAIN_CELLS_PER_CHUNK = 800;
-
-let mapSerial = 0;
-
-/**
- * The closing map in chunks of slip rows with progress and cancel. A time-domain map's rows go to the host's
- * worker pool when it has one (each worker sets the map up once and keeps it for the map's later chunks); the
- * closed form, a few milliseconds in all, always runs here.
- */
-export async function runClosingMap(req: ClosingMapRequest, ctx: HandlerContext, cellsPerChunk?: number) {
-  const job = closingMapJobFor(req);
-  const timeDomain = req.method === 'time-domain';
-  const perChunk = cellsPerChunk ?? (timeDomain ? TIME_DOMAIN_CELLS_PER_CHUNK : CELLS_PER_CHUNK);
-  const key = `map-${++mapSerial}-${Date.now()}`;
-  await runChunks<ClosingMapRows | null>(
-    {
-      total: job.rows,
-      chunk: Math.max(1, Math.floor(perChunk / req.angleSteps)),
-      label: 'closing map',
-      cancelled: 'The closing map was cancelled.',
-      run: (from, to, pool, signal) => {
-        if (timeDomain && pool) return pool.run('closingMapRows', [key, req, from, to], signal);
-        job.fillRows(from, to);
-        return null;
-      },
-      take: (rows) => {
-        if (rows) putRows(job, rows);
-      },
-    },
-    timeDomain ? ctx : { ...ctx, pool: undefined },
-  );
-  return job.finish();
-}
+// The closing map's chunked run is shared with the report (long-jobs.ts).
+export { runClosingMap };
 
 export const syncHandlers: HandlerGroup<'evaluateSync' | 'listSyncPresets' | 'closingMap'> = {
   evaluateSync: { schema: syncCaseSchema, run: (c) => evaluateSync(c) },
   listSyncPresets: { schema: z.object({}).strict(), run: () => listSyncPresets() },
-  closingMap: { schema: closingMapRequestSchema, run: runClosingMap },
+  closingMap: { schema: closingMapRequestSchema, run: (req, ctx) => runClosingMap(req, ctx) },
 };

@@ -150,7 +150,7 @@ export const trainerExerciseShape = {
   id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
   name: z.string({ error: 'must be text' }),
   levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
-  seed: z.number({ error: 'must be a number' }).int('must be a whole number').gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
+  seed: whole().gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
   faults: trainerFaultsSchema,
   pass: trainerPassSchema,
 };

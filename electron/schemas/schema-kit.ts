@@ -18,6 +18,8 @@ export const whole = () => num().int('must be a whole number');
 export const powerFactor = () => num().gt(0, 'must be greater than 0').lte(1, 'must be 1 or less');
 /** A number greater than 0. */
 export const positive = (unit: string) => num(unit).gt(0, 'must be greater than 0');
+/** A number, or null where a figure may be missing (a recovery time never reached). */
+export const numOrNull = () => z.union([num(), z.null()], { error: 'must be a number or null' });
 /** A number 0 or more. */
 export const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
 /** A bound written the way the messages write it: 2 000 000, 0.01. */

@@ -10,7 +10,7 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
-import { angleAfterDeg } from '../../shared-types';
+import { angleAfterDeg, angleAtContactDeg, closeCommandAngleDeg } from '../../shared-types';
 import { faultWords } from '../../shared-types';
 import type {
   SyncLimits,
@@ -429,19 +429,19 @@ export const useTrainerStore = defineStore('trainer', () => {
 
   /**
    * Where to give the close command so contact lands in phase, by the breaker time the trainee is told (the level's
-   * setting): −360° × slip × t (the advance-angle law the sync engine uses); null when not running or without slip.
+   * setting): −360° × slip × t (`closeCommandAngleDeg`, the sync engine's own law); null when not running or without slip.
    */
   function commandAngleDeg(): number | null {
     const s = state.value;
     if (!s || s.phase !== 'running' || Math.abs(slipHz.value) <= 1e-4) return null;
-    return angleAfterDeg(0, slipHz.value, -s.level.breakerClosingMs / 1000);
+    return closeCommandAngleDeg(slipHz.value, s.level.breakerClosingMs);
   }
 
   /** Where contact would land if the command went at `nowMs` (by the told breaker time); null when not running. */
   function displayContactAngleDeg(nowMs: number): number | null {
     const s = state.value;
     if (!s || s.phase !== 'running') return null;
-    return angleAfterDeg(displayAngleDeg(nowMs), slipHz.value, s.level.breakerClosingMs / 1000);
+    return angleAtContactDeg(displayAngleDeg(nowMs), slipHz.value, s.level.breakerClosingMs);
   }
 
   function clearLog(): void {

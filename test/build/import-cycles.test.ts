@@ -113,4 +113,29 @@ describe('import graph', () => {
     }
     expect([...ways]).toEqual(['handlers → project']);
   });
+
+  it('has each layer importing only downward: the engine and shared-types never import the report renderer, the handlers or the hosts; the report renderer never imports the handlers', () => {
+    const layerOf = (f: string) =>
+      f.startsWith('shared-types/')
+        ? 'shared-types'
+        : f.startsWith('electron/engine/')
+          ? 'engine'
+          : f.startsWith('electron/report/')
+            ? 'report'
+            : f.startsWith('electron/')
+              ? 'electron'
+              : 'renderer';
+    const allowed: Record<string, string[]> = {
+      'shared-types': ['shared-types'],
+      engine: ['engine', 'shared-types'],
+      report: ['report', 'engine', 'shared-types'],
+    };
+    const upward: string[] = [];
+    for (const [file, deps] of graph) {
+      const ok = allowed[layerOf(file)];
+      if (!ok) continue;
+      for (const d of deps) if (!ok.includes(layerOf(d))) upward.push(`${file} → ${d}`);
+    }
+    expect(upward).toEqual([]);
+  });
 });

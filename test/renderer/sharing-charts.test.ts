@@ -1,9 +1,10 @@
 import { describe, it, expect } from 'vitest';
 import { reactiveDroopChart, shareBarChart, speedDroopChart, sweepChart } from '../../renderer/components/charts/sharing-charts';
-import { kVARBase, niceRange, speedDroopLine } from '../../renderer/components/charts/droop-lines';
+import { niceRange } from '../../renderer/components/charts/droop-lines';
+import { kVARBase } from '../../shared-types';
 import { DASHES, POINT_STYLES, seriesStyle } from '../../renderer/components/charts/series-style';
 import { readChartTheme } from '../../renderer/components/charts/theme';
-import { solveSharing, sweepLoad } from '../../electron/engine';
+import { describePlant, solveSharing, speedDroopLine, sweepLoad } from '../../electron/engine';
 import { demoPlant, makePlant, rawSet } from '../helpers/plants';
 import { expectClose } from '../helpers/expect-close';
 
@@ -24,7 +25,7 @@ describe('speed-droop chart', () => {
   it('draws each droop line by the closed form and puts every operating point on its line at the bus frequency', () => {
     const plant = demoPlant();
     const r = solveSharing(plant);
-    const c = speedDroopChart(plant, r, theme);
+    const c = speedDroopChart(plant, r, theme, describePlant(plant));
     for (const s of plant.sets) {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} droop`))!;
       const op = datasets(c).find((d) => d.label === `${s.id} operating point`)!;
@@ -62,7 +63,7 @@ describe('speed-droop chart', () => {
     expect(new Set(styles.map((s) => s.pointStyle)).size).toBe(4);
     expect(DASHES.length).toBeGreaterThanOrEqual(5);
     expect(POINT_STYLES.length).toBeGreaterThanOrEqual(5);
-    const c = speedDroopChart(demoPlant(), null, theme);
+    const c = speedDroopChart(demoPlant(), null, theme, describePlant(demoPlant()));
     expect(datasets(c).map((d) => d.borderDash?.join(','))).toEqual(styles.slice(0, 3).map((s) => s.dash.join(',')));
   });
 });
@@ -71,12 +72,12 @@ describe('reactive-droop chart', () => {
   it('puts each reactive-droop set’s operating point (kVAR, terminal V) on its line', () => {
     const plant = demoPlant();
     const r = solveSharing(plant);
-    const c = reactiveDroopChart(plant, r, theme);
+    const c = reactiveDroopChart(plant, r, theme, describePlant(plant));
     for (const s of plant.sets) {
       const line = datasets(c).find((d) => d.label.startsWith(`${s.id} reactive droop`))!;
       const [a, b] = line.data as [Pt, Pt];
       // Slope: droop/100 × V_rated / Qbase, Qbase = kVA √(1 − PF²) (the reactive-droop definition, closed form).
-      expectClose((a.y - b.y) / (b.x - a.x), ((s.regulator.droopPct / 100) * 400) / kVARBase(s), { rel: 1e-12 }, 'slope');
+      expectClose((a.y - b.y) / (b.x - a.x), ((s.regulator.droopPct / 100) * 400) / kVARBase(s.ratedKVA, s.ratedPF), { rel: 1e-12 }, 'slope');
       const set = r.sets.find((x) => x.id === s.id)!;
       expectClose(lineAt(a, b, set.kVAR), set.terminalV, { abs: 1e-3 }, `${s.id} on its line`);
     }

@@ -7,9 +7,17 @@ import {
   CSV_CAUTION_LINE,
   FLAG_WORDS,
   flagWords,
+  CHART_PALETTE,
+  escapeHtml,
+  formatAngleDeg,
   formatCurrentA,
+  formatHz,
+  formatMs,
   formatNumber,
+  formatPercent,
   formatPF,
+  formatPU,
+  formatSeconds,
   formatSigned,
   isoClassName,
   issueInWords,
@@ -38,6 +46,40 @@ describe('number formats', () => {
     // 1250 kVA at 400 V: I = S / (√3 V) = 1804.22 A (closed form) → "1804".
     expect(formatCurrentA(1_250_000 / (Math.sqrt(3) * 400))).toBe('1804');
     expect(formatCurrentA(1056.91)).toBe('1057');
+  });
+});
+
+describe('one formatter per kind of figure', () => {
+  it('writes each kind with its unit, never "-0", and "—" without a unit for a blank', () => {
+    expect(formatPercent(12.345)).toBe('12.3 %');
+    expect(formatPercent(-0.04)).toBe('0.0 %');
+    expect(formatHz(49.99951)).toBe('50.000 Hz');
+    expect(formatHz(-0.0004)).toBe('0.000 Hz');
+    expect(formatAngleDeg(-7.2)).toBe('-7.2°');
+    expect(formatAngleDeg(-0.04)).toBe('0.0°');
+    expect(formatMs(79.6)).toBe('80 ms');
+    expect(formatSeconds(1.254)).toBe('1.25 s');
+    expect(formatPU(1.054)).toBe('1.05 pu');
+    for (const f of [formatPercent, formatHz, formatAngleDeg, formatMs, formatSeconds, formatPU]) {
+      expect(f(Number.NaN)).toBe('—');
+      expect(f(undefined)).toBe('—');
+      expect(f(null)).toBe('—');
+    }
+  });
+  it('signs with the keyboard minus where a readout always has, and leaves zero unsigned', () => {
+    expect(formatSigned(-73.44, 1, { ascii: true })).toBe('-73.4');
+    expect(formatSigned(0.1, 3, { ascii: true })).toBe('+0.100');
+    expect(formatSigned(-0.0004, 3, { ascii: true })).toBe('0.000');
+    expect(formatSigned(undefined, 1)).toBe('—');
+  });
+  it('escapes the HTML-special characters of user text', () => {
+    expect(escapeHtml(`<a href="x">R&D's</a>`)).toBe('&lt;a href=&quot;x&quot;&gt;R&amp;D&#39;s&lt;/a&gt;');
+  });
+  it('keeps one palette whose series colours the app’s light theme also declares', () => {
+    const css = readFileSync(new URL('../../renderer/styles/base.css', import.meta.url), 'utf8');
+    const light = css.slice(0, css.indexOf('--series-5') + 30);
+    CHART_PALETTE.series.forEach((c, i) => expect(light).toContain(`--series-${i + 1}: ${c};`));
+    for (const k of ['fg', 'muted', 'accent', 'good', 'warn', 'bad'] as const) expect(css).toContain(CHART_PALETTE[k]);
   });
 });
 

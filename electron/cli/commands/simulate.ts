@@ -3,7 +3,7 @@
  * A scenario may name its plant with `plantFile`, a path relative to the scenario file.
  */
 import { posix, win32 } from 'node:path';
-import { CAUTION, CSV_CAUTION_LINE, isoClassName } from '../../../shared-types';
+import { CAUTION, CSV_CAUTION_LINE, formatNumber, isoClassName } from '../../../shared-types';
 import type { SimulationResult } from '../../../shared-types';
 import { callEngine } from '../call';
 import { CliInputError } from '../io';
@@ -49,14 +49,14 @@ function csv(r: SimulationResult): string {
   // The caution leads as a '#' comment line (pandas: comment='#'; R: comment.char='#'; spreadsheets show it as a first row).
   const lines = [CSV_CAUTION_LINE, head.join(',')];
   for (let k = 0; k < s.t.length; k++) {
-    const row = [s.t[k]!.toFixed(4), s.frequencyHz[k]!.toFixed(5), s.voltageV[k]!.toFixed(3)];
+    const row = [formatNumber(s.t[k]!, 4), formatNumber(s.frequencyHz[k]!, 5), formatNumber(s.voltageV[k]!, 3)];
     for (let i = 0; i < s.setIds.length; i++)
       row.push(
-        s.setKW[i]![k]!.toFixed(3),
-        s.setKVAR[i]![k]!.toFixed(3),
-        s.setCurrentA[i]![k]!.toFixed(2),
-        s.setSpeedHz[i]![k]!.toFixed(5),
-        s.setTerminalV[i]![k]!.toFixed(3),
+        formatNumber(s.setKW[i]![k]!, 3),
+        formatNumber(s.setKVAR[i]![k]!, 3),
+        formatNumber(s.setCurrentA[i]![k]!, 2),
+        formatNumber(s.setSpeedHz[i]![k]!, 5),
+        formatNumber(s.setTerminalV[i]![k]!, 3),
       );
     lines.push(row.join(','));
   }

@@ -11,6 +11,7 @@ import { CliInputError } from '../io';
 import type { CliCommand } from '../io';
 import { readJson } from '../read-json';
 import { fmt, formatTable } from '../table';
+import { formatPercent } from '../../../shared-types';
 
 const stats = (d: Distribution) => ({ mean: d.mean, std: d.std, p5: d.p5, p50: d.p50, p95: d.p95 });
 
@@ -47,7 +48,7 @@ function table(r: ToleranceResult): string {
     ...r.sets.flatMap((s) => [row(`${s.id} kW`, s.kW, 1), row(`${s.id} kVAR`, s.kVAR, 1), row(`${s.id} circ. A`, s.circulatingA, 1)]),
   ];
   const p = r.probabilities;
-  const pct = (x: number) => `${(100 * x).toFixed(2)} %`;
+  const pct = (x: number) => formatPercent(100 * x, 2);
   return (
     `${r.samples} samples, seed ${r.seed}; ${r.solved} with a steady state\n\n` +
     formatTable(['figure', 'mean', 'std', 'p5', 'p50', 'p95'], rows) +

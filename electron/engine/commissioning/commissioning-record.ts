@@ -5,9 +5,8 @@
  * (for the screen), CSV (caution line first, `#`) and self-contained HTML (no scripts).
  */
 import type { ClassCheck, CommissioningRecord, CommissioningRecordRequest, CommissioningRow, PerformanceClass, RecordVerdict } from '../../../shared-types';
-import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
+import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, advanceAngleDeg, escapeHtml, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
 import { InvalidInput } from '../errors';
-import { escapeHtml } from '../report/format';
 import { fieldCeiling } from '../simulation/excitation';
 
 const f = formatNumber;
@@ -94,7 +93,7 @@ export function buildCommissioningRecord(req: CommissioningRecordRequest): Commi
     add(sec, 'voltage-difference window', '± %', f(l.voltagePct, 1));
     add(sec, 'breaker closing time', 'ms', f(req.syncCheck.breakerClosingMs, 0));
     // Advance angle = 360° × slip × closing time (closed form: the phase the incoming set gains while the breaker travels).
-    add(sec, 'close-command advance at the slip limit', '°', f(360 * l.slipHz * (req.syncCheck.breakerClosingMs / 1000), 1));
+    add(sec, 'close-command advance at the slip limit', '°', f(advanceAngleDeg(l.slipHz, req.syncCheck.breakerClosingMs), 1));
   } else add(sec, 'sync-check window', '', 'not given');
 
   sec = 'Reverse power (device 32)';

@@ -6,6 +6,7 @@ import type { Band, BandVerdict, LoadOverride, Plant, PlanCheck, PlanPoint, Shar
 import { Diverged, EngineError } from '../errors';
 import { solveSharing } from '../sharing';
 import type { LoadPoint } from './load-points';
+import { formatNumber } from '../../../shared-types';
 
 /**
  * Load used for a no-load point the network solver does not converge at, as a fraction of the
@@ -110,19 +111,19 @@ export function judgeBand(quantity: 'frequency' | 'voltage', band: Band, check: 
   const below = band.min - ext.lo > eps ? band.min - ext.lo : 0;
   const above = ext.hi - band.max > eps ? ext.hi - band.max : 0;
   const shortBy = Math.max(below, above);
-  const range = `${ext.lo.toFixed(digits)}–${ext.hi.toFixed(digits)} ${unit}`;
-  const bandText = `${band.min.toFixed(digits)}–${band.max.toFixed(digits)} ${unit}`;
+  const range = `${formatNumber(ext.lo, digits)}–${formatNumber(ext.hi, digits)} ${unit}`;
+  const bandText = `${formatNumber(band.min, digits)}–${formatNumber(band.max, digits)} ${unit}`;
   if (unsolved.length > 0) {
     return {
       ...base,
       met: false,
       shortBy,
-      sentence: `The ${name} cannot be checked at ${unsolved.map((p) => `${p.loadPct.toFixed(0)} %`).join(', ')} load: ${unsolved[0]!.error}`,
+      sentence: `The ${name} cannot be checked at ${unsolved.map((p) => `${formatNumber(p.loadPct, 0)} %`).join(', ')} load: ${unsolved[0]!.error}`,
     };
   }
   if (shortBy <= 0) return { ...base, met: true, shortBy: 0, sentence: `The ${name} stays in ${bandText} (${range} across the load range).` };
   const parts: string[] = [];
-  if (below > 0) parts.push(`${below.toFixed(digits)} ${unit} below the band's lower edge`);
-  if (above > 0) parts.push(`${above.toFixed(digits)} ${unit} above its upper edge`);
+  if (below > 0) parts.push(`${formatNumber(below, digits)} ${unit} below the band's lower edge`);
+  if (above > 0) parts.push(`${formatNumber(above, digits)} ${unit} above its upper edge`);
   return { ...base, met: false, shortBy, sentence: `The ${name} spans ${range} across the load range: ${parts.join(' and ')} (${bandText}).` };
 }

@@ -8,6 +8,7 @@
  * and each no-load voltage is nudged by its set's kVAR sharing error at the middle point.
  */
 import type { GenSet, PlanField, PlanRequest, PlanResult, PlanSetting, Plant } from '../../../shared-types';
+import { setCharacteristics } from '../characteristics';
 import { InvalidInput } from '../errors';
 import { planLoadPoints } from './load-points';
 import { checkPlan, extent, judgeBand } from './plan-check';
@@ -133,5 +134,9 @@ export function planDroop(request: PlanRequest): PlanResult {
     tradeoffs: [...speed.tradeoffs, ...reactive.tradeoffs],
     notes: [...speed.notes, ...reactive.notes],
     setIds: plant.sets.map((s) => s.id),
+    characteristics: {
+      current: plant.sets.map((s) => setCharacteristics(s, plant)),
+      proposal: proposal.sets.map((s) => setCharacteristics(s, proposal)),
+    },
   };
 }

@@ -1,5 +1,6 @@
 /** Default limits of the planner's settings and the fields a user may fix. */
 import type { PlanLimits } from '../../../shared-types';
+import { formatNumber } from '../../../shared-types';
 
 /**
  * Default setting limits. Speed droop 1–8 %: ISO 8528-5 allows up to 8 % frequency droop in
@@ -25,7 +26,7 @@ export function clamp(v: number, lo: number, hi: number): number {
   return Math.min(hi, Math.max(lo, v));
 }
 
-/** Rounds for display in sentences. */
+/** Rounds for display in sentences (the shared number format). */
 export function fmt(v: number, digits: number): string {
-  return v.toFixed(digits);
+  return formatNumber(v, digits);
 }

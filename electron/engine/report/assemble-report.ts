@@ -1,13 +1,15 @@
 /**
- * Gathers every result the report shows: the sharing at the chosen loads, the sync-check
- * verdict and closing map, and each scenario's transient metrics. Each section may fail on
- * its own (its problem is printed in its place); cancellation stops the whole report.
+ * The report's data assembly, pure: which loads the sharing table solves, the sync-check settings and the case at
+ * the window's edge, the scenarios to run, and the report's data once every result is in. The report handler
+ * (`electron/handlers/report-handlers.ts`) calls the engine for each result with these and hands the data to the
+ * renderer (`electron/report/`). Each section may fail on its own (its problem is printed in its place);
+ * cancellation stops the whole report.
  */
-import type { BuildReportRequest, Plant, ProjectScenario, ProjectSyncSettings, SyncCase, SyncPreset } from '../../../shared-types';
+import type { BuildReportRequest, CappedLoad, Plant, ProjectScenario, ProjectSyncSettings, Scenario, SyncCase, SyncPreset } from '../../../shared-types';
 import { describePlant } from '../describe-plant';
-import { Cancelled, EngineError, InvalidInput } from '../errors';
+import { EngineError, InvalidInput } from '../errors';
 import type { ReportData, SharingPoint, SyncPart, TransientPart } from './report-data';
-import type { ReportEngine } from './report-engine';
+import { formatNumber } from '../../../shared-types';
 
 /** Sharing-table loads when the request names none, % of the online sets' rated kW. */
 export const DEFAULT_LOADS_PCT: readonly number[] = [25, 50, 75, 100];
@@ -22,15 +24,10 @@ export const FALLBACK_SYNC_LIMITS = { slipHz: 0.2, angleDeg: 10, voltagePct: 5, 
 export const DEFAULT_BREAKER_MS = 60;
 
 /** The sentence of anything a section throws; cancellation is re-thrown so the report stops. */
-function problemOf(err: unknown): string {
+export function problemOf(err: unknown): string {
   if (err instanceof EngineError && err.code === 'CANCELLED') throw err;
   if (err instanceof Error) return err.message;
   return String(err);
-}
-
-/** Throws `Cancelled` once the caller has cancelled. */
-function checkCancel(engine: ReportEngine): void {
-  if (engine.isCancelled()) throw new Cancelled('The report was cancelled.');
 }
 
 /**
@@ -52,7 +49,7 @@ export function defaultScenario(plant: Plant): ProjectScenario {
 }
 
 /** The set to synchronize when the project names none: the first offline set, else the last set. */
-function pickIncoming(plant: Plant): string {
+export function pickIncoming(plant: Plant): string {
   return (plant.sets.find((s) => !s.online) ?? plant.sets[plant.sets.length - 1])?.id ?? '';
 }
 
@@ -90,11 +87,30 @@ export function edgeCase(plant: Plant, s: ProjectSyncSettings, incomingSetId: st
   };
 }
 
-const formatPct = (v: number) => (Math.abs(v - Math.round(v)) < 0.05 ? String(Math.round(v)) : v.toFixed(1));
+const formatPct = (v: number) => (Math.abs(v - Math.round(v)) < 0.05 ? String(Math.round(v)) : formatNumber(v, 1));
 
-async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, loadPF: number): Promise<SharingPoint[]> {
+/** A load point the sharing table solves: the plant's own loads, or a constant-power override. */
+export interface WantedLoad {
+  label: string;
+  loadPct: number | null;
+  kW: number;
+  kVAR: number;
+  /** True: solve `{ kW, kVAR }` at most the sets can carry; false: the plant's own loads. */
+  override: boolean;
+}
+
+/** The online sets' rated kW. */
+function onlineRatedKW(plant: Plant): number {
+  return plant.sets.filter((s) => s.online).reduce((a, s) => a + s.ratedKW, 0);
+}
+
+/**
+ * The sharing table's loads: the connected load, each requested % of the online rated kW at `loadPF`, and the
+ * overload point (every online set at its overload limit) when not already listed.
+ */
+export function reportLoads(req: BuildReportRequest, loadPF: number): WantedLoad[] {
   const plant = req.project.plant;
-  const onlineKW = plant.sets.filter((s) => s.online).reduce((a, s) => a + s.ratedKW, 0);
+  const onlineKW = onlineRatedKW(plant);
   const connected = plant.loads.filter((l) => l.online);
   const tanPhi = Math.tan(Math.acos(loadPF));
   // The overload point: every online set at its overload (fuel) limit, as % of the online rating.
@@ -103,7 +119,7 @@ async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, load
   const pcts = (req.loadsPct ?? DEFAULT_LOADS_PCT).map((pct) => ({ pct, label: `${pct} %` }));
   if (onlineKW > 0 && !pcts.some((x) => Math.abs(x.pct - overloadPct) < 1e-9))
     pcts.push({ pct: overloadPct, label: `overload limit (${formatPct(overloadPct)} %)` });
-  const wanted: { label: string; loadPct: number | null; kW: number; kVAR: number; override: boolean }[] = [
+  return [
     {
       label: 'connected load',
       loadPct: null,
@@ -119,36 +135,25 @@ async function sharingPoints(req: BuildReportRequest, engine: ReportEngine, load
       override: true,
     })),
   ];
-  const points: SharingPoint[] = [];
-  for (const [i, w] of wanted.entries()) {
-    checkCancel(engine);
-    engine.progress((0.3 * i) / wanted.length, `sharing at ${w.label}`);
-    const point: SharingPoint = { label: w.label, loadPct: w.loadPct, loadKW: w.kW, loadKVAR: w.kVAR, result: null, problem: null, note: null };
-    try {
-      // A % point the sets cannot carry (feeder losses on top of the overload limit, a set that
-      // saturates early) is answered at the most they can carry, and the row says so.
-      point.result = await engine.solveSharing(w.override ? { plant, load: { kW: w.kW, kVAR: w.kVAR }, atMost: true } : { plant });
-      const cap = point.result.capped;
-      if (cap)
-        point.note = `${Math.round(cap.requestedKW)} kW cannot be carried (${Math.round(cap.shortKW)} kW short); shown: the most the sets carry, ${Math.round(cap.carriedKW)} kW${onlineKW > 0 ? ` (${formatPct((100 * cap.carriedKW) / onlineKW)} % of rating)` : ''}.`;
-    } catch (err) {
-      point.problem = problemOf(err);
-    }
-    points.push(point);
-  }
-  return points;
 }
 
-async function syncPart(req: BuildReportRequest, engine: ReportEngine): Promise<SyncPart | { problem: string }> {
-  checkCancel(engine);
-  engine.progress(0.3, 'sync-check');
+/** An empty sharing point for `w` (its result or problem is filled in once solved). */
+export function sharingPoint(w: WantedLoad): SharingPoint {
+  return { label: w.label, loadPct: w.loadPct, loadKW: w.kW, loadKVAR: w.kVAR, result: null, problem: null, note: null };
+}
+
+/** The row's note when a load beyond the sets was answered at the most they carry. */
+export function cappedNote(plant: Plant, cap: CappedLoad): string {
+  const onlineKW = onlineRatedKW(plant);
+  return `${Math.round(cap.requestedKW)} kW cannot be carried (${Math.round(cap.shortKW)} kW short); shown: the most the sets carry, ${Math.round(cap.carriedKW)} kW${onlineKW > 0 ? ` (${formatPct((100 * cap.carriedKW) / onlineKW)} % of rating)` : ''}.`;
+}
+
+/**
+ * The sync-check part before its results: the project's settings, or (none given) the common-practice preset
+ * between generating sets with the default breaker time; the incoming set; or a problem when there is none.
+ */
+export function syncPartFor(req: BuildReportRequest, presets: SyncPreset[]): SyncPart | { problem: string } {
   const plant = req.project.plant;
-  let presets: SyncPreset[] = [];
-  try {
-    presets = await engine.listSyncPresets();
-  } catch (err) {
-    problemOf(err);
-  }
   const given = req.project.sync ?? null;
   // Between generating sets the common-practice preset fits better than a utility-tie table.
   const first = presets.find((p) => p.id === 'practice-generating-sets') ?? presets.find((p) => p.id.includes('practice')) ?? presets[0] ?? null;
@@ -161,7 +166,7 @@ async function syncPart(req: BuildReportRequest, engine: ReportEngine): Promise<
   };
   const incomingSetId = settings.incomingSetId ?? pickIncoming(plant);
   if (!incomingSetId) return { problem: 'The plant has no set to synchronize.' };
-  const part: SyncPart = {
+  return {
     settings,
     preset: presets.find((p) => p.id === settings.presetId) ?? null,
     defaulted: given === null,
@@ -170,63 +175,38 @@ async function syncPart(req: BuildReportRequest, engine: ReportEngine): Promise<
     map: null,
     problem: null,
   };
-  try {
-    const syncCase = edgeCase(plant, settings, incomingSetId);
-    part.edge = await engine.evaluateSync(syncCase);
-    checkCancel(engine);
-    const grid = req.closingMap ?? {};
-    part.map = await engine.closingMap(
-      { case: syncCase, angleSteps: grid.angleSteps ?? 37, slipSteps: grid.slipSteps ?? 21, slipRangeHz: grid.slipRangeHz ?? 0.5 },
-      (f) => engine.progress(0.3 + 0.2 * f, 'closing map'),
-    );
-  } catch (err) {
-    part.problem = problemOf(err);
-  }
-  return part;
 }
 
-async function transientParts(req: BuildReportRequest, engine: ReportEngine): Promise<TransientPart[]> {
-  const plant = req.project.plant;
+/** The closing map's grid for the report (the request's, else 37 angles × 21 slips over ±0.5 Hz). */
+export function reportMapGrid(req: BuildReportRequest): { angleSteps: number; slipSteps: number; slipRangeHz: number } {
+  const grid = req.closingMap ?? {};
+  return { angleSteps: grid.angleSteps ?? 37, slipSteps: grid.slipSteps ?? 21, slipRangeHz: grid.slipRangeHz ?? 0.5 };
+}
+
+/** The transient parts before their runs: the project's scenarios, or the report's own default. */
+export function transientPartsFor(req: BuildReportRequest): TransientPart[] {
   const given = req.project.scenarios;
-  const list = given ? given.map((scenario) => ({ scenario, defaulted: false })) : [{ scenario: defaultScenario(plant), defaulted: true }];
-  const parts: TransientPart[] = [];
-  for (const [i, { scenario, defaulted }] of list.entries()) {
-    checkCancel(engine);
-    const part: TransientPart = { scenario, defaulted, result: null, problem: null };
-    const base = 0.5 + (0.5 * i) / list.length;
-    engine.progress(base, `simulating "${scenario.name}"`);
-    try {
-      part.result = await engine.simulate(
-        { name: scenario.name, plant, durationS: scenario.durationS, stepMs: scenario.stepMs, outputPoints: 800, events: scenario.events },
-        (f) => engine.progress(base + (0.5 * f) / list.length, `simulating "${scenario.name}"`),
-      );
-    } catch (err) {
-      part.problem = problemOf(err);
-    }
-    parts.push(part);
-  }
-  return parts;
+  const list = given ? given.map((scenario) => ({ scenario, defaulted: false })) : [{ scenario: defaultScenario(req.project.plant), defaulted: true }];
+  return list.map(({ scenario, defaulted }) => ({ scenario, defaulted, result: null, problem: null }));
 }
 
-/**
- * Computes everything the report shows, section by section, through `engine`.
- * @throws Cancelled when the caller cancels; section failures become their `problem` text.
- */
-export async function assembleReport(req: BuildReportRequest, engine: ReportEngine): Promise<ReportData> {
+/** The simulation request of a scenario part (800 output points, enough for the report's charts). */
+export function reportRun(plant: Plant, scenario: ProjectScenario): Scenario {
+  return { name: scenario.name, plant, durationS: scenario.durationS, stepMs: scenario.stepMs, outputPoints: 800, events: scenario.events };
+}
+
+/** The report's data once every section is in. */
+export function reportData(
+  req: BuildReportRequest,
+  parts: { sharing: SharingPoint[]; sync: SyncPart | { problem: string }; transients: TransientPart[] },
+): ReportData {
   const plant = req.project.plant;
-  const loadPF = req.loadPF ?? DEFAULT_LOAD_PF;
-  const sharing = await sharingPoints(req, engine, loadPF);
-  const sync = await syncPart(req, engine);
-  const transients = await transientParts(req, engine);
-  engine.progress(1, 'writing the report');
   return {
     title: req.project.name?.trim() || plant.name,
     date: req.date,
     plant,
     description: describePlant(plant),
-    loadPF,
-    sharing,
-    sync,
-    transients,
+    loadPF: req.loadPF ?? DEFAULT_LOAD_PF,
+    ...parts,
   };
 }

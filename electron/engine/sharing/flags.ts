@@ -7,6 +7,7 @@
 import type { GenSet, SetFlag } from '../../../shared-types';
 import { fieldLimitKVAR, leadingLimitKVAR } from '../capability';
 import { lowerLimitKW, motoringKW, overloadLimitKW, reverseTripKW } from './set-limits';
+import { formatNumber } from '../../../shared-types';
 
 const REL_TOL = 1e-9;
 
@@ -40,7 +41,7 @@ export function setFlags(set: GenSet, x: SetOperatingFigures): SetFlag[] {
   return flags;
 }
 
-const kw0 = (v: number) => `${v.toFixed(0)} kW`;
+const kw0 = (v: number) => `${formatNumber(v, 0)} kW`;
 
 /**
  * One sentence per flag that needs the user's attention, naming the set, the figure and the
@@ -56,15 +57,15 @@ export function flagSentences(set: GenSet, x: SetOperatingFigures, flags: readon
     );
   else if (flags.includes('overload-kW'))
     out.push(
-      `${id} is in its overload range: ${kw0(x.kW)} of ${set.ratedKW} kW rated (${((100 * x.kW) / set.ratedKW).toFixed(0)} %; the overload allowance of a prime-rated set is ${set.overloadPct} % for one hour in twelve, ISO 8528-1, value from memory).`,
+      `${id} is in its overload range: ${kw0(x.kW)} of ${set.ratedKW} kW rated (${formatNumber((100 * x.kW) / set.ratedKW, 0)} %; the overload allowance of a prime-rated set is ${set.overloadPct} % for one hour in twelve, ISO 8528-1, value from memory).`,
     );
   if (flags.includes('overload-kVA'))
     out.push(
-      `${id} is over its kVA rating: ${x.kVA.toFixed(0)} kVA of ${set.ratedKVA} kVA (${((100 * x.kVA) / set.ratedKVA).toFixed(0)} %): the stator current is above rating.`,
+      `${id} is over its kVA rating: ${formatNumber(x.kVA, 0)} kVA of ${set.ratedKVA} kVA (${formatNumber((100 * x.kVA) / set.ratedKVA, 0)} %): the stator current is above rating.`,
     );
   if (flags.includes('reverse-power'))
     out.push(
-      `${id} is motoring: it absorbs ${kw0(-x.kW)} (${((-100 * x.kW) / set.ratedKW).toFixed(1)} % of rating), beyond its reverse-power setting of ${set.reversePowerTripPct} % (${kw0(reverseTripKW(set))}): the 32 relay would trip it after ${set.reversePowerDelayS} s.`,
+      `${id} is motoring: it absorbs ${kw0(-x.kW)} (${formatNumber((-100 * x.kW) / set.ratedKW, 1)} % of rating), beyond its reverse-power setting of ${set.reversePowerTripPct} % (${kw0(reverseTripKW(set))}): the 32 relay would trip it after ${set.reversePowerDelayS} s.`,
     );
   else if (flags.includes('motoring'))
     out.push(
@@ -75,14 +76,14 @@ export function flagSentences(set: GenSet, x: SetOperatingFigures, flags: readon
   if (flags.includes('field-limit'))
     out.push(
       held
-        ? `${id} is held at its field-heating limit: ${x.kVAR.toFixed(0)} kVAR lagging at ${kw0(x.kW)} (its regulator's limiter holds it there; without it the set would take more).`
-        : `${id} is beyond its field-heating limit: ${x.kVAR.toFixed(0)} kVAR lagging at ${kw0(x.kW)} (the limit there is ${fieldLimitKVAR(set, x.kW).toFixed(0)} kVAR).`,
+        ? `${id} is held at its field-heating limit: ${formatNumber(x.kVAR, 0)} kVAR lagging at ${kw0(x.kW)} (its regulator's limiter holds it there; without it the set would take more).`
+        : `${id} is beyond its field-heating limit: ${formatNumber(x.kVAR, 0)} kVAR lagging at ${kw0(x.kW)} (the limit there is ${formatNumber(fieldLimitKVAR(set, x.kW), 0)} kVAR).`,
     );
   if (flags.includes('under-excited'))
     out.push(
       held
-        ? `${id} is held at its under-excitation limit: ${(-x.kVAR).toFixed(0)} kVAR leading (${set.leadingKVARLimitPct} % of ${set.ratedKVA} kVA); it absorbs reactive power from the other sets.`
-        : `${id} is under-excited: ${(-x.kVAR).toFixed(0)} kVAR leading, beyond its limit of ${set.leadingKVARLimitPct} % of ${set.ratedKVA} kVA.`,
+        ? `${id} is held at its under-excitation limit: ${formatNumber(-x.kVAR, 0)} kVAR leading (${set.leadingKVARLimitPct} % of ${set.ratedKVA} kVA); it absorbs reactive power from the other sets.`
+        : `${id} is under-excited: ${formatNumber(-x.kVAR, 0)} kVAR leading, beyond its limit of ${set.leadingKVARLimitPct} % of ${set.ratedKVA} kVA.`,
     );
   return out;
 }

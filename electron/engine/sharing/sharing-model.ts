@@ -3,7 +3,7 @@
  * and regulator law as numbers in typed arrays; the loads as voltage- and
  * frequency-dependent terms. Built once per solve; the solvers only read it.
  */
-import { kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz, tanPhi, zipShares } from '../../../shared-types';
+import { formatNumber, kVARBase, reactiveDroopKVARPerV, speedDroopKWPerHz, tanPhi, zipShares } from '../../../shared-types';
 import type { GenSet, Load, LoadOverride, Plant, ZipShares } from '../../../shared-types';
 import { NoSteadyState } from '../errors';
 import { GOV_BASE, GOV_DROOP, GOV_ISO, REG_CROSS, REG_DROOP, REG_PF, REG_VOLTAGE } from '../mode-codes';
@@ -223,7 +223,7 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
     m.isoSetpointHz = sum / w;
     if (hi - lo > 1e-6)
       m.notes.push(
-        `The linked isochronous sets have different frequency setpoints (${lo} to ${hi} Hz); the link holds their kW-weighted mean, ${m.isoSetpointHz.toFixed(3)} Hz.`,
+        `The linked isochronous sets have different frequency setpoints (${lo} to ${hi} Hz); the link holds their kW-weighted mean, ${formatNumber(m.isoSetpointHz, 3)} Hz.`,
       );
   } else {
     let anyDroop = false;
@@ -258,7 +258,7 @@ export function buildSharingModel(plant: Plant, load?: LoadOverride, reuse?: Sha
     m.voltageSetpointV = sum / w;
     if (hi - lo > 1e-6)
       m.notes.push(
-        `The cross-current sets have different voltage setpoints (${lo} to ${hi} V); the loop holds their kVA-weighted mean, ${m.voltageSetpointV.toFixed(1)} V.`,
+        `The cross-current sets have different voltage setpoints (${lo} to ${hi} V); the loop holds their kVA-weighted mean, ${formatNumber(m.voltageSetpointV, 1)} V.`,
       );
   } else {
     let anyDroop = false;

@@ -8,6 +8,7 @@ import { flagSentences, setFlags } from './flags';
 import { settingWarnings } from '../setting-checks';
 import type { IsoState } from './active-sharing';
 import type { SharingModel } from './sharing-model';
+import { formatHz, formatNumber, formatPercent } from '../../../shared-types';
 
 /** A solved operating point, arrays indexed by online set. Powers at the set's terminals. */
 export interface OperatingPoint {
@@ -190,15 +191,15 @@ export function buildSharingResult(plant: Plant, m: SharingModel, op: OperatingP
     );
   const isoIds = m.isoGroup.map((i) => m.sets[i]!.id).join(', ');
   if (op.isoState === 'at-max')
-    warnings.unshift(`The isochronous set(s) ${isoIds} are at full output: frequency is now set by the droop sets (${op.frequencyHz.toFixed(3)} Hz).`);
+    warnings.unshift(`The isochronous set(s) ${isoIds} are at full output: frequency is now set by the droop sets (${formatNumber(op.frequencyHz, 3)} Hz).`);
   if (op.isoState === 'at-min')
-    warnings.unshift(`The isochronous set(s) ${isoIds} are at minimum output: frequency is now set by the droop sets (${op.frequencyHz.toFixed(3)} Hz).`);
+    warnings.unshift(`The isochronous set(s) ${isoIds} are at minimum output: frequency is now set by the droop sets (${formatNumber(op.frequencyHz, 3)} Hz).`);
   const fDevPct = (100 * (op.frequencyHz - m.ratedFrequencyHz)) / m.ratedFrequencyHz;
   if (Math.abs(fDevPct) > FREQUENCY_WARN_PCT)
-    warnings.push(`Bus frequency ${op.frequencyHz.toFixed(2)} Hz is ${fDevPct.toFixed(1)} % from rated (more than ±${FREQUENCY_WARN_PCT} %).`);
+    warnings.push(`Bus frequency ${formatHz(op.frequencyHz, 2)} is ${formatPercent(fDevPct)} from rated (more than ±${FREQUENCY_WARN_PCT} %).`);
   const vDevPct = (100 * (op.busVoltageV - m.ratedVoltageV)) / m.ratedVoltageV;
   if (Math.abs(vDevPct) > VOLTAGE_WARN_PCT)
-    warnings.push(`Bus voltage ${op.busVoltageV.toFixed(0)} V is ${vDevPct.toFixed(1)} % from rated (more than ±${VOLTAGE_WARN_PCT} %).`);
+    warnings.push(`Bus voltage ${formatNumber(op.busVoltageV, 0)} V is ${formatPercent(vDevPct)} from rated (more than ±${VOLTAGE_WARN_PCT} %).`);
   return {
     bus: { frequencyHz: op.frequencyHz, voltageV: op.busVoltageV },
     sets,

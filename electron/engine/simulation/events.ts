@@ -12,6 +12,7 @@ import { GOV_BASE, GOV_DROOP, REG_DROOP } from '../mode-codes';
 import { initialiseOffline } from './initialise';
 import { plainLoadSlot } from './sim-model';
 import type { LoadSlot, Outputs, SimModel } from './sim-types';
+import { formatNumber } from '../../../shared-types';
 
 /** What an event may touch. */
 export interface EventTarget {
@@ -49,7 +50,7 @@ function setIndex(m: SimModel, id: string, what: string): number {
 }
 
 function fmt(v: number, digits: number): string {
-  return v.toFixed(digits);
+  return formatNumber(v, digits);
 }
 
 /**

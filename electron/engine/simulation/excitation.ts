@@ -13,7 +13,7 @@
  * (the steady state of the field equation T'd0 dE'q/dt = E_fd + E_res − E'q − (X d − X'd) I_d).
  * With X d 2.5, X'd 0.25, 0.8 PF and E_res 0.03 this is 2.78 pu.
  */
-import { SET_DEFAULTS } from '../../../shared-types';
+import { formatNumber, formatPU, SET_DEFAULTS } from '../../../shared-types';
 import type { GenSet } from '../../../shared-types';
 
 /** Where a set's field ceiling comes from, with the figures behind it. */
@@ -57,11 +57,11 @@ export function fieldCeiling(set: Pick<GenSet, 'ratedPF' | 'machine' | 'regulato
   const ceilingPU = own ?? SET_DEFAULTS.fieldCeilingFactor * ratedFieldPU;
   const marginPct = (ceilingPU / ratedFieldPU - 1) * 100;
   const reason = derived
-    ? `${SET_DEFAULTS.fieldCeilingFactor} × the field at rated load and ${set.ratedPF} power factor (${ratedFieldPU.toFixed(2)} pu from X d and X'd), so the set accepts a rated load step`
-    : `set in the plant file; the field at rated load and ${set.ratedPF} power factor is ${ratedFieldPU.toFixed(2)} pu`;
+    ? `${SET_DEFAULTS.fieldCeilingFactor} × the field at rated load and ${set.ratedPF} power factor (${formatPU(ratedFieldPU)} from X d and X'd), so the set accepts a rated load step`
+    : `set in the plant file; the field at rated load and ${set.ratedPF} power factor is ${formatNumber(ratedFieldPU, 2)} pu`;
   const warning =
     marginPct < SET_DEFAULTS.fieldCeilingMarginPct
-      ? `The field ceiling ${ceilingPU.toFixed(2)} pu is only ${marginPct.toFixed(0)} % above the ${ratedFieldPU.toFixed(2)} pu field at rated load (less than ${SET_DEFAULTS.fieldCeilingMarginPct} %): a large load step may pull the voltage down and hold it there.`
+      ? `The field ceiling ${formatNumber(ceilingPU, 2)} pu is only ${formatNumber(marginPct, 0)} % above the ${formatNumber(ratedFieldPU, 2)} pu field at rated load (less than ${SET_DEFAULTS.fieldCeilingMarginPct} %): a large load step may pull the voltage down and hold it there.`
       : null;
   return { ceilingPU, ratedFieldPU, derived, marginPct, reason, warning };
 }

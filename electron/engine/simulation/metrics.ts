@@ -9,6 +9,7 @@ import type { ClassCheck, CloseRecord, FinalSet, ProtectionTrip, PerformanceClas
 import { ISO_8528_5_LIMITS, PERFORMANCE_CLASSES, judge, recoveryBandPct } from './iso-8528-5';
 import type { ClassLimitKey } from './iso-8528-5';
 import type { SteadyTarget } from './steady-target';
+import { formatNumber } from '../../../shared-types';
 
 /** A trace of (t, x) samples in typed arrays. */
 export interface Trace {
@@ -122,7 +123,7 @@ export function computeMetrics(inp: MetricsInput): SimulationMetrics {
     const off = ((x - ref) / ratedX) * 100;
     const failing = PERFORMANCE_CLASSES.filter((c) => Math.abs(off) > bandPct(c));
     if (failing.length === 0) return undefined;
-    return `the run ends at ${x.toFixed(digits)} ${unit}, ${Math.abs(off).toFixed(2)} % ${off < 0 ? 'below' : 'above'} the ${ref.toFixed(digits)} ${unit} steady state of the final loads (closed form): outside the band of ${failing.join(', ')}`;
+    return `the run ends at ${formatNumber(x, digits)} ${unit}, ${formatNumber(Math.abs(off), 2)} % ${off < 0 ? 'below' : 'above'} the ${formatNumber(ref, digits)} ${unit} steady state of the final loads (closed form): outside the band of ${failing.join(', ')}`;
   };
   if (target.frequencyHz === null) notes.frequencyRecovery = `no steady state to recover to: ${target.note}`;
   else {

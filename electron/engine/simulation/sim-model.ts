@@ -9,7 +9,7 @@
  * `baseKVA` (the sum of all sets' ratings) at the same voltage base.
  */
 import { lowerLimitKW, overloadLimitKW } from '../sharing/set-limits';
-import { PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
+import { PLANT_DEFAULTS, SET_DEFAULTS, kVARBase, tanPhi, zipShares } from '../../../shared-types';
 import type { Load, LoadModel, Plant } from '../../../shared-types';
 import { crossCurrentGain } from './regulator';
 import { fieldCeiling } from './excitation';
@@ -98,7 +98,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     const mc = s.machine;
     m.ratedKVA[i] = s.ratedKVA;
     m.kwPU[i] = s.ratedKW / s.ratedKVA;
-    m.qBasePU[i] = Math.sqrt(1 - s.ratedPF * s.ratedPF);
+    m.qBasePU[i] = kVARBase(1, s.ratedPF);
     m.inertiaS[i] = mc.inertiaS;
     m.dampingPU[i] = mc.dampingPU;
     m.xdPU[i] = mc.xdPU;
@@ -149,7 +149,7 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     m.regDroop[i] = r.droopPct / 100;
     m.noLoadVPU[i] = r.noLoadV / vr;
     m.setpointVPU[i] = r.setpointV / vr;
-    m.tanPhi[i] = Math.sqrt(1 - r.pf * r.pf) / r.pf;
+    m.tanPhi[i] = tanPhi(r.pf);
     m.gainPU[i] = r.gainPU;
     m.exciterS[i] = lag(r.exciterLagS, `${s.id} regulator.exciterLagS`);
     m.avrResetS[i] = r.resetS ?? SET_DEFAULTS.regulatorResetS;

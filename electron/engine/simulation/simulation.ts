@@ -34,6 +34,7 @@ import type { SetSample } from './recorder';
 import { computeMetrics } from './metrics';
 import { steadyTarget } from './steady-target';
 import { fieldCeiling } from './excitation';
+import { formatMs, formatNumber } from '../../../shared-types';
 
 /** Default integration step, ms. */
 export const DEFAULT_STEP_MS = 1;
@@ -164,7 +165,7 @@ class Run implements Simulation {
       if (w) this.warnings.push(`${s.id}: ${w}`);
     }
     if (m.raised.length > 0)
-      this.warnings.push(`Lags shorter than two steps were taken as two steps (${(2 * this.stepS * 1000).toFixed(1)} ms): ${m.raised.join(', ')}.`);
+      this.warnings.push(`Lags shorter than two steps were taken as two steps (${formatMs(2 * this.stepS * 1000, 1)}): ${m.raised.join(', ')}.`);
     this.evaluateNow();
     this.initialF = this.frequencyHz();
     this.initialV = this.voltageV();
@@ -229,7 +230,7 @@ class Run implements Simulation {
     if (!this.collapsed && this.out.anyOnline && f < 0.9 * this.m.ratedFrequencyHz) {
       this.collapsed = true;
       this.warnings.push(
-        `Frequency fell below 90 % of rated (${(0.9 * this.m.ratedFrequencyHz).toFixed(1)} Hz) at t = ${t.toFixed(2)} s: the sets on line cannot carry the load.`,
+        `Frequency fell below 90 % of rated (${formatNumber(0.9 * this.m.ratedFrequencyHz, 1)} Hz) at t = ${formatNumber(t, 2)} s: the sets on line cannot carry the load.`,
       );
     }
     // A dead bus has no frequency: extremes are taken while some set is on line.
@@ -283,8 +284,8 @@ class Run implements Simulation {
         atS: t,
         text:
           kind === 'dead'
-            ? `bus dead: ${kw.toFixed(0)} kW of load not served`
-            : `bus below ${(this.m.breakPU * 100).toFixed(0)} % voltage: constant-power and constant-current loads now draw as constant impedance (${kw.toFixed(0)} kW not served)`,
+            ? `bus dead: ${formatNumber(kw, 0)} kW of load not served`
+            : `bus below ${formatNumber(this.m.breakPU * 100, 0)} % voltage: constant-power and constant-current loads now draw as constant impedance (${formatNumber(kw, 0)} kW not served)`,
       });
     }
     if (kw > this.lowVMaxKW) this.lowVMaxKW = kw;
@@ -295,13 +296,13 @@ class Run implements Simulation {
 
   private endLowVoltage(t: number): void {
     if (this.lowVStartS === null) return;
-    const span = `up to ${this.lowVMaxKW.toFixed(0)} kW not served for ${(t - this.lowVStartS).toFixed(2)} s`;
+    const span = `up to ${formatNumber(this.lowVMaxKW, 0)} kW not served for ${formatNumber(t - this.lowVStartS, 2)} s`;
     this.logs.push({
       atS: t,
       text:
         this.lowVKind === 'dead'
           ? `bus live again (${span})`
-          : `bus no longer below ${(this.m.breakPU * 100).toFixed(0)} % voltage with constant-power and constant-current loads drawing as impedance (${span})`,
+          : `bus no longer below ${formatNumber(this.m.breakPU * 100, 0)} % voltage with constant-power and constant-current loads drawing as impedance (${span})`,
     });
     this.lowVStartS = null;
     this.lowVKind = null;
@@ -327,7 +328,7 @@ class Run implements Simulation {
           if (this.oelTimer[i]! >= m.oelResetS[i]! - 1e-9) {
             m.oelActive[i] = 0;
             this.oelTimer[i] = 0;
-            this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter resets: field below ${lim.toFixed(2)} pu for ${m.oelResetS[i]} s` });
+            this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter resets: field below ${formatNumber(lim, 2)} pu for ${m.oelResetS[i]} s` });
           }
         } else this.oelTimer[i] = 0;
         continue;
@@ -337,9 +338,12 @@ class Run implements Simulation {
         if (this.oelTimer[i]! >= m.oelDelayS[i]! - 1e-9) {
           m.oelActive[i] = 1;
           this.oelTimer[i] = 0;
-          this.logs.push({ atS: t, text: `${m.ids[i]} over-excitation limiter acts: field held at ${lim.toFixed(2)} pu after ${m.oelDelayS[i]} s above it` });
+          this.logs.push({
+            atS: t,
+            text: `${m.ids[i]} over-excitation limiter acts: field held at ${formatNumber(lim, 2)} pu after ${m.oelDelayS[i]} s above it`,
+          });
           this.warnings.push(
-            `${m.ids[i]}: the over-excitation limiter held the field at ${lim.toFixed(2)} pu from t = ${t.toFixed(2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`,
+            `${m.ids[i]}: the over-excitation limiter held the field at ${formatNumber(lim, 2)} pu from t = ${formatNumber(t, 2)} s; the voltage may sag below its setting until the demand falls back below the limit for ${m.oelResetS[i]} s (its reset time).`,
           );
         }
       } else this.oelTimer[i] = 0;
@@ -394,7 +398,7 @@ class Run implements Simulation {
             i,
             t,
             '32',
-            `reverse power (device 32): below −${(m.reverseTripPU[i]! * 100).toFixed(0)} % of ${setKW.toFixed(0)} kW for ${m.reverseDelayS[i]} s`,
+            `reverse power (device 32): below −${formatNumber(m.reverseTripPU[i]! * 100, 0)} % of ${formatNumber(setKW, 0)} kW for ${m.reverseDelayS[i]} s`,
           );
           operated = true;
           continue;
@@ -415,12 +419,12 @@ class Run implements Simulation {
         if (protTimer[k]! >= m.protDelayS[k]! - 1e-9) {
           const dev = PROTECTION_DEVICES[d]!;
           const what = ['under-frequency', 'over-frequency', 'undervoltage', 'overvoltage'][d]!;
-          const pick = d < 2 ? `${(p * fr).toFixed(2)} Hz` : `${(p * vr).toFixed(0)} V`;
+          const pick = d < 2 ? `${formatNumber(p * fr, 2)} Hz` : `${formatNumber(p * vr, 0)} V`;
           this.trip(
             i,
             t,
             dev,
-            `${what} (device ${dev}): ${d % 2 === 0 ? 'below' : 'above'} ${pick} (${(p * 100).toFixed(1)} % of rated) for ${m.protDelayS[k]} s`,
+            `${what} (device ${dev}): ${d % 2 === 0 ? 'below' : 'above'} ${pick} (${formatNumber(p * 100, 1)} % of rated) for ${m.protDelayS[k]} s`,
           );
           operated = true;
           break;
@@ -438,7 +442,7 @@ class Run implements Simulation {
           if (l.shedTimer >= l.shedDelayS - 1e-9) {
             l.on = false;
             l.shedTimer = 0;
-            const line = `load ${l.id} shed on under-frequency (device 81U, load shedding): below ${(l.shedPU * fr).toFixed(2)} Hz for ${l.shedDelayS} s (${(l.pPU * m.baseKVA).toFixed(0)} kW)`;
+            const line = `load ${l.id} shed on under-frequency (device 81U, load shedding): below ${formatNumber(l.shedPU * fr, 2)} Hz for ${l.shedDelayS} s (${formatNumber(l.pPU * m.baseKVA, 0)} kW)`;
             this.logs.push({ atS: t, text: line });
             this.trips.push({ atS: t, id: l.id, kind: 'load', device: '81U', text: line });
             operated = true;
@@ -458,12 +462,12 @@ class Run implements Simulation {
       const w = y[i * STATES_PER_SET + OMEGA]!;
       if (!(Math.abs(w) < 5) || !Number.isFinite(y[i * STATES_PER_SET + EFD]!)) {
         throw new Diverged(
-          `The simulation diverged at t = ${t.toFixed(3)} s (set ${m.ids[i]} speed ${(w * m.ratedFrequencyHz).toFixed(1)} Hz). Try a smaller step (stepMs, now ${(this.stepS * 1000).toFixed(2)} ms) or check the machine data.`,
+          `The simulation diverged at t = ${formatNumber(t, 3)} s (set ${m.ids[i]} speed ${formatNumber(w * m.ratedFrequencyHz, 1)} Hz). Try a smaller step (stepMs, now ${formatNumber(this.stepS * 1000, 2)} ms) or check the machine data.`,
         );
       }
     }
     if (!Number.isFinite(this.out.bus.re) || !Number.isFinite(this.out.bus.im)) {
-      throw new Diverged(`The bus voltage could not be solved at t = ${t.toFixed(3)} s: the load is more than the on-line sets can carry.`);
+      throw new Diverged(`The bus voltage could not be solved at t = ${formatNumber(t, 3)} s: the load is more than the on-line sets can carry.`);
     }
   }
 
@@ -553,9 +557,9 @@ class Run implements Simulation {
       warnings.push(`The bus solve did not fully converge in ${out.unconverged} evaluation(s): treat the voltages around those instants with care.`);
     if (!out.anyOnline) warnings.push('No set is on line at the end of the run: the bus is dead.');
     if (this.lowVEpisodes > 0) {
-      const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${this.lowVStartS.toFixed(2)} s).` : '';
+      const still = this.lowVStartS !== null ? ` Load is still not served at the end of the run (since t = ${formatNumber(this.lowVStartS, 2)} s).` : '';
       warnings.push(
-        `Load was not served for ${this.lowVTotalS.toFixed(2)} s in all (bus dead, or below ${(this.m.breakPU * 100).toFixed(0)} % voltage where constant-power and constant-current loads draw as constant impedance): up to ${this.maxUnservedKW.toFixed(0)} kW, ${(this.unservedKWs / 3600).toFixed(2)} kWh in all.${still}`,
+        `Load was not served for ${formatNumber(this.lowVTotalS, 2)} s in all (bus dead, or below ${formatNumber(this.m.breakPU * 100, 0)} % voltage where constant-power and constant-current loads draw as constant impedance): up to ${formatNumber(this.maxUnservedKW, 0)} kW, ${formatNumber(this.unservedKWs / 3600, 2)} kWh in all.${still}`,
       );
     }
     const metrics = computeMetrics({

@@ -23,6 +23,7 @@ import { iecPeakFactor, peakTorqueFactor } from './closing-surge';
 import { inWindow, setUpClosingMap } from './closing-map-grid';
 import type { ClosingMapJob } from './closing-map-grid';
 import { wrapAngleDeg } from './phasor';
+import { formatNumber } from '../../../shared-types';
 
 /** Integration step of the cell runs, ms (the simulator's default step). */
 export const TIME_DOMAIN_STEP_MS = 1;
@@ -121,8 +122,8 @@ export function timeDomainClosingMapJob(req: ClosingMapRequest, options: TimeDom
   };
 
   map.note =
-    `First cycle (${(cycleS * 1000).toFixed(1)} ms) of the time-domain model after closing onto the plant's running bus ` +
-    `(${busHz.toFixed(3)} Hz, ${rest.voltageV.toFixed(1)} V at rest); ${rule}. Peak = κ √2 × the largest symmetrical current. ` +
+    `First cycle (${formatNumber(cycleS * 1000, 1)} ms) of the time-domain model after closing onto the plant's running bus ` +
+    `(${formatNumber(busHz, 3)} Hz, ${formatNumber(rest.voltageV, 1)} V at rest); ${rule}. Peak = κ √2 × the largest symmetrical current. ` +
     `The phasor model carries no DC offset, so the peak torque is the closed form (E1 E2 / X)(sin θ + 2 sin(θ/2)) at each cell's contact angle. ` +
     `The electromechanical swing after the surge is not mapped (simulate a close in the Transients view).`;
   const cell = { maxA: 0, torquePU: 0, steps: 0 };

@@ -12,6 +12,7 @@ import { phasorDifference, wrapAngleDeg } from './phasor';
 import { listSyncPresets } from './presets';
 import { advanceAngleDeg, angleAtContactDeg, closeCommandAngleDeg, slipPeriodS, timeToAngleS, windowOpenS, windowTiming } from './slip-timing';
 import { syncBasis } from './sync-basis';
+import { formatAngleDeg } from '../../../shared-types';
 
 /** Where the limits came from, in words: the preset's standard and clause, or user-defined (edited from a preset). */
 function limitsSource(c: SyncCase): string {
@@ -65,12 +66,12 @@ export function evaluateSync(c: SyncCase): SyncResult {
   if (bothLive) {
     if (outcome.permissive && Math.abs(contact) > L.angleDeg) {
       warnings.push(
-        `Closed now, the contacts touch at ${contact.toFixed(1)}° (the set gains ${advance.toFixed(1)}° during the ${c.breakerClosingMs} ms closing time), outside the ±${L.angleDeg}° window.`,
+        `Closed now, the contacts touch at ${formatAngleDeg(contact)} (the set gains ${formatAngleDeg(advance)} during the ${c.breakerClosingMs} ms closing time), outside the ±${L.angleDeg}° window.`,
       );
     }
     if (advance > L.angleDeg) {
       warnings.push(
-        `At this slip the advance angle (${advance.toFixed(1)}°) is larger than the ±${L.angleDeg}° window: no close the sync-check permits can land at 0°.`,
+        `At this slip the advance angle (${formatAngleDeg(advance)}) is larger than the ±${L.angleDeg}° window: no close the sync-check permits can land at 0°.`,
       );
     }
     if (slipHz === 0 && angleNowDeg !== 0) warnings.push('Zero slip: the phase angle stands still and will not come round to 0° by itself.');

@@ -4,6 +4,7 @@
  * options. Every failed check becomes a reason, in words.
  */
 import type { DeadPermissives, SyncCheck, SyncLimits } from '../../../shared-types';
+import { formatNumber, formatSigned } from '../../../shared-types';
 
 /**
  * Dead-bus / dead-line defaults: neither permitted; live above 80 %, dead below 25 % of the base voltage.
@@ -35,11 +36,8 @@ export interface SyncCheckOutcome {
   deadLineClose: boolean;
 }
 
-/** Signed number with fixed decimals ("+0.25", "−3.0"); never NaN in a message. */
-function signed(v: number, decimals: number): string {
-  const s = Math.abs(v).toFixed(decimals);
-  return Number(s) === 0 ? s : v > 0 ? `+${s}` : `−${s}`;
-}
+/** Signed number with fixed decimals ("+0.25", "−3.0"); never NaN in a message (the shared signed format). */
+const signed = (v: number, decimals: number): string => formatSigned(v, decimals);
 
 /** A side's state by its voltage: live at or above `livePct`, dead at or below `deadPct`, else between. */
 export type SideState = 'live' | 'dead' | 'between';
@@ -137,8 +135,8 @@ export function syncCheck(x: SyncCheckInput): SyncCheckOutcome {
     checks.push(...liveChecks(x));
   } else {
     checks.push(na('slip', 'Hz', notNeeded), na('angle', '°', notNeeded), na('voltage', '%', notNeeded));
-    const busTxt = `${x.busPct.toFixed(1)} %`;
-    const incTxt = `${x.incomingPct.toFixed(1)} %`;
+    const busTxt = `${formatNumber(x.busPct, 1)} %`;
+    const incTxt = `${formatNumber(x.incomingPct, 1)} %`;
     if (bus === 'between' || inc === 'between') {
       const which = bus === 'between' ? `The bus voltage (${busTxt} of base)` : `The incoming voltage (${incTxt} of base)`;
       checks.push({

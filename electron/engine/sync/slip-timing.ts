@@ -4,10 +4,11 @@
  *
  * The incoming set's phase angle relative to the bus moves at `360 s` degrees per second, `s = f_in − f_bus`.
  */
-import { angleAfterDeg, wrapAngleDeg } from './phasor';
+import { wrapAngleDeg } from './phasor';
 
 // The advance-angle law has one home, shared with the renderer (shared-types/laws.ts); the engine re-exports it here.
 export { advanceAngleDeg } from '../../../shared-types/laws';
+export { angleAtContactDeg, closeCommandAngleDeg } from '../../../shared-types/angle';
 
 /** Slip period `1 / |s|`, s; null at zero slip (the angle never moves). */
 export function slipPeriodS(slipHz: number): number | null {
@@ -52,14 +53,4 @@ export function windowTiming(angleNowDeg: number, windowDeg: number, slipHz: num
   if (openNow) return { openNow, opensInS: 0, closesInS: timeToAngleS(a, exit, slipHz) };
   const opensInS = timeToAngleS(a, entry, slipHz)!;
   return { openNow, opensInS, closesInS: opensInS + closesAfterEntry };
-}
-
-/** Phase angle at which to issue the close command so contact lands at 0°: `−360 s t`, wrapped, degrees. */
-export function closeCommandAngleDeg(slipHz: number, breakerClosingMs: number): number {
-  return wrapAngleDeg(-360 * slipHz * (breakerClosingMs / 1000));
-}
-
-/** Angle at contact for a close command issued at `angleDeg`: `angle + 360 s t`, wrapped, degrees. */
-export function angleAtContactDeg(angleDeg: number, slipHz: number, breakerClosingMs: number): number {
-  return angleAfterDeg(angleDeg, slipHz, breakerClosingMs / 1000);
 }

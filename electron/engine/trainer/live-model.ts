@@ -12,7 +12,7 @@
  */
 import type { TrainerInputs, TrainerMachine, TrainerState } from '../../../shared-types';
 import { InvalidInput } from '../errors';
-import { wrapAngleDeg } from '../sync/phasor';
+import { angleAfterDeg } from '../sync/phasor';
 
 /** Raise/lower rate of the speed reference while a control is held, Hz/s. */
 export const SPEED_RAISE_HZ_PER_S = 0.2;
@@ -110,7 +110,7 @@ export function stepTrainer(state: TrainerState, inputs: TrainerInputs, dtS: num
     emf += h * dEmf;
     t += h;
     fBus = busFrequencyAt(s, t);
-    angle = wrapAngleDeg(angle + 360 * (speedPU * fr - fBus) * h);
+    angle = angleAfterDeg(angle, speedPU * fr - fBus, h);
   }
 
   s.tS = t;

@@ -13,8 +13,10 @@ import { DEAD_BUS_CLOSE_LIMITS, MACHINE_STANDARD_WINDOW } from './levels';
 import { breakerActualMs, governorDroopPU } from './live-model';
 import { judgePass } from './pass';
 import { wrapAngleDeg } from '../sync/phasor';
+import { advanceAngleDeg } from '../sync/slip-timing';
+import { formatNumber } from '../../../shared-types';
 
-const f = (v: number, d: number): string => (Object.is(Number(v.toFixed(d)), -0) ? (0).toFixed(d) : v.toFixed(d));
+const f = (v: number, d: number): string => formatNumber(v, d);
 const signed = (v: number, d: number): string => (v > 0 ? '+' : '') + f(v, d);
 
 /** A copy of `state` closed at the corner of the machine standard's window (+10°, +5 %, +0.067 Hz), running light. */
@@ -80,7 +82,7 @@ function faultSentences(state: TrainerState): string[] {
     const s = c ? c.slipHz : 0;
     out.push(
       `The breaker took ${f(breakerActualMs(state), 0)} ms, ${f(fault.breakerSlowMs, 0)} ms slower than its ${f(set, 0)} ms setting: ` +
-        `at this slip the angle moved ${f(Math.abs(360 * s * (fault.breakerSlowMs / 1000)), 1)}° more than the advance the setting allows for.`,
+        `at this slip the angle moved ${f(advanceAngleDeg(s, fault.breakerSlowMs), 1)}° more than the advance the setting allows for.`,
     );
   }
   if (fault.wrongWindow && !state.level.mustSetWindow) {

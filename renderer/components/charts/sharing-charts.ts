@@ -4,9 +4,10 @@
  * datasets back). Every set keeps its colour, dash and point shape in every chart.
  */
 import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, TooltipItem } from 'chart.js';
-import type { LoadSweep, Plant, SharingResult } from '../../../shared-types';
+import type { LoadSweep, Plant, PlantDescription, SharingResult } from '../../../shared-types';
+import { formatNumber } from '../../../shared-types';
 import { hLine } from './annotations';
-import { characteristicPoints, kVARBase, niceRange, paddedRange, reactiveDroopLine, speedDroopLine } from './droop-lines';
+import { characteristicPoints, characteristicsOf, niceRange, paddedRange } from './droop-lines';
 import type { Characteristic, XY } from './droop-lines';
 import { niceBounds, roundTicks } from './nice-scale';
 import { hatch, seriesStyle, withAlpha } from './series-style';
@@ -14,7 +15,7 @@ import type { ChartTheme } from './theme';
 
 type Scatter = ChartDataset<'scatter', XY[]>;
 
-const fix = (v: number, d: number) => (Number.isFinite(v) ? v.toFixed(d) : '—');
+const fix = formatNumber;
 
 function axis(theme: ChartTheme, title: string, extra: ScaleOptions<'linear'> | object = {}): ScaleOptions<'linear'> {
   return {
@@ -51,12 +52,13 @@ function setDatasets(
   yHi: number,
   point: XY | null,
   theme: ChartTheme,
+  kW = 0,
 ): Scatter[] {
   const st = seriesStyle(styleIndex, theme);
   const datasets: Scatter[] = [
     {
       label: `${setId} ${what}`,
-      data: characteristicPoints(c, yLo, yHi),
+      data: characteristicPoints(c, yLo, yHi, kW),
       showLine: true,
       borderColor: st.color,
       backgroundColor: st.color,
@@ -117,15 +119,15 @@ function droopScatter(
 }
 
 /**
- * Speed-droop lines: frequency against kW for each online set, its operating point on
- * the line, and the common bus frequency drawn across.
+ * Speed-droop lines: frequency against kW for each online set (the engine's characteristics in `description`), its
+ * operating point on the line, and the common bus frequency drawn across.
  */
-export function speedDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme): ChartConfiguration {
+export function speedDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme, description: PlantDescription | null): ChartConfiguration {
   const busHz = result?.bus.frequencyHz;
   const online = plant.sets.map((s, i) => ({ s, i })).filter(({ s }) => s.online);
-  const lines = online.map(({ s }) => speedDroopLine(s, plant));
+  const lines = online.map(({ s }) => characteristicsOf(description, s.id)?.speed);
   const ys: number[] = [plant.ratedFrequencyHz];
-  for (const c of lines) if (c.kind === 'segment') ys.push(c.points[0].y, c.points[1].y);
+  for (const c of lines) if (c?.kind === 'segment') ys.push(c.points[0].y, c.points[1].y);
   if (busHz !== undefined) ys.push(busHz);
   const [yLo, yHi] = niceRange(paddedRange(ys, 0.04, 0.5));
   const datasets: Scatter[] = [];
@@ -146,18 +148,15 @@ export function speedDroopChart(plant: Plant, result: SharingResult | null, them
 }
 
 /**
- * Reactive-droop lines: terminal voltage against kVAR for each online set, its operating
- * point (kVAR, terminal V), and the bus voltage drawn across.
+ * Reactive-droop lines: terminal voltage against kVAR for each online set (the engine's characteristics in
+ * `description`), its operating point (kVAR, terminal V), and the bus voltage drawn across.
  */
-export function reactiveDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme): ChartConfiguration {
+export function reactiveDroopChart(plant: Plant, result: SharingResult | null, theme: ChartTheme, description: PlantDescription | null): ChartConfiguration {
   const busV = result?.bus.voltageV;
   const online = plant.sets.map((s, i) => ({ s, i })).filter(({ s }) => s.online);
-  const prepared = online.map(({ s, i }) => {
-    const r = result?.sets.find((x) => x.id === s.id);
-    const qb = kVARBase(s);
-    const from = Math.min(-0.3 * qb, r ? r.kVAR * 1.1 : 0);
-    const to = Math.max(qb, r ? r.kVAR * 1.1 : 0);
-    return { s, i, r, c: reactiveDroopLine(s, plant, from, to, r?.kW ?? 0) };
+  const prepared = online.flatMap(({ s, i }) => {
+    const c = characteristicsOf(description, s.id)?.voltage;
+    return c ? [{ s, i, r: result?.sets.find((x) => x.id === s.id), c }] : [];
   });
   const ys: number[] = [plant.ratedVoltageV];
   for (const p of prepared) {
@@ -177,7 +176,7 @@ export function reactiveDroopChart(plant: Plant, result: SharingResult | null, t
           : mode === 'voltage'
             ? 'voltage control'
             : `PF ${s.regulator.pf}`;
-    datasets.push(...setDatasets(s.id, what, i, c, yLo, yHi, r ? { x: r.kVAR, y: r.terminalV } : null, theme));
+    datasets.push(...setDatasets(s.id, what, i, c, yLo, yHi, r ? { x: r.kVAR, y: r.terminalV } : null, theme, r?.kW ?? 0));
   }
   return droopScatter(
     theme,

@@ -1,11 +1,12 @@
 /**
  * Chart colours read from the app's CSS variables (`renderer/styles/base.css`), so charts
- * follow the light and dark themes. `useChartTheme()` re-reads them when the system
+ * follow the light and dark themes; the light values are the shared `CHART_PALETTE` (also the report's). `useChartTheme()` re-reads them when the system
  * theme changes.
  */
 import { onBeforeUnmount, shallowRef, watch } from 'vue';
 import { themeInUse } from '../../theme-mode';
 import type { ShallowRef } from 'vue';
+import { CHART_PALETTE } from '../../../shared-types';
 
 /** The colours a chart needs. */
 export interface ChartTheme {
@@ -23,15 +24,15 @@ export interface ChartTheme {
 
 /** The light theme's values, used where CSS variables cannot be read (tests). */
 const FALLBACK: ChartTheme = {
-  fg: '#1d2329',
-  muted: '#5b6670',
-  grid: '#d4d9de',
-  panel: '#ffffff',
-  accent: '#1f6f8b',
-  good: '#1b7a43',
-  warn: '#8a5a00',
-  bad: '#b02a2a',
-  series: ['#1f6f8b', '#a85a12', '#6b4c9a', '#2e7d32', '#8d2f4f'],
+  fg: CHART_PALETTE.fg,
+  muted: CHART_PALETTE.muted,
+  grid: CHART_PALETTE.grid,
+  panel: CHART_PALETTE.panel,
+  accent: CHART_PALETTE.accent,
+  good: CHART_PALETTE.good,
+  warn: CHART_PALETTE.warn,
+  bad: CHART_PALETTE.bad,
+  series: [...CHART_PALETTE.series],
 };
 
 /** Reads the theme from the document's CSS variables. */

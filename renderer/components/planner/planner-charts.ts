@@ -3,13 +3,12 @@
  * bus across the load range against the band, and a histogram of one tolerance figure. Pure.
  */
 import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
-import type { Band, Distribution, PlanCheck, Plant } from '../../../shared-types';
-import { kVARBase } from '../../../shared-types';
-import { reactiveDroopLine, speedDroopLine } from '../charts/droop-lines';
+import type { Band, Distribution, PlanCheck, Plant, PlanResult } from '../../../shared-types';
 import type { XY } from '../charts/droop-lines';
 import { hLine } from '../charts/annotations';
 import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
+import { formatNumber } from '../../../shared-types';
 
 function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
   return {
@@ -23,20 +22,19 @@ function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
 
 const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
 
-/** Droop lines of the online sets, now (thin, faded) and proposed (heavy). */
-export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, proposed: Plant, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
+/** Droop lines of the online sets, now (thin, faded) and proposed (heavy): the plan's characteristics of each set. */
+export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, plan: PlanResult, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
   const datasets: ChartDataset<'scatter', XY[]>[] = [];
   now.sets.forEach((s, i) => {
     if (!s.online) return;
     const st = seriesStyle(i, theme);
-    for (const [plant, when] of [
-      [now, 'now'],
-      [proposed, 'proposed'],
+    for (const [lines, when] of [
+      [plan.characteristics.current, 'now'],
+      [plan.characteristics.proposal, 'proposed'],
     ] as const) {
-      const set = plant.sets[i]!;
-      const qTop = kVARBase(set.ratedKVA, set.ratedPF);
-      const c = kind === 'speed' ? speedDroopLine(set, plant) : reactiveDroopLine(set, plant, 0, qTop);
-      if (c.kind !== 'segment') continue;
+      const set = lines[i];
+      const c = set && (kind === 'speed' ? set.speed : set.voltage);
+      if (!c || c.kind !== 'segment') continue;
       datasets.push({
         label: `${s.id} ${when}`,
         data: c.points,
@@ -116,8 +114,8 @@ export function busAcrossChart(
         legend: legend(theme),
         annotation: {
           annotations: {
-            lo: edge(band.min, `band min ${band.min.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
-            hi: edge(band.max, `band max ${band.max.toFixed(quantity === 'frequency' ? 2 : 1)} ${unit}`),
+            lo: edge(band.min, `band min ${formatNumber(band.min, quantity === 'frequency' ? 2 : 1)} ${unit}`),
+            hi: edge(band.max, `band max ${formatNumber(band.max, quantity === 'frequency' ? 2 : 1)} ${unit}`),
           },
         },
       },
@@ -127,7 +125,7 @@ export function busAcrossChart(
 
 /** A histogram of one tolerance figure, with its 5th and 95th percentiles marked. */
 export function histogramChart(d: Distribution, title: string, digits: number, theme: ChartTheme): ChartConfiguration<'bar', number[], string> {
-  const labels = d.counts.map((_, k) => ((d.edges[k]! + d.edges[k + 1]!) / 2).toFixed(digits));
+  const labels = d.counts.map((_, k) => formatNumber((d.edges[k]! + d.edges[k + 1]!) / 2, digits));
   return {
     type: 'bar',
     data: {

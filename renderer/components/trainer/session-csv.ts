@@ -3,7 +3,7 @@
  * `comment.char='#'`), a `#` line naming the set and the session's pass count and mean
  * score, then one row per attempt with its score and whether it passed. Pure.
  */
-import { CSV_CAUTION_LINE } from '../../../shared-types';
+import { CSV_CAUTION_LINE, formatNumber } from '../../../shared-types';
 import type { TrainerAttempt } from '../../../shared-types';
 import { toCsv } from '../report/download';
 
@@ -48,6 +48,6 @@ export function sessionCsv(setName: string, attempts: readonly TrainerAttempt[])
   ]);
   const passed = attempts.filter((a) => a.passed).length;
   const mean = attempts.length ? attempts.reduce((s, a) => s + a.score, 0) / attempts.length : 0;
-  const summary = `# Set "${setName.replace(/[\r\n]/g, ' ')}": ${attempts.length} attempt${attempts.length === 1 ? '' : 's'}, ${passed} passed, mean score ${mean.toFixed(1)}`;
+  const summary = `# Set "${setName.replace(/[\r\n]/g, ' ')}": ${attempts.length} attempt${attempts.length === 1 ? '' : 's'}, ${passed} passed, mean score ${formatNumber(mean, 1)}`;
   return `${CSV_CAUTION_LINE}\r\n${summary}\r\n${toCsv(SESSION_CSV_COLUMNS, rows)}`;
 }

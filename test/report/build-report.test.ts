@@ -1,9 +1,9 @@
 import { describe, it, expect, beforeAll } from 'vitest';
-import { dispatch } from '../../../electron/handlers';
-import { edgeCase } from '../../../electron/engine/report';
-import type { BuildReportRequest, ProjectScenario, ProjectSyncSettings, ReportResult, ReportTable } from '../../../shared-types';
-import { demoPlant } from '../../helpers/plants';
-import { expectClose } from '../../helpers/expect-close';
+import { dispatch } from '../../electron/handlers';
+import { edgeCase } from '../../electron/engine/report';
+import type { BuildReportRequest, ProjectScenario, ProjectSyncSettings, ReportResult, ReportTable } from '../../shared-types';
+import { demoPlant } from '../helpers/plants';
+import { expectClose } from '../helpers/expect-close';
 
 const ctx = () => ({ progress: () => undefined, signal: new AbortController().signal });
 

@@ -1,12 +1,10 @@
 /** Text helpers of the report: HTML escaping and number formatting that never prints NaN. */
 
-/** Escapes the five HTML-special characters so user text (names, ids) cannot become markup. */
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
-}
+/** HTML escaping (the shared one, in shared-types/presentation.ts). */
+export { escapeHtml } from '../../shared-types/presentation';
 
 /** A number with fixed decimals; blank values and non-finite numbers print as an em dash (the shared format). */
-export { formatNumber } from '../../../shared-types/presentation';
+export { formatNumber } from '../../shared-types/presentation';
 
 /** A file-name-safe stem from free text: lower case, ASCII letters, digits and dashes. */
 export function slug(text: string): string {

@@ -3,8 +3,12 @@
  * dash pattern and marker shape (legible in print and for colour-blind readers), optional
  * reference lines. Pure string building: no DOM.
  */
+import { CHART_PALETTE } from '../../shared-types';
 import { escapeHtml, formatNumber } from './format';
 import { linearScale, niceTicks, tickDecimals } from './svg-axes';
+
+/** The shared chart palette (shared-types/presentation.ts). */
+const C = CHART_PALETTE;
 
 /** Marker shapes, assigned with the series so shape alone tells series apart. */
 export type MarkerShape = 'circle' | 'square' | 'triangle' | 'diamond' | 'cross';
@@ -43,7 +47,7 @@ export interface LineChartSpec {
 }
 
 /** Print-safe colours (the app's light palette) and dash patterns, cycled together. */
-export const SERIES_COLOURS = ['#1f6f8b', '#a85a12', '#6b4c9a', '#2e7d32', '#8d2f4f', '#5b6670'] as const;
+export const SERIES_COLOURS = [...CHART_PALETTE.series, CHART_PALETTE.muted] as const;
 export const SERIES_DASHES = ['', '7 4', '2 3', '9 3 2 3', '4 2', '12 4'] as const;
 export const SERIES_MARKERS: readonly MarkerShape[] = ['circle', 'square', 'triangle', 'diamond', 'cross'];
 
@@ -99,28 +103,28 @@ export function lineChartSvg(spec: LineChartSpec): { svg: string; widthPx: numbe
   const out: string[] = [];
   out.push(
     `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${escapeHtml(spec.title)}" font-family="system-ui, Arial, sans-serif" font-size="11">`,
-    `<rect x="0" y="0" width="${width}" height="${height}" fill="#ffffff"/>`,
-    `<text x="${m.left}" y="18" font-size="13" font-weight="600" fill="#1d2329">${escapeHtml(spec.title)}</text>`,
+    `<rect x="0" y="0" width="${width}" height="${height}" fill="${C.panel}"/>`,
+    `<text x="${m.left}" y="18" font-size="13" font-weight="600" fill="${C.fg}">${escapeHtml(spec.title)}</text>`,
   );
   for (const v of yt.ticks) {
-    out.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${p(sy(v))}" y2="${p(sy(v))}" stroke="#e3e7ea"/>`);
-    out.push(`<text x="${m.left - 6}" y="${p(sy(v) + 3.5)}" text-anchor="end" fill="#5b6670">${formatNumber(v, yd)}</text>`);
+    out.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${p(sy(v))}" y2="${p(sy(v))}" stroke="${C.gridLine}"/>`);
+    out.push(`<text x="${m.left - 6}" y="${p(sy(v) + 3.5)}" text-anchor="end" fill="${C.muted}">${formatNumber(v, yd)}</text>`);
   }
   for (const v of xt.ticks) {
-    out.push(`<line x1="${p(sx(v))}" x2="${p(sx(v))}" y1="${m.top}" y2="${height - m.bottom}" stroke="#eef1f3"/>`);
-    out.push(`<text x="${p(sx(v))}" y="${height - m.bottom + 15}" text-anchor="middle" fill="#5b6670">${formatNumber(v, xd)}</text>`);
+    out.push(`<line x1="${p(sx(v))}" x2="${p(sx(v))}" y1="${m.top}" y2="${height - m.bottom}" stroke="${C.gridMinor}"/>`);
+    out.push(`<text x="${p(sx(v))}" y="${height - m.bottom + 15}" text-anchor="middle" fill="${C.muted}">${formatNumber(v, xd)}</text>`);
   }
-  out.push(`<rect x="${m.left}" y="${m.top}" width="${width - m.left - m.right}" height="${height - m.top - m.bottom}" fill="none" stroke="#9aa6b0"/>`);
-  out.push(`<text x="${(m.left + width - m.right) / 2}" y="${height - m.bottom + 32}" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.xLabel)}</text>`);
+  out.push(`<rect x="${m.left}" y="${m.top}" width="${width - m.left - m.right}" height="${height - m.top - m.bottom}" fill="none" stroke="${C.frame}"/>`);
+  out.push(`<text x="${(m.left + width - m.right) / 2}" y="${height - m.bottom + 32}" text-anchor="middle" fill="${C.fg}">${escapeHtml(spec.xLabel)}</text>`);
   out.push(
-    `<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#1d2329">${escapeHtml(spec.yLabel)}</text>`,
+    `<text transform="translate(14 ${(m.top + height - m.bottom) / 2}) rotate(-90)" text-anchor="middle" fill="${C.fg}">${escapeHtml(spec.yLabel)}</text>`,
   );
   for (const r of spec.references ?? []) {
     const [ax1, ay1, ax2, ay2] = r.axis === 'y' ? [m.left, sy(r.value), width - m.right, sy(r.value)] : [sx(r.value), m.top, sx(r.value), height - m.bottom];
-    out.push(`<line x1="${p(ax1)}" y1="${p(ay1)}" x2="${p(ax2)}" y2="${p(ay2)}" stroke="#8a5a00" stroke-width="1" stroke-dasharray="3 3"/>`);
+    out.push(`<line x1="${p(ax1)}" y1="${p(ay1)}" x2="${p(ax2)}" y2="${p(ay2)}" stroke="${C.warn}" stroke-width="1" stroke-dasharray="3 3"/>`);
     const lx = r.axis === 'y' ? width - m.right - 4 : ax1 + 4;
     const ly = r.axis === 'y' ? ay1 - 4 : m.top + 12;
-    out.push(`<text x="${p(lx)}" y="${p(ly)}" text-anchor="${r.axis === 'y' ? 'end' : 'start'}" fill="#8a5a00">${escapeHtml(r.label)}</text>`);
+    out.push(`<text x="${p(lx)}" y="${p(ly)}" text-anchor="${r.axis === 'y' ? 'end' : 'start'}" fill="${C.warn}">${escapeHtml(r.label)}</text>`);
   }
   out.push(`<g>`);
   for (const s of spec.series) {
@@ -163,7 +167,7 @@ export function lineChartSvg(spec: LineChartSpec): { svg: string; widthPx: numbe
         `<line x1="${lx}" x2="${lx + 26}" y1="${ly - 4}" y2="${ly - 4}" stroke="${colour}" stroke-width="1.8"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`,
       );
     if (s.markersOnly || s.markEvery) out.push(markerSvg(at(SERIES_MARKERS, s.style), lx + 13, ly - 4, colour));
-    out.push(`<text x="${lx + 32}" y="${ly}" fill="#1d2329">${escapeHtml(s.label)}</text>`);
+    out.push(`<text x="${lx + 32}" y="${ly}" fill="${C.fg}">${escapeHtml(s.label)}</text>`);
   });
   out.push('</svg>');
   return { svg: out.join(''), widthPx: width, heightPx: height };

@@ -3,10 +3,10 @@
  * scripts, no external resources) with print rules so the browser's print and Electron's
  * printToPDF give clean A4 pages.
  */
-import { CAUTION_AFTER_LABEL } from '../../../shared-types/presentation';
-import type { ReportChart, ReportSection, ReportTable } from '../../../shared-types';
+import { CAUTION_AFTER_LABEL } from '../../shared-types/presentation';
+import type { ReportChart, ReportSection, ReportTable } from '../../shared-types';
 import { escapeHtml, formatNumber } from './format';
-import type { ReportData } from './report-data';
+import type { ReportData } from '../engine/report';
 import { isSyncPart } from './report-tables';
 import { CAUTIONS, DEFINITIONS } from './report-text';
 

@@ -1,42 +1,25 @@
 /**
  * The report's charts as SVG: the speed-droop and reactive-droop lines of every set with the
  * operating points of the sharing table, the closing map (surge and first-cycle peak torque), and each
- * scenario's frequency and voltage. The droop laws themselves live in shared-types/laws.ts.
+ * scenario's frequency and voltage. The droop lines are the engine's characteristics of each set
+ * (`describePlant`, the same lines the app's charts draw); nothing here computes a law.
  */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../../shared-types';
-import type { GenSet, Plant, ReportChart, SimulationResult } from '../../../shared-types';
-import { kVARBase, reactiveDroopV, speedDroopHz } from '../../../shared-types';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL } from '../../shared-types';
+import type { Plant, ReportChart, SimulationResult, SpeedCharacteristic, VoltageCharacteristic } from '../../shared-types';
 import { heatMapSvg } from './svg-heat-map';
 import { lineChartSvg } from './svg-line-chart';
 import type { ChartSeries } from './svg-line-chart';
-import type { ReportData } from './report-data';
+import type { ReportData } from '../engine/report';
 import { isSyncPart } from './report-tables';
 
 /**
- * A set's speed-droop line, frequency (Hz) against output (kW), from no load to rated kW:
- * droop `f = noLoadHz − droopPct/100 · fr · P / ratedKW`; isochronous holds `setpointHz`;
- * base load is a vertical line at `baseKW` (it holds kW, whatever the frequency).
+ * A set's characteristic as an SVG series (x, y lists): the engine's segment as given; a base-load set's vertical over
+ * ±3 % of `ratedY` around it; none for a power-factor set (it holds kVAR = kW tan φ, no line in the V–kVAR plane).
  */
-export function speedDroopLine(set: GenSet, ratedHz: number): { kW: number[]; hz: number[] } {
-  const g = set.governor;
-  if (g.mode === 'baseload') return { kW: [g.baseKW, g.baseKW], hz: [ratedHz * 0.97, ratedHz * 1.03] };
-  if (g.mode === 'isochronous') return { kW: [0, set.ratedKW], hz: [g.setpointHz, g.setpointHz] };
-  const at = (kW: number) => speedDroopHz(g.noLoadHz, g.droopPct, ratedHz, set.ratedKW, kW);
-  return { kW: [0, set.ratedKW], hz: [at(0), at(set.ratedKW)] };
-}
-
-/**
- * A set's reactive-droop line, terminal voltage (V) against kVAR, from 30 % of `Qbase` leading
- * to `Qbase` lagging: `V = noLoadV − droopPct/100 · Vr · Q / Qbase`, `Qbase = kVA·√(1 − PF²)`.
- * Voltage and cross-current regulators hold `setpointV`; power-factor control has no such line.
- */
-export function reactiveDroopLine(set: GenSet, ratedV: number): { kVAR: number[]; v: number[] } | null {
-  const r = set.regulator;
-  const qBase = kVARBase(set.ratedKVA, set.ratedPF);
-  const q = [-0.3 * qBase, qBase];
-  if (r.mode === 'power-factor') return null;
-  if (r.mode !== 'reactive-droop') return { kVAR: q, v: [r.setpointV, r.setpointV] };
-  return { kVAR: q, v: q.map((x) => reactiveDroopV(r.noLoadV, r.droopPct, ratedV, qBase, x)) };
+export function characteristicSeries(c: SpeedCharacteristic | VoltageCharacteristic, ratedY: number): { x: number[]; y: number[] } | null {
+  if (c.kind === 'segment') return { x: c.points.map((p) => p.x), y: c.points.map((p) => p.y) };
+  if (c.kind === 'vertical') return { x: [c.x, c.x], y: [ratedY * 0.97, ratedY * 1.03] };
+  return null;
 }
 
 function chart(id: string, built: { svg: string; widthPx: number; heightPx: number }, title: string): ReportChart {
@@ -49,15 +32,16 @@ function droopCharts(d: ReportData): ReportChart[] {
   const speed: ChartSeries[] = [];
   const reactive: ChartSeries[] = [];
   plant.sets.forEach((set, i) => {
-    const line = speedDroopLine(set, plant.ratedFrequencyHz);
-    speed.push({ label: `${set.id} ${set.governor.mode}`, x: line.kW, y: line.hz, style: i });
+    const lines = d.description.sets[i]!.characteristics;
+    const line = characteristicSeries(lines.speed, plant.ratedFrequencyHz);
+    if (line) speed.push({ label: `${set.id} ${set.governor.mode}`, ...line, style: i });
     const ops = solved.flatMap((p) => {
       const s = p.result!.sets.find((x) => x.id === set.id);
       return s?.online ? [{ kW: s.kW, kVAR: s.kVAR, terminalV: s.terminalV, hz: p.result!.bus.frequencyHz }] : [];
     });
     speed.push({ label: `${set.id} operating points`, x: ops.map((o) => o.kW), y: ops.map((o) => o.hz), style: i, markersOnly: true });
-    const rl = reactiveDroopLine(set, plant.ratedVoltageV);
-    if (rl) reactive.push({ label: `${set.id} ${set.regulator.mode}`, x: rl.kVAR, y: rl.v, style: i });
+    const rl = characteristicSeries(lines.voltage, plant.ratedVoltageV);
+    if (rl) reactive.push({ label: `${set.id} ${set.regulator.mode}`, ...rl, style: i });
     reactive.push({ label: `${set.id} operating points`, x: ops.map((o) => o.kVAR), y: ops.map((o) => o.terminalV), style: i, markersOnly: true });
   });
   return [

@@ -1,7 +1,8 @@
 import { describe, it, expect } from 'vitest';
-import { formatNumber, heatMapSvg, lineChartSvg, niceTicks, reactiveDroopLine, speedDroopLine } from '../../../electron/engine/report';
-import { demoPlant } from '../../helpers/plants';
-import { expectClose } from '../../helpers/expect-close';
+import { characteristicSeries, formatNumber, heatMapSvg, lineChartSvg, niceTicks } from '../../electron/report';
+import { setCharacteristics } from '../../electron/engine';
+import { demoPlant } from '../helpers/plants';
+import { expectClose } from '../helpers/expect-close';
 
 describe('niceTicks', () => {
   it('covers the range with 1-2-2.5-5 steps', () => {
@@ -21,19 +22,24 @@ describe('formatNumber', () => {
 });
 
 describe('droop lines', () => {
-  it('speed droop line falls by droopPct of rated frequency from no load to rated kW', () => {
-    const g1 = demoPlant().sets[0]!;
-    const line = speedDroopLine(g1, 50);
-    // 4 % droop on 50 Hz, no-load 51.2 Hz → 51.2 − 0.04 × 50 = 49.2 Hz at 1000 kW (README "Definitions", closed form).
-    expect(line.kW).toEqual([0, 1000]);
-    expectClose(line.hz[1]!, 49.2, { abs: 1e-12 }, 'full-load frequency');
+  // The report draws the engine's characteristics (the same lines as the app's charts), from limit to limit.
+  it('speed droop line falls by droopPct of rated frequency per rated kW, to the overload limit', () => {
+    const plant = demoPlant();
+    const g1 = plant.sets[0]!;
+    const line = characteristicSeries(setCharacteristics(g1, plant).speed, 50)!;
+    // 4 % droop on 50 Hz, no-load 51.2 Hz → 51.2 − 0.04 × 50 × 1.1 = 49.0 Hz at the 1100 kW overload limit (README "Definitions", closed form).
+    expect(line.x).toEqual([-250, 1100]);
+    expectClose(line.y[1]!, 49.0, { abs: 1e-12 }, 'frequency at the overload limit');
+    // At rated kW on the same line: 51.2 − 0.04 × 50 = 49.2 Hz (closed form).
+    expectClose(line.y[0]! + ((line.y[1]! - line.y[0]!) * (1000 - line.x[0]!)) / (line.x[1]! - line.x[0]!), 49.2, { abs: 1e-12 }, 'full-load frequency');
   });
   it('reactive droop line drops droopPct of rated voltage at Qbase', () => {
-    const g1 = demoPlant().sets[0]!;
-    const line = reactiveDroopLine(g1, 400)!;
+    const plant = demoPlant();
+    const g1 = plant.sets[0]!;
+    const line = characteristicSeries(setCharacteristics(g1, plant).voltage, 400)!;
     // Qbase = 1250 × √(1 − 0.8²) = 750 kVAR; 410 − 0.04 × 400 = 394 V at 750 kVAR (README "Definitions", closed form).
-    expectClose(line.kVAR[1]!, 750, { rel: 1e-12 }, 'Qbase');
-    expectClose(line.v[1]!, 394, { abs: 1e-9 }, 'voltage at Qbase');
+    const at750 = line.y[0]! + ((line.y[1]! - line.y[0]!) * (750 - line.x[0]!)) / (line.x[1]! - line.x[0]!);
+    expectClose(at750, 394, { abs: 1e-9 }, 'voltage at Qbase');
   });
 });
 

@@ -1,9 +1,9 @@
 /** The report's tables as data: the HTML prints them, the app exports each as CSV. */
-import { CLOSING_MAP_ANGLE_AXIS_LABEL, PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../../shared-types';
-import { flagWords, isoClassName } from '../../../shared-types/presentation';
-import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../../shared-types';
-import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../sync/slip-timing';
-import type { ReportData, SyncPart } from './report-data';
+import { CLOSING_MAP_ANGLE_AXIS_LABEL, formatNumber, PLANT_DEFAULTS, SET_DEFAULTS, zipShares } from '../../shared-types';
+import { flagWords, isoClassName } from '../../shared-types/presentation';
+import type { ClassCheck, GenSet, PerformanceClass, ReportCell, ReportTable, SimulationMetrics } from '../../shared-types';
+import { advanceAngleDeg, slipPeriodS, windowOpenS } from '../engine';
+import type { ReportData, SyncPart } from '../engine/report';
 
 /** True when the sync section was built (it may still carry a problem of its own). */
 export function isSyncPart(s: ReportData['sync']): s is SyncPart {
@@ -147,7 +147,7 @@ function loadsTable(d: ReportData): ReportTable {
 function sharingBusTable(d: ReportData): ReportTable {
   return {
     id: 'sharing-bus',
-    title: `Bus at each load (load power factor ${d.loadPF.toFixed(2)} lagging for the % points)`,
+    title: `Bus at each load (load power factor ${formatNumber(d.loadPF, 2)} lagging for the % points)`,
     columns: ['Load', 'Load kW', 'Load kVAR', 'Bus frequency (Hz)', 'Bus voltage (V)', 'Notes'],
     decimals: [0, 0, 0, 3, 1, 0],
     rows: d.sharing.map((p) => [
@@ -232,20 +232,20 @@ function syncSettingsTable(s: SyncPart): ReportTable {
       'Surge closing at the window edge',
       e?.closeNow.surgeCurrentA ?? null,
       'A',
-      e ? `${e.closeNow.surgeCurrentPU.toFixed(2)} pu; |ΔV| ${e.closeNow.deltaVPU.toFixed(3)} pu` : '',
+      e ? `${formatNumber(e.closeNow.surgeCurrentPU, 2)} pu; |ΔV| ${formatNumber(e.closeNow.deltaVPU, 3)} pu` : '',
     ],
-    ['Peak with DC offset', e?.closeNow.peakCurrentA ?? null, 'A', e ? `IEC 60909 κ = ${e.closeNow.peakFactor.toFixed(2)}` : ''],
+    ['Peak with DC offset', e?.closeNow.peakCurrentA ?? null, 'A', e ? `IEC 60909 κ = ${formatNumber(e.closeNow.peakFactor, 2)}` : ''],
     [
       'Torque step at the window edge',
       e?.closeNow.torqueStepKNm ?? null,
       'kN·m',
-      e ? `${e.closeNow.torqueStepPU.toFixed(2)} pu; steady synchronizing torque (E1 E2 / X) sin θ` : '',
+      e ? `${formatNumber(e.closeNow.torqueStepPU, 2)} pu; steady synchronizing torque (E1 E2 / X) sin θ` : '',
     ],
     [
       'Peak air-gap torque at the window edge',
       e?.closeNow.peakTorqueKNm ?? null,
       'kN·m',
-      e ? `${e.closeNow.peakTorquePU.toFixed(2)} pu; first cycle with the DC offset, (E1 E2 / X)(sin θ + 2 sin(θ/2))` : '',
+      e ? `${formatNumber(e.closeNow.peakTorquePU, 2)} pu; first cycle with the DC offset, (E1 E2 / X)(sin θ + 2 sin(θ/2))` : '',
     ],
     ['Sync-check verdict at the window edge', e ? (e.permissive ? 'permissive' : 'blocked') : null, '', e?.reasons.join('; ') ?? ''],
   ];
@@ -316,7 +316,7 @@ function transientNotes(m: SimulationMetrics, breakPct: number): string {
     notes.push('did not recover into the band around the steady state of the final load within the run');
   if (m.unservedKWh > 0)
     notes.push(
-      `${m.unservedKWh.toFixed(2)} kWh of load not served (bus dead, or below ${breakPct.toFixed(0)} % voltage where constant-power and constant-current loads draw as impedance)`,
+      `${formatNumber(m.unservedKWh, 2)} kWh of load not served (bus dead, or below ${formatNumber(breakPct, 0)} % voltage where constant-power and constant-current loads draw as impedance)`,
     );
   return notes.join('; ');
 }
