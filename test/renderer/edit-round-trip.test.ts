@@ -64,23 +64,31 @@ describe('edit → sharing table', () => {
     expect(sharing.result!.totals.kW).toBeLessThan(0.8 * 2040 * 1.03);
   });
 
-  it('keeps the rated figures’ object when an edit leaves them as they were, and replaces it when a rating changes', async () => {
+  it('keeps the rated figures’ object when an edit leaves them as they were, and replaces it when a droop or a rating changes', async () => {
     const plant = usePlantStore();
     const sharing = useSharingStore();
     await plant.loadDemo();
     await sharing.settled();
     const shown = plant.description;
     expect(shown).not.toBeNull();
-    // A droop changes the sharing, not a rating: the rated table and capability limits have nothing to redraw.
+    // An inertia changes only the transients: the rated table, capability limits and droop lines have nothing to redraw.
+    const inertia = plant.plant!.sets[1]!.machine.inertiaS + 0.5;
+    await plant.edit('sets[1].machine.inertiaS', inertia);
+    await sharing.settled();
+    expect(plant.plant!.sets[1]!.machine.inertiaS).toBe(inertia);
+    expect(plant.description).toBe(shown);
+    // A droop changes the set's speed characteristic (its slope), which the description carries for the droop charts.
     await plant.edit('sets[1].governor.droopPct', 5);
     await sharing.settled();
     expect(plant.plant!.sets[1]!.governor.droopPct).toBe(5);
-    expect(plant.description).toBe(shown);
+    expect(plant.description).not.toBe(shown);
+    const afterDroop = plant.description!;
+    expect(afterDroop.sets[1]!.characteristics).not.toEqual(shown!.sets[1]!.characteristics);
     // A rating does change them (the online kW is the sum of the online sets' ratings).
     const before = shown!.onlineKW;
     await plant.edit('sets[0].ratedKW', plant.plant!.sets[0]!.ratedKW + 100);
     await sharing.settled();
-    expect(plant.description).not.toBe(shown);
+    expect(plant.description).not.toBe(afterDroop);
     expect(plant.description!.onlineKW).toBeCloseTo(before + 100, 9);
   });
 
