@@ -204,7 +204,8 @@ export function evaluatePlant(m: SimModel, y: Float64Array, dy: Float64Array, ou
     let sQZ = 0;
     let sQI = 0;
     let sQP = 0;
-    varying.length = 0;
+    // Emptied only when it holds any: setting `length` calls into the runtime, once a step for nothing otherwise.
+    if (varying.length !== 0) varying.length = 0;
     const loads = m.loads;
     for (let k = 0; k < loads.length; k++) {
       const l = loads[k]!;
