@@ -32,11 +32,17 @@ export function formatNumber(value: number | null | undefined, decimals = 0): st
 
 /**
  * A signed figure ("+1.2", "−0.4", "0.0") for errors and deviations: true minus sign by default; `{ ascii: true }`
- * writes "-0.4" where a readout has always shown the keyboard minus. Zero (and what rounds to it) has no sign.
+ * writes "-0.4" where a readout has always shown the keyboard minus. Zero (and what rounds to it) has no sign, unless
+ * `{ plusAtZero: true }` (an axis whose every tick is signed): then a value of zero or more that rounds to zero is "+0.00".
  */
-export function formatSigned(value: number | null | undefined, decimals = 1, { ascii = false }: { ascii?: boolean } = {}): string {
+export function formatSigned(
+  value: number | null | undefined,
+  decimals = 1,
+  { ascii = false, plusAtZero = false }: { ascii?: boolean; plusAtZero?: boolean } = {},
+): string {
   const s = formatNumber(value, decimals);
-  if (s === '—' || Number(s) === 0) return s;
+  if (s === '—') return s;
+  if (Number(s) === 0) return plusAtZero && value! >= 0 ? `+${s}` : s;
   return s.startsWith('-') ? `${ascii ? '-' : '−'}${s.slice(1)}` : `+${s}`;
 }
 

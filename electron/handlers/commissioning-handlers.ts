@@ -1,12 +1,14 @@
 /**
  * Handlers for commissioning: reading a load-bank test record, fitting the model to it (in
- * rounds, with progress and cancel), and the commissioning record of a set.
+ * rounds, with progress and cancel), and the commissioning record of a set (the engine's rows, then the report
+ * renderer's CSV and HTML).
  */
 import { z } from 'zod';
 import { formatNumber } from '../../shared-types';
-import { buildCommissioningRecord, Cancelled, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
+import { Cancelled, commissioningRecordData, fitTestRecord, inspectTestRecord, MAX_FIT_ITERATIONS, MAX_RECORD_ROWS, parseTestRecord } from '../engine';
 import type { CommissioningRecordRequest, FitRequest, FitResult, ParseRecordRequest } from '../../shared-types';
 import type { HandlerContext, HandlerGroup } from './handler';
+import { renderCommissioningRecord } from '../report';
 import { plantSchema } from '../schemas/plant-schema';
 import { FIT_KEYS, fitResultPrintedSchema, recordColumnFields, recordText, recordUnitFields, testDescriptionFields } from '../schemas/commissioning-schema';
 import { nonNegative, num, text } from '../schemas/schema-kit';
@@ -149,6 +151,6 @@ export const commissioningHandlers: HandlerGroup<'inspectTestRecord' | 'parseTes
   },
   buildCommissioningRecord: {
     schema: commissioningRecordSchema,
-    run: (r) => buildCommissioningRecord(r),
+    run: (r) => renderCommissioningRecord(r, commissioningRecordData(r)),
   },
 };

@@ -28,8 +28,8 @@ import { runClosingMap, runScenario } from './long-jobs';
 import { plantSchema } from '../schemas/plant-schema';
 import { projectScenarioSchema, projectSyncSettingsSchema } from '../schemas/project-schema';
 import { id, num, positive, text } from '../schemas/schema-kit';
-import { scenarioSchema } from './simulation-handlers';
-import { closingMapRequestSchema, syncCaseSchema } from './sync-handlers';
+import { scenarioSchema } from '../schemas/simulation-schema';
+import { closingMapRequestSchema, syncCaseSchema } from '../schemas/sync-schema';
 import { parseOrThrow } from '../schemas/validate';
 
 const requestSchema: z.ZodType<BuildReportRequest> = z.object({

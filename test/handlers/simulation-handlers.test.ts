@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../electron/engine';
 import { dispatch } from '../../electron/handlers';
-import { scenarioSchema } from '../../electron/handlers/simulation-handlers';
+import { scenarioSchema } from '../../electron/schemas/simulation-schema';
 import { demoPlantJson } from '../helpers/plants';
 
 const scenario = (over: Record<string, unknown> = {}) => ({

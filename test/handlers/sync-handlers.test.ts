@@ -1,7 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { plantSchema } from '../../electron/schemas/plant-schema';
 import { dispatch } from '../../electron/handlers';
-import { closingMapRequestSchema, runClosingMap } from '../../electron/handlers/sync-handlers';
+import { runClosingMap } from '../../electron/handlers/sync-handlers';
+import { closingMapRequestSchema } from '../../electron/schemas/sync-schema';
 import type { ClosingMap, Plant, SyncResult } from '../../shared-types';
 import { solveSharing } from '../../electron/engine';
 import { demoPlantJson } from '../helpers/plants';

@@ -1,7 +1,7 @@
 /** Work is bounded: a request over a limit is refused with the limit and how to stay within it. */
 import { describe, it, expect } from 'vitest';
 import { dispatch } from '../../electron/handlers';
-import { MAX_SET_STEPS, MAX_OUTPUT_SET_POINTS } from '../../electron/handlers/simulation-handlers';
+import { MAX_SET_STEPS, MAX_OUTPUT_SET_POINTS } from '../../electron/schemas/simulation-schema';
 import { MAX_SWEEP_SET_POINTS } from '../../electron/handlers/sharing-handlers';
 import { MAX_TOLERANCE_SET_SAMPLES } from '../../electron/handlers/planner-handlers';
 import { TIME_DOMAIN_MAX_CELLS } from '../../electron/engine';

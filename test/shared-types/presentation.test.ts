@@ -38,6 +38,12 @@ describe('number formats', () => {
     expect(formatSigned(1.23, 1)).toBe('+1.2');
     expect(formatSigned(-0.44, 1)).toBe('−0.4');
     expect(formatSigned(-0.01, 1)).toBe('0.0');
+    // An axis whose every tick is signed (the closing map's slip axis): zero or more carries "+", the keyboard minus.
+    expect(formatSigned(0, 2, { ascii: true, plusAtZero: true })).toBe('+0.00');
+    expect(formatSigned(0.0001, 3, { ascii: true, plusAtZero: true })).toBe('+0.000');
+    expect(formatSigned(-0.0001, 3, { ascii: true, plusAtZero: true })).toBe('0.000');
+    expect(formatSigned(-0.25, 2, { ascii: true, plusAtZero: true })).toBe('-0.25');
+    expect(formatSigned(0.25, 2, { ascii: true, plusAtZero: true })).toBe('+0.25');
     expect(formatPF(0.851, true)).toBe('0.85 lag');
     expect(formatPF(0.97, false)).toBe('0.97 lead');
     expect(formatPF(0.9999, false)).toBe('1.00');

@@ -1,11 +1,11 @@
 /**
  * The commissioning record of one set: the settings to dial in (governor, regulator, sync-check,
  * reverse power, protection), the figures measured in the load-bank test beside the model's,
- * the fitted parameters, and the sign-off. A plain engineering record of our own layout, as rows
- * (for the screen), CSV (caution line first, `#`) and self-contained HTML (no scripts).
+ * the fitted parameters. A plain engineering record of our own layout, as rows (for the screen);
+ * its CSV and HTML (with the sign-off and the caution) are written by `electron/report/commissioning-record.ts`.
  */
-import type { ClassCheck, CommissioningRecord, CommissioningRecordRequest, CommissioningRow, PerformanceClass, RecordVerdict } from '../../../shared-types';
-import { CAUTION, CSV_CAUTION_LINE, SET_DEFAULTS, advanceAngleDeg, escapeHtml, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
+import type { ClassCheck, CommissioningRecordRequest, CommissioningRow, PerformanceClass, RecordVerdict } from '../../../shared-types';
+import { SET_DEFAULTS, advanceAngleDeg, fitParameterLabel, formatNumber, isoClassName } from '../../../shared-types';
 import { InvalidInput } from '../errors';
 import { fieldCeiling } from '../simulation/excitation';
 
@@ -45,8 +45,18 @@ function verdictRows(m: RecordVerdict | undefined, model: RecordVerdict | undefi
   ];
 }
 
-/** The record's rows, CSV and HTML. */
-export function buildCommissioningRecord(req: CommissioningRecordRequest): CommissioningRecord {
+/** The record's data: its rows and the set it is of (the CSV and HTML are the report renderer's). */
+export interface CommissioningRecordData {
+  rows: CommissioningRow[];
+  setId: string;
+  /** The set's name, or its id when it has none. */
+  setName: string;
+  ratedKVA: number;
+  ratedKW: number;
+}
+
+/** The record's rows, from the plant, the fit and the test. */
+export function commissioningRecordData(req: CommissioningRecordRequest): CommissioningRecordData {
   const plant = req.plant;
   const set = plant.sets.find((s) => s.id === req.setId);
   if (!set) throw new InvalidInput(`setId: there is no set "${req.setId}" in the plant`);
@@ -127,46 +137,7 @@ export function buildCommissioningRecord(req: CommissioningRecordRequest): Commi
     add(sec, 'RMS error frequency / voltage', '% of rated', `${f(req.fit.residual.frequencyPct, 3)} / ${f(req.fit.residual.voltagePct, 3)}`);
   }
 
-  const so = req.signOff;
-  const title = `Commissioning record — ${set.name || set.id} (${set.id})`;
-  const csvCell = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
-  const csvLines = [CSV_CAUTION_LINE, `# ${title}; plant ${plant.name}; ${req.date}`, 'section,item,unit,setting or model,measured'];
-  for (const row of rows) csvLines.push([row.section, row.item, row.unit, row.model, row.measured].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'commissioned by', '', so.by, ''].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'date', '', so.date, ''].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'remarks', '', so.remarks, ''].map(csvCell).join(','));
-
-  const e = escapeHtml;
-  let body = '';
-  let current = '';
-  for (const row of rows) {
-    if (row.section !== current) {
-      if (current) body += '</tbody></table>';
-      current = row.section;
-      body += `<h2>${e(current)}</h2><table><thead><tr><th>item</th><th>unit</th><th>setting or model</th><th>measured</th></tr></thead><tbody>`;
-    }
-    body += `<tr><td>${e(row.item)}</td><td>${e(row.unit)}</td><td>${e(row.model)}</td><td>${e(row.measured)}</td></tr>`;
-  }
-  if (current) body += '</tbody></table>';
-  const html = `<!doctype html>
-<html lang="en"><head><meta charset="utf-8"><title>${e(title)}</title>
-<style>
-body{font:13px/1.4 system-ui,sans-serif;color:#111;margin:24px;max-width:900px}
-h1{font-size:18px;margin:0 0 4px}h2{font-size:14px;margin:18px 0 4px;border-bottom:1px solid #888}
-table{border-collapse:collapse;width:100%}td,th{border:1px solid #bbb;padding:3px 6px;text-align:left;vertical-align:top}
-th{background:#eee}.caution{border:2px solid #111;padding:6px 8px;margin:10px 0;font-weight:600}
-.sign td{height:28px}@media print{body{margin:10mm}}
-</style></head><body>
-<h1>${e(title)}</h1>
-<p>Plant: ${e(plant.name)} · rated ${f(fr, 0)} Hz, ${f(vr, 0)} V · set ${f(set.ratedKVA, 0)} kVA / ${f(set.ratedKW, 0)} kW · printed ${e(req.date)}</p>
-<p class="caution">Caution: ${e(CAUTION)}</p>
-${body}
-<h2>Sign-off</h2>
-<table class="sign"><tbody><tr><th>commissioned by</th><td>${e(so.by)}</td></tr><tr><th>date</th><td>${e(so.date)}</td></tr><tr><th>remarks</th><td>${e(so.remarks).replace(/\n/g, '<br>')}</td></tr><tr><th>signature</th><td></td></tr></tbody></table>
-<p class="caution">Caution: ${e(CAUTION)}</p>
-</body></html>
-`;
-  return { rows, csv: csvLines.join('\n') + '\n', html };
+  return { rows, setId: set.id, setName: set.name || set.id, ratedKVA: set.ratedKVA, ratedKW: set.ratedKW };
 }
 
 /** Four significant figures, never NaN. */

@@ -5,4 +5,5 @@ export { recordVerdict } from './record-verdict';
 export type { VerdictInput } from './record-verdict';
 export type { FitHooks } from './fit-model';
 export { fitTestRecord, DEFAULT_FIT_ITERATIONS, MAX_FIT_ITERATIONS, DEFAULT_FIT_STEP_MS } from './fit-model';
-export { buildCommissioningRecord } from './commissioning-record';
+export { commissioningRecordData } from './commissioning-record';
+export type { CommissioningRecordData } from './commissioning-record';
