@@ -4,7 +4,7 @@
  * cloning, the autosave, the project parts, the transients' rules.
  */
 export { useCommissioningStore } from './commissioning';
-export { usePlannerStore } from './planner';
+export { hzBandIssues, usePlannerStore } from './planner';
 export { usePlantStore } from './plant';
 export { useProjectStore } from './project';
 export { useReportStore } from './report';

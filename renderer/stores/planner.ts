@@ -52,6 +52,16 @@ export function planInputProblem(hz: Band, v: Band, load: Band, pf: number): str
   return null;
 }
 
+/** The rule each edge of the bus frequency band breaks (`min`, `max` → rule), empty when both can be used. */
+export function hzBandIssues(hz: Band): Partial<Record<'min' | 'max', string>> {
+  const out: Partial<Record<'min' | 'max', string>> = {};
+  if (!Number.isFinite(hz.min)) out.min = 'must be a number';
+  else if (hz.min <= 0) out.min = 'must be above 0 Hz';
+  if (!Number.isFinite(hz.max)) out.max = 'must be a number';
+  else if (!out.min && hz.max <= hz.min) out.max = 'must be above the lowest edge';
+  return out;
+}
+
 /** A sentence for the first tolerance input that cannot be used, or null. */
 export function toleranceInputProblem(t: { speedTolHz: number; voltageTolPct: number; droopTolPct: number; samples: number; seed: number }): string | null {
   if (!(t.speedTolHz >= 0 && t.speedTolHz <= 5)) return 'Speed-setpoint tolerance: enter 0 to 5 Hz.';

@@ -84,6 +84,28 @@ describe('Planner view', () => {
     expect(planInputProblem({ min: 49, max: 51 }, { min: 390, max: 410 }, { min: 0, max: 100 }, 1.3)).toContain('Load power factor');
   });
 
+  it('takes the frequency band through the number inputs and says beside an edge which rule it breaks', async () => {
+    const planner = usePlannerStore();
+    await w.get('[data-test="hz-min"]').setValue('-1');
+    await settle();
+    expect(planner.hzBand.min).toBe(-1);
+    expect(w.get('[data-test="error-hz-min"]').text()).toBe('lowest bus frequency must be above 0 Hz');
+    await w.get('[data-test="hz-min"]').setValue('49');
+    await w.get('[data-test="hz-max"]').setValue('48.5');
+    await settle();
+    expect(planner.hzBand).toEqual({ min: 49, max: 48.5 });
+    expect(w.find('[data-test="error-hz-min"]').exists()).toBe(false);
+    expect(w.get('[data-test="error-hz-max"]').text()).toBe('highest bus frequency must be above the lowest edge');
+    await w.get('[data-test="hz-max"]').setValue('abc');
+    await settle();
+    expect(w.get('[data-test="error-hz-max"]').text()).toBe('highest bus frequency must be a number');
+    expect((w.get('[data-test="hz-max"]').element as HTMLInputElement).value).toBe('abc');
+    await w.get('[data-test="hz-max"]').setValue('51');
+    await settle();
+    expect(planner.hzBand).toEqual({ min: 49, max: 51 });
+    expect(w.find('[data-test="error-hz-max"]').exists()).toBe(false);
+  });
+
   it('marks the largest sensitivity entries in words', async () => {
     await w.get('[data-test="sensitivity"]').trigger('click');
     await settle();

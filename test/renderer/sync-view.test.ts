@@ -103,6 +103,30 @@ describe('SynchronizingView with the engine', () => {
     w.unmount();
   });
 
+  it("draws the closing map at the voltage difference typed, at the case's own when empty, and refuses unreadable text", async () => {
+    await usePlantStore().loadDemo();
+    const sync = useSyncStore();
+    sync.setTurning(false, 0);
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    const asked = vi.spyOn(sync, 'computeMap').mockResolvedValue();
+    const field = w.get('[data-test="map-dv"]');
+    await field.setValue('3.5');
+    await w.get('[data-test="map-compute"]').trigger('click');
+    expect(asked.mock.calls.at(-1)?.[0]).toBe(3.5);
+    await field.setValue('three');
+    await flushPromises();
+    expect(w.get('[data-test="error-map-dv"]').text()).toBe("voltage difference for the map must be a number, or empty for the case's own");
+    await w.get('[data-test="map-compute"]').trigger('click');
+    expect(asked.mock.calls.at(-1)?.[0]).toBe(3.5);
+    await field.setValue('');
+    await flushPromises();
+    expect(w.find('[data-test="error-map-dv"]').exists()).toBe(false);
+    await w.get('[data-test="map-compute"]').trigger('click');
+    expect(asked.mock.calls.at(-1)?.[0]).toBe(undefined);
+    w.unmount();
+  });
+
   it.each([
     ['limit-slip', '-0.2', 'limits.slipHz', 'slip limit must be greater than 0'],
     ['limit-angle', '200', 'limits.angleDeg', 'angle limit must be 180° or less'],

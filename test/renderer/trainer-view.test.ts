@@ -174,6 +174,20 @@ describe('TrainerView driven by key presses', () => {
     expect(trainer.state!.tS).toBe(0);
   });
 
+  it('takes a seed through the number input and refuses one that is not a whole number, keeping the last seed', async () => {
+    const trainer = await setUp(7);
+    await w!.get('[data-test="trainer-seed"]').setValue('2.5');
+    await flushPromises();
+    expect(trainer.seed).toBe(7);
+    expect(w!.get('[data-test="error-trainer-seed"]').text()).toBe('seed must be a whole number, 0 or more');
+    expect((w!.get('[data-test="trainer-seed"]').element as HTMLInputElement).value).toBe('2.5');
+    await w!.get('[data-test="trainer-seed"]').setValue('42');
+    await flushPromises();
+    expect(trainer.seed).toBe(42);
+    expect(w!.find('[data-test="error-trainer-seed"]').exists()).toBe(false);
+    expect(w!.get('[data-test="trainer-repeat"]').text()).toBe('Start seed 42');
+  });
+
   it('repeats the same start from the same seed', async () => {
     const trainer = await setUp(77);
     const first = trainer.state!;

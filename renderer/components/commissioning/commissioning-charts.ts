@@ -3,23 +3,12 @@
  * time (the import preview), the measured trace with the fitted model (and the start values)
  * overlaid, and the residual (measured − model, % of rated). Pure.
  */
-import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
+import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { FitResult, TestRecord } from '../../../shared-types';
 import type { XY } from '../charts/droop-lines';
 import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
-
-function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
-  return {
-    type: 'linear',
-    title: { display: true, text: title, color: theme.fg },
-    ticks: { color: theme.muted },
-    grid: { color: theme.grid },
-    border: { color: theme.grid },
-  } as ScaleOptions<'linear'>;
-}
-
-const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
+import { bottomLegend, linearAxis, STILL_CHART } from '../charts/chart-frame';
 
 function points(t: readonly number[], y: readonly number[]): XY[] {
   return t.map((x, k) => ({ x, y: y[k]! }));
@@ -30,13 +19,11 @@ function config(datasets: ChartDataset<'scatter', XY[]>[], yTitle: string, theme
     type: 'scatter',
     data: { datasets },
     options: {
-      animation: false,
-      responsive: true,
-      maintainAspectRatio: false,
+      ...STILL_CHART,
       parsing: false,
       normalized: true,
-      scales: { x: axis(theme, 'time, s'), y: axis(theme, yTitle) },
-      plugins: { legend: legend(theme) },
+      scales: { x: linearAxis(theme, 'time, s'), y: linearAxis(theme, yTitle) },
+      plugins: { legend: bottomLegend(theme) },
     },
   };
 }

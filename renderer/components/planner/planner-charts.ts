@@ -2,25 +2,14 @@
  * Chart.js configurations of the Planner view: each set's droop line now and as proposed, the
  * bus across the load range against the band, and a histogram of one tolerance figure. Pure.
  */
-import type { ChartConfiguration, ChartDataset, ScaleOptions } from 'chart.js';
+import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { Band, Distribution, PlanCheck, Plant, PlanResult } from '../../../shared-types';
 import type { XY } from '../charts/droop-lines';
 import { hLine } from '../charts/annotations';
 import { seriesStyle, withAlpha } from '../charts/series-style';
 import type { ChartTheme } from '../charts/theme';
+import { bottomLegend, linearAxis, STILL_CHART } from '../charts/chart-frame';
 import { formatNumber } from '../../../shared-types';
-
-function axis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
-  return {
-    type: 'linear',
-    title: { display: true, text: title, color: theme.fg },
-    ticks: { color: theme.muted },
-    grid: { color: theme.grid },
-    border: { color: theme.grid },
-  } as ScaleOptions<'linear'>;
-}
-
-const legend = (theme: ChartTheme) => ({ position: 'bottom' as const, labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } });
 
 /** Droop lines of the online sets, now (thin, faded) and proposed (heavy): the plan's characteristics of each set. */
 export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, plan: PlanResult, theme: ChartTheme): ChartConfiguration<'scatter', XY[]> {
@@ -54,11 +43,9 @@ export function droopLinesChart(kind: 'speed' | 'reactive', now: Plant, plan: Pl
     type: 'scatter',
     data: { datasets },
     options: {
-      animation: false,
-      responsive: true,
-      maintainAspectRatio: false,
-      scales: { x: axis(theme, x), y: axis(theme, y) },
-      plugins: { legend: legend(theme) },
+      ...STILL_CHART,
+      scales: { x: linearAxis(theme, x), y: linearAxis(theme, y) },
+      plugins: { legend: bottomLegend(theme) },
     },
   };
 }
@@ -106,12 +93,10 @@ export function busAcrossChart(
       ],
     },
     options: {
-      animation: false,
-      responsive: true,
-      maintainAspectRatio: false,
-      scales: { x: axis(theme, 'load, % of online rated kW'), y: axis(theme, `bus ${quantity}, ${unit}`) },
+      ...STILL_CHART,
+      scales: { x: linearAxis(theme, 'load, % of online rated kW'), y: linearAxis(theme, `bus ${quantity}, ${unit}`) },
       plugins: {
-        legend: legend(theme),
+        legend: bottomLegend(theme),
         annotation: {
           annotations: {
             lo: edge(band.min, `band min ${formatNumber(band.min, quantity === 'frequency' ? 2 : 1)} ${unit}`),
@@ -133,9 +118,7 @@ export function histogramChart(d: Distribution, title: string, digits: number, t
       datasets: [{ label: 'samples', data: d.counts, backgroundColor: withAlpha(theme.accent, 0.7), borderColor: theme.accent, borderWidth: 1 }],
     },
     options: {
-      animation: false,
-      responsive: true,
-      maintainAspectRatio: false,
+      ...STILL_CHART,
       scales: {
         x: { title: { display: true, text: title, color: theme.fg }, ticks: { color: theme.muted, maxRotation: 0, autoSkip: true }, grid: { display: false } },
         y: { title: { display: true, text: 'samples', color: theme.fg }, ticks: { color: theme.muted }, grid: { color: theme.grid } },
