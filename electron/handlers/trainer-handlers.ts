@@ -1,18 +1,10 @@
 /** Handlers for the synchronizing trainer: levels, start, a frame step, and the verdict of a close. */
 import { z } from 'zod';
 import { judgeClose, MAX_FRAME_S, startExercise, stepTrainer, TRAINER_LEVELS } from '../engine/trainer';
-import type {
-  TrainerBus,
-  TrainerExercise,
-  TrainerFaults,
-  TrainerInputs,
-  TrainerLevel,
-  TrainerMachine,
-  TrainerPassCriteria,
-  TrainerState,
-} from '../../shared-types';
+import type { TrainerBus, TrainerInputs, TrainerLevel, TrainerMachine, TrainerState } from '../../shared-types';
 import { TRAINER_PHASES } from '../../shared-types';
 import type { HandlerGroup } from './handler';
+import { trainerExerciseSchema, trainerFaultsSchema, trainerPassSchema } from '../schemas/trainer-schema';
 import { MAX_DAMPING_PU, MAX_SET_RATING, plantSchema } from '../schemas/plant-schema';
 import { between as range, flag, oneOf, nonNegative, num, positive, syncLimitsSchema as limitsSchema, text, whole } from '../schemas/schema-kit';
 
@@ -55,27 +47,6 @@ const levelSchema: z.ZodType<TrainerLevel> = z
     breakerClosingMs: nonNegative('ms').lte(2000, 'must be 2000 ms or less'),
     busDriftHz: nonNegative('Hz').lte(5, 'must be 5 Hz or less'),
     mustSetWindow: flag(),
-  })
-  .strict();
-
-/** Faults an instructor scripts: each within a range a real plant could show. */
-export const trainerFaultsSchema: z.ZodType<TrainerFaults> = z
-  .object({
-    breakerSlowMs: nonNegative('ms').lte(1000, 'must be 1000 ms or less'),
-    wrongWindow: limitsSchema,
-    busDriftHz: nonNegative('Hz').lte(1, 'must be 1 Hz or less'),
-    deadBus: z.boolean({ error: 'must be true or false' }),
-    voltageMismatchPct: num('%').gte(-15, 'must be −15 % or more').lte(15, 'must be 15 % or less'),
-  })
-  .partial()
-  .strict();
-
-/** Pass criteria of an instructor's exercise. */
-export const trainerPassSchema: z.ZodType<TrainerPassCriteria> = z
-  .object({
-    minScore: num('points').gte(0, 'must be 0 or more').lte(100, 'must be 100 or less'),
-    insideWindow: z.boolean({ error: 'must be true or false' }),
-    withinMachineLimits: z.boolean({ error: 'must be true or false' }),
   })
   .strict();
 
@@ -144,19 +115,6 @@ const direction = z.union([z.literal(-1), z.literal(0), z.literal(1)], { error: 
 const inputsSchema: z.ZodType<TrainerInputs> = z
   .object({ speed: direction, voltage: direction, close: flag().optional(), window: limitsSchema.optional() })
   .strict();
-
-/** The fields of an instructor's exercise: the project file keeps it with these rules and the Trainer checks it with them. */
-export const trainerExerciseShape = {
-  id: z.string({ error: 'must be text' }).min(1, 'must not be empty'),
-  name: z.string({ error: 'must be text' }),
-  levelId: z.string({ error: 'must be text' }).refine((id) => TRAINER_LEVELS.some((l) => l.id === id), 'must be one of the trainer levels'),
-  seed: whole().gte(0, 'must be 0 or more').lte(0xffffffff, 'must be below 2^32'),
-  faults: trainerFaultsSchema,
-  pass: trainerPassSchema,
-};
-
-/** An instructor's exercise as the Trainer checks it (nothing extra). */
-export const trainerExerciseSchema: z.ZodType<TrainerExercise> = z.object(trainerExerciseShape).strict();
 
 export const trainerHandlers: HandlerGroup<'trainerLevels' | 'trainerStart' | 'trainerStep' | 'trainerClose' | 'checkTrainerExercise'> = {
   trainerLevels: {

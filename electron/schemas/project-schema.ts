@@ -10,7 +10,7 @@ import type { Project, ProjectScenario, ProjectSyncSettings, TrainerAttempt, Tra
 import { projectCommissioningSchema } from './commissioning-schema';
 import { plantSchema } from './plant-schema';
 import { projectEventSchema } from './scenario-events';
-import { trainerExerciseShape } from '../handlers/trainer-handlers';
+import { trainerExerciseShape } from './trainer-schema';
 
 import { breakerClosingMs, deadFields, id, num, positive, syncLimitsFields, text } from './schema-kit';
 

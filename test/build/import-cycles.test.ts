@@ -114,7 +114,7 @@ describe('import graph', () => {
     expect([...ways]).toEqual(['handlers → project']);
   });
 
-  it('has each layer importing only downward: the engine and shared-types never import the report renderer, the handlers or the hosts; the report renderer never imports the handlers', () => {
+  it('has each layer importing only downward: the engine and shared-types never import the report renderer, the handlers or the hosts; the report renderer never imports the handlers; the schemas never import the handlers or the project reader', () => {
     const layerOf = (f: string) =>
       f.startsWith('shared-types/')
         ? 'shared-types'
@@ -122,13 +122,16 @@ describe('import graph', () => {
           ? 'engine'
           : f.startsWith('electron/report/')
             ? 'report'
-            : f.startsWith('electron/')
-              ? 'electron'
-              : 'renderer';
+            : f.startsWith('electron/schemas/')
+              ? 'schemas'
+              : f.startsWith('electron/')
+                ? 'electron'
+                : 'renderer';
     const allowed: Record<string, string[]> = {
       'shared-types': ['shared-types'],
       engine: ['engine', 'shared-types'],
       report: ['report', 'engine', 'shared-types'],
+      schemas: ['schemas', 'engine', 'shared-types'],
     };
     const upward: string[] = [];
     for (const [file, deps] of graph) {
