@@ -337,3 +337,10 @@ export function faultWords(f: TrainerFaults | undefined): string {
   if (f.voltageMismatchPct !== undefined) out.push(`incoming voltage ${f.voltageMismatchPct > 0 ? '+' : ''}${f.voltageMismatchPct} % off the bus`);
   return out.join('; ');
 }
+
+/** One CSV field (RFC 4180): numbers in full precision, blanks empty, text quoted when it holds a quote, comma or line end. */
+export function csvField(v: string | number | null | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}

@@ -4,7 +4,7 @@
  * building; no engine calls.
  */
 import type { CommissioningRecord, CommissioningRecordRequest } from '../../shared-types';
-import { CAUTION, CSV_CAUTION_LINE } from '../../shared-types/presentation';
+import { CAUTION, CSV_CAUTION_LINE, csvField } from '../../shared-types/presentation';
 import type { CommissioningRecordData } from '../engine/commissioning';
 import { escapeHtml, formatNumber } from './format';
 
@@ -17,12 +17,11 @@ export function renderCommissioningRecord(req: CommissioningRecordRequest, data:
   const vr = plant.ratedVoltageV;
   const so = req.signOff;
   const title = `Commissioning record — ${data.setName} (${data.setId})`;
-  const csvCell = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
   const csvLines = [CSV_CAUTION_LINE, `# ${title}; plant ${plant.name}; ${req.date}`, 'section,item,unit,setting or model,measured'];
-  for (const row of data.rows) csvLines.push([row.section, row.item, row.unit, row.model, row.measured].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'commissioned by', '', so.by, ''].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'date', '', so.date, ''].map(csvCell).join(','));
-  csvLines.push(['Sign-off', 'remarks', '', so.remarks, ''].map(csvCell).join(','));
+  for (const row of data.rows) csvLines.push([row.section, row.item, row.unit, row.model, row.measured].map(csvField).join(','));
+  csvLines.push(['Sign-off', 'commissioned by', '', so.by, ''].map(csvField).join(','));
+  csvLines.push(['Sign-off', 'date', '', so.date, ''].map(csvField).join(','));
+  csvLines.push(['Sign-off', 'remarks', '', so.remarks, ''].map(csvField).join(','));
 
   const e = escapeHtml;
   let body = '';

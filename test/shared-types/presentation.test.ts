@@ -2,6 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
+  csvField,
   CAUTION,
   CAUTION_AFTER_LABEL,
   CSV_CAUTION_LINE,
@@ -115,5 +116,15 @@ describe('words', () => {
     expect(CSV_CAUTION_LINE).toBe(`# Caution: ${CAUTION_AFTER_LABEL}`);
     const script = readFileSync(new URL('../../build/scripts/preview.mjs', import.meta.url), 'utf8');
     expect(script).toContain(JSON.stringify(CAUTION));
+  });
+  it('writes one CSV field the way RFC 4180 (section 2, rules 5–7) asks, for every export', () => {
+    expect(csvField('G1')).toBe('G1');
+    expect(csvField('a, b')).toBe('"a, b"');
+    expect(csvField('say "ok"')).toBe('"say ""ok"""');
+    expect(csvField('line\nbreak')).toBe('"line\nbreak"');
+    expect(csvField('cr\rhere')).toBe('"cr\rhere"');
+    expect(csvField(-0.125)).toBe('-0.125');
+    expect(csvField(Number.NaN)).toBe('');
+    expect(csvField(null)).toBe('');
   });
 });

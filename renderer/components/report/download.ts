@@ -2,13 +2,7 @@
  * Exports from the app: CSV text of a table and file downloads (a link with `download`,
  * which both Electron and the browser preview honour). Pure except `saveFile`.
  */
-
-/** One CSV field: numbers in full precision, blanks empty, text quoted when it needs it (RFC 4180). */
-export function csvField(v: string | number | null | undefined): string {
-  if (v === null || v === undefined) return '';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
-  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
-}
+import { csvField } from '../../../shared-types';
 
 /** A CSV document (CRLF line ends, RFC 4180) from a header and rows. */
 export function toCsv(columns: readonly string[], rows: readonly (readonly (string | number | null | undefined)[])[]): string {

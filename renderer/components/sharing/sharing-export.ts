@@ -2,7 +2,7 @@
  * The sharing table as rows of text, and as aligned plain text (for the clipboard) or CSV
  * (for spreadsheets). Both carry the bus figures, the units and the caution.
  */
-import { CAUTION } from '../../../shared-types';
+import { CAUTION, csvField } from '../../../shared-types';
 import type { SharingResult } from '../../../shared-types';
 import { flagInfo } from './flags';
 import { fmt, fmtPF } from './format';
@@ -93,10 +93,6 @@ export function sharingText(result: SharingResult, plantName: string, totalPF: n
   return out.join('\n') + '\n';
 }
 
-function csvCell(v: string): string {
-  return /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
-}
-
 /**
  * CSV (RFC 4180, CRLF lines): a header block of "quantity,value" lines, a blank line,
  * then the table with its unit-bearing headings.
@@ -114,7 +110,7 @@ export function sharingCsv(result: SharingResult, plantName: string, totalPF: nu
     [...SHARING_COLUMNS],
     ...sharingRows(result, totalPF, totalLoadingPct),
   ];
-  return lines.map((l) => l.map(csvCell).join(',')).join('\r\n') + '\r\n';
+  return lines.map((l) => l.map(csvField).join(',')).join('\r\n') + '\r\n';
 }
 
 /** A file-name-safe form of the plant name. */
