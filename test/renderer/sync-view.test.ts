@@ -175,13 +175,16 @@ describe('SynchronizingView with the engine', () => {
   it('shows the table and the verdict from one result: the angle in both is the same figure', async () => {
     await usePlantStore().loadDemo();
     const sync = useSyncStore();
-    sync.setLive({ busFrequencyHz: 50, incomingFrequencyHz: 50.25, busVoltageV: 400, incomingVoltageV: 404, angleDeg: 25 }, 0);
+    // Set at the wall clock the view reads, so the angle shown is near 25° rather than wherever the slip took it.
+    sync.setLive({ busFrequencyHz: 50, incomingFrequencyHz: 50.25, busVoltageV: 400, incomingVoltageV: 404, angleDeg: 25 }, performance.now());
     const w = mount(SynchronizingView);
     await flushPromises();
     const r = sync.result!;
     const shown = w.get('[data-test="readout-angle"]').text();
-    const sign = r.angleNowDeg > 0 ? '+' : '';
-    expect(shown).toContain(`${sign}${r.angleNowDeg.toFixed(1)} °`);
+    // The readout's rule: one decimal, "+" above zero, and a figure that rounds to zero has no sign.
+    const fixed = r.angleNowDeg.toFixed(1);
+    const expected = /^-?0\.0$/.test(fixed) ? '0.0' : `${r.angleNowDeg > 0 ? '+' : ''}${fixed}`;
+    expect(shown).toContain(`${expected} °`);
     const reason = r.reasons.find((x) => x.startsWith('Phase angle'));
     if (reason) expect(reason).toContain(Math.abs(r.angleNowDeg).toFixed(1));
     w.unmount();
