@@ -406,6 +406,18 @@ class Run implements Simulation {
       } else reverseTimer[i] = 0;
       const f = y[i * STATES_PER_SET + OMEGA]!;
       const v = vt[i]!;
+      // The usual case first: no element picked up, every timer back to zero (four compares, no loop).
+      const uf = pickup[i]!;
+      const of = pickup[n + i]!;
+      const uv = pickup[2 * n + i]!;
+      const ov = pickup[3 * n + i]!;
+      if (!((uf > 0 && f < uf) || (of > 0 && f > of) || (uv > 0 && v < uv) || (ov > 0 && v > ov))) {
+        protTimer[i] = 0;
+        protTimer[n + i] = 0;
+        protTimer[2 * n + i] = 0;
+        protTimer[3 * n + i] = 0;
+        continue;
+      }
       for (let d = 0; d < 4; d++) {
         const k = d * n + i;
         const p = pickup[k]!;
