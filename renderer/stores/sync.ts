@@ -284,12 +284,24 @@ export const useSyncStore = defineStore('sync', () => {
   // Any change of the window or the plant invalidates the verdict and the map. Both are replaced,
   // never changed in place (the setters above and `restore` build new settings; every accepted plant
   // is a new object), so the watch compares references and never walks the plant.
+  let viewers = 0;
+  // The verdict is asked again only while a view shows it: with the Synchronizing view closed, a plant edit costs
+  // no second round trip (the view asks for a fresh verdict when it opens).
   watch([settings, () => plantStore.plant], () => {
     map.value = null;
     const t = typeof performance === 'undefined' ? Date.now() : performance.now();
     rebase(displayAngleDeg(t), t);
-    void evaluate(t);
+    if (viewers > 0) void evaluate(t);
   });
+
+  /** A view that shows the verdict opened (it asks for a verdict itself as it opens). */
+  function viewOpened(): void {
+    viewers++;
+  }
+  /** That view closed. */
+  function viewClosed(): void {
+    viewers = Math.max(0, viewers - 1);
+  }
 
   /**
    * Computes the closing map off the UI thread, with progress; a new request cancels the old. `method`
@@ -367,6 +379,8 @@ export const useSyncStore = defineStore('sync', () => {
     tick,
     setTurning,
     setLive,
+    viewOpened,
+    viewClosed,
     loadPresets,
     choosePreset,
     setLimits,

@@ -8,6 +8,7 @@ import { usePlantStore } from '../../renderer/stores/plant';
 import { DEFAULT_SYNC_SETTINGS, useSyncStore } from '../../renderer/stores/sync';
 import { evaluateSync } from '../../electron/engine';
 import { freshStores, holdFrames } from './view-harness';
+import { directClient } from '../helpers/direct-client';
 import { expectClose } from '../helpers/expect-close';
 import type { VueWrapper } from '@vue/test-utils';
 
@@ -280,5 +281,39 @@ describe('SynchronizingView with the engine', () => {
     expect(sync.snapshot()).toEqual(snap);
     snap.limits.angleDeg = 99;
     expect(sync.settings.limits.angleDeg).toBe(7);
+  });
+});
+
+describe('the verdict asked only while a view shows it', () => {
+  afterEach(() => vi.unstubAllGlobals());
+
+  it('asks no verdict for a plant edit while the Synchronizing view is closed, and asks again while it is open', async () => {
+    const inner = directClient();
+    const asked: string[] = [];
+    freshStores({
+      call: (method, request, options) => {
+        asked.push(method);
+        return inner.call(method, request, options);
+      },
+    });
+    holdFrames();
+    const plant = usePlantStore();
+    await plant.loadDemo();
+    useSyncStore();
+    await plant.edit('sets[1].governor.droopPct', 4.5);
+    await flushPromises();
+    expect(asked.filter((m) => m === 'evaluateSync')).toHaveLength(0);
+    // Open: the view asks as it opens, and each plant edit asks again.
+    const w = mount(SynchronizingView);
+    await flushPromises();
+    expect(asked.filter((m) => m === 'evaluateSync')).toHaveLength(1);
+    await plant.edit('sets[1].governor.droopPct', 3.5);
+    await flushPromises();
+    expect(asked.filter((m) => m === 'evaluateSync')).toHaveLength(2);
+    // Closed again: edits ask nothing more.
+    w.unmount();
+    await plant.edit('sets[1].governor.droopPct', 4);
+    await flushPromises();
+    expect(asked.filter((m) => m === 'evaluateSync')).toHaveLength(2);
   });
 });
