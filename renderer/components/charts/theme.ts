@@ -1,9 +1,9 @@
 /**
  * Chart colours read from the app's CSS variables (`renderer/styles/base.css`), so charts
- * follow the light and dark themes; the light values are the shared `CHART_PALETTE` (also the report's). `useChartTheme()` re-reads them when the system
- * theme changes.
+ * follow the light and dark themes; the light values are the shared `CHART_PALETTE` (also the report's). `useChartTheme()` re-reads them when the
+ * theme in use changes.
  */
-import { onBeforeUnmount, shallowRef, watch } from 'vue';
+import { effectScope, shallowRef, watch } from 'vue';
 import { themeInUse } from '../../theme-mode';
 import type { ShallowRef } from 'vue';
 import { CHART_PALETTE } from '../../../shared-types';
@@ -53,17 +53,28 @@ export function readChartTheme(): ChartTheme {
   };
 }
 
-/** The current chart theme, updated when the system switches between light and dark. */
+let shared: ShallowRef<ChartTheme> | null = null;
+
+/**
+ * The current chart theme, updated when the theme in use changes (the switch, or the system's setting under
+ * "System"). One for the whole app, read from the CSS once per theme: every chart and swatch used to read it as it
+ * mounted, and each read of computed styles while a view is being built makes the browser work out the style of the
+ * whole page again (about a tenth of the Plant view's first drawing).
+ */
 export function useChartTheme(): ShallowRef<ChartTheme> {
-  const theme = shallowRef(readChartTheme());
-  // Follows the theme in use (the switch, or the system's setting under "System").
-  const stop = watch(
-    themeInUse,
-    () => {
-      theme.value = readChartTheme();
-    },
-    { flush: 'post' },
-  );
-  onBeforeUnmount(stop);
-  return theme;
+  if (!shared) {
+    const theme = shallowRef(readChartTheme());
+    // Its own scope: the watch lives as long as the app, not as long as the first component that asked.
+    effectScope(true).run(() =>
+      watch(
+        themeInUse,
+        () => {
+          theme.value = readChartTheme();
+        },
+        { flush: 'post' },
+      ),
+    );
+    shared = theme;
+  }
+  return shared;
 }
