@@ -23,7 +23,10 @@ import type { BenchResult } from './harness';
 
 const SETS = 8;
 const STEPS = 60_000;
-const ROUNDS = 5;
+// Each round is a fresh process, and a process runs either fast or markedly slower (both the simulator and the
+// JavaScript yardstick, with the same inlining; placement in memory is the likely cause): nine rounds, the median,
+// and the range beside it.
+const ROUNDS = 9;
 
 interface Rate {
   wall: number;
@@ -109,6 +112,10 @@ export async function run(): Promise<BenchResult[]> {
   }
   const M = (xs: Rate[], k: 'wall' | 'cpu') => median(xs.map((x) => x[k] ?? Number.NaN));
   const fmt = (v: number) => `${(v / 1e6).toFixed(2)} M`;
+  const range = (xs: Rate[]) => {
+    const v = xs.map((x) => x.cpu ?? Number.NaN);
+    return `${fmt(Math.min(...v))}–${fmt(Math.max(...v))}`;
+  };
   const simCpu = M(sim, 'cpu');
   const simWall = M(sim, 'wall');
   const out: BenchResult[] = [];
@@ -120,10 +127,16 @@ export async function run(): Promise<BenchResult[]> {
   });
   out.push(
     row(`simulate as shipped (bundled, own process, warm), ${SETS} sets, 60 s at 1 ms`, sim, {
+      'range over the rounds (CPU time)': range(sim),
       'cold first run of 5 s (CPU time)': fmt(median(cold)),
     }),
   );
-  out.push(row('yardstick, JavaScript (test/bench/yardstick.mjs)', js, { 'simulator ÷ yardstick (CPU time)': `${(simCpu / M(js, 'cpu')).toFixed(2)}×` }));
+  out.push(
+    row('yardstick, JavaScript (test/bench/yardstick.mjs)', js, {
+      'range over the rounds (CPU time)': range(js),
+      'simulator ÷ yardstick (CPU time)': `${(simCpu / M(js, 'cpu')).toFixed(2)}×`,
+    }),
+  );
   if (cExe)
     out.push(
       row('yardstick, C (test/bench/yardstick.c, cc -O3 -march=native -ffast-math)', c, {
