@@ -21,6 +21,9 @@ import type { ParField } from './par-layout';
 export type { LoadSlot, SimModel } from './sim-types';
 import type { LoadSlot, SimModel } from './sim-types';
 
+/** The per-set parameter columns by name, in the layout's order. */
+const PAR_FIELD_NAMES = Object.keys(PAR_FIELDS) as ParField[];
+
 /** A load slot of `kW`, `kVAR` on a system base of `baseKVA`, under one of the plain models (no shedding, no frequency dependence). */
 export function plainLoadSlot(id: string, kW: number, kVAR: number, baseKVA: number, model: LoadModel): LoadSlot {
   return {
@@ -64,14 +67,15 @@ export const PROTECTION_DEVICES = ['81U', '81O', '27', '59'] as const;
 export function buildSimModel(plant: Plant, stepS: number): SimModel {
   const n = plant.sets.length;
   const par = new Float64Array(PAR_COLUMNS * n);
-  const views = {} as Record<ParField, Float64Array>;
-  for (const [name, k] of Object.entries(PAR_FIELDS)) views[name as ParField] = par.subarray(k * n, (k + 1) * n);
   let baseKVA = 0;
   for (const s of plant.sets) baseKVA += s.ratedKVA;
   const vr = plant.ratedVoltageV;
   const fr = plant.ratedFrequencyHz;
   const zBaseOhm = (vr * vr) / (baseKVA * 1000);
-  const m: SimModel = {
+  // The per-set views are put on the model one by one (in the same order every time, so every model has the same
+  // shape): spreading a record of them into the literal cost more than the rest of the compile, and a time-domain
+  // closing map compiles the plant once per cell.
+  const m = {
     n,
     ids: plant.sets.map((s) => s.id),
     ratedFrequencyHz: fr,
@@ -80,12 +84,13 @@ export function buildSimModel(plant: Plant, stepS: number): SimModel {
     breakPU: (plant.powerLoadBreakPct ?? PLANT_DEFAULTS.powerLoadBreakPct) / 100,
     omegaS: 2 * Math.PI * fr,
     par,
-    ...views,
     protPickupPU: new Float64Array(4 * n),
     protDelayS: new Float64Array(4 * n),
     loads: [],
     raised: [],
-  };
+  } as unknown as SimModel;
+  const views = m as unknown as Record<ParField, Float64Array>;
+  for (const name of PAR_FIELD_NAMES) views[name] = par.subarray(PAR_FIELDS[name] * n, (PAR_FIELDS[name] + 1) * n);
   const minLag = 2 * stepS;
   const lag = (value: number, what: string) => {
     if (value >= minLag) return value;
