@@ -10,7 +10,9 @@ class Growable {
   data: Float64Array;
   length = 0;
   constructor(capacity: number) {
-    this.data = new Float64Array(Math.max(16, capacity));
+    // Sized to what the run will keep (the recorder works it out): a short run (a closing-map cell of a few steps)
+    // then gets arrays small enough for V8 to keep on its heap, not one allocation outside it per series.
+    this.data = new Float64Array(Math.max(2, capacity));
   }
   push(v: number): void {
     if (this.length === this.data.length) {
