@@ -10,6 +10,7 @@ import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SetCapability, SetResult } from '../../../shared-types';
 import { hLine, SMALL_LABEL, vLine } from './annotations';
 import type { XY } from './droop-lines';
+import { bottomLegend } from './chart-frame';
 import { withAlpha } from './series-style';
 import type { ChartTheme } from './theme';
 
@@ -114,7 +115,7 @@ export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 
         },
       },
       plugins: {
-        legend: { position: 'bottom', labels: { color: theme.fg, usePointStyle: true, boxHeight: 8 } },
+        legend: bottomLegend(theme),
         tooltip: { animation: false },
         annotation: {
           annotations: {

@@ -1,18 +1,19 @@
 /**
- * The frame the task views' charts share (Planner and Commissioning): a titled linear axis in the theme's colours, the
+ * The frame the charts share (Sharing, Planner and Commissioning; the capability chart's legend): a titled linear axis in the theme's colours, the
  * legend under the chart, and the options of a still chart that fills its panel. Pure.
  */
 import type { ScaleOptions } from 'chart.js';
 import type { ChartTheme } from './theme';
 
-/** A linear axis titled `title` (quantity, unit), ticks and grid in the theme's colours. */
-export function linearAxis(theme: ChartTheme, title: string): ScaleOptions<'linear'> {
+/** A linear axis titled `title` (quantity, unit), ticks and grid in the theme's colours; `extra` adds or overrides options. */
+export function linearAxis(theme: ChartTheme, title: string, extra: ScaleOptions<'linear'> | object = {}): ScaleOptions<'linear'> {
   return {
     type: 'linear',
     title: { display: true, text: title, color: theme.fg },
     ticks: { color: theme.muted },
     grid: { color: theme.grid },
     border: { color: theme.grid },
+    ...extra,
   } as ScaleOptions<'linear'>;
 }
 

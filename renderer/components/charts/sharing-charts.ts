@@ -3,10 +3,11 @@
  * and the chart theme. Pure: the same inputs give the same configuration (tests read the
  * datasets back). Every set keeps its colour, dash and point shape in every chart.
  */
-import type { ChartConfiguration, ChartDataset, LegendItem, ScaleOptions, TooltipItem } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, LegendItem, TooltipItem } from 'chart.js';
 import type { LoadSweep, Plant, PlantDescription, SharingResult } from '../../../shared-types';
 import { formatNumber } from '../../../shared-types';
 import { hLine } from './annotations';
+import { linearAxis } from './chart-frame';
 import { characteristicPoints, characteristicsOf, niceRange, paddedRange } from './droop-lines';
 import type { Characteristic, XY } from './droop-lines';
 import { niceBounds, roundTicks } from './nice-scale';
@@ -16,17 +17,6 @@ import type { ChartTheme } from './theme';
 type Scatter = ChartDataset<'scatter', XY[]>;
 
 const fix = formatNumber;
-
-function axis(theme: ChartTheme, title: string, extra: ScaleOptions<'linear'> | object = {}): ScaleOptions<'linear'> {
-  return {
-    type: 'linear',
-    title: { display: true, text: title, color: theme.fg },
-    ticks: { color: theme.muted },
-    grid: { color: theme.grid },
-    border: { color: theme.grid },
-    ...extra,
-  } as ScaleOptions<'linear'>;
-}
 
 function basePlugins(theme: ChartTheme) {
   return {
@@ -101,8 +91,8 @@ function droopScatter(
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: axis(theme, axes.xTitle),
-        y: axis(theme, axes.yTitle, { min: axes.yLo, max: axes.yHi }),
+        x: linearAxis(theme, axes.xTitle),
+        y: linearAxis(theme, axes.yTitle, { min: axes.yLo, max: axes.yHi }),
       },
       plugins: {
         ...basePlugins(theme),
@@ -283,7 +273,7 @@ export function shareBarChart(plant: Plant, result: SharingResult | null, theme:
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: { ...axis(theme, 'Output against rating (kW solid, kVA hatched)'), stacked: true },
+        x: { ...linearAxis(theme, 'Output against rating (kW solid, kVA hatched)'), stacked: true },
         y: { type: 'category', stacked: true, ticks: { color: theme.fg }, grid: { display: false }, border: { color: theme.grid } },
       },
       plugins: {
@@ -358,13 +348,13 @@ export function sweepChart(plant: Plant, sweep: LoadSweep | null, theme: ChartTh
       animation: false,
       scales: {
         // The load axis ends on a round value (2500 kW, not 2244) so the last tick and the "no steady state" label fit.
-        x: axis(theme, 'Total load (kW)', {
+        x: linearAxis(theme, 'Total load (kW)', {
           min: 0,
           max: points.length ? niceBounds(0, points[points.length - 1]!.loadKW)[1] : undefined,
           afterBuildTicks: roundTicks(6),
         }),
-        f: axis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
-        p: axis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
+        f: linearAxis(theme, 'Bus frequency (Hz)', { position: 'left', min: fLo, max: fHi }),
+        p: linearAxis(theme, 'Set output (kW)', { position: 'right', grid: { drawOnChartArea: false } }),
       },
       plugins: {
         ...basePlugins(theme),
