@@ -19,5 +19,5 @@ export { useUiStore, VIEWS } from './ui';
 export type { ViewId } from './ui';
 
 /** Recipes the plant editor hands to `usePlantStore().change(recipe)`: each takes the draft and returns the next one. */
-export { addItem, changeRatedFrequency, duplicateItem, getIn, moveItem, removeItem, setIn, TYPICAL_MACHINE, TYPICAL_RANGES } from './plant-draft';
+export { addItem, changeRatedFrequency, duplicateItem, getIn, moveItem, removeItem, samePlain, setIn, TYPICAL_MACHINE, TYPICAL_RANGES } from './plant-draft';
 export type { LoadDraft, PlantDraft } from './plant-draft';
