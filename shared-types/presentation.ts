@@ -151,7 +151,7 @@ export const FLAG_WORDS: Readonly<Record<SetFlag, FlagWords>> = {
     level: 'warn',
   },
   'at-min-kW': {
-    words: 'at min kW',
+    words: 'at lowest output',
     explain: 'The governor is at the set’s lowest output: zero fuel in droop, the minimum output in isochronous or base load.',
     level: 'warn',
   },
