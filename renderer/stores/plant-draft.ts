@@ -69,6 +69,8 @@ export function clonePlain<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T;
 }
 
+const hasOwn = (o: object, k: string): boolean => Object.prototype.hasOwnProperty.call(o, k);
+
 /** True when `a` and `b` hold the same JSON values (plain data only: objects, arrays, numbers, strings, booleans, null). */
 export function samePlain(a: unknown, b: unknown): boolean {
   if (Object.is(a, b)) return true;
@@ -79,12 +81,43 @@ export function samePlain(a: unknown, b: unknown): boolean {
     return true;
   }
   if (Array.isArray(b)) return false;
-  const ka = Object.keys(a);
-  if (ka.length !== Object.keys(b).length) return false;
-  for (const k of ka) {
-    if (!Object.prototype.hasOwnProperty.call(b, k) || !samePlain((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k])) return false;
+  // Keys walked with for…in (no key arrays made: this runs on every result an edit brings back).
+  const x = a as Record<string, unknown>;
+  const y = b as Record<string, unknown>;
+  let keys = 0;
+  for (const k in x) {
+    if (!hasOwn(y, k) || !samePlain(x[k], y[k])) return false;
+    keys++;
   }
-  return true;
+  for (const k in y) if (hasOwn(y, k)) keys--;
+  return keys === 0;
+}
+
+/**
+ * `next` with every part that holds the same values as the matching part of `old` replaced by that part of `old`, or
+ * `old` itself when nothing differs: what did not change keeps its identity, so whatever depends on it (a chart's limit
+ * curves, a computed column) is not worked out again. `next` must be fresh plain data of the caller's own (a result
+ * just received): its objects and arrays are updated in place.
+ */
+export function keepSame<T>(old: unknown, next: T): T {
+  if (Object.is(old, next) || old === null || next === null || typeof old !== 'object' || typeof next !== 'object') return next;
+  if (Array.isArray(old) !== Array.isArray(next)) return next;
+  const o = old as Record<string, unknown>;
+  const n = next as Record<string, unknown>;
+  let same = true;
+  let keys = 0;
+  for (const k in n) {
+    keys++;
+    if (!hasOwn(o, k)) {
+      same = false;
+      continue;
+    }
+    const kept = keepSame(o[k], n[k]);
+    if (!Object.is(kept, o[k])) same = false;
+    n[k] = kept;
+  }
+  for (const k in o) if (hasOwn(o, k)) keys--;
+  return same && keys === 0 ? (old as T) : next;
 }
 
 /** The first id `prefix + n` (n = 1, 2, …) not in `used`. */

@@ -13,7 +13,7 @@ import type { CheckedPlant, FieldIssue, Plant, PlantDescription } from '../../sh
 import demoPlant from '../demo/water-works.plant.json';
 import { EngineCallError, engine, messageOf } from '../transport';
 import { latestOnly } from './latest-only';
-import { clonePlain, draftOf, getIn, samePlain, setIn } from './plant-draft';
+import { clonePlain, draftOf, getIn, keepSame, setIn } from './plant-draft';
 import type { PlantDraft } from './plant-draft';
 
 /** How many steps undo keeps. */
@@ -70,13 +70,14 @@ export const usePlantStore = defineStore('plant', () => {
   const draftInvalid = computed(() => draftIssues.value.length > 0);
 
   /**
-   * Takes rated figures that came with a check. Figures equal to the ones shown keep the shown
-   * object, so an edit that changes no rating (a droop, a setpoint) redraws nothing that depends
-   * on them (rated table, capability limits).
+   * Takes rated figures that came with a check. Parts equal to the ones shown keep the shown
+   * objects, so an edit that changes no rating (a droop, a setpoint) redraws nothing that depends
+   * on them (rated table, capability limits), though the set's droop lines change.
    */
   function takeDescription(checked: CheckedPlant): void {
     if (checked.description) {
-      if (!samePlain(description.value, checked.description)) description.value = checked.description;
+      const next = keepSame(description.value, checked.description);
+      if (next !== description.value) description.value = next;
     } else error.value = `rated figures: ${checked.descriptionError ?? 'not available'}`;
   }
 

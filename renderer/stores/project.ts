@@ -45,6 +45,7 @@ interface Origin {
 }
 
 type Held = Pick<Project, PartKey | 'view'>;
+const PART_KEYS: readonly PartKey[] = ['scenarios', 'sync', 'trainerLog', 'trainerExercises', 'commissioning'];
 const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], trainerExercises: [], commissioning: null, view: {} };
 
 export const useProjectStore = defineStore('project', () => {
@@ -107,10 +108,19 @@ export const useProjectStore = defineStore('project', () => {
     return p ? `${JSON.stringify(p, null, 2)}\n` : null;
   }
 
-  /** What counts as a change: everything but the view settings (moving between views is not an edit). */
+  /**
+   * Each part's text on its own, so a plant edit does not write out the scenarios, the sync settings, the trainer's
+   * log and exercises or the commissioning record again (only the part that changed is).
+   */
+  const partTexts = PART_KEYS.map((key) => computed(() => JSON.stringify(part(key)) ?? 'null'));
+  /**
+   * What counts as a change: the name, the plant and the parts; not the view settings (moving between views is not an
+   * edit). Compared with the text at the last open or save, so undoing back to it reads as unchanged.
+   */
   const content = computed(() => {
-    const p = current();
-    return p ? JSON.stringify({ ...p, view: undefined }) : null;
+    const plant = plantStore.plant;
+    if (!plant) return null;
+    return [JSON.stringify(name.value), JSON.stringify(plant), ...partTexts.map((t) => t.value)].join('\n');
   });
 
   const dirty = computed(() => content.value !== null && baseline.value !== null && content.value !== baseline.value);

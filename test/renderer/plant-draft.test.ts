@@ -5,6 +5,7 @@ import {
   draftOf,
   duplicateItem,
   getIn,
+  keepSame,
   moveItem,
   nextId,
   parsePath,
@@ -104,7 +105,48 @@ describe('samePlain', () => {
     expect(samePlain([1, 2], { 0: 1, 1: 2 })).toBe(false);
     expect(samePlain([1, 2], [1, 2, 3])).toBe(false);
     expect(samePlain(null, {})).toBe(false);
+    expect(samePlain({ a: 1, b: 2 }, { a: 1 })).toBe(false);
     expect(samePlain(0, -0)).toBe(false);
     expect(samePlain(Number.NaN, Number.NaN)).toBe(true);
+  });
+});
+
+describe('keepSame', () => {
+  it('keeps the old object where the values are the same, and the new one where they differ', () => {
+    const old = { rated: { kW: 800, curve: [1, 2, 3] }, lines: [{ droop: 4 }, { droop: 3 }], name: 'A' };
+    const next = { rated: { kW: 800, curve: [1, 2, 3] }, lines: [{ droop: 4 }, { droop: 5 }], name: 'A' };
+    const kept = keepSame(old, next);
+    expect(kept).toBe(next);
+    expect(kept.rated).toBe(old.rated);
+    expect(kept.lines).not.toBe(old.lines);
+    expect(kept.lines[0]).toBe(old.lines[0]);
+    expect(kept.lines[1]).toEqual({ droop: 5 });
+    expect(kept.lines[1]).not.toBe(old.lines[1]);
+  });
+
+  it('gives the old object itself when nothing differs, and never keeps across a changed shape', () => {
+    const old = { a: [1, { b: 2 }], c: null };
+    expect(keepSame(old, JSON.parse(JSON.stringify(old)))).toBe(old);
+    // An added or a removed key, an array against an object, a longer array: the new value stands.
+    const added = { a: [1, { b: 2 }], c: null, d: 1 };
+    expect(keepSame(old, added)).toBe(added);
+    const removed = { a: [1, { b: 2 }] };
+    expect(keepSame(old, removed)).toBe(removed);
+    const asObject = { 0: 1, 1: { b: 2 } };
+    expect(keepSame([1, { b: 2 }], asObject)).toBe(asObject);
+    const longer = [1, { b: 2 }, 3];
+    expect(keepSame([1, { b: 2 }], longer)).toBe(longer);
+    expect(keepSame(null, old)).toBe(old);
+  });
+
+  it('keeps every part of a described plant that a droop edit leaves alone', () => {
+    const d = draftOf(demoPlant());
+    const edited = setIn(d, 'sets[1].governor.droopPct', 5);
+    const kept = keepSame(d, JSON.parse(JSON.stringify(edited)) as typeof d);
+    expect(kept).not.toBe(d);
+    expect(kept.sets[0]).toBe(d.sets[0]);
+    expect(kept.sets[1]).not.toBe(d.sets[1]);
+    expect(kept.sets[1]?.governor.droopPct).toBe(5);
+    expect(samePlain(kept, edited)).toBe(true);
   });
 });
