@@ -40,9 +40,11 @@ export function parsePath(path: string): readonly PathStep[] {
 /** The value at `path` in `root`, or undefined. */
 export function getIn(root: unknown, path: string): unknown {
   let v: unknown = root;
-  for (const step of parsePath(path)) {
+  // By index, not for…of: every field reads its value this way on each keystroke.
+  const steps = parsePath(path);
+  for (let i = 0; i < steps.length; i++) {
     if (v === null || typeof v !== 'object') return undefined;
-    v = (v as Record<PathStep, unknown>)[step];
+    v = (v as Record<PathStep, unknown>)[steps[i]!];
   }
   return v;
 }
@@ -102,19 +104,34 @@ export function samePlain(a: unknown, b: unknown): boolean {
 export function keepSame<T>(old: unknown, next: T): T {
   if (Object.is(old, next) || old === null || next === null || typeof old !== 'object' || typeof next !== 'object') return next;
   if (Array.isArray(old) !== Array.isArray(next)) return next;
+  // Numbers and other plain values are compared, never written back (writing them would box every number of a curve).
+  if (Array.isArray(old) && Array.isArray(next)) {
+    // Arrays by index (for…in would make a string for every index).
+    let same = old.length === next.length;
+    for (let i = 0; i < next.length; i++) {
+      const n: unknown = next[i];
+      if (i >= old.length) same = false;
+      else if (n !== null && typeof n === 'object') {
+        const kept = keepSame(old[i], n);
+        if (kept !== n) next[i] = kept;
+        if (kept !== old[i]) same = false;
+      } else if (!Object.is(n, old[i])) same = false;
+    }
+    return same ? (old as T) : next;
+  }
   const o = old as Record<string, unknown>;
-  const n = next as Record<string, unknown>;
+  const x = next as Record<string, unknown>;
   let same = true;
   let keys = 0;
-  for (const k in n) {
+  for (const k in x) {
     keys++;
-    if (!hasOwn(o, k)) {
-      same = false;
-      continue;
-    }
-    const kept = keepSame(o[k], n[k]);
-    if (!Object.is(kept, o[k])) same = false;
-    n[k] = kept;
+    const n = x[k];
+    if (!hasOwn(o, k)) same = false;
+    else if (n !== null && typeof n === 'object') {
+      const kept = keepSame(o[k], n);
+      if (kept !== n) x[k] = kept;
+      if (kept !== o[k]) same = false;
+    } else if (!Object.is(n, o[k])) same = false;
   }
   for (const k in o) if (hasOwn(o, k)) keys--;
   return same && keys === 0 ? (old as T) : next;
