@@ -1,15 +1,10 @@
-import { createApp } from 'vue';
-import { createPinia } from 'pinia';
-import App from './App.vue';
-import './styles/base.css';
-import { startTheme } from './theme-mode';
-import { useChartTheme } from './components/charts/theme';
-import { engine } from './transport';
+/**
+ * The page's script. It starts the engine (the Web Worker in the preview) and asks it to check the demo plant, then
+ * loads the app: the engine's code downloads, compiles and answers beside the app's own code instead of after it, so
+ * the first figure shows sooner. The plant store takes that answer when it loads the demo (see `transport/early.ts`).
+ */
+import demoPlant from './demo/water-works.plant.json';
+import { DEMO_CHECK, engine, keepEarly } from './transport';
 
-startTheme();
-// The chart colours, read from the CSS once now, while the page is still empty (see `useChartTheme`).
-useChartTheme();
-// Start the engine (the Web Worker in the preview) now, so it loads while the app mounts.
-engine();
-
-createApp(App).use(createPinia()).mount('#app');
+keepEarly(DEMO_CHECK, engine().call('checkPlant', { plant: structuredClone(demoPlant) }));
+void import('./app');

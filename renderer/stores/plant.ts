@@ -11,7 +11,7 @@ import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import type { CheckedPlant, FieldIssue, Plant, PlantDescription } from '../../shared-types';
 import demoPlant from '../demo/water-works.plant.json';
-import { EngineCallError, engine, messageOf } from '../transport';
+import { DEMO_CHECK, EngineCallError, engine, messageOf, takeEarly } from '../transport';
 import { latestOnly } from './latest-only';
 import { clonePlain, draftOf, getIn, keepSame, setIn } from './plant-draft';
 import type { PlantDraft } from './plant-draft';
@@ -92,13 +92,15 @@ export const usePlantStore = defineStore('plant', () => {
   }
 
   /** Validates `candidate`; on success it becomes the plant and the draft, and undo history restarts. */
-  async function load(candidate: unknown, from: string): Promise<boolean> {
+  async function load(candidate: unknown, from: string, asked?: Promise<CheckedPlant>): Promise<boolean> {
     try {
       // With the sharing store attached, the same request solves the plant (one round trip).
       let valid: Plant;
       if (solver) {
         const pct = solver.loadPct();
-        const checked = await engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct });
+        const checked = await (pct === null && asked
+          ? asked
+          : engine().call('checkPlant', pct === null ? { plant: candidate } : { plant: candidate, loadPct: pct }));
         valid = checked.plant;
         solver.take(checked, pct);
       } else valid = await engine().call('validatePlant', { plant: candidate });
@@ -126,9 +128,9 @@ export const usePlantStore = defineStore('plant', () => {
     }
   }
 
-  /** Loads the shipped demo plant. */
+  /** Loads the shipped demo plant (with the check the page asked for as it started, when there is one). */
   function loadDemo(): Promise<boolean> {
-    return load(structuredClone(demoPlant), 'demo plant');
+    return load(structuredClone(demoPlant), 'demo plant', takeEarly<CheckedPlant>(DEMO_CHECK));
   }
 
   const describer = latestOnly(describe);

@@ -19,7 +19,7 @@ import type { BenchResult } from './harness';
 
 const STARTS = 8;
 const WARM_EDITS = 10;
-const EDITS = 60;
+const EDITS = 200;
 
 function quantile(xs: number[], q: number): number {
   const s = [...xs].sort((a, b) => a - b);

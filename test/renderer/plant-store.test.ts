@@ -1,6 +1,7 @@
 import { describe, it, expect, beforeEach } from 'vitest';
 import { usePlantStore } from '../../renderer/stores/plant';
-import { setEngineClient } from '../../renderer/transport';
+import { DEMO_CHECK, keepEarly, setEngineClient } from '../../renderer/transport';
+import { useSharingStore } from '../../renderer/stores';
 import type { EngineClient } from '../../renderer/transport';
 import { directClient } from '../helpers/direct-client';
 import { freshStores } from './view-harness';
@@ -140,5 +141,43 @@ describe('plant store editing', () => {
     expect(gate.pending()).toBe(0);
     expect(store.plant?.sets[2]?.governor.droopPct).toBe(6);
     expect(store.draftIssues).toEqual([]);
+  });
+});
+
+describe('the demo plant check the page asks for as it starts', () => {
+  beforeEach(() => {
+    freshStores();
+  });
+
+  it('is taken by the first demo load instead of a second request, and only once', async () => {
+    const inner = directClient();
+    const early = inner.call('checkPlant', { plant: demoPlantJson() });
+    keepEarly(DEMO_CHECK, early);
+    const asked: string[] = [];
+    setEngineClient({
+      call(method, request, options) {
+        asked.push(method);
+        return inner.call(method, request, options);
+      },
+    });
+    const store = usePlantStore();
+    const sharing = useSharingStore();
+    expect(await store.loadDemo()).toBe(true);
+    // The check came from the page's request; only the rated figures were asked for here.
+    expect(asked).not.toContain('checkPlant');
+    expect(sharing.result?.bus.frequencyHz).toBe((await early).sharing?.bus.frequencyHz);
+    expect(store.plant?.name).toBe((demoPlantJson() as { name: string }).name);
+    // A later load asks for its own check (the early one is spent).
+    expect(await store.loadDemo()).toBe(true);
+    expect(asked).toContain('checkPlant');
+  });
+
+  it('reports a failed early check as the load failing, naming the demo plant', async () => {
+    keepEarly(DEMO_CHECK, Promise.reject(new Error('engine did not start')));
+    const store = usePlantStore();
+    useSharingStore();
+    expect(await store.loadDemo()).toBe(false);
+    expect(store.error).toMatch(/^demo plant: .*engine did not start/);
+    expect(store.plant).toBeNull();
   });
 });
