@@ -24,7 +24,11 @@ describe('capability chart', () => {
     expect(ann.zeroFuel!.xMin).toBeCloseTo(-250, 9); // −25 % of 1000 kW
     expect(ann.reverse!.xMin).toBeCloseTo(-80, 9); // G1's 32 setting: 8 %
     expect(ann.leading!.yMin).toBeCloseTo(-375, 9); // 30 % of 1250 kVA
-    expect(ann.overload!.label.content).toBe('overload limit (fuel limit) 1100 kW');
+    expect(ann.overload!.label.content).toBe('overload 1100 kW');
+    expect(ann.zeroFuel!.label.content).toBe('zero fuel −250 kW');
+    expect(ann.leading!.label.content).toBe('under-excitation −375 kVAR');
+    // Every upright label fits the plot of a small chart (CAPABILITY_LINE_WORDS: about 24 characters at most).
+    for (const key of ['rated', 'overload', 'zeroFuel', 'reverse'] as const) expect(ann[key]!.label.content.length).toBeLessThanOrEqual(24);
     // An offline set: no point.
     expect((capabilityChart(d.capability, { ...r, online: false }, theme).data.datasets as unknown as Ds[]).map((x) => x.label)).not.toContain(
       CAPABILITY_WORDS.point,

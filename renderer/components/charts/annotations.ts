@@ -18,10 +18,10 @@ export const SMALL_LABEL: LabelSize = { fontSize: 10, padding: 2 };
 export interface HLineStyle {
   dash?: number[];
   size?: LabelSize;
-  position?: 'start' | 'end';
+  position?: 'start' | 'center' | 'end';
 }
 
-/** A horizontal line at `y` on the `y` scale, labelled at its start (or end). */
+/** A horizontal line at `y` on the `y` scale, labelled at its start (or its middle, or its end). */
 export function hLine(
   y: number,
   color: string,

@@ -7,6 +7,7 @@
  * configuration (tests read it back).
  */
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import { formatNumber, formatSigned } from '../../../shared-types';
 import type { SetCapability, SetResult } from '../../../shared-types';
 import { hLine, SMALL_LABEL, vLine } from './annotations';
 import type { XY } from './droop-lines';
@@ -16,16 +17,24 @@ import type { ChartTheme } from './theme';
 
 type Scatter = ChartDataset<'scatter', XY[]>;
 
-/** The words of each limit on the chart and in its legend. */
+/** The words of the curves and the point in the chart's legend. */
 export const CAPABILITY_WORDS = {
   stator: 'stator current (rated kVA)',
   field: 'field heating (field at rated kVA and PF)',
-  leading: 'under-excitation limit',
-  rated: 'rated kW (continuous)',
-  overload: 'overload limit (fuel limit)',
-  zeroFuel: 'zero fuel (motoring power)',
-  reverse: 'reverse-power setting (32)',
   point: 'operating point',
+} as const;
+
+/**
+ * The short words on the limit lines themselves: an upright label must fit the plot's height on a small chart (about
+ * 150 px on an 18rem chart with its legend, so no more than about 24 characters at 10 px type). The words above the
+ * charts and in the legend say each limit in full.
+ */
+export const CAPABILITY_LINE_WORDS = {
+  leading: 'under-excitation',
+  rated: 'rated',
+  overload: 'overload',
+  zeroFuel: 'zero fuel',
+  reverse: 'reverse (32)',
 } as const;
 
 /** The kVAR range drawn: both halves of the stator circle, with a little room. */
@@ -119,14 +128,16 @@ export function capabilityChart(c: SetCapability, point: Pick<SetResult, 'kW' | 
         tooltip: { animation: false },
         annotation: {
           annotations: {
-            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_WORDS.leading} ${Math.round(c.leadingKVAR)} kVAR`, theme, {
+            leading: hLine(c.leadingKVAR, theme.warn, `${CAPABILITY_LINE_WORDS.leading} ${formatSigned(c.leadingKVAR, 0)} kVAR`, theme, {
               dash: [3, 3],
               size: SMALL_LABEL,
+              // Mid-plot: the engine's upright labels sit at both ends.
+              position: 'center',
             }),
-            rated: vLine(c.ratedKW, theme.muted, `${CAPABILITY_WORDS.rated} ${Math.round(c.ratedKW)} kW`, theme, [2, 4], 'end'),
-            overload: vLine(c.overloadKW, theme.bad, `${CAPABILITY_WORDS.overload} ${Math.round(c.overloadKW)} kW`, theme, [10, 3], 'start'),
-            zeroFuel: vLine(-c.motoringKW, theme.muted, `${CAPABILITY_WORDS.zeroFuel} −${Math.round(c.motoringKW)} kW`, theme, [4, 2], 'end'),
-            reverse: vLine(-c.reverseTripKW, theme.warn, `${CAPABILITY_WORDS.reverse} −${Math.round(c.reverseTripKW)} kW`, theme, [1, 3], 'start'),
+            rated: vLine(c.ratedKW, theme.muted, `${CAPABILITY_LINE_WORDS.rated} ${formatNumber(c.ratedKW)} kW`, theme, [2, 4], 'end'),
+            overload: vLine(c.overloadKW, theme.bad, `${CAPABILITY_LINE_WORDS.overload} ${formatNumber(c.overloadKW)} kW`, theme, [10, 3], 'start'),
+            zeroFuel: vLine(-c.motoringKW, theme.muted, `${CAPABILITY_LINE_WORDS.zeroFuel} ${formatSigned(-c.motoringKW, 0)} kW`, theme, [4, 2], 'end'),
+            reverse: vLine(-c.reverseTripKW, theme.warn, `${CAPABILITY_LINE_WORDS.reverse} ${formatSigned(-c.reverseTripKW, 0)} kW`, theme, [1, 3], 'start'),
           },
         },
       },
