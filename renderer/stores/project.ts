@@ -45,7 +45,8 @@ interface Origin {
 }
 
 type Held = Pick<Project, PartKey | 'view'>;
-const PART_KEYS: readonly PartKey[] = ['scenarios', 'sync', 'trainerLog', 'trainerExercises', 'commissioning'];
+/** Every part's key (a part added to `PartKey` and not here fails to compile: its changes must count as unsaved). */
+const PART_KEYS = Object.keys({ scenarios: 1, sync: 1, trainerLog: 1, trainerExercises: 1, commissioning: 1 } satisfies Record<PartKey, 1>) as PartKey[];
 const EMPTY_PARTS: Held = { scenarios: [], sync: null, trainerLog: [], trainerExercises: [], commissioning: null, view: {} };
 
 export const useProjectStore = defineStore('project', () => {
