@@ -4,6 +4,7 @@
  * cloning, the autosave, the project parts, the transients' rules.
  */
 export { useCommissioningStore } from './commissioning';
+export type { CommissioningField } from './commissioning';
 export { hzBandIssues, PLANNER_FIELDS, usePlannerStore } from './planner';
 export type { PlannerField } from './planner';
 export { usePlantStore } from './plant';
