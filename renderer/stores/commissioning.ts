@@ -217,10 +217,10 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     if (chosen.length === 0) out.push('Parameters: choose at least one to fit.');
     for (const p of chosen) {
       const info = FIT_PARAMETERS.find((x) => x.key === p.key)!;
-      if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${p.key} must be numbers.`);
-      else if (!(p.max > p.min)) out.push(`Parameters: the highest value of ${p.key} must be above its lowest.`);
+      if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${info.label} must be numbers.`);
+      else if (!(p.max > p.min)) out.push(`Parameters: the highest ${info.label} must be above its lowest.`);
       else if (p.min < info.lowest || p.max > info.highest)
-        out.push(`Parameters: the bounds of ${p.key} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
+        out.push(`Parameters: the bounds of ${info.label} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
     }
     if (!(Number.isInteger(maxIterations.value) && maxIterations.value >= 1 && maxIterations.value <= 200))
       out.push('Iteration cap: a whole number from 1 to 200.');

@@ -92,6 +92,11 @@ describe('Commissioning view', () => {
     await settle();
     expect(store.params.find((p) => p.key === 'machine.inertiaS')!.min).toBe(0.3);
     expect(w.get('[data-test="error-param-machine.inertiaS-min"]').text()).toBe('lowest inertia constant H must be a number');
+    // Each bound keeps its own rule; the two together are checked before a fit, in words.
+    await w.get('[data-test="param-machine.inertiaS-max"]').setValue('0.2');
+    await settle();
+    expect(store.params.find((p) => p.key === 'machine.inertiaS')!.max).toBe(0.2);
+    expect(w.get('[data-test="fit-problems"]').text()).toContain('Parameters: the highest inertia constant H must be above its lowest.');
     // A parameter not chosen keeps its bounds but they cannot be edited.
     store.params.find((p) => p.key === 'machine.inertiaS')!.chosen = false;
     await settle();
