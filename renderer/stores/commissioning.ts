@@ -8,7 +8,7 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
-import { FIT_PARAMETERS } from '../../shared-types';
+import { FIT_PARAMETERS, fitParameterLabel } from '../../shared-types';
 import type {
   CommissioningRecord,
   FitParameterKey,
@@ -23,6 +23,8 @@ import type {
 } from '../../shared-types';
 import exampleRecord from '../demo/example.load-bank.csv?raw';
 import { EngineCallError, engine, messageOf } from '../transport';
+import { anyNumber, from, numberFields, whole } from './number-fields';
+import type { NumberFieldAccess, NumberRule } from './number-fields';
 import type { PlantDraft } from './plant-draft';
 import { usePlantStore } from './plant';
 import { useSyncStore } from './sync';
@@ -58,6 +60,22 @@ const blankTest = (): TestDescription => ({ setId: '', onlineSetIds: [], startKW
 const firstParams = (): ParamChoice[] =>
   FIT_PARAMETERS.map((p) => ({ key: p.key, unit: p.unit, chosen: FIRST_CHOICE.includes(p.key), min: p.defaultMin, max: p.defaultMax }));
 const FIRST_ITERATIONS = 30;
+
+/** The test's number fields a view takes through `take`. */
+export type TestNumberField = 'startKW' | 'startKVAR' | 'stepKW' | 'stepKVAR' | 'stepAtS';
+/** The commissioning number fields: the test's, a parameter's bounds (`params.<key>.min` / `.max`) and the iteration cap. */
+export type CommissioningField = `test.${TestNumberField}` | `params.${FitParameterKey}.${'min' | 'max'}` | 'maxIterations';
+
+/** Each test field's name in words and its own rule (the step time's place inside the record is checked before a fit). */
+const TEST_FIELDS: Readonly<Record<TestNumberField, { name: string; rule: NumberRule }>> = {
+  startKW: { name: 'load before the step', rule: from(0, undefined, 'kW') },
+  startKVAR: { name: 'reactive load before the step', rule: anyNumber },
+  stepKW: { name: 'load step', rule: anyNumber },
+  stepKVAR: { name: 'reactive load step', rule: anyNumber },
+  stepAtS: { name: 'step time', rule: anyNumber },
+};
+/** The iteration cap's rule: the fit's own limit. */
+const ITERATION_CAP = { name: 'iteration cap', rule: whole(1, 200) };
 
 /** The record in use as it came: file name, text, and the column and unit choice it was read with. */
 type AcceptedRecord = NonNullable<ProjectCommissioning['record']>;
@@ -148,11 +166,35 @@ export const useCommissioningStore = defineStore('commissioning', () => {
   const record = shallowRef<CommissioningRecord | null>(null);
   const recordError = ref<string | null>(null);
 
+  /** The number fields' entries from the screen: a refused one keeps the last good value and its reason. */
+  const fields = numberFields<CommissioningField>((key): NumberFieldAccess | null => {
+    if (key === 'maxIterations') return { ...ITERATION_CAP, get: () => maxIterations.value, set: (v) => (maxIterations.value = v) };
+    const t = /^test\.(\w+)$/.exec(key);
+    if (t) {
+      const k = t[1] as TestNumberField;
+      return { ...TEST_FIELDS[k], get: () => test.value[k], set: (v) => (test.value[k] = v) };
+    }
+    const m = /^params\.(.+)\.(min|max)$/.exec(key);
+    const info = m && FIT_PARAMETERS.find((x) => x.key === m[1]);
+    if (!m || !info) return null;
+    const edge = m[2] as 'min' | 'max';
+    const row = () => params.value.find((x) => x.key === info.key);
+    return {
+      name: `${edge === 'min' ? 'lowest' : 'highest'} ${fitParameterLabel(info.key)}`,
+      rule: from(info.lowest, info.highest, info.unit),
+      get: () => row()?.[edge] ?? Number.NaN,
+      set: (v) => {
+        const r = row();
+        if (r) r[edge] = v;
+      },
+    };
+  });
+
   const setIds = computed(() => plantStore.plant?.sets.map((s) => s.id) ?? []);
 
   /** Sentences naming what stops a fit (empty when it may run). */
   const fitProblems = computed(() => {
-    const out: string[] = [];
+    const out: string[] = fields.sentences().map((r) => `Correct the marked field first: ${r}.`);
     const plant = plantStore.plant;
     if (!parsed.value) out.push('Import a test record first.');
     if (!plant) out.push('The plant has a refused field; correct it in the Plant view.');
@@ -175,10 +217,10 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     if (chosen.length === 0) out.push('Parameters: choose at least one to fit.');
     for (const p of chosen) {
       const info = FIT_PARAMETERS.find((x) => x.key === p.key)!;
-      if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${p.key} must be numbers.`);
-      else if (!(p.max > p.min)) out.push(`Parameters: the highest value of ${p.key} must be above its lowest.`);
+      if (!Number.isFinite(p.min) || !Number.isFinite(p.max)) out.push(`Parameters: the bounds of ${info.label} must be numbers.`);
+      else if (!(p.max > p.min)) out.push(`Parameters: the highest ${info.label} must be above its lowest.`);
       else if (p.min < info.lowest || p.max > info.highest)
-        out.push(`Parameters: the bounds of ${p.key} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
+        out.push(`Parameters: the bounds of ${info.label} must lie within ${info.lowest} to ${info.highest} ${info.unit}.`);
     }
     if (!(Number.isInteger(maxIterations.value) && maxIterations.value >= 1 && maxIterations.value <= 200))
       out.push('Iteration cap: a whole number from 1 to 200.');
@@ -512,6 +554,8 @@ export const useCommissioningStore = defineStore('commissioning', () => {
     restoreError,
     setIds,
     fitProblems,
+    fieldIssues: fields.issues,
+    take: fields.take,
     openText,
     reread,
     setColumn,

@@ -4,7 +4,9 @@
  * cloning, the autosave, the project parts, the transients' rules.
  */
 export { useCommissioningStore } from './commissioning';
-export { hzBandIssues, usePlannerStore } from './planner';
+export type { CommissioningField } from './commissioning';
+export { hzBandIssues, PLANNER_FIELDS, usePlannerStore } from './planner';
+export type { PlannerField } from './planner';
 export { usePlantStore } from './plant';
 export { useProjectStore } from './project';
 export { useReportStore } from './report';

@@ -9,6 +9,8 @@ import { ref, shallowRef, watch } from 'vue';
 import type { Band, PlanField, PlanResult, Plant, SensitivityResult, ToleranceDistribution, ToleranceResult } from '../../shared-types';
 import { engine, messageOf } from '../transport';
 import { usePlantStore } from './plant';
+import { above, from, fromBelow, numberFields, whole } from './number-fields';
+import type { NumberFieldAccess, NumberRule } from './number-fields';
 import type { PlantDraft } from './plant-draft';
 
 /**
@@ -72,6 +74,46 @@ export function toleranceInputProblem(t: { speedTolHz: number; voltageTolPct: nu
   return null;
 }
 
+/** The planner's number fields a view takes through `take` (the frequency band keeps its own edge rules, `hzBandIssues`). */
+export type PlannerField =
+  | 'vBand.min'
+  | 'vBand.max'
+  | 'loadRange.min'
+  | 'loadRange.max'
+  | 'pf'
+  | 'tolerance.speedTolHz'
+  | 'tolerance.voltageTolPct'
+  | 'tolerance.droopTolPct'
+  | 'tolerance.samples'
+  | 'tolerance.seed';
+
+/** Each field's name in words and its own rule (the same limits `planInputProblem` and `toleranceInputProblem` hold). */
+export const PLANNER_FIELDS: Readonly<Record<PlannerField, { name: string; rule: NumberRule }>> = {
+  'vBand.min': { name: 'lowest bus voltage', rule: above(0, 'V') },
+  'vBand.max': { name: 'highest bus voltage', rule: above(0, 'V') },
+  'loadRange.min': { name: 'lightest load', rule: from(0, 200, '%') },
+  'loadRange.max': { name: 'heaviest load', rule: from(0, 200, '%') },
+  pf: { name: 'load power factor', rule: above(0, '', 1) },
+  'tolerance.speedTolHz': { name: 'speed-setpoint tolerance', rule: from(0, 5, 'Hz') },
+  'tolerance.voltageTolPct': { name: 'voltage-setpoint tolerance', rule: from(0, 20, '%') },
+  'tolerance.droopTolPct': { name: 'droop tolerance', rule: fromBelow(0, 50, '%') },
+  'tolerance.samples': { name: 'samples', rule: whole(10, 1_000_000) },
+  'tolerance.seed': { name: 'seed', rule: whole(0, 2 ** 31 - 1) },
+};
+const PLAN_FIELDS: readonly PlannerField[] = ['vBand.min', 'vBand.max', 'loadRange.min', 'loadRange.max', 'pf'];
+const TOLERANCE_FIELDS: readonly PlannerField[] = [
+  'tolerance.speedTolHz',
+  'tolerance.voltageTolPct',
+  'tolerance.droopTolPct',
+  'tolerance.samples',
+  'tolerance.seed',
+];
+
+/** One sentence for refused entries that stop a run ("Correct the marked field first: load power factor must be …"). */
+function refusedSentence(sentences: string[]): string | null {
+  return sentences.length ? `Correct the marked field${sentences.length > 1 ? 's' : ''} first: ${sentences.join('; ')}.` : null;
+}
+
 export type TaskState = 'idle' | 'running' | 'done' | 'error' | 'cancelled';
 
 export const usePlannerStore = defineStore('planner', () => {
@@ -105,6 +147,21 @@ export const usePlannerStore = defineStore('planner', () => {
   const toleranceError = ref<string | null>(null);
   let toleranceAbort: AbortController | null = null;
 
+  /** The number fields' entries from the screen: a refused one keeps the last good value and its reason. */
+  const fields = numberFields<PlannerField>((key): NumberFieldAccess => {
+    const [part, sub] = key.split('.') as [string, string | undefined];
+    const target = (): Record<string, number> =>
+      part === 'vBand' ? vBand.value : part === 'loadRange' ? loadRange.value : (tolerance.value as unknown as Record<string, number>);
+    return {
+      ...PLANNER_FIELDS[key],
+      get: () => (sub === undefined ? pf.value : target()[sub]!),
+      set: (v) => {
+        if (sub === undefined) pf.value = v;
+        else target()[sub] = v;
+      },
+    };
+  });
+
   watch(
     () => plantStore.plant,
     (p) => {
@@ -124,7 +181,7 @@ export const usePlannerStore = defineStore('planner', () => {
   async function runPlan(): Promise<void> {
     const p = plantStore.plant;
     if (!p) return;
-    const problem = planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value);
+    const problem = refusedSentence(fields.sentences(PLAN_FIELDS)) ?? planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value);
     if (problem) {
       planError.value = problem;
       planState.value = 'error';
@@ -183,6 +240,7 @@ export const usePlannerStore = defineStore('planner', () => {
     const p = plantStore.plant;
     if (!p) return;
     const problem =
+      refusedSentence(fields.sentences(toleranceOver.value === 'range' ? [...TOLERANCE_FIELDS, ...PLAN_FIELDS] : TOLERANCE_FIELDS)) ??
       toleranceInputProblem(tolerance.value) ??
       (toleranceOver.value === 'range' ? planInputProblem(hzBand.value, vBand.value, loadRange.value, pf.value) : null);
     if (problem) {
@@ -247,5 +305,7 @@ export const usePlannerStore = defineStore('planner', () => {
     toleranceError,
     runTolerance,
     cancelTolerance,
+    fieldIssues: fields.issues,
+    take: fields.take,
   };
 });

@@ -8,6 +8,7 @@ import { computed, ref, shallowRef } from 'vue';
 import type { BuildReportRequest, ReportResult } from '../../shared-types';
 import { host } from '../host';
 import { EngineCallError, engine, messageOf } from '../transport';
+import { above, numberFields } from './number-fields';
 import { usePlantStore } from './plant';
 import { useSyncStore } from './sync';
 import { useTransientsStore } from './transients';
@@ -63,11 +64,26 @@ export const useReportStore = defineStore('report', () => {
   const result = shallowRef<ReportResult | null>(null);
   let controller: AbortController | null = null;
 
+  /** The load power factor as typed: a refused entry keeps the last good value and names the rule (the engine's own). */
+  const fields = numberFields<'loadPF'>(() => ({
+    name: 'load power factor',
+    rule: above(0, '', 1),
+    get: () => loadPF.value,
+    set: (v) => (loadPF.value = v),
+  }));
+
   const loads = computed(() => parseLoads(loadsText.value));
   const pfProblem = computed(() =>
     Number.isFinite(loadPF.value) && loadPF.value > 0 && loadPF.value <= 1 ? null : 'loadPF: must be greater than 0 and at most 1',
   );
-  const problems = computed(() => [loads.value.problem, pfProblem.value, date.value ? null : 'date: must not be empty'].filter((p): p is string => !!p));
+  const problems = computed(() =>
+    [
+      ...fields.sentences().map((r) => `Correct the marked field first: ${r}.`),
+      loads.value.problem,
+      pfProblem.value,
+      date.value ? null : 'date: must not be empty',
+    ].filter((p): p is string => !!p),
+  );
   const canBuild = computed(() => !building.value && !!plantStore.plant && problems.value.length === 0);
 
   /** The request as it would be sent now (null without a plant). */
@@ -153,6 +169,8 @@ export const useReportStore = defineStore('report', () => {
     loads,
     problems,
     canBuild,
+    fieldIssues: fields.issues,
+    take: fields.take,
     request,
     build,
     cancel,

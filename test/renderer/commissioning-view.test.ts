@@ -51,6 +51,59 @@ describe('Commissioning view', () => {
     expect(plant.plant!.sets[0]!.governor.engineLagS).toBe(0.3);
   });
 
+  it('refuses unreadable or out-of-rule text in the test, bound and cap fields beside the field, keeping the last good value', async () => {
+    const store = useCommissioningStore();
+    await w.get('[data-test="record-example"]').trigger('click');
+    await settle();
+    await w.get('[data-test="import-accept"]').trigger('click');
+    await settle();
+    expect(store.fitProblems).toEqual([]);
+    const step = w.get('[data-test="test-step-kw"]');
+    expect(step.attributes('type')).toBe('text');
+    await step.setValue('abc');
+    await settle();
+    expect(store.test.stepKW).toBe(500); // the example's step stays in the store
+    expect(w.get('[data-test="error-test-step-kw"]').text()).toBe('load step must be a number');
+    expect((step.element as HTMLInputElement).value).toBe('abc');
+    // The fit waits, and says why.
+    expect(w.get('[data-test="fit-run"]').attributes('disabled')).toBeDefined();
+    expect(w.get('[data-test="fit-problems"]').text()).toContain('Correct the marked field first: load step must be a number.');
+    await step.setValue('400');
+    await settle();
+    expect(store.test.stepKW).toBe(400);
+    expect(w.find('[data-test="error-test-step-kw"]').exists()).toBe(false);
+
+    const cap = w.get('[data-test="fit-cap"]');
+    await cap.setValue('0');
+    await settle();
+    expect(store.maxIterations).toBe(30);
+    expect(w.get('[data-test="error-fit-cap"]').text()).toBe('iteration cap must be a whole number from 1 to 200');
+    await cap.setValue('40');
+    await settle();
+    expect(store.maxIterations).toBe(40);
+
+    // A bound outside the parameter's own limits (inertia constant H: 0.05 to 30 s in FIT_PARAMETERS) is refused by name.
+    const lowH = w.get('[data-test="param-machine.inertiaS-min"]');
+    expect(lowH.attributes('aria-label')).toBe('lowest inertia constant H');
+    await lowH.setValue('0.01');
+    await settle();
+    expect(w.get('[data-test="error-param-machine.inertiaS-min"]').text()).toBe('lowest inertia constant H must be from 0.05 to 30 s');
+    await lowH.setValue('');
+    await settle();
+    expect(store.params.find((p) => p.key === 'machine.inertiaS')!.min).toBe(0.3);
+    expect(w.get('[data-test="error-param-machine.inertiaS-min"]').text()).toBe('lowest inertia constant H must be a number');
+    // Each bound keeps its own rule; the two together are checked before a fit, in words.
+    await w.get('[data-test="param-machine.inertiaS-max"]').setValue('0.2');
+    await settle();
+    expect(store.params.find((p) => p.key === 'machine.inertiaS')!.max).toBe(0.2);
+    expect(w.get('[data-test="fit-problems"]').text()).toContain('Parameters: the highest inertia constant H must be above its lowest.');
+    // A parameter not chosen keeps its bounds but they cannot be edited.
+    store.params.find((p) => p.key === 'machine.inertiaS')!.chosen = false;
+    await settle();
+    expect(lowH.attributes('disabled')).toBeDefined();
+    expect(w.text()).not.toContain('NaN');
+  });
+
   it('makes the commissioning record with the sign-off and the caution', async () => {
     const store = useCommissioningStore();
     store.recordSetId = 'G3';

@@ -106,6 +106,70 @@ describe('Planner view', () => {
     expect(w.find('[data-test="error-hz-max"]').exists()).toBe(false);
   });
 
+  it('refuses unreadable or out-of-rule text in the power factor and samples fields beside the field, keeping the last good value', async () => {
+    const planner = usePlannerStore();
+    const pf = w.get('[data-test="pf"]');
+    expect(pf.attributes('type')).toBe('text');
+    await pf.setValue('abc');
+    await settle();
+    expect(planner.pf).toBe(0.8); // the last good value stays in the store
+    expect(w.get('[data-test="error-pf"]').text()).toBe('load power factor must be a number');
+    expect((pf.element as HTMLInputElement).value).toBe('abc'); // the text typed stays on show beside its reason
+    expect(pf.attributes('aria-invalid')).toBe('true');
+    // The plan is not run on the kept value while the field shows refused text.
+    await w.get('[data-test="plan"]').trigger('submit');
+    await settle();
+    expect(planner.planState).toBe('error');
+    expect(w.get('[data-test="plan-error"]').text()).toContain('load power factor must be a number');
+    // Power factor is above 0 and at most 1 (closed form: cos φ).
+    await pf.setValue('1.2');
+    await settle();
+    expect(planner.pf).toBe(0.8);
+    expect(w.get('[data-test="error-pf"]').text()).toBe('load power factor must be above 0 and at most 1');
+    await pf.setValue('0.9');
+    await settle();
+    expect(planner.pf).toBe(0.9);
+    expect(w.find('[data-test="error-pf"]').exists()).toBe(false);
+
+    const samples = w.get('[data-test="tol-samples"]');
+    await samples.setValue('');
+    await settle();
+    expect(planner.tolerance.samples).toBe(10_000);
+    expect(w.get('[data-test="error-tol-samples"]').text()).toBe('samples must be a number');
+    await samples.setValue('2.5');
+    await settle();
+    expect(w.get('[data-test="error-tol-samples"]').text()).toBe('samples must be a whole number from 10 to 1 000 000');
+    await w.get('[data-test="tol-run"]').trigger('submit');
+    await settle();
+    expect(planner.toleranceState).toBe('error');
+    expect(planner.toleranceError).toContain('samples must be a whole number');
+    // A value from elsewhere replaces the refused text, and its reason goes with it.
+    planner.tolerance.samples = 500;
+    await settle();
+    expect(w.find('[data-test="error-tol-samples"]').exists()).toBe(false);
+    expect((samples.element as HTMLInputElement).value).toBe('500');
+    expect(w.text()).not.toContain('NaN');
+  });
+
+  it('takes the voltage band and load range through number inputs with their units and steps', async () => {
+    const planner = usePlannerStore();
+    await w.get('[data-test="v-min"]').setValue('-5');
+    await settle();
+    expect(planner.vBand.min).toBe(390);
+    expect(w.get('[data-test="error-v-min"]').text()).toBe('lowest bus voltage must be above 0 V');
+    await w.get('[data-test="load-max"]').setValue('250');
+    await settle();
+    expect(planner.loadRange.max).toBe(100);
+    expect(w.get('[data-test="error-load-max"]').text()).toBe('heaviest load must be from 0 to 200 %');
+    // Up steps the field by its step (5 %) and the store takes it.
+    const from = w.get('[data-test="load-min"]');
+    await from.trigger('focus');
+    await from.trigger('keydown', { key: 'ArrowUp' });
+    await settle();
+    expect(planner.loadRange.min).toBe(5);
+    expect(w.get('label:has([data-test="load-max"])').text()).toContain('% of online rated kW');
+  });
+
   it('marks the largest sensitivity entries in words', async () => {
     await w.get('[data-test="sensitivity"]').trigger('click');
     await settle();

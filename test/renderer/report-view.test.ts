@@ -28,6 +28,30 @@ describe('ReportView', () => {
     expect(w.get('[data-test="report-build"]').attributes('disabled')).toBeDefined();
   });
 
+  it('refuses an unreadable or out-of-rule power factor beside the field, keeps the last good one and turns Build off', async () => {
+    const store = useReportStore();
+    store.date = '2026-12-02';
+    const w = mount(ReportView, { attachTo: document.body });
+    const pf = w.get('[data-test="report-pf"]');
+    expect(pf.attributes('type')).toBe('text');
+    await pf.setValue('abc');
+    expect(store.loadPF).toBe(0.8); // the last good value stays in the store
+    expect(w.get('[data-test="error-report-pf"]').text()).toBe('load power factor must be a number');
+    expect((pf.element as HTMLInputElement).value).toBe('abc');
+    expect(w.get('[data-test="report-build"]').attributes('disabled')).toBeDefined();
+    expect(w.get('[data-test="report-problems"]').text()).toContain('Correct the marked field first: load power factor must be a number.');
+    // Power factor is above 0 and at most 1 (closed form: cos φ; the engine's report request holds the same rule).
+    await pf.setValue('1.05');
+    expect(store.loadPF).toBe(0.8);
+    expect(w.get('[data-test="error-report-pf"]').text()).toBe('load power factor must be above 0 and at most 1');
+    await pf.setValue('0.9');
+    expect(store.loadPF).toBe(0.9);
+    expect(w.find('[data-test="error-report-pf"]').exists()).toBe(false);
+    expect(w.find('[data-test="report-problems"]').exists()).toBe(false);
+    expect(w.get('[data-test="report-build"]').attributes('disabled')).toBeUndefined();
+    w.unmount();
+  });
+
   it('builds the same report as the engine from the plant, the scenarios and the sync settings', async () => {
     const transients = useTransientsStore();
     transients.restore([{ id: 'q', name: 'Quick step', durationS: 2, stepMs: 2, events: [{ atS: 0.5, type: 'load-step', kW: 100, kVAR: 60 }] }]);
