@@ -126,7 +126,7 @@ export function residualChart(fit: FitResult, ratedFrequencyHz: number, ratedVol
         pointStyle: v.pointStyle,
       },
     ],
-    'measured − model, % of rated',
+    'residual, % of rated',
     theme,
   );
 }
