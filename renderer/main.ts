@@ -4,7 +4,7 @@
  * the first figure shows sooner. The plant store takes that answer when it loads the demo (see `transport/early.ts`).
  */
 import demoPlant from './demo/water-works.plant.json';
-import { DEMO_CHECK, engine, keepEarly } from './transport';
+import { engine, keepDemoCheck } from './transport';
 
-keepEarly(DEMO_CHECK, engine().call('checkPlant', { plant: structuredClone(demoPlant) }));
+keepDemoCheck(engine().call('checkPlant', { plant: structuredClone(demoPlant) }));
 void import('./app');

@@ -31,6 +31,16 @@ export function formatNumber(value: number | null | undefined, decimals = 0): st
 }
 
 /**
+ * A bound as the rules write it: 2 000 000, 0.01 (groups of three split by a space, up to ten decimals). One formatter
+ * for every bound: `toLocaleString` with options builds a new one per call, and the schemas ask for hundreds of bounds
+ * when the engine loads.
+ */
+const boundFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 10 });
+export function formatBound(n: number): string {
+  return boundFormat.format(n).replace(/,/g, ' ');
+}
+
+/**
  * A signed figure ("+1.2", "−0.4", "0.0") for errors and deviations: true minus sign by default; `{ ascii: true }`
  * writes "-0.4" where a readout has always shown the keyboard minus. Zero (and what rounds to it) has no sign, unless
  * `{ plusAtZero: true }` (an axis whose every tick is signed): then a value of zero or more that rounds to zero is "+0.00".

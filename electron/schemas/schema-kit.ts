@@ -8,6 +8,7 @@
  * finiteness check of its own.
  */
 import { z } from 'zod';
+import { formatBound } from '../../shared-types';
 import type { SyncLimits } from '../../shared-types';
 
 /** A number in `unit` (the unit is named in the message when the value is not a number). */
@@ -22,12 +23,8 @@ export const positive = (unit: string) => num(unit).gt(0, 'must be greater than 
 export const numOrNull = () => z.union([num(), z.null()], { error: 'must be a number or null' });
 /** A number 0 or more. */
 export const nonNegative = (unit: string) => num(unit).gte(0, 'must be 0 or more');
-/**
- * A bound written the way the messages write it: 2 000 000, 0.01. One formatter for every bound: `toLocaleString`
- * with options builds a new one per call, and the schemas ask for hundreds of bounds when the engine loads.
- */
-const boundFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 10 });
-export const spaced = (n: number): string => boundFormat.format(n).replace(/,/g, ' ');
+/** A bound written the way the messages write it: 2 000 000, 0.01 (`formatBound`, shared with the screens' rules). */
+const spaced = formatBound;
 /** A number within [lo, hi], each rule in words with its unit ("must be 100 V or more"). */
 export const between = (unit: string, lo: number, hi: number, words = unit) =>
   num(unit)

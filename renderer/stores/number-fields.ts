@@ -5,6 +5,7 @@
  * beside the field) until a good entry comes, or the value changes from elsewhere (defaults, a project opened).
  */
 import { ref, watchEffect } from 'vue';
+import { formatBound } from '../../shared-types';
 import type { Ref } from 'vue';
 
 /** A field's rule: null when `v` keeps it, else the rule in words after the field's name ("must be above 0 V"). */
@@ -20,7 +21,7 @@ export interface NumberFieldAccess {
 }
 
 const NOT_A_NUMBER = 'must be a number';
-const show = (x: number): string => x.toLocaleString('en-GB', { maximumFractionDigits: 6 }).replace(/,/g, ' ');
+const show = formatBound;
 const withUnit = (x: number, unit: string): string => (unit ? `${show(x)} ${unit}` : show(x));
 
 /** Any finite number. */

@@ -11,7 +11,7 @@ import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import type { CheckedPlant, FieldIssue, Plant, PlantDescription } from '../../shared-types';
 import demoPlant from '../demo/water-works.plant.json';
-import { DEMO_CHECK, EngineCallError, engine, messageOf, takeEarly } from '../transport';
+import { EngineCallError, engine, messageOf, takeDemoCheck } from '../transport';
 import { latestOnly } from './latest-only';
 import { clonePlain, draftOf, getIn, keepSame, setIn } from './plant-draft';
 import type { PlantDraft } from './plant-draft';
@@ -92,7 +92,7 @@ export const usePlantStore = defineStore('plant', () => {
   }
 
   /** Validates `candidate`; on success it becomes the plant and the draft, and undo history restarts. */
-  async function load(candidate: unknown, from: string, asked?: Promise<CheckedPlant>): Promise<boolean> {
+  async function load(candidate: unknown, from: string, asked: Promise<CheckedPlant> | null = null): Promise<boolean> {
     try {
       // With the sharing store attached, the same request solves the plant (one round trip).
       let valid: Plant;
@@ -130,7 +130,7 @@ export const usePlantStore = defineStore('plant', () => {
 
   /** Loads the shipped demo plant (with the check the page asked for as it started, when there is one). */
   function loadDemo(): Promise<boolean> {
-    return load(structuredClone(demoPlant), 'demo plant', takeEarly<CheckedPlant>(DEMO_CHECK));
+    return load(structuredClone(demoPlant), 'demo plant', takeDemoCheck());
   }
 
   const describer = latestOnly(describe);

@@ -1,21 +1,20 @@
 /**
- * Calls the page makes before the app's code has loaded (the demo plant's first check, see `main.ts`), kept here for
- * the store that would otherwise make them: the engine answers while the app loads. A call nobody takes is dropped
- * quietly (its failure, if any, is the taker's to report).
+ * The demo plant's first check (`checkPlant` at the plant's own loads, not described), asked for by `main.ts` before
+ * the app's code has loaded and kept here for the plant store's first demo load: the engine answers while the app
+ * loads. A check nobody takes is dropped quietly (its failure, if any, is the taker's to report).
  */
-const kept = new Map<string, Promise<unknown>>();
+import type { CheckedPlant } from '../../shared-types';
 
-/** The key of the demo plant's first check (`checkPlant` at the plant's own loads, not described). */
-export const DEMO_CHECK = 'demo-check';
+let demoCheck: Promise<CheckedPlant> | null = null;
 
-export function keepEarly<T>(key: string, call: Promise<T>): void {
+export function keepDemoCheck(call: Promise<CheckedPlant>): void {
   call.catch(() => undefined);
-  kept.set(key, call);
+  demoCheck = call;
 }
 
-/** The call kept under `key`, once (later takers make their own). */
-export function takeEarly<T>(key: string): Promise<T> | undefined {
-  const call = kept.get(key) as Promise<T> | undefined;
-  kept.delete(key);
+/** The kept check, once (later loads make their own). */
+export function takeDemoCheck(): Promise<CheckedPlant> | null {
+  const call = demoCheck;
+  demoCheck = null;
   return call;
 }

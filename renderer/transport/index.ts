@@ -5,7 +5,7 @@ import { createIpcClient } from './ipc-transport';
 import { createWorkerClient } from './worker-transport';
 
 export { EngineCallError, messageOf } from './engine-client';
-export { DEMO_CHECK, keepEarly, takeEarly } from './early';
+export { keepDemoCheck, takeDemoCheck } from './early';
 export type { EngineClient, CallOptions } from './engine-client';
 
 declare global {

@@ -1,6 +1,6 @@
 import { describe, it, expect, beforeEach } from 'vitest';
 import { usePlantStore } from '../../renderer/stores/plant';
-import { DEMO_CHECK, keepEarly, setEngineClient } from '../../renderer/transport';
+import { keepDemoCheck, setEngineClient } from '../../renderer/transport';
 import { useSharingStore } from '../../renderer/stores';
 import type { EngineClient } from '../../renderer/transport';
 import { directClient } from '../helpers/direct-client';
@@ -152,7 +152,7 @@ describe('the demo plant check the page asks for as it starts', () => {
   it('is taken by the first demo load instead of a second request, and only once', async () => {
     const inner = directClient();
     const early = inner.call('checkPlant', { plant: demoPlantJson() });
-    keepEarly(DEMO_CHECK, early);
+    keepDemoCheck(early);
     const asked: string[] = [];
     setEngineClient({
       call(method, request, options) {
@@ -173,7 +173,7 @@ describe('the demo plant check the page asks for as it starts', () => {
   });
 
   it('reports a failed early check as the load failing, naming the demo plant', async () => {
-    keepEarly(DEMO_CHECK, Promise.reject(new Error('engine did not start')));
+    keepDemoCheck(Promise.reject(new Error('engine did not start')));
     const store = usePlantStore();
     useSharingStore();
     expect(await store.loadDemo()).toBe(false);

@@ -31,3 +31,17 @@ export function reasonAt(
 ): { issue: string | undefined; issueKey: string; issueTest: string } {
   return { issue: errors[path], issueKey: `${scope}-${path}`, issueTest: `${testPrefix}${path}` };
 }
+
+/**
+ * A store-checked number field's `NumberInput` props: its name in words and test id, and the reason the store refused
+ * its entry (`issues`: field key → rule), found by `reasonAt` under the test id (reason test id `error-` + test id).
+ */
+export function storeFieldProps<K extends string>(
+  issues: Partial<Record<K, string>>,
+  key: K,
+  name: string,
+  testId: string,
+  scope: string,
+): { name: string; testId: string; issue: string | undefined; issueKey: string; issueTest: string } {
+  return { name, testId, ...reasonAt({ [testId]: issues[key] }, testId, scope) };
+}
